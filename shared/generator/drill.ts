@@ -1,0 +1,62 @@
+/**
+ * The drill: what the engine returns for a rule card and a seed, and what every consumer
+ * (notation, playback, PDF, MIDI, MusicXML, seed links, tension plots) reads.
+ *
+ * Positions are exact: a hit sits at `(beat - 1) + slot / beats[beat - 1]` beats from the start
+ * of its bar. Bars and beats count from 1, as a drummer counts; `slot` is 0-based inside the beat.
+ */
+
+/** Every voice the engine knows, in plain string order where order matters (hit sorting). */
+export const VOICE_IDS = [
+  'kick',
+  'snare',
+  'rim',
+  'hihat',
+  'hihatOpen',
+  'hihatFoot',
+  'ride',
+  'rideBell',
+  'crash',
+  'tomHigh',
+  'tomMid',
+  'tomFloor',
+] as const;
+
+export type VoiceId = (typeof VOICE_IDS)[number];
+
+/** Feet: `kick` is the right foot, `hihatFoot` the left; every other voice is played by a hand. */
+export const FOOT_VOICES: ReadonlySet<VoiceId> = new Set<VoiceId>(['kick', 'hihatFoot']);
+
+export function isHandVoice(voice: VoiceId): boolean {
+  return !FOOT_VOICES.has(voice);
+}
+
+export type Dynamic = 'ghost' | 'normal' | 'accent';
+export type Hand = 'R' | 'L';
+
+/** Which part of the card placed a hit; earlier names win when two parts want one instant. */
+export const HIT_SOURCES = ['ostinato', 'backbeat', 'avoidDownbeat', 'polyrhythm', 'euclid', 'fill'] as const;
+export type HitSource = (typeof HIT_SOURCES)[number];
+
+export interface DrillHit {
+  /** Beat in the bar, counted from 1. */
+  readonly beat: number;
+  /** 0-based position inside the beat's subdivision. */
+  readonly slot: number;
+  readonly voice: VoiceId;
+  readonly dynamic: Dynamic;
+  /** `R` or `L` for hand voices, `null` for feet. */
+  readonly hand: Hand | null;
+  readonly source: HitSource;
+}
+
+export interface DrillBar {
+  /** Bar number, counted from 1. */
+  readonly bar: number;
+  /** Slots per beat, one entry per beat of the meter. */
+  readonly beats: readonly number[];
+  /** The bar's measured syncopation, 0..1 (see `measureTension`). */
+  readonly tension: number;
+  /** Sorted by beat, slot, then voice id. */
+  readonly hits: readonly DrillHit[];
+}
