@@ -1,0 +1,73 @@
+import { Routes } from '@angular/router';
+
+import { redirectSignedIn, redirectToHome, requireRole, requireSignedIn } from './core/auth-guard';
+
+/**
+ * Every feature is a lazy chunk, so the first load carries only the router, the session and the
+ * page being opened. Titles are page names; TensileTitleStrategy prefixes "Tensile · ".
+ */
+export const routes: Routes = [
+  { path: '', pathMatch: 'full', canActivate: [redirectToHome], children: [] },
+  {
+    path: 'sign-in',
+    title: 'Sign in',
+    canActivate: [redirectSignedIn],
+    loadComponent: () => import('./auth/sign-in/sign-in').then((m) => m.SignIn),
+  },
+  {
+    path: '',
+    canActivate: [requireSignedIn],
+    loadComponent: () => import('./shell/shell').then((m) => m.Shell),
+    children: [
+      {
+        path: 'rule-cards',
+        canActivate: [requireRole('teacher')],
+        loadChildren: () =>
+          import('./rule-cards/rule-cards-routes').then((m) => m.RULE_CARD_ROUTES),
+      },
+      {
+        // Open to every signed-in role: students practise built-in cards read-only.
+        path: 'drills',
+        loadChildren: () => import('./drills/drill-routes').then((m) => m.DRILL_ROUTES),
+      },
+      {
+        path: 'worksheets',
+        canActivate: [requireRole('teacher')],
+        loadChildren: () =>
+          import('./worksheets/worksheets-routes').then((m) => m.WORKSHEET_ROUTES),
+      },
+      {
+        path: 'studio',
+        canActivate: [requireRole('teacher')],
+        loadChildren: () => import('./studio/studio-routes').then((m) => m.STUDIO_ROUTES),
+      },
+      {
+        path: 'assignments',
+        canActivate: [requireRole('student')],
+        loadChildren: () =>
+          import('./assignments/assignments-routes').then((m) => m.ASSIGNMENT_ROUTES),
+      },
+      {
+        path: 'practice',
+        canActivate: [requireRole('student')],
+        loadChildren: () => import('./practice/practice-routes').then((m) => m.PRACTICE_ROUTES),
+      },
+      {
+        path: 'presets',
+        canActivate: [requireRole('admin')],
+        loadChildren: () => import('./presets/presets-routes').then((m) => m.PRESET_ROUTES),
+      },
+      {
+        path: 'admin',
+        canActivate: [requireRole('admin')],
+        loadChildren: () => import('./admin/admin-routes').then((m) => m.ADMIN_ROUTES),
+      },
+    ],
+  },
+  {
+    // Outside the shell so it answers signed-out visitors too.
+    path: '**',
+    title: 'Page not found',
+    loadComponent: () => import('./not-found/not-found').then((m) => m.NotFound),
+  },
+];

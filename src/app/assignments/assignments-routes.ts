@@ -1,0 +1,10 @@
+import { Routes } from '@angular/router';
+
+/** Lazy routes under /assignments. */
+export const ASSIGNMENT_ROUTES: Routes = [
+  {
+    path: '',
+    title: 'Assignments',
+    loadComponent: () => import('./assignments').then((m) => m.Assignments),
+  },
+];

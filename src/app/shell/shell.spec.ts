@@ -1,0 +1,134 @@
+import { provideHttpClient } from '@angular/common/http';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { Component, provideZonelessChangeDetection } from '@angular/core';
+import { ComponentFixture, TestBed } from '@angular/core/testing';
+import { Router, provideRouter } from '@angular/router';
+import { firstValueFrom } from 'rxjs';
+import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+
+import { AUTH_SIGN_IN_URL, AUTH_SIGN_OUT_URL, AuthSession } from '../core/auth-session';
+import { SessionUser } from '../core/user';
+import { Shell } from './shell';
+
+@Component({ template: '<p>page</p>' })
+class Blank {}
+
+const people: Record<SessionUser['role'], SessionUser> = {
+  teacher: {
+    id: 3,
+    email: 'hana.lindqvist@larkspur.test',
+    name: 'Hana Lindqvist',
+    role: 'teacher',
+  },
+  student: { id: 5, email: 'felix.abara@larkspur.test', name: 'Felix Abara', role: 'student' },
+  admin: { id: 1, email: 'imogen.vale@larkspur.test', name: 'Imogen Vale', role: 'admin' },
+};
+
+describe('Shell', () => {
+  let fixture: ComponentFixture<Shell>;
+  let backend: HttpTestingController;
+
+  beforeEach(() => {
+    TestBed.configureTestingModule({
+      imports: [Shell],
+      providers: [
+        provideZonelessChangeDetection(),
+        provideHttpClient(),
+        provideHttpClientTesting(),
+        provideRouter([
+          { path: 'sign-in', component: Blank },
+          { path: '**', component: Blank },
+        ]),
+      ],
+    });
+    backend = TestBed.inject(HttpTestingController);
+  });
+
+  afterEach(() => backend.verify());
+
+  async function renderAs(person: SessionUser): Promise<HTMLElement> {
+    const signedIn = firstValueFrom(TestBed.inject(AuthSession).signIn(person.email, 'demo'));
+    backend.expectOne(AUTH_SIGN_IN_URL).flush({ user: person });
+    await signedIn;
+    fixture = TestBed.createComponent(Shell);
+    await fixture.whenStable();
+    return fixture.nativeElement as HTMLElement;
+  }
+
+  const navLabels = (page: HTMLElement) =>
+    [...page.querySelectorAll('nav[aria-label="Main"] a [matListItemTitle]')].map((title) =>
+      title.textContent?.trim(),
+    );
+  const navTargets = (page: HTMLElement) =>
+    [...page.querySelectorAll('nav[aria-label="Main"] a')].map((a) => a.getAttribute('href'));
+
+  it('gives a teacher rule cards, drills, worksheets and the studio', async () => {
+    const page = await renderAs(people.teacher);
+    expect(navLabels(page)).toEqual(['Rule cards', 'Drills', 'Worksheets', 'Studio']);
+    expect(navTargets(page)).toEqual(['/rule-cards', '/drills', '/worksheets', '/studio']);
+  });
+
+  it('gives a student assignments and practice only', async () => {
+    const page = await renderAs(people.student);
+    expect(navLabels(page)).toEqual(['Assignments', 'Practice']);
+    expect(navTargets(page)).toEqual(['/assignments', '/practice']);
+  });
+
+  it('gives an admin presets and users', async () => {
+    const page = await renderAs(people.admin);
+    expect(navLabels(page)).toEqual(['Presets', 'Users']);
+    expect(navTargets(page)).toEqual(['/presets', '/admin/users']);
+  });
+
+  it('marks the current page in the navigation', async () => {
+    const page = await renderAs(people.student);
+    await TestBed.inject(Router).navigateByUrl('/practice');
+    await fixture.whenStable();
+    const current = page.querySelector('nav a[aria-current="page"]');
+    expect(current?.getAttribute('href')).toBe('/practice');
+  });
+
+  it('names the person and role on the account button, and signs out', async () => {
+    const page = await renderAs(people.admin);
+    const account = page.querySelector<HTMLButtonElement>('button[aria-label^="Account"]')!;
+    expect(account.getAttribute('aria-label')).toBe('Account: Imogen Vale, Admin');
+    account.click();
+    await fixture.whenStable();
+    const signOut = [...document.querySelectorAll<HTMLButtonElement>('[mat-menu-item]')].find((b) =>
+      b.textContent?.includes('Sign out'),
+    )!;
+    signOut.click();
+    backend.expectOne(AUTH_SIGN_OUT_URL).flush(null, { status: 204, statusText: 'No Content' });
+    await fixture.whenStable();
+    expect(TestBed.inject(AuthSession).user()).toBeNull();
+    expect(TestBed.inject(Router).url).toBe('/sign-in');
+  });
+
+  it('offers a skip link, a theme toggle and the safety note', async () => {
+    const page = await renderAs(people.teacher);
+    expect(page.querySelector('a.skip-link')?.textContent).toContain('Skip to content');
+    expect(
+      page.querySelector(
+        'button[aria-label="Use dark theme"], button[aria-label="Use light theme"]',
+      ),
+    ).not.toBeNull();
+    expect(page.querySelector('footer tensile-safety-note')?.textContent).toContain(
+      'hearing protection',
+    );
+  });
+
+  it('on a narrow screen, hides the navigation behind a labelled menu button', async () => {
+    // jsdom matches no media query, so the shell lays out as on a tablet or phone.
+    const page = await renderAs(people.teacher);
+    const menu = page.querySelector<HTMLButtonElement>(
+      'button[aria-controls="tensile-navigation"]',
+    )!;
+    expect(menu.getAttribute('aria-label')).toBe('Show navigation');
+    expect(menu.getAttribute('aria-expanded')).toBe('false');
+    menu.click();
+    await fixture.whenStable();
+    expect(menu.getAttribute('aria-expanded')).toBe('true');
+    expect(menu.getAttribute('aria-label')).toBe('Hide navigation');
+    expect(page.querySelector('mat-sidenav')?.classList).toContain('mat-drawer-opened');
+  });
+});
