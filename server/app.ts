@@ -1,0 +1,90 @@
+import express, { type Express } from 'express';
+import type { Knex } from 'knex';
+import type session from 'express-session';
+import { createAuthRouter, createSignInLimiter } from './auth/auth-router';
+import { AuthService } from './auth/auth-service';
+import { createPassport } from './auth/passport-setup';
+import { UsersRepository } from './auth/users-repository';
+import type { AttemptLimiter } from './auth/attempt-limiter';
+import type { Config } from './config';
+import { apiNotFound, errorHandler } from './error-handler';
+import { createHealthRouter } from './health/health-router';
+import { createLogger, type Logger } from './logger';
+import { builtInPresetViews } from './presets/built-in-presets';
+import { createPresetsRouter, type PresetView } from './presets/presets-router';
+import { requestLog } from './request-log';
+import { requireSameOrigin } from './same-origin';
+import { securityHeaders } from './security-headers';
+import {
+  SESSION_COOKIE,
+  createSessionMiddleware,
+  createSessionStore,
+  warnWhenCookiesCannotBeSent,
+} from './session';
+import { createUsersRouter } from './users/users-router';
+import { createSpaRouter } from './web/spa';
+
+/** What {@link createApp} needs; everything but `config` and `db` has a default. */
+export interface AppDeps {
+  readonly config: Config;
+  readonly db: Knex;
+  readonly logger?: Logger;
+  /** Session store; defaults to one on `db`. Pass one to control its clean-up timer. */
+  readonly sessionStore?: session.Store;
+  /** The built browser app; defaults to `dist/tensile/browser`. */
+  readonly browserDist?: string;
+  readonly signInLimiter?: AttemptLimiter;
+  readonly presets?: readonly PresetView[];
+}
+
+/** Largest JSON body accepted; rule cards and drills are far smaller. */
+const JSON_BODY_LIMIT = '256kb';
+
+/**
+ * Builds the Express app without listening. The database must already be migrated.
+ */
+export function createApp(deps: AppDeps): Express {
+  const { config, db } = deps;
+  const logger = deps.logger ?? createLogger(config.logLevel);
+  const users = new UsersRepository(db);
+  const auth = new AuthService(users, config.bcryptCost);
+  const passport = createPassport(auth);
+  const store = deps.sessionStore ?? createSessionStore(db, logger);
+
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', config.trustProxy);
+
+  app.use(securityHeaders({ https: config.secureCookies }));
+  app.use('/api', requestLog(logger));
+  app.use('/api', (_req, res, next) => {
+    // API answers depend on who asks; never let a shared cache keep them.
+    res.setHeader('Cache-Control', 'no-store');
+    next();
+  });
+  app.use('/api', requireSameOrigin(config.publicUrl));
+  app.use('/api', express.json({ limit: JSON_BODY_LIMIT }));
+  // Before the session: a health check must not depend on the session store answering.
+  app.use('/api/health', createHealthRouter(db));
+  if (config.secureCookies) app.use('/api', warnWhenCookiesCannotBeSent(logger));
+  app.use('/api', createSessionMiddleware(config, store));
+  app.use('/api', passport.initialize());
+  app.use('/api', passport.session());
+
+  // Feature routers; each route states the roles it allows.
+  app.use(
+    '/api/auth',
+    createAuthRouter({
+      passport,
+      limiter: deps.signInLimiter ?? createSignInLimiter(),
+      cookieName: SESSION_COOKIE,
+    }),
+  );
+  app.use('/api/users', createUsersRouter(users));
+  app.use('/api/presets', createPresetsRouter(deps.presets ?? builtInPresetViews()));
+  app.use('/api', apiNotFound);
+
+  app.use(createSpaRouter(deps.browserDist));
+  app.use(errorHandler(logger));
+  return app;
+}

@@ -1,0 +1,100 @@
+import { Router, type Request, type Response } from 'express';
+import type passport from 'passport';
+import { HttpError } from '../http-error';
+import { validate } from '../validate';
+import { AttemptLimiter } from './attempt-limiter';
+import type { SignInBody } from './auth-schemas';
+import { signInBody } from './auth-schemas';
+import { LOCAL_STRATEGY } from './passport-setup';
+import { allowAnyone, requireSignIn } from './require-role';
+import type { PublicUser } from './roles';
+import { normaliseEmail } from './users-repository';
+
+/** Dependencies of {@link createAuthRouter}. */
+export interface AuthRouterDeps {
+  readonly passport: passport.Authenticator;
+  readonly limiter: AttemptLimiter;
+  /** The session cookie's name, cleared on sign-out. */
+  readonly cookieName: string;
+}
+
+/** 10 failed sign-ins per address and e-mail per 15 minutes: common practice for web sign-in. */
+export function createSignInLimiter(): AttemptLimiter {
+  return new AttemptLimiter({ maxFailures: 10, windowMs: 15 * 60_000 });
+}
+
+const WRONG_CREDENTIALS = 'Email or password is not correct.';
+
+/**
+ * `/api/auth`:
+ * - `POST /sign-in` (anyone) → `{ user }`, or 401 with one message for any wrong credentials;
+ * - `POST /sign-out` (anyone; ends the session if there is one) → 204;
+ * - `GET /me` (signed in, any role) → `{ user }`.
+ */
+export function createAuthRouter(deps: AuthRouterDeps): Router {
+  const router = Router();
+
+  router.post('/sign-in', allowAnyone, validate({ body: signInBody }), async (req, res) => {
+    const body = req.body as SignInBody;
+    const key = `${req.ip ?? 'unknown'}|${normaliseEmail(body.email)}`;
+    const waitMs = deps.limiter.retryAfterMs(key);
+    if (waitMs > 0) {
+      const minutes = Math.ceil(waitMs / 60_000);
+      res.setHeader('Retry-After', String(Math.ceil(waitMs / 1000)));
+      throw new HttpError(
+        429,
+        'too_many_attempts',
+        `Too many sign-in attempts. Try again in ${minutes} minute${minutes === 1 ? '' : 's'}.`,
+      );
+    }
+    const user = await authenticate(deps.passport, req, res);
+    if (!user) {
+      deps.limiter.recordFailure(key);
+      throw new HttpError(401, 'invalid_credentials', WRONG_CREDENTIALS);
+    }
+    deps.limiter.reset(key);
+    // req.login regenerates the session (Passport 0.7), so a pre-sign-in id is never reused.
+    await new Promise<void>((resolve, reject) =>
+      req.login(user, (error: unknown) => (error ? reject(error) : resolve())),
+    );
+    res.json({ user: publicUser(user) });
+  });
+
+  router.post('/sign-out', allowAnyone, async (req, res) => {
+    if (req.session) {
+      await new Promise<void>((resolve, reject) =>
+        req.session.destroy((error: unknown) => (error ? reject(error) : resolve())),
+      );
+    }
+    res.clearCookie(deps.cookieName, { path: '/' });
+    res.status(204).end();
+  });
+
+  router.get('/me', requireSignIn, (req, res) => {
+    res.json({ user: publicUser(req.user!) });
+  });
+
+  return router;
+}
+
+function authenticate(
+  instance: passport.Authenticator,
+  req: Request,
+  res: Response,
+): Promise<PublicUser | undefined> {
+  return new Promise((resolve, reject) => {
+    const handler = instance.authenticate(
+      LOCAL_STRATEGY,
+      { session: false },
+      (error: unknown, user: PublicUser | false | undefined) => {
+        if (error) reject(error);
+        else resolve(user || undefined);
+      },
+    ) as (req: Request, res: Response, next: (error?: unknown) => void) => void;
+    handler(req, res, reject);
+  });
+}
+
+function publicUser(user: PublicUser): PublicUser {
+  return { id: user.id, email: user.email, name: user.name, role: user.role };
+}

@@ -1,0 +1,80 @@
+import express from 'express';
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { errorHandler } from './error-handler';
+import { createLogger } from './logger';
+import { createTestApp, type TestApp } from './testing/test-app';
+
+let t: TestApp;
+beforeAll(async () => {
+  t = await createTestApp();
+});
+afterAll(async () => {
+  await t.close();
+});
+
+describe('the API error shape', () => {
+  it('answers unknown /api paths with a JSON 404', async () => {
+    const res = await request(t.app).get('/api/no-such-thing?x=1');
+    expect(res.status).toBe(404);
+    expect(res.type).toBe('application/json');
+    expect(res.body).toEqual({
+      error: { code: 'not_found', message: 'There is no API route GET /api/no-such-thing.' },
+    });
+  });
+
+  it('answers malformed JSON with 400 invalid_json and changes nothing', async () => {
+    const before = await t.db('sessions').count({ n: '*' });
+    const res = await request(t.app)
+      .post('/api/auth/sign-in')
+      .set('Content-Type', 'application/json')
+      .send('{"email": "imogen.vale@larkspur.test", "password": ');
+    expect(res.status).toBe(400);
+    expect(res.body).toEqual({
+      error: { code: 'invalid_json', message: 'The request body is not valid JSON.' },
+    });
+    expect(res.headers['set-cookie']).toBeUndefined();
+    expect(await t.db('sessions').count({ n: '*' })).toEqual(before);
+  });
+
+  it('answers an oversized body with 413', async () => {
+    const res = await request(t.app)
+      .post('/api/auth/sign-in')
+      .set('Content-Type', 'application/json')
+      .send(JSON.stringify({ email: 'a@larkspur.test', password: 'x'.repeat(300_000) }));
+    expect(res.status).toBe(413);
+    expect(res.body.error.code).toBe('payload_too_large');
+  });
+
+  it('sends no-store on API answers', async () => {
+    const res = await request(t.app).get('/api/auth/me');
+    expect(res.headers['cache-control']).toBe('no-store');
+  });
+});
+
+describe('errorHandler', () => {
+  it('turns an unexpected error into a 500 without the stack, and logs it', async () => {
+    const lines: string[] = [];
+    const app = express();
+    app.get('/boom', async () => {
+      throw new Error('database exploded at /secret/path');
+    });
+    app.use(errorHandler(createLogger('info', (line) => lines.push(line))));
+    const res = await request(app).get('/boom');
+    expect(res.status).toBe(500);
+    expect(res.body).toEqual({
+      error: {
+        code: 'internal_error',
+        message: 'Something went wrong on the server. Please try again.',
+      },
+    });
+    expect(res.text).not.toContain('exploded');
+    expect(res.text).not.toContain('at ');
+    expect(lines).toHaveLength(1);
+    expect(JSON.parse(lines[0]!)).toMatchObject({
+      level: 'error',
+      path: '/boom',
+      error: { message: 'database exploded at /secret/path' },
+    });
+  });
+});

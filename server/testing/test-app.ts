@@ -1,0 +1,99 @@
+import { mkdtemp, rm } from 'node:fs/promises';
+import os from 'node:os';
+import path from 'node:path';
+import type { Express } from 'express';
+import type { Knex } from 'knex';
+import request from 'supertest';
+import { createApp, type AppDeps } from '../app';
+import type { Role } from '../auth/roles';
+import { loadConfig, type Config } from '../config';
+import { createDb, migrateLatest } from '../db';
+import { DEMO_ACCOUNTS, type DemoAccount } from '../demo/seed-demo';
+import { seedDemo } from '../demo/seed-demo';
+import { createLogger, type Logger } from '../logger';
+import { createSessionStore, stopSessionStore } from '../session';
+
+/** A running app on a fresh temporary database, for supertest. */
+export interface TestApp {
+  readonly app: Express;
+  readonly db: Knex;
+  readonly config: Config;
+  readonly dataDir: string;
+  /** Lines the app logged, for checks that nothing secret was written. */
+  readonly logLines: string[];
+  /** A cookie-keeping client, signed out. */
+  agent(): request.Agent;
+  /** A cookie-keeping client signed in as the given demo account (or the first of a role). */
+  signIn(who: Role | string): Promise<request.Agent>;
+  /** Closes the database and deletes the temporary data directory. */
+  close(): Promise<void>;
+}
+
+export interface TestAppOptions {
+  /** Extra environment (e.g. `{ PUBLIC_URL: 'https://…' }`). */
+  readonly env?: Record<string, string>;
+  /** Add the demo accounts (default true). */
+  readonly seed?: boolean;
+  /** Overrides for {@link createApp}'s dependencies. */
+  readonly deps?: Partial<Omit<AppDeps, 'config' | 'db'>>;
+}
+
+/** bcrypt's lowest cost keeps tests fast; production uses 12. */
+const TEST_BCRYPT_COST = '4';
+
+/**
+ * Creates a temp data dir, opens a SQLite database in it, migrates, seeds the demo accounts
+ * with a low bcrypt cost and builds the app. Call `close()` in `afterAll`/`afterEach`.
+ */
+export async function createTestApp(options: TestAppOptions = {}): Promise<TestApp> {
+  const dataDir = await mkdtemp(path.join(os.tmpdir(), 'tensile-test-'));
+  const config = loadConfig({ DATA_DIR: dataDir, BCRYPT_COST: TEST_BCRYPT_COST, ...options.env });
+  const db = createDb(config);
+  await migrateLatest(db);
+  if (options.seed ?? true) await seedDemo(db, { bcryptCost: config.bcryptCost });
+  const logLines: string[] = [];
+  const logger: Logger = createLogger('debug', (line) => logLines.push(line));
+  const sessionStore = createSessionStore(db, logger, 0);
+  const app = createApp({
+    config,
+    db,
+    logger,
+    sessionStore,
+    browserDist: path.join(dataDir, 'no-dist'),
+    ...options.deps,
+  });
+
+  const agent = () => request.agent(app);
+  return {
+    app,
+    db,
+    config,
+    dataDir,
+    logLines,
+    agent,
+    async signIn(who) {
+      const account = findAccount(who);
+      const client = agent();
+      const response = await client
+        .post('/api/auth/sign-in')
+        .send({ email: account.email, password: account.password });
+      if (response.status !== 200) {
+        throw new Error(`Test sign-in as ${account.email} failed with ${response.status}`);
+      }
+      return client;
+    },
+    async close() {
+      stopSessionStore(sessionStore);
+      await db.destroy();
+      await rm(dataDir, { recursive: true, force: true });
+    },
+  };
+}
+
+/** The demo account with this e-mail, or the first demo account holding this role. */
+export function findAccount(who: Role | string): DemoAccount {
+  const account =
+    DEMO_ACCOUNTS.find((a) => a.email === who) ?? DEMO_ACCOUNTS.find((a) => a.role === who);
+  if (!account) throw new Error(`No demo account for ${who}`);
+  return account;
+}

@@ -1,0 +1,66 @@
+import { existsSync } from 'node:fs';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import express, { Router, type Response } from 'express';
+
+/** Where `ng build` writes the browser app. */
+export const DEFAULT_BROWSER_DIST = fileURLToPath(
+  new URL('../../dist/tensile/browser', import.meta.url),
+);
+
+/** The build names its bundles and media with a content hash, e.g. `main-2YQ7VRZL.js`. */
+const HASHED_FILE = /-[A-Z0-9]{8,}\.[a-z0-9]+$/;
+
+/** Paths that ask for a file (not a page): a missing one is a 404, not the app's shell. */
+const ASSET_EXTENSION =
+  /\.(js|mjs|css|map|json|ico|png|jpe?g|gif|svg|webp|woff2?|ttf|otf|txt|wasm|mp3|wav|ogg)$/i;
+
+const ONE_YEAR_SECONDS = 365 * 24 * 60 * 60;
+
+/**
+ * Serves the built app from `distDir`: hashed files cached for a year (their names change with
+ * their content), everything else revalidated on each use, and `index.html` for any other
+ * non-API GET so the client router can take over (`/drills/…` and the like). Without a build,
+ * pages get a 503 saying how to make one.
+ */
+export function createSpaRouter(distDir: string = DEFAULT_BROWSER_DIST): Router {
+  const router = Router();
+  const indexFile = path.join(distDir, 'index.html');
+
+  router.use(
+    express.static(distDir, {
+      index: false,
+      setHeaders(res, filePath) {
+        res.setHeader(
+          'Cache-Control',
+          HASHED_FILE.test(path.basename(filePath))
+            ? `public, max-age=${ONE_YEAR_SECONDS}, immutable`
+            : 'no-cache',
+        );
+      },
+    }),
+  );
+
+  router.get('/{*splat}', (req, res, next) => {
+    if (req.path === '/api' || req.path.startsWith('/api/')) return next();
+    if (ASSET_EXTENSION.test(req.path)) return next();
+    if (!existsSync(indexFile)) return sendBuildMissing(res);
+    res.setHeader('Cache-Control', 'no-cache');
+    res.sendFile(indexFile);
+  });
+
+  return router;
+}
+
+function sendBuildMissing(res: Response): void {
+  res
+    .status(503)
+    .type('html')
+    .setHeader('Cache-Control', 'no-store')
+    .send(
+      '<!doctype html><html lang="en"><head><meta charset="utf-8"><title>Tensile: app not built</title></head>' +
+        '<body><h1>The web app has not been built yet</h1>' +
+        '<p>Run <code>npm run build</code>, then reload this page. ' +
+        '(<code>npm start</code> builds and starts the server in one step.)</p></body></html>',
+    );
+}
