@@ -1,0 +1,64 @@
+/**
+ * Prints the median time to engrave a 16-bar drill (notation model + VexFlow SVG, sticking and
+ * counts on) in headless Chromium, over many runs, for the quintuplet and the 4:3 presets.
+ * Run: npm run bench:notation
+ */
+import { generateDrill, parseRuleCard } from '../shared/generator/index';
+import { BUILT_IN_PRESETS } from '../shared/generator/presets/index';
+import { bundleForBrowser, launchChromium } from '../tests/support/browser';
+
+const WARM_UP = 5;
+const RUNS = 60;
+const WIDTH = 1280;
+const BARS = 16;
+
+type Bundle = {
+  fontsReady(): Promise<void>;
+  timeRender(drill: unknown, width: number): { ms: number; bars: number; systems: number };
+};
+
+function quantile(sorted: readonly number[], q: number): number {
+  const index = Math.min(sorted.length - 1, Math.max(0, Math.ceil(q * sorted.length) - 1));
+  return sorted[index] ?? NaN;
+}
+
+const code = await bundleForBrowser('bench/notation-entry.ts');
+const browser = await launchChromium();
+try {
+  const page = await browser.newPage({ viewport: { width: WIDTH + 40, height: 900 } });
+  await page.setContent('<!doctype html><title>notation bench</title><div id="score"></div>');
+  await page.addScriptTag({ content: code });
+  await page.evaluate(() => (window as unknown as { __bundle: Bundle }).__bundle.fontsReady());
+  const medians: number[] = [];
+  for (const preset of BUILT_IN_PRESETS) {
+    const card = parseRuleCard({ ...(preset.card as object), bars: BARS });
+    let drill;
+    try {
+      drill = generateDrill(card, 'bench-16');
+    } catch {
+      continue; // a card whose rules tie it to fewer bars is not a fair 16-bar sample
+    }
+    const times = await page.evaluate(
+      ({ drill, width, warmUp, runs }) => {
+        const bundle = (window as unknown as { __bundle: Bundle }).__bundle;
+        for (let i = 0; i < warmUp; i++) bundle.timeRender(drill, width);
+        return Array.from({ length: runs }, () => bundle.timeRender(drill, width));
+      },
+      { drill, width: WIDTH, warmUp: WARM_UP, runs: RUNS },
+    );
+    const sorted = times.map((t) => t.ms).sort((a, b) => a - b);
+    const median = quantile(sorted, 0.5);
+    medians.push(median);
+    console.log(
+      `${preset.id.padEnd(28)} ${times[0]!.bars} bars, ${times[0]!.systems} systems: ` +
+        `median ${median.toFixed(1)} ms, p90 ${quantile(sorted, 0.9).toFixed(1)} ms, min ${sorted[0]!.toFixed(1)} ms`,
+    );
+  }
+  const all = [...medians].sort((a, b) => a - b);
+  console.log(
+    `Notation: median time to render ${BARS} bars ${quantile(all, 0.5).toFixed(1)} ms ` +
+      `(median over ${medians.length} presets, ${RUNS} runs each, ${WIDTH} px wide, headless Chromium)`,
+  );
+} finally {
+  await browser.close();
+}

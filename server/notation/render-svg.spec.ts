@@ -1,0 +1,152 @@
+import { JSDOM } from 'jsdom';
+import { describe, expect, it } from 'vitest';
+import { isHandVoice, type VoiceId } from '../../shared/generator/drill';
+import { generateDrill, parseRuleCard, type Drill } from '../../shared/generator/index';
+import { BUILT_IN_PRESETS } from '../../shared/generator/presets/index';
+import { renderDrillSvg } from './render-svg';
+
+/**
+ * Staff steps above the middle line for each voice: N. Weinberg, "Guidelines for Drumset
+ * Notation", Percussive Notes, June 1994, pp. 15–26 (as encoded in LilyPond's
+ * weinberg-drums-style), except the high tom, which Tensile writes in the top space.
+ */
+const WEINBERG_STEPS: Partial<Record<VoiceId, number>> = {
+  crash: 6,
+  hihat: 5,
+  hihatOpen: 5,
+  ride: 4,
+  rideBell: 4,
+  tomHigh: 3,
+  tomMid: 2,
+  snare: 1,
+  rim: 1,
+  tomFloor: -1,
+  kick: -3,
+  hihatFoot: -5,
+};
+/** Half a stave space: one line-or-space step, in VexFlow's default pixels. */
+const STEP_PX = 5;
+/** SMuFL code points of the tuplet digits start at U+E880 ("tuplet0"). */
+const tupletGlyph = (n: number) => String.fromCodePoint(0xe880 + n);
+
+function presetWhere(test: (card: Record<string, unknown>) => boolean) {
+  const preset = BUILT_IN_PRESETS.find((p) => test(p.card as Record<string, unknown>));
+  if (!preset) throw new Error('No built-in preset matches');
+  return preset;
+}
+
+const subdivisionHas = (n: number) => (card: Record<string, unknown>) =>
+  card['subdivision'] === n ||
+  (Array.isArray(card['subdivision']) && card['subdivision'].includes(n));
+
+function parse(svg: string): Document {
+  return new JSDOM(svg, { contentType: 'image/svg+xml' }).window.document;
+}
+
+function handsOf(drill: Drill, hand: boolean) {
+  return drill.bars.flatMap((bar) => bar.hits.filter((h) => isHandVoice(h.voice) === hand));
+}
+
+/** Beats (bar, beat) where a voice layer has a hit off the beat, in a beat of prime `n` slots. */
+function offBeatBeats(drill: Drill, n: number, hand: boolean): number {
+  let count = 0;
+  for (const bar of drill.bars) {
+    bar.beats.forEach((slots, i) => {
+      if (slots !== n) return;
+      const off = bar.hits.some(
+        (h) => h.beat === i + 1 && h.slot !== 0 && isHandVoice(h.voice) === hand,
+      );
+      if (off) count++;
+    });
+  }
+  return count;
+}
+
+describe('renderDrillSvg (Node, jsdom + @napi-rs/canvas)', () => {
+  const quintuplets = presetWhere(subdivisionHas(5));
+  const drill = generateDrill(parseRuleCard(quintuplets.card), 'lesson-12');
+  const { svg, layout } = renderDrillSvg(drill, {
+    width: 1100,
+    showSticking: true,
+    showCounts: true,
+  });
+  const doc = parse(svg);
+
+  it('is a standalone SVG document with its namespace', () => {
+    expect(svg.startsWith('<svg')).toBe(true);
+    expect(svg).toContain('xmlns="http://www.w3.org/2000/svg"');
+    expect(layout.bars.map((b) => b.bar)).toEqual(drill.bars.map((b) => b.bar));
+  });
+
+  it('draws one notehead per hit, hands and feet in their own voices', () => {
+    for (const [voice, hand] of [
+      ['hands', true],
+      ['feet', false],
+    ] as const) {
+      const heads = doc.querySelectorAll(`[data-voice="${voice}"] .tensile-note .vf-notehead`);
+      expect(heads.length).toBe(handsOf(drill, hand).length);
+    }
+  });
+
+  it('brackets every quintuplet beat that has off-beat notes with a 5', () => {
+    for (const [voice, hand] of [
+      ['hands', true],
+      ['feet', false],
+    ] as const) {
+      const brackets = [...doc.querySelectorAll(`[data-voice="${voice}"] [data-tuplet]`)];
+      expect(brackets.length).toBe(offBeatBeats(drill, 5, hand));
+      for (const bracket of brackets) {
+        expect(bracket.getAttribute('data-tuplet')).toBe('5');
+        expect(bracket.querySelector('.vf-tuplet text')?.textContent).toBe(tupletGlyph(5));
+      }
+    }
+    expect(offBeatBeats(drill, 5, true)).toBeGreaterThan(0);
+  });
+
+  it('sets every notehead on the line or space the drum-set convention gives its voice', () => {
+    let checked = 0;
+    for (const bar of doc.querySelectorAll('.tensile-bar')) {
+      const lineYs = [...bar.querySelectorAll(':scope > .vf-stave path')].map((p) =>
+        Number(/M[\d.]+ ([\d.]+)/.exec(p.getAttribute('d') ?? '')?.[1]),
+      );
+      expect(lineYs).toHaveLength(5);
+      const topLine = Math.floor(Math.min(...lineYs));
+      for (const note of bar.querySelectorAll('.tensile-note')) {
+        const voices = (note.getAttribute('data-instruments') ?? '').split(' ') as VoiceId[];
+        const heads = [...note.querySelectorAll('.vf-notehead')].map((h) =>
+          Number(h.querySelector('text')?.getAttribute('y')),
+        );
+        expect(heads).toHaveLength(voices.length);
+        voices.forEach((voice, i) => {
+          // The top line is 4 steps above the middle line.
+          expect(heads[i]).toBeCloseTo(topLine + (4 - WEINBERG_STEPS[voice]!) * STEP_PX, 0);
+          checked++;
+        });
+      }
+    }
+    expect(checked).toBe(drill.bars.reduce((n, bar) => n + bar.hits.length, 0));
+  });
+
+  it('writes the 4:3 polyrhythm preset with a notehead per hit and only the brackets due', () => {
+    const poly = presetWhere(
+      (card) =>
+        Array.isArray(card['rules']) &&
+        card['rules'].some((r: { kind?: string }) => r.kind === 'polyrhythm'),
+    );
+    const polyDrill = generateDrill(parseRuleCard(poly.card), 'lesson-12');
+    const polyDoc = parse(renderDrillSvg(polyDrill).svg);
+    const heads = polyDoc.querySelectorAll('.tensile-note .vf-notehead').length;
+    expect(heads).toBe(polyDrill.bars.reduce((n, bar) => n + bar.hits.length, 0));
+    for (const n of [3, 5, 7]) {
+      const expected = offBeatBeats(polyDrill, n, true) + offBeatBeats(polyDrill, n, false);
+      expect(polyDoc.querySelectorAll(`[data-tuplet="${n}"]`).length).toBe(expected);
+    }
+  });
+
+  it('prints the counts and sticking rows when asked, and leaves them out otherwise', () => {
+    expect(doc.querySelectorAll('.tensile-count').length).toBeGreaterThan(0);
+    expect(doc.querySelectorAll('.tensile-sticking').length).toBeGreaterThan(0);
+    const plain = parse(renderDrillSvg(drill, { width: 1100 }).svg);
+    expect(plain.querySelectorAll('.tensile-count, .tensile-sticking').length).toBe(0);
+  });
+});

@@ -1,0 +1,283 @@
+/**
+ * Engraves a notation model with VexFlow 5 into an SVG, in the browser or in Node (with a DOM
+ * such as jsdom), and reports where every bar and beat landed so a host can draw a playback
+ * cursor and the tension plots under the bars.
+ *
+ * Only the `vexflow/bravura` entry is used: it carries the Bravura and Academico fonts as data
+ * URLs, so nothing is fetched at run time.
+ */
+import { BarlineType, Formatter, Stave, SVGContext } from 'vexflow/bravura';
+import { drawLegend, legendWidth } from './legend';
+import type { NotationBar, NotationModel } from './notation-model';
+import { svgText } from './svg-text';
+import { planSystems } from './system-layout';
+import { engraveBar, minimumBarWidth, type EngravedBar, type EngravedNote } from './vexflow-bar';
+
+export interface RenderOptions {
+  /** Width of the drawing, in CSS pixels. */
+  readonly width: number;
+  readonly showSticking?: boolean;
+  readonly showCounts?: boolean;
+  /** Draw the voice key to the left of the first system (default true). */
+  readonly showLegend?: boolean;
+  /** Room left free under every system for the host (e.g. tension plots), in pixels. */
+  readonly gapBelowSystem?: number;
+  readonly maxBarsPerSystem?: number;
+  /** Colour of everything drawn (default black; `currentColor` follows the page's text colour). */
+  readonly ink?: string;
+}
+
+export interface BeatBox {
+  readonly beat: number;
+  /** Left edge of the beat's area, in SVG pixels. */
+  readonly x: number;
+  readonly width: number;
+}
+
+export interface BarBox {
+  readonly bar: number;
+  readonly system: number;
+  /** The stave's left edge and width (clef and time signature included on a system's first bar). */
+  readonly x: number;
+  readonly width: number;
+  /** y of the top and bottom stave lines. */
+  readonly topLineY: number;
+  readonly bottomLineY: number;
+  /** The system's band: from its top to the start of the free gap under it. */
+  readonly systemTop: number;
+  readonly systemBottom: number;
+  readonly beats: readonly BeatBox[];
+}
+
+export interface NotationLayout {
+  readonly width: number;
+  readonly height: number;
+  readonly bars: readonly BarBox[];
+  readonly svg: SVGSVGElement;
+}
+
+/** Pixels between stave lines (VexFlow's default). */
+export const STAVE_SPACE = 10;
+const MARGIN_X = 12;
+const STICKING_ROW = 20;
+/** Room above the top line for hi-hat and crash stems, accents and tuplet brackets. */
+const HEADROOM = 86;
+/** Room under the bottom line for feet stems, their brackets and accents. */
+const FOOTROOM = 78;
+const COUNTS_ROW = 22;
+/** VexFlow places the top line this far below the stave's y. */
+const STAVE_TOP_OFFSET = 4 * STAVE_SPACE;
+
+/** Engrave `model` into `container` (its previous drawing is replaced). */
+export function renderNotation(
+  container: HTMLElement,
+  model: NotationModel,
+  options: RenderOptions,
+): NotationLayout {
+  container.replaceChildren();
+  const ctx = new SVGContext(container);
+  const svg = ctx.svg as SVGSVGElement;
+  const ink = options.ink ?? 'black';
+  ctx.setFillStyle(ink).setStrokeStyle(ink);
+  svg.setAttribute('fill', ink);
+  svg.setAttribute('stroke', ink);
+  svg.setAttribute('role', 'img');
+  svg.classList.add('tensile-notation');
+  const showLegend = options.showLegend ?? true;
+  const legend = showLegend ? legendWidth(model) : 0;
+  // Engraved once: measured for line breaking, then formatted to their staves and drawn.
+  const engravedBars = model.bars.map((bar) => engraveBar(bar, model));
+  const plans = planSystems({
+    barWidths: model.bars.map((bar, i) => naturalBarWidth(bar, engravedBars[i]!, model)),
+    systemStartWidth: systemStartWidth(model),
+    lineWidth: (i) => options.width - 2 * MARGIN_X - (i === 0 ? legend : 0),
+    maxBarsPerSystem: options.maxBarsPerSystem ?? 4,
+  });
+  const sticking = options.showSticking ? STICKING_ROW : 0;
+  const counts = options.showCounts ? COUNTS_ROW : 0;
+  const systemHeight = sticking + HEADROOM + 4 * STAVE_SPACE + FOOTROOM + counts;
+  const gap = options.gapBelowSystem ?? 0;
+  const boxes: BarBox[] = [];
+  plans.forEach((plan, systemIndex) => {
+    const systemTop = systemIndex * (systemHeight + gap);
+    const topLineY = systemTop + sticking + HEADROOM;
+    let x = MARGIN_X + (systemIndex === 0 ? legend : 0);
+    if (systemIndex === 0 && showLegend)
+      drawLegend(ctx, model, MARGIN_X, topLineY - STAVE_TOP_OFFSET, ink);
+    plan.bars.forEach((barIndex, i) => {
+      const bar = model.bars[barIndex]!;
+      const width = plan.widths[i]!;
+      const stave = staveFor(bar, model, x, topLineY - STAVE_TOP_OFFSET, width, i === 0, barIndex);
+      // Full-strength lines (VexFlow's default is grey) so the staff reads from a music stand.
+      stave.setStyle({ strokeStyle: ink, fillStyle: ink });
+      stave.setDefaultLedgerLineStyle({ strokeStyle: ink, lineWidth: 2 });
+      const engraved = engravedBars[barIndex]!;
+      drawBar(ctx, bar, engraved, stave, options, topLineY);
+      boxes.push({
+        bar: bar.bar,
+        system: systemIndex,
+        x,
+        width,
+        topLineY,
+        bottomLineY: topLineY + 4 * STAVE_SPACE,
+        systemTop,
+        systemBottom: systemTop + systemHeight,
+        beats: beatBoxes(engraved, stave),
+      });
+      x += width;
+    });
+  });
+  const height = plans.length * (systemHeight + gap);
+  ctx.resize(options.width, height);
+  svg.setAttribute('viewBox', `0 0 ${options.width} ${height}`);
+  return { width: options.width, height, bars: boxes, svg };
+}
+
+function naturalBarWidth(bar: NotationBar, engraved: EngravedBar, model: NotationModel): number {
+  const notes = bar.beats.reduce(
+    (n, beat) => n + Math.max(...beat.layers.map((l) => l.events.length), 1),
+    0,
+  );
+  const measured = minimumBarWidth(engraved);
+  // Room to breathe beyond the tightest setting, and never under ~22 px a note.
+  return Math.max(measured * 1.3, notes * 22, model.meter.beats * 40) + 20;
+}
+
+function systemStartWidth(model: NotationModel): number {
+  const plain = new Stave(0, 0, 400);
+  const opening = new Stave(0, 0, 400)
+    .addClef('percussion')
+    .addTimeSignature(`${model.meter.beats}/${model.meter.unit}`);
+  return opening.getNoteStartX() - plain.getNoteStartX();
+}
+
+function staveFor(
+  bar: NotationBar,
+  model: NotationModel,
+  x: number,
+  y: number,
+  width: number,
+  opensSystem: boolean,
+  barIndex: number,
+): Stave {
+  const stave = new Stave(x, y, width);
+  if (opensSystem) {
+    stave.addClef('percussion').addTimeSignature(`${model.meter.beats}/${model.meter.unit}`);
+  }
+  stave.setMeasure(bar.bar);
+  // A drill is a loop: repeat signs around the whole drill say so in the trade's own terms.
+  if (barIndex === 0) stave.setBegBarType(BarlineType.REPEAT_BEGIN);
+  if (barIndex === model.bars.length - 1) stave.setEndBarType(BarlineType.REPEAT_END);
+  return stave;
+}
+
+function drawBar(
+  ctx: SVGContext,
+  bar: NotationBar,
+  engraved: EngravedBar,
+  stave: Stave,
+  options: RenderOptions,
+  topLineY: number,
+): void {
+  const voices = engraved.voices.map((v) => v.voice);
+  new Formatter().joinVoices(voices).formatToStave(voices, stave);
+  const group = ctx.openGroup();
+  group.setAttribute('class', 'tensile-bar');
+  group.setAttribute('data-bar', String(bar.bar));
+  stave.setContext(ctx).draw();
+  for (const { layer } of engraved.voices) {
+    const layerGroup = ctx.openGroup();
+    layerGroup.setAttribute('class', 'tensile-voice');
+    layerGroup.setAttribute('data-voice', layer);
+    for (const engravedNote of engraved.notes.filter((n) => n.layer === layer)) {
+      drawNote(ctx, engravedNote, stave);
+    }
+    for (const { beam } of engraved.beams.filter((b) => b.layer === layer))
+      beam.setContext(ctx).draw();
+    for (const t of engraved.tuplets.filter((t) => t.layer === layer)) {
+      const tupletGroup = ctx.openGroup();
+      tupletGroup.setAttribute('class', 'tensile-tuplet');
+      tupletGroup.setAttribute('data-tuplet', String(t.numNotes));
+      t.tuplet.setContext(ctx).draw();
+      ctx.closeGroup();
+    }
+    ctx.closeGroup();
+  }
+  drawBeatTexts(ctx, bar, engraved, options, topLineY);
+  ctx.closeGroup();
+}
+
+function drawNote(ctx: SVGContext, engraved: EngravedNote, stave: Stave): void {
+  const { note, event, beat } = engraved;
+  const group = ctx.openGroup();
+  group.setAttribute('class', event.kind === 'rest' ? 'tensile-rest' : 'tensile-note');
+  group.setAttribute('data-beat', String(beat));
+  group.setAttribute('data-slot', String(event.slot));
+  if (event.kind === 'note') {
+    group.setAttribute('data-instruments', event.heads.map((h) => h.voice).join(' '));
+    group.setAttribute('data-positions', event.heads.map((h) => h.position).join(' '));
+  }
+  note.setStave(stave).setContext(ctx).drawWithStyle();
+  ctx.closeGroup();
+}
+
+/** Centre x of the note or rest that starts at each struck instant, keyed `beat:slot`. */
+function instantX(engraved: EngravedBar): Map<string, number> {
+  const xs = new Map<string, number>();
+  for (const { note, beat, event } of engraved.notes) {
+    const key = `${beat}:${event.slot}`;
+    const centre = note.getAbsoluteX() + note.getGlyphWidth() / 2;
+    if (event.kind === 'note' || !xs.has(key)) xs.set(key, centre);
+  }
+  return xs;
+}
+
+function drawBeatTexts(
+  ctx: SVGContext,
+  bar: NotationBar,
+  engraved: EngravedBar,
+  options: RenderOptions,
+  topLineY: number,
+): void {
+  const xs = instantX(engraved);
+  const stickingY = topLineY - HEADROOM - 2;
+  const countsY = topLineY + 4 * STAVE_SPACE + FOOTROOM + 16;
+  for (const beat of bar.beats) {
+    if (options.showSticking) {
+      for (const { slot, hands } of beat.sticking) {
+        const x = xs.get(`${beat.beat}:${slot}`);
+        if (x === undefined) continue;
+        const label = hands.length > 1 ? hands.join('+') : (hands[0] ?? '');
+        svgText(ctx, label, x, stickingY, 'tensile-sticking', { size: 15, weight: 'bold' });
+      }
+    }
+    if (options.showCounts) {
+      for (const { slot, text } of beat.counts) {
+        const x = xs.get(`${beat.beat}:${slot}`);
+        if (x === undefined) continue;
+        const onBeat = slot === 0;
+        svgText(ctx, text, x, countsY, 'tensile-count', {
+          size: onBeat ? 15 : 13,
+          weight: onBeat ? 'bold' : 'normal',
+        });
+      }
+    }
+  }
+}
+
+/** Beat areas: from just before each beat's first note to just before the next beat's. */
+function beatBoxes(engraved: EngravedBar, stave: Stave): BeatBox[] {
+  const starts = new Map<number, number>();
+  for (const { note, beat } of engraved.notes) {
+    const x = note.getAbsoluteX();
+    starts.set(beat, Math.min(starts.get(beat) ?? Infinity, x));
+  }
+  const beats = [...starts.keys()].sort((a, b) => a - b);
+  const lead = 6;
+  return beats.map((beat, i) => {
+    const x = starts.get(beat)! - lead;
+    const next = beats[i + 1];
+    const end = next === undefined ? stave.getNoteEndX() : starts.get(next)! - lead;
+    return { beat, x, width: end - x };
+  });
+}

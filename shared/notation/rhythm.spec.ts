@@ -1,0 +1,124 @@
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { soundingLength, spellBeat, type BeatRhythm } from './rhythm';
+
+/** Exact sum of the events' sounding lengths, as num/den of a whole note. */
+function beatLength(rhythm: BeatRhythm): { num: number; den: number } {
+  let num = 0;
+  let den = 1;
+  for (const event of rhythm.events) {
+    const part = soundingLength(event.duration, rhythm.tuplet);
+    num = num * part.den + part.num * den;
+    den *= part.den;
+    const g = gcd(num, den);
+    num /= g;
+    den /= g;
+  }
+  return { num, den };
+}
+
+function gcd(a: number, b: number): number {
+  return b === 0 ? a : gcd(b, a % b);
+}
+
+/** Written spelling as `8 8` / `8d 16` / `r16 8` for readable expectations. */
+function spelled(rhythm: BeatRhythm): string {
+  return rhythm.events
+    .map((e) => `${e.kind === 'rest' ? 'r' : ''}${e.duration.value}${e.duration.dots ? 'd' : ''}`)
+    .join(' ');
+}
+
+const onsetSets = (subdivision: number) =>
+  fc.uniqueArray(fc.integer({ min: 0, max: subdivision - 1 }), { maxLength: subdivision });
+
+describe('spellBeat: durations', () => {
+  for (let subdivision = 1; subdivision <= 8; subdivision++) {
+    it(`sum exactly to the beat for any hits in a beat of ${subdivision}`, () => {
+      fc.assert(
+        fc.property(onsetSets(subdivision), fc.constantFrom(2, 4, 8), (onsets, unit) => {
+          const rhythm = spellBeat(subdivision, onsets, unit);
+          expect(beatLength(rhythm)).toEqual({ num: 1, den: unit });
+        }),
+      );
+    });
+
+    it(`put a note at every hit and nowhere else in a beat of ${subdivision}`, () => {
+      fc.assert(
+        fc.property(onsetSets(subdivision), (onsets) => {
+          const rhythm = spellBeat(subdivision, onsets, 4);
+          const factor = subdivision / rhythm.grid;
+          const noteSlots = rhythm.events
+            .filter((e) => e.kind === 'note')
+            .map((e) => e.gridSlot * factor);
+          expect(noteSlots).toEqual([...onsets].sort((a, b) => a - b));
+          // Events follow one another without gaps or overlaps on the written grid.
+          let at = 0;
+          for (const event of rhythm.events) {
+            expect(event.gridSlot).toBe(at);
+            at += event.length;
+          }
+          expect(at).toBe(rhythm.grid);
+        }),
+      );
+    });
+  }
+
+  it('brackets exactly the grids of 3, 5, 6 and 7 with their number (2, 4, 8 need none)', () => {
+    fc.assert(
+      fc.property(
+        fc.integer({ min: 1, max: 8 }).chain((n) => fc.tuple(fc.constant(n), onsetSets(n))),
+        ([n, onsets]) => {
+          const rhythm = spellBeat(n, onsets, 4);
+          if ([3, 5, 6, 7].includes(rhythm.grid)) {
+            expect(rhythm.tuplet?.numNotes).toBe(rhythm.grid);
+            expect(rhythm.tuplet?.notesOccupied).toBe(rhythm.grid === 3 ? 2 : 4);
+          } else {
+            expect(rhythm.tuplet).toBeNull();
+          }
+        },
+      ),
+    );
+  });
+});
+
+describe('spellBeat: simplest readable spelling (common practice)', () => {
+  const cases: [number, number[], string][] = [
+    [4, [0, 1, 2, 3], '16 16 16 16'],
+    [4, [0, 2], '8 8'],
+    [4, [0, 3], '8d 16'],
+    [4, [0, 1, 3], '16 8 16'],
+    [4, [0, 1], '16 8d'],
+    [4, [2], 'r8 8'],
+    [4, [3], 'r8 r16 16'],
+    [4, [0], '4'],
+    [4, [], 'r4'],
+    [2, [1], 'r8 8'],
+    [3, [0, 2], '4 8'],
+    [3, [1], 'r8 4'],
+    [5, [0, 2, 4], '8 8 16'],
+    [5, [1, 3], 'r16 8 8'],
+    [6, [0, 3], '8 8'],
+    [6, [0, 2, 4], '8 8 8'],
+    [6, [0, 1, 2, 3, 4, 5], '16 16 16 16 16 16'],
+    [7, [0, 6], '4 r8 16'],
+    [8, [0, 4], '8 8'],
+    [8, [0, 3, 4, 6], '16d 32 16 16'],
+  ];
+  for (const [n, onsets, expected] of cases) {
+    it(`${n} per beat, hits on ${onsets.join(',') || 'none'} → ${expected}`, () => {
+      expect(spelled(spellBeat(n, onsets, 4))).toBe(expected);
+    });
+  }
+
+  it('keeps the bracket only where the notes need it', () => {
+    expect(spellBeat(6, [0, 2, 4], 4).tuplet).toEqual({ numNotes: 3, notesOccupied: 2 });
+    expect(spellBeat(6, [0, 3], 4).tuplet).toBeNull();
+    expect(spellBeat(5, [0], 4).tuplet).toBeNull();
+    expect(spellBeat(5, [0, 2], 4).tuplet).toEqual({ numNotes: 5, notesOccupied: 4 });
+  });
+
+  it('writes the beat in its own value: eighths in a half-note beat are quarters', () => {
+    expect(spelled(spellBeat(2, [0, 1], 2))).toBe('4 4');
+    expect(spelled(spellBeat(4, [0, 2], 8))).toBe('16 16');
+  });
+});

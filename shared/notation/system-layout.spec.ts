@@ -1,0 +1,42 @@
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { planSystems } from './system-layout';
+
+const input = (widths: number[], line = 1000, start = 60, max = 4) => ({
+  barWidths: widths,
+  systemStartWidth: start,
+  lineWidth: () => line,
+  maxBarsPerSystem: max,
+});
+
+describe('planSystems', () => {
+  it('spreads 16 equal bars as four lines of four', () => {
+    const plans = planSystems(input(Array(16).fill(200)));
+    expect(plans.map((p) => p.bars.length)).toEqual([4, 4, 4, 4]);
+  });
+
+  it('balances lines instead of leaving one bar alone on the last', () => {
+    // Greedy packing would give 3 + 3 + 1; the balanced plan is 3 + 2 + 2.
+    const plans = planSystems(input(Array(7).fill(300), 1000, 60, 4));
+    expect(plans.map((p) => p.bars.length)).toEqual([3, 2, 2]);
+  });
+
+  it('keeps every bar once, in order, and fills each full line exactly', () => {
+    fc.assert(
+      fc.property(
+        fc.array(fc.integer({ min: 80, max: 700 }), { minLength: 1, maxLength: 24 }),
+        (widths) => {
+          const plans = planSystems(input(widths));
+          expect(plans.flatMap((p) => p.bars)).toEqual(widths.map((_, i) => i));
+          plans.forEach((plan, i) => {
+            const total = plan.widths.reduce((a, b) => a + b, 0);
+            const natural = plan.bars.reduce((sum, bar) => sum + widths[bar]!, 60);
+            if (i < plans.length - 1 && natural <= 1000) expect(total).toBeCloseTo(1000, 6);
+            // Never narrower than the bars need.
+            expect(total).toBeGreaterThanOrEqual(natural - 1e-6);
+          });
+        },
+      ),
+    );
+  });
+});

@@ -1,0 +1,98 @@
+/**
+ * Line breaking: which bars go on which system (line of music) for a given width.
+ *
+ * Bars are packed greedily to find how many systems are needed, then spread as evenly as the
+ * width allows (four bars on each of four lines read better than five, five, five and one), and
+ * each system's bars are widened in proportion to their natural width to fill the line.
+ */
+
+export interface SystemPlan {
+  /** 0-based indices of the bars on this system. */
+  readonly bars: readonly number[];
+  /** Final width of each bar on the line, in the same order. */
+  readonly widths: readonly number[];
+}
+
+export interface SystemLayoutInput {
+  /** Natural width of each bar without the clef and time signature. */
+  readonly barWidths: readonly number[];
+  /** Extra width the first bar of every system needs for clef and time signature. */
+  readonly systemStartWidth: number;
+  /** Width available for the bars of each line (the first line may be narrower). */
+  readonly lineWidth: (systemIndex: number) => number;
+  /** Most bars on one line. */
+  readonly maxBarsPerSystem: number;
+}
+
+/** Break the bars into systems and give every bar its final width. */
+export function planSystems(input: SystemLayoutInput): SystemPlan[] {
+  const count = greedySystemCount(input);
+  const sizes = balancedSizes(input, count) ?? greedySizes(input);
+  const plans: SystemPlan[] = [];
+  let next = 0;
+  sizes.forEach((size, index) => {
+    const bars = Array.from({ length: size }, (_, i) => next + i);
+    next += size;
+    plans.push({ bars, widths: stretch(input, bars, index, index === sizes.length - 1) });
+  });
+  return plans;
+}
+
+function needed(input: SystemLayoutInput, bars: readonly number[]): number {
+  return bars.reduce((sum, bar) => sum + (input.barWidths[bar] ?? 0), input.systemStartWidth);
+}
+
+function greedySizes(input: SystemLayoutInput): number[] {
+  const sizes: number[] = [];
+  let start = 0;
+  while (start < input.barWidths.length) {
+    let size = 1;
+    while (
+      start + size < input.barWidths.length &&
+      size < input.maxBarsPerSystem &&
+      needed(input, range(start, size + 1)) <= input.lineWidth(sizes.length)
+    ) {
+      size++;
+    }
+    sizes.push(size);
+    start += size;
+  }
+  return sizes;
+}
+
+function greedySystemCount(input: SystemLayoutInput): number {
+  return greedySizes(input).length;
+}
+
+/** Sizes as equal as possible (longer lines first) for `count` systems, or null if one overflows. */
+function balancedSizes(input: SystemLayoutInput, count: number): number[] | null {
+  const total = input.barWidths.length;
+  if (count === 0) return [];
+  const small = Math.floor(total / count);
+  const sizes = Array.from({ length: count }, (_, i) => small + (i < total % count ? 1 : 0));
+  let start = 0;
+  for (const [index, size] of sizes.entries()) {
+    if (size > input.maxBarsPerSystem) return null;
+    if (size > 1 && needed(input, range(start, size)) > input.lineWidth(index)) return null;
+    start += size;
+  }
+  return sizes;
+}
+
+/** Widen the bars to the line; a short last line keeps its natural widths (stretched ≤ 1.5×). */
+function stretch(
+  input: SystemLayoutInput,
+  bars: readonly number[],
+  systemIndex: number,
+  last: boolean,
+): number[] {
+  const natural = bars.map((bar) => input.barWidths[bar] ?? 0);
+  const naturalSum = natural.reduce((a, b) => a + b, 0);
+  const room = Math.max(input.lineWidth(systemIndex) - input.systemStartWidth, naturalSum);
+  const factor = last ? Math.min(room / naturalSum, 1.5) : room / naturalSum;
+  return natural.map((w, i) => w * factor + (i === 0 ? input.systemStartWidth : 0));
+}
+
+function range(start: number, size: number): number[] {
+  return Array.from({ length: size }, (_, i) => start + i);
+}

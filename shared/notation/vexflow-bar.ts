@@ -1,0 +1,133 @@
+/**
+ * VexFlow objects for one bar of the notation model: one voice per layer (hands stems up, feet
+ * stems down), with beams per beat, tuplet brackets per beat, accents, ghost-note parentheses and
+ * open-hi-hat circles. Built fresh for every layout pass; nothing here draws.
+ */
+import {
+  Articulation,
+  Beam,
+  Dot,
+  Formatter,
+  Modifier,
+  ModifierPosition,
+  Ornament,
+  Parenthesis,
+  Stem,
+  StaveNote,
+  Tuplet,
+  Voice,
+  VoiceMode,
+} from 'vexflow/bravura';
+import type { LayerBeat, NotationBar, NotationEvent, NotationModel } from './notation-model';
+import type { Layer } from './staff-placement';
+
+/** Where rests of each layer sit: hands' rests high, feet's rests low, out of each other's way. */
+const REST_KEY: Readonly<Record<Layer, string>> = { hands: 'e/5', feet: 'e/4' };
+
+export interface EngravedNote {
+  readonly note: StaveNote;
+  readonly layer: Layer;
+  readonly beat: number;
+  readonly event: NotationEvent;
+}
+
+export interface EngravedTuplet {
+  readonly tuplet: Tuplet;
+  readonly layer: Layer;
+  readonly numNotes: number;
+}
+
+export interface EngravedBar {
+  readonly voices: readonly { readonly layer: Layer; readonly voice: Voice }[];
+  readonly notes: readonly EngravedNote[];
+  readonly beams: readonly { readonly beam: Beam; readonly layer: Layer }[];
+  readonly tuplets: readonly EngravedTuplet[];
+}
+
+/** Build the voices, beams and tuplets of one bar. */
+export function engraveBar(bar: NotationBar, model: NotationModel): EngravedBar {
+  const notes: EngravedNote[] = [];
+  const beams: { beam: Beam; layer: Layer }[] = [];
+  const tuplets: EngravedTuplet[] = [];
+  const voices = model.layers.map((layer) => {
+    const voice = new Voice({ numBeats: model.meter.beats, beatValue: model.meter.unit });
+    voice.setMode(VoiceMode.SOFT);
+    for (const beat of bar.beats) {
+      const layerBeat = beat.layers.find((l) => l.layer === layer);
+      if (!layerBeat) continue;
+      const staveNotes = layerBeat.events.map((event) => staveNoteOf(event, layer));
+      staveNotes.forEach((note, i) =>
+        notes.push({ note, layer, beat: beat.beat, event: layerBeat.events[i]! }),
+      );
+      addBeamAndTuplet(layerBeat, staveNotes, beams, tuplets);
+      voice.addTickables(staveNotes);
+    }
+    return { layer, voice };
+  });
+  return { voices, notes, beams, tuplets };
+}
+
+/** The narrowest width the bar's notes can be set in, before stretching. */
+export function minimumBarWidth(engraved: EngravedBar): number {
+  const voices = engraved.voices.map((v) => v.voice);
+  return new Formatter().joinVoices(voices).preCalculateMinTotalWidth(voices);
+}
+
+function addBeamAndTuplet(
+  layerBeat: LayerBeat,
+  staveNotes: StaveNote[],
+  beams: { beam: Beam; layer: Layer }[],
+  tuplets: EngravedTuplet[],
+): void {
+  if (layerBeat.beam.length > 0) {
+    const beamed = layerBeat.beam.map((i) => staveNotes[i]!);
+    beams.push({ beam: new Beam(beamed), layer: layerBeat.layer });
+  }
+  if (layerBeat.tuplet) {
+    const tuplet = new Tuplet(staveNotes, {
+      numNotes: layerBeat.tuplet.numNotes,
+      notesOccupied: layerBeat.tuplet.notesOccupied,
+      ratioed: false,
+      bracketed: true,
+      location: layerBeat.layer === 'hands' ? Tuplet.LOCATION_TOP : Tuplet.LOCATION_BOTTOM,
+    });
+    tuplets.push({ tuplet, layer: layerBeat.layer, numNotes: layerBeat.tuplet.numNotes });
+  }
+}
+
+function staveNoteOf(event: NotationEvent, layer: Layer): StaveNote {
+  const rest = event.kind === 'rest';
+  const note = new StaveNote({
+    keys: rest ? [REST_KEY[layer]] : event.heads.map((head) => head.key),
+    duration: `${event.duration.value}${rest ? 'r' : ''}`,
+    dots: event.duration.dots,
+    clef: 'percussion',
+    stemDirection: layer === 'hands' ? Stem.UP : Stem.DOWN,
+  });
+  if (event.duration.dots) Dot.buildAndAttach([note], { all: true });
+  if (rest) return note;
+  const below = layer === 'feet';
+  if (event.accent) {
+    note.addModifier(
+      new Articulation('a>').setPosition(below ? ModifierPosition.BELOW : ModifierPosition.ABOVE),
+    );
+  }
+  addGhostParentheses(note, event);
+  if (event.heads.some((head) => head.open)) {
+    note.addModifier(new Ornament('plungerOpen').setPosition(Modifier.Position.ABOVE));
+  }
+  return note;
+}
+
+/** Ghost notes in parentheses: the whole chord when all heads are ghosts, else just those heads. */
+function addGhostParentheses(note: StaveNote, event: NotationEvent): void {
+  if (event.heads.every((head) => head.ghost)) {
+    Parenthesis.buildAndAttach([note]);
+    return;
+  }
+  event.heads.forEach((head, index) => {
+    if (!head.ghost) return;
+    note.addModifier(new Parenthesis(ModifierPosition.LEFT), index);
+    note.addModifier(new Parenthesis(ModifierPosition.RIGHT), index);
+  });
+}

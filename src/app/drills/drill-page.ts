@@ -1,0 +1,128 @@
+import {
+  ChangeDetectionStrategy,
+  Component,
+  computed,
+  effect,
+  inject,
+  input,
+  linkedSignal,
+  signal,
+} from '@angular/core';
+import { toObservable, toSignal } from '@angular/core/rxjs-interop';
+import { FormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatInputModule } from '@angular/material/input';
+import { MatSlideToggleModule } from '@angular/material/slide-toggle';
+import { Router } from '@angular/router';
+import { switchMap } from 'rxjs';
+import { AuthSession } from '../core/auth-session';
+import { toLoadState, type LoadState } from '../core/load-state';
+import type { Drill } from '../../../shared/generator/index';
+import { generateFromCard } from './drill-result';
+import { DrillsApi, type PresetDetail } from './drills-api';
+import { PlaybackPanel } from './playback/playback-panel';
+import { DrillScore } from './score/drill-score';
+import type { ScorePosition } from './score/score-layout';
+import { freshSeed } from './seed-words';
+
+/** Longest seed the page accepts; seeds are words, not documents. */
+const MAX_SEED_LENGTH = 64;
+
+/**
+ * `/drills/:cardId?seed=SEED`: one preset card's drill, generated in the browser, in notation with
+ * its tension under every bar and the playback panel. The seed lives in the URL, so a reload or a
+ * shared link reproduces the same drill.
+ */
+@Component({
+  selector: 'tensile-drill-page',
+  imports: [
+    FormsModule,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatSlideToggleModule,
+    DrillScore,
+    PlaybackPanel,
+  ],
+  templateUrl: './drill-page.html',
+  styleUrl: './drill-page.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class DrillPage {
+  /** Route parameter. */
+  readonly cardId = input.required<string>();
+  /** Query parameter `?seed=`. */
+  readonly seed = input<string>();
+
+  private readonly api = inject(DrillsApi);
+  private readonly router = inject(Router);
+  private readonly session = inject(AuthSession);
+
+  protected readonly preset = toSignal(
+    toObservable(this.cardId).pipe(switchMap((id) => toLoadState(this.api.preset(id)))),
+    { initialValue: { status: 'loading' } as LoadState<PresetDetail> },
+  );
+  /** Teachers (and admins) pick seeds; students practise the drill they were given. */
+  protected readonly canChooseSeed = computed(() => {
+    const role = this.session.role();
+    return role === 'teacher' || role === 'admin';
+  });
+  protected readonly activeSeed = computed(
+    () => this.seed()?.trim().slice(0, MAX_SEED_LENGTH) || null,
+  );
+  protected readonly seedDraft = linkedSignal(() => this.activeSeed() ?? '');
+  protected readonly seedProblem = computed(() => seedProblem(this.seedDraft()));
+  protected readonly result = computed(() => {
+    const preset = this.preset();
+    const seed = this.activeSeed();
+    if (preset.status !== 'ready' || seed === null) return null;
+    return generateFromCard(preset.value.card, seed);
+  });
+  protected readonly drill = computed(() => {
+    const result = this.result();
+    return result?.status === 'ready' ? result.drill : null;
+  });
+  protected readonly cursor = signal<ScorePosition | null>(null);
+  protected readonly showSticking = signal(true);
+  protected readonly showCounts = signal(true);
+
+  constructor() {
+    // A link without a seed gets one at once, written into the URL so a reload keeps the drill.
+    effect(() => {
+      if (this.seed() === undefined || this.activeSeed() === null) this.useSeed(freshSeed(), true);
+    });
+  }
+
+  /** Whether the card sets a tension curve (its targets are drawn under the bars). */
+  protected hasTarget(drill: Drill): boolean {
+    return drill.card.rules.some((rule) => rule.kind === 'tension');
+  }
+
+  /** Generate again with the seed typed in the field. */
+  protected regenerate(): void {
+    const seed = this.seedDraft().trim();
+    if (seedProblem(seed) === null) this.useSeed(seed);
+  }
+
+  /** Draw a new random seed and generate its drill. */
+  protected newSeed(): void {
+    this.useSeed(freshSeed());
+  }
+
+  private useSeed(seed: string, replaceUrl = false): void {
+    this.cursor.set(null);
+    void this.router.navigate([], {
+      queryParams: { seed },
+      queryParamsHandling: 'merge',
+      replaceUrl,
+    });
+  }
+}
+
+function seedProblem(seed: string): string | null {
+  const trimmed = seed.trim();
+  if (trimmed === '') return 'Type a seed: any word or number.';
+  if (trimmed.length > MAX_SEED_LENGTH) return `A seed has at most ${MAX_SEED_LENGTH} characters.`;
+  return null;
+}

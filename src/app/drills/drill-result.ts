@@ -1,0 +1,42 @@
+import {
+  RuleCardError,
+  RuleConflictError,
+  generateDrill,
+  parseRuleCard,
+  type Drill,
+} from '../../../shared/generator/index';
+
+/** A generated drill, or what stopped the engine in words a teacher can act on. */
+export type DrillResult =
+  | { readonly status: 'ready'; readonly drill: Drill }
+  | { readonly status: 'error'; readonly heading: string; readonly message: string };
+
+/** Validate the card and generate its drill for `seed`, in the browser. */
+export function generateFromCard(card: unknown, seed: string): DrillResult {
+  try {
+    return { status: 'ready', drill: generateDrill(parseRuleCard(card), seed) };
+  } catch (error) {
+    if (error instanceof RuleCardError) {
+      return { status: 'error', heading: 'This rule card needs a change', message: error.message };
+    }
+    if (error instanceof RuleConflictError) {
+      return {
+        status: 'error',
+        heading: 'These rules cannot all hold at once',
+        message: `${error.message} Relax one of them on the rule card, or try another seed.`,
+      };
+    }
+    return {
+      status: 'error',
+      heading: 'The drill could not be generated',
+      message: error instanceof Error ? error.message : 'Please try another seed.',
+    };
+  }
+}
+
+/** The card's target tension for a bar (its `tension` curve repeats over the bars), if any. */
+export function targetTension(drill: Drill, bar: number): number | null {
+  const rule = drill.card.rules.find((r) => r.kind === 'tension');
+  if (!rule || rule.kind !== 'tension' || rule.curve.length === 0) return null;
+  return rule.curve[(bar - 1) % rule.curve.length] ?? null;
+}

@@ -1,0 +1,146 @@
+import {
+  ChangeDetectionStrategy,
+  Component,
+  DestroyRef,
+  ElementRef,
+  afterNextRender,
+  computed,
+  effect,
+  inject,
+  input,
+  output,
+  signal,
+  viewChild,
+} from '@angular/core';
+import type { Drill } from '../../../../shared/generator/index';
+import { buildNotation, type NotationModel } from '../../../../shared/notation/notation-model';
+import { targetTension } from '../drill-result';
+import { TensionPlot } from '../tension-plot/tension-plot';
+import { cursorBox, stepPosition, type ScoreLayout, type ScorePosition } from './score-layout';
+
+/** Room under each system for the tension plots, in pixels. */
+const PLOT_ROOM = 52;
+const RESIZE_DEBOUNCE_MS = 150;
+
+/**
+ * The drill in drum-set notation. VexFlow is loaded on first use (dynamic import), so it stays out
+ * of the initial bundle; the score re-flows into systems whenever its width changes.
+ */
+@Component({
+  selector: 'tensile-drill-score',
+  imports: [TensionPlot],
+  templateUrl: './drill-score.html',
+  styleUrl: './drill-score.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  host: {
+    tabindex: '0',
+    role: 'group',
+    '[attr.aria-label]': 'label()',
+    '(keydown)': 'moveCursor($event)',
+  },
+})
+export class DrillScore {
+  readonly drill = input.required<Drill>();
+  readonly cursor = input<ScorePosition | null>(null);
+  readonly showSticking = input(true);
+  readonly showCounts = input(true);
+  /** A beat picked on the score with the arrow keys (a reading cursor while not playing). */
+  readonly cursorMoved = output<ScorePosition | null>();
+
+  private readonly host = inject<ElementRef<HTMLElement>>(ElementRef);
+  private readonly canvas = viewChild.required<ElementRef<HTMLDivElement>>('canvas');
+  private readonly width = signal(0);
+  private renderToken = 0;
+
+  protected readonly layout = signal<ScoreLayout | null>(null);
+  protected readonly failure = signal<string | null>(null);
+  protected readonly model = computed(() => buildNotation(this.drill()));
+  protected readonly highlight = computed(() => {
+    const layout = this.layout();
+    return layout ? cursorBox(layout, this.cursor()) : null;
+  });
+  protected readonly plots = computed(() => {
+    const layout = this.layout();
+    if (!layout) return [];
+    const drill = this.drill();
+    return layout.bars.map((box) => ({
+      bar: box.bar,
+      x: box.x,
+      y: box.systemBottom,
+      width: box.width,
+      tension: drill.bars.find((b) => b.bar === box.bar)?.tension ?? 0,
+      target: targetTension(drill, box.bar),
+    }));
+  });
+  protected readonly label = computed(() => {
+    const { meter, bars } = this.model();
+    return `Drum notation: ${bars.length} bars of ${meter.beats}/${meter.unit}. Left and right arrows step through the beats.`;
+  });
+  protected readonly plotRoom = PLOT_ROOM;
+
+  constructor() {
+    const destroyRef = inject(DestroyRef);
+    afterNextRender(() => {
+      let timer: ReturnType<typeof setTimeout> | undefined;
+      const observer = new ResizeObserver((entries) => {
+        const width = Math.floor(entries[0]?.contentRect.width ?? 0);
+        clearTimeout(timer);
+        // The first measurement draws at once; later ones wait until resizing settles.
+        if (this.width() === 0) this.width.set(width);
+        else timer = setTimeout(() => this.width.set(width), RESIZE_DEBOUNCE_MS);
+      });
+      observer.observe(this.host.nativeElement);
+      destroyRef.onDestroy(() => {
+        clearTimeout(timer);
+        observer.disconnect();
+      });
+    });
+    effect(() => {
+      const model = this.model();
+      const width = this.width();
+      const showSticking = this.showSticking();
+      const showCounts = this.showCounts();
+      if (width > 0) void this.render(model, width, showSticking, showCounts);
+    });
+  }
+
+  /** Arrow keys step the highlighted beat; Escape clears it. */
+  protected moveCursor(event: KeyboardEvent): void {
+    const layout = this.layout();
+    if (!layout) return;
+    const by = { ArrowRight: 1, ArrowLeft: -1 }[event.key];
+    if (by !== undefined) {
+      event.preventDefault();
+      this.cursorMoved.emit(stepPosition(layout.bars, this.cursor(), by));
+    } else if (event.key === 'Escape') {
+      this.cursorMoved.emit(null);
+    }
+  }
+
+  private async render(
+    model: NotationModel,
+    width: number,
+    showSticking: boolean,
+    showCounts: boolean,
+  ): Promise<void> {
+    const token = ++this.renderToken;
+    try {
+      const { renderNotation } = await import('../../../../shared/notation/render-vexflow');
+      await document.fonts?.ready;
+      if (token !== this.renderToken) return;
+      const { svg, ...layout } = renderNotation(this.canvas().nativeElement, model, {
+        width,
+        showSticking,
+        showCounts,
+        gapBelowSystem: PLOT_ROOM,
+        ink: 'currentColor',
+      });
+      svg.setAttribute('aria-hidden', 'true');
+      this.layout.set(layout);
+      this.failure.set(null);
+    } catch (error) {
+      if (token !== this.renderToken) return;
+      this.failure.set(error instanceof Error ? error.message : String(error));
+    }
+  }
+}
