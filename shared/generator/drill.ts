@@ -1,3 +1,5 @@
+import type { RuleCard } from './schema';
+
 /**
  * The drill: what the engine returns for a rule card and a seed, and what every consumer
  * (notation, playback, PDF, MIDI, MusicXML, seed links, tension plots) reads.
@@ -35,7 +37,14 @@ export type Dynamic = 'ghost' | 'normal' | 'accent';
 export type Hand = 'R' | 'L';
 
 /** Which part of the card placed a hit; earlier names win when two parts want one instant. */
-export const HIT_SOURCES = ['ostinato', 'backbeat', 'avoidDownbeat', 'polyrhythm', 'euclid', 'fill'] as const;
+export const HIT_SOURCES = [
+  'ostinato',
+  'backbeat',
+  'avoidDownbeat',
+  'polyrhythm',
+  'euclid',
+  'fill',
+] as const;
 export type HitSource = (typeof HIT_SOURCES)[number];
 
 export interface DrillHit {
@@ -59,4 +68,14 @@ export interface DrillBar {
   readonly tension: number;
   /** Sorted by beat, slot, then voice id. */
   readonly hits: readonly DrillHit[];
+}
+
+/** A generated drill: the engine version and seed that reproduce it, its card, its bars. */
+export interface Drill {
+  /** ENGINE_VERSION of the engine that generated it. */
+  readonly engine: string;
+  readonly seed: string;
+  /** The normalised rule card (every default filled in). */
+  readonly card: RuleCard;
+  readonly bars: readonly DrillBar[];
 }

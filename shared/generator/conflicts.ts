@@ -1,0 +1,106 @@
+import { isHandVoice } from './drill';
+import { RuleConflictError } from './errors';
+import { positionOf, slotsIn, type Grid } from './grid';
+import { assignHands, MAX_HAND_NOTES_PER_SECOND } from './hands';
+import type { Obligations } from './obligations';
+import { describePart, partKind } from './rules/describe';
+import { overlapBudget } from './rules/linear';
+import type { Placement } from './rules/placement';
+import type { RuleCard } from './schema';
+import { listWords, positionWords, voiceWord } from './words';
+
+/**
+ * Conflicts visible before any fill is chosen: a voice the card does not have, an obligatory hit
+ * on an avoided downbeat, more than two hands at once, too many overlaps for a linear rule, or
+ * notes too fast for two hands. Throws a RuleConflictError naming the parts in conflict.
+ */
+export function assertNoObligationConflicts(card: RuleCard, grid: Grid, ob: Obligations): void {
+  assertVoicesOnCard(card);
+  assertAvoidedDownbeatsFree(card, grid, ob);
+  assertLinearBudget(card, grid, ob);
+  assertHandsSuffice(card, grid, ob);
+}
+
+function where(grid: Grid, instant: number): string {
+  const p = positionOf(grid, instant);
+  return positionWords(p.bar, p.beat, p.slot, slotsIn(grid, p.beat - 1));
+}
+
+function assertVoicesOnCard(card: RuleCard): void {
+  const onCard = new Set(card.voices);
+  const used: [string, number][] = [];
+  if (card.ostinato) used.push([card.ostinato.voice, -1]);
+  card.rules.forEach((rule, index) => {
+    if ('voice' in rule) used.push([rule.voice, index]);
+    if ('voices' in rule) for (const v of rule.voices) used.push([v, index]);
+  });
+  for (const [voice, index] of used) {
+    if (onCard.has(voice as never)) continue;
+    throw new RuleConflictError(
+      `${capital(describePart(card, index))} plays the ${voiceWord(voice)}, but the card's voices (${listWords(card.voices.map(voiceWord))}) do not include it.`,
+      [partKind(card, index), 'voices'],
+    );
+  }
+}
+
+function assertAvoidedDownbeatsFree(card: RuleCard, grid: Grid, ob: Obligations): void {
+  for (const p of ob.placements) {
+    const avoider = ob.avoided.get(p.voice)?.get(p.instant);
+    if (avoider === undefined) continue;
+    const bar = positionOf(grid, p.instant).bar;
+    const sameKind = p.rule !== avoider && partKind(card, p.rule) === 'avoidDownbeat';
+    const numbered = (rule: number): string =>
+      `${describePart(card, rule)}${sameKind ? ` (rule ${rule + 1})` : ''}`;
+    const part = p.rule === avoider ? `the ${voiceWord(p.voice)}'s anticipation` : numbered(p.rule);
+    throw new RuleConflictError(
+      `${capital(numbered(avoider))} keeps the ${voiceWord(p.voice)} off beat 1 of bar ${bar}, but ${part} puts it there.`,
+      [partKind(card, p.rule), 'avoidDownbeat'],
+    );
+  }
+}
+
+function assertLinearBudget(card: RuleCard, grid: Grid, ob: Obligations): void {
+  const budget = overlapBudget(card);
+  if (!Number.isFinite(budget)) return;
+  for (let bar = 0; bar < grid.bars; bar++) {
+    let overlaps = 0;
+    for (let i = 0; i < grid.slotsPerBar; i++) {
+      const instant = bar * grid.slotsPerBar + i;
+      const cell = ob.cells[instant] ?? [];
+      if (cell.length < 2 || ++overlaps <= budget) continue;
+      const [a, b] = cell;
+      const allowance =
+        budget === 0
+          ? 'allows no overlaps'
+          : `allows at most ${budget} overlap${budget === 1 ? '' : 's'} a bar`;
+      throw new RuleConflictError(
+        `The linear rule ${allowance}, but ${describePart(card, b?.rule ?? -1)} lands on ${describePart(card, a?.rule ?? -1)} (${where(grid, instant)}).`,
+        ['linear', partKind(card, b?.rule ?? -1), partKind(card, a?.rule ?? -1)].filter(unique),
+      );
+    }
+  }
+}
+
+function assertHandsSuffice(card: RuleCard, grid: Grid, ob: Obligations): void {
+  const failure = assignHands(grid, card.tempo, card.ostinato?.voice, ob.cells);
+  if (!failure) return;
+  const cell = ob.cells[failure.instant] ?? [];
+  const parts = partsNear(ob.placements, failure.instant).map((r) => describePart(card, r));
+  const kinds = partsNear(ob.placements, failure.instant).map((r) => partKind(card, r));
+  const hands = cell.filter((hit) => isHandVoice(hit.voice)).map((hit) => voiceWord(hit.voice));
+  const message =
+    failure.reason === 'tooManyHands'
+      ? `At ${where(grid, failure.instant)} ${listWords(parts)} need the ${listWords(hands)} at once, but a drummer has only two hands.`
+      : `At ${card.tempo} beats per minute, ${listWords(parts)} ask a hand for more than ${MAX_HAND_NOTES_PER_SECOND} notes a second around ${where(grid, failure.instant)}: slow the tempo or thin out the hand parts.`;
+  throw new RuleConflictError(message, [...kinds, 'hands'].filter(unique));
+}
+
+/** Rule indexes of the placements at an instant and just before it (for rate conflicts). */
+function partsNear(placements: readonly Placement[], instant: number): number[] {
+  const near = placements.filter((p) => p.instant === instant || p.instant === instant - 1);
+  return near.map((p) => p.rule).filter(unique);
+}
+
+const unique = <T>(value: T, index: number, all: readonly T[]): boolean =>
+  all.indexOf(value) === index;
+const capital = (text: string): string => text.charAt(0).toUpperCase() + text.slice(1);

@@ -1,0 +1,196 @@
+import { isHandVoice, VOICE_IDS, type VoiceId } from './drill';
+import type { Grid } from './grid';
+import type { Obligations } from './obligations';
+import type { Rng } from './random';
+import { fillHolesOwners, fillVoices } from './rules/fill-holes';
+import { overlapBudget } from './rules/linear';
+import { ostinatoPlaysAt } from './rules/ostinato';
+import type { RuleCard } from './schema';
+
+/** What the fill of every bar shares: the card, its grid, the obligations and the limits. */
+export interface FillContext {
+  readonly card: RuleCard;
+  readonly grid: Grid;
+  readonly ob: Obligations;
+  readonly budget: number;
+  /** Per bar-local instant: the voices a fill may add there (before limb and linear limits). */
+  readonly options: readonly (readonly VoiceId[])[][];
+  /** Metrical strength of each bar-local instant: 0 downbeat, 1 beat, 2 half beat, 3 other. */
+  readonly strength: readonly number[];
+}
+
+/** One bar's fill hits, with the counts the limits need; cheap to copy for variants. */
+export interface BarFill {
+  readonly bar: number;
+  /** Bar-local instants and voices of the fill hits. */
+  readonly fills: { i: number; voice: VoiceId }[];
+  /** Hits (obligatory + fill) and hand voices per bar-local instant. */
+  readonly size: number[];
+  readonly hands: number[];
+  /** Per bar-local instant: bit set of the fill voices there (bit = index in VOICE_IDS). */
+  readonly mask: number[];
+  overlaps: number;
+}
+
+export function createFillContext(card: RuleCard, grid: Grid, ob: Obligations): FillContext {
+  const owners = fillHolesOwners(card);
+  const voices = fillVoices(card);
+  const options: VoiceId[][][] = [];
+  for (let bar = 0; bar < grid.bars; bar++) {
+    const perInstant: VoiceId[][] = [];
+    for (let i = 0; i < grid.slotsPerBar; i++) {
+      const instant = bar * grid.slotsPerBar + i;
+      const cell = ob.cells[instant] ?? [];
+      // A slot another rule has taken is not free; the ostinato alone leaves it free.
+      const free = cell.every((hit) => hit.source === 'ostinato');
+      const hole = !ostinatoPlaysAt(card, grid, instant);
+      perInstant.push(
+        !free
+          ? []
+          : voices.filter(
+              (v) =>
+                (hole || !owners.has(v)) &&
+                !ob.avoided.get(v)?.has(instant) &&
+                !cell.some((hit) => hit.voice === v),
+            ),
+      );
+    }
+    options.push(perInstant);
+  }
+  const strength = grid.beatOf.map((b, i) => {
+    const slot = grid.slotOf[i] ?? 0;
+    const slots = grid.beats[b] ?? 1;
+    return slot === 0 ? (b === 0 ? 0 : 1) : slot * 2 === slots ? 2 : 3;
+  });
+  return { card, grid, ob, budget: overlapBudget(card), options, strength };
+}
+
+/** An empty fill for a bar: only its obligations counted. */
+export function emptyFill(ctx: FillContext, bar: number): BarFill {
+  const size: number[] = [];
+  const hands: number[] = [];
+  let overlaps = 0;
+  for (let i = 0; i < ctx.grid.slotsPerBar; i++) {
+    const cell = ctx.ob.cells[bar * ctx.grid.slotsPerBar + i] ?? [];
+    size.push(cell.length);
+    hands.push(cell.filter((hit) => isHandVoice(hit.voice)).length);
+    if (cell.length >= 2) overlaps++;
+  }
+  return { bar, fills: [], size, hands, mask: new Array<number>(size.length).fill(0), overlaps };
+}
+
+export function copyFill(f: BarFill): BarFill {
+  return {
+    bar: f.bar,
+    fills: f.fills.slice(),
+    size: f.size.slice(),
+    hands: f.hands.slice(),
+    mask: f.mask.slice(),
+    overlaps: f.overlaps,
+  };
+}
+
+/**
+ * True when `voice` may be added at bar-local instant `i`: one fill hit per free slot (density
+ * counts slots), within the limbs and linear limits.
+ */
+function canAdd(ctx: FillContext, f: BarFill, i: number, voice: VoiceId): boolean {
+  if ((f.mask[i] ?? 0) !== 0) return false;
+  if (isHandVoice(voice) && (f.hands[i] ?? 0) >= 2) return false;
+  return !((f.size[i] ?? 0) === 1 && f.overlaps >= ctx.budget);
+}
+
+const bit = (voice: VoiceId): number => 1 << VOICE_IDS.indexOf(voice);
+
+function add(f: BarFill, i: number, voice: VoiceId): void {
+  f.fills.push({ i, voice });
+  f.mask[i] = (f.mask[i] ?? 0) | bit(voice);
+  const before = f.size[i] ?? 0;
+  f.size[i] = before + 1;
+  if (before === 1) f.overlaps++;
+  if (isHandVoice(voice)) f.hands[i] = (f.hands[i] ?? 0) + 1;
+}
+
+function removeAt(f: BarFill, k: number): void {
+  const [hit] = f.fills.splice(k, 1);
+  if (!hit) return;
+  f.mask[hit.i] = (f.mask[hit.i] ?? 0) & ~bit(hit.voice);
+  const after = (f.size[hit.i] ?? 1) - 1;
+  f.size[hit.i] = after;
+  if (after === 1) f.overlaps--;
+  if (isHandVoice(hit.voice)) f.hands[hit.i] = (f.hands[hit.i] ?? 1) - 1;
+}
+
+/** Removes the fill hit of `voice` at bar-local instant `i` (hand repair). */
+export function removeFill(f: BarFill, i: number, voice: VoiceId): void {
+  const k = f.fills.findIndex((hit) => hit.i === i && hit.voice === voice);
+  if (k >= 0) removeAt(f, k);
+}
+
+/**
+ * Pick weight of an instant by metrical strength, leaning on-beat for a calm bar (`lean` 0) and
+ * off-beat for a tense one (`lean` 1). Integer tables keep the arithmetic exact.
+ */
+const CALM = [8, 6, 3, 1] as const;
+const TENSE = [1, 2, 5, 8] as const;
+function weightOf(strength: number, lean: number): number {
+  return (CALM[strength] ?? 1) * (1 - lean) + (TENSE[strength] ?? 1) * lean;
+}
+
+/** Free instants of a bar (those where some fill voice is allowed). */
+export function freeCount(ctx: FillContext, bar: number): number {
+  return (ctx.options[bar] ?? []).filter((voices) => voices.length > 0).length;
+}
+
+/** Adds one seeded, weighted fill hit; false when nothing more fits. */
+function addOne(ctx: FillContext, f: BarFill, rng: Rng, lean: number): boolean {
+  const options = ctx.options[f.bar] ?? [];
+  const weights = new Array<number>(options.length).fill(0);
+  for (let i = 0; i < options.length; i++) {
+    const voices = options[i] ?? [];
+    if (voices.length === 0 || (f.mask[i] ?? 0) !== 0) continue;
+    if (voices.some((v) => canAdd(ctx, f, i, v))) weights[i] = weightOf(ctx.strength[i] ?? 3, lean);
+  }
+  const i = rng.weighted(weights);
+  if (i < 0) return false;
+  const allowed = (options[i] ?? []).filter((v) => canAdd(ctx, f, i, v));
+  const voice = allowed[rng.int(allowed.length)];
+  if (!voice) return false;
+  add(f, i, voice);
+  return true;
+}
+
+/** Removes one seeded fill hit, preferring those that work against `lean`. */
+function removeOne(ctx: FillContext, f: BarFill, rng: Rng, lean: number): boolean {
+  if (f.fills.length === 0) return false;
+  const weights = f.fills.map((hit) => weightOf(ctx.strength[hit.i] ?? 3, 1 - lean));
+  const k = rng.weighted(weights);
+  if (k < 0) return false;
+  removeAt(f, k);
+  return true;
+}
+
+/** The bar's first fill: `density` of its free slots, chosen by seeded weighted draws. */
+export function initialFill(ctx: FillContext, bar: number, rng: Rng, lean: number): BarFill {
+  const f = emptyFill(ctx, bar);
+  const count = Math.round(ctx.card.density * freeCount(ctx, bar));
+  for (let n = 0; n < count; n++) if (!addOne(ctx, f, rng, lean)) break;
+  return f;
+}
+
+/** A neighbour of a fill: one move (remove + add), addition or removal, leaning as asked. */
+export function variantOf(ctx: FillContext, from: BarFill, rng: Rng, lean: number): BarFill {
+  const f = copyFill(from);
+  const steps = 1 + rng.int(2);
+  for (let s = 0; s < steps; s++) {
+    const move = rng.int(3);
+    if (move === 0) {
+      if (removeOne(ctx, f, rng, lean)) addOne(ctx, f, rng, lean);
+    } else if (move === 1) {
+      addOne(ctx, f, rng, lean);
+    } else {
+      removeOne(ctx, f, rng, lean);
+    }
+  }
+  return f;
+}

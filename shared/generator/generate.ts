@@ -1,0 +1,152 @@
+import { canonicalCard } from './canonical';
+import { assertNoObligationConflicts } from './conflicts';
+import { isHandVoice, type Drill, type DrillBar, type DrillHit } from './drill';
+import { RuleConflictError } from './errors';
+import { createFillContext, type BarFill } from './fill';
+import { beatsOf, createGrid, type Grid } from './grid';
+import { assignHands, type WorkHit } from './hands';
+import { createTensionGauge, type TensionGauge } from './tension-gauge';
+import { collectObligations, type Obligations } from './obligations';
+import { createRng, type Rng } from './random';
+import { checkDrillWith } from './rules/checker';
+import { embellishmentDynamics, fillHolesOwners } from './rules/fill-holes';
+import { rankOrderBreaks, tensionTargets } from './rules/tension';
+import type { RuleCard } from './schema';
+import { chooseFills } from './select';
+import { ENGINE_VERSION } from './version';
+
+/**
+ * Generates the drill for a card and a seed: obligations first (ostinato, backbeat,
+ * avoidDownbeat, polyrhythm, euclid), then fill by seeded weighted choice, a bounded search for
+ * the tension curve's rank order, hand assignment, and a final check against every rule.
+ * Deterministic: the same card, seed and ENGINE_VERSION give byte-identical JSON. Throws a
+ * RuleConflictError naming the rules when they cannot all hold.
+ */
+export function generateDrill(input: RuleCard, seed: string): Drill {
+  const card = canonicalCard(input);
+  const grid = createGrid(card.bars, beatsOf(card.subdivision, card.meter.beats));
+  const ob = collectObligations(card, grid);
+  assertNoObligationConflicts(card, grid, ob);
+  const rng = createRng(seed);
+  const gauge = createTensionGauge(grid.beats);
+  const bars = fillAndStick(card, grid, ob, rng, gauge);
+  const drill: Drill = { engine: ENGINE_VERSION, seed, card, bars };
+  const violations = checkDrillWith(card, drill, gauge.ofBar, { grid, ob });
+  if (violations.length > 0) {
+    // Reaching this is an engine bug, not a card problem: say so plainly.
+    throw new Error(`Engine self-check failed: ${violations.map((v) => v.message).join(' ')}`);
+  }
+  return drill;
+}
+
+/** Fresh fills are tried when removing strokes the hands cannot play breaks the tension order. */
+const MAX_STICKING_ATTEMPTS = 4;
+
+function fillAndStick(
+  card: RuleCard,
+  grid: Grid,
+  ob: Obligations,
+  rng: Rng,
+  gauge: TensionGauge,
+): DrillBar[] {
+  const ctx = createFillContext(card, grid, ob);
+  const targets = tensionTargets(card, grid.bars);
+  for (let attempt = 0; attempt < MAX_STICKING_ATTEMPTS; attempt++) {
+    const cells = mergeCells(grid, ob, chooseFills(ctx, rng, targets, gauge));
+    repairHands(card, grid, cells);
+    markEmbellishments(card, cells, rng);
+    const bars = buildBars(grid, cells, gauge);
+    const tensions = bars.map((b) => b.tension);
+    if (!targets || rankOrderBreaks(targets, tensions).length === 0) return bars;
+  }
+  throw new RuleConflictError(
+    `At ${card.tempo} beats per minute the hands cannot play enough of the fill for the tension rule's curve: slow the tempo, raise the density or flatten the curve.`,
+    ['tension', 'hands'],
+  );
+}
+
+function mergeCells(grid: Grid, ob: Obligations, fills: readonly BarFill[]): WorkHit[][] {
+  const cells = ob.cells.map((cell) => cell.map((hit) => ({ ...hit })));
+  for (const f of fills) {
+    for (const hit of f.fills) {
+      cells[f.bar * grid.slotsPerBar + hit.i]?.push({
+        voice: hit.voice,
+        source: 'fill',
+        dynamic: 'normal',
+        rule: -2,
+        hand: null,
+      });
+    }
+  }
+  return cells;
+}
+
+/**
+ * Assigns hands; where two hands cannot keep up, drops the latest fill stroke at or before the
+ * trouble and tries again. Obligations alone are known to be playable, so this ends.
+ */
+function repairHands(card: RuleCard, grid: Grid, cells: WorkHit[][]): void {
+  for (;;) {
+    const failure = assignHands(grid, card.tempo, card.ostinato?.voice, cells);
+    if (!failure) return;
+    let removed = false;
+    for (let instant = failure.instant; instant >= 0 && !removed; instant--) {
+      const cell = cells[instant] ?? [];
+      const k = cell.findIndex((hit) => hit.source === 'fill' && isHandVoice(hit.voice));
+      if (k >= 0) {
+        cell.splice(k, 1);
+        removed = true;
+      }
+    }
+    if (!removed) {
+      throw new RuleConflictError(
+        'Two hands cannot play these rules at this tempo: slow it down.',
+        ['hands'],
+      );
+    }
+  }
+}
+
+/** Marks each fillHoles rule's share of its embellishments ghost or accent, in time order. */
+function markEmbellishments(card: RuleCard, cells: WorkHit[][], rng: Rng): void {
+  const owners = fillHolesOwners(card);
+  card.rules.forEach((rule, index) => {
+    if (rule.kind !== 'fillHoles') return;
+    const mine = cells.flatMap((cell) =>
+      cell.filter((hit) => hit.source === 'fill' && owners.get(hit.voice) === index),
+    );
+    const dynamics = embellishmentDynamics(rule, mine.length, rng);
+    mine.forEach((hit, k) => {
+      hit.dynamic = dynamics[k] ?? 'normal';
+    });
+  });
+}
+
+const byVoice = (a: WorkHit, b: WorkHit): number =>
+  a.voice < b.voice ? -1 : a.voice > b.voice ? 1 : 0;
+
+function buildBars(grid: Grid, cells: readonly WorkHit[][], gauge: TensionGauge): DrillBar[] {
+  const bars: DrillBar[] = [];
+  for (let bar = 0; bar < grid.bars; bar++) {
+    const hits: DrillHit[] = [];
+    for (let i = 0; i < grid.slotsPerBar; i++) {
+      const cell = cells[bar * grid.slotsPerBar + i] ?? [];
+      const beat = (grid.beatOf[i] ?? 0) + 1;
+      const slot = grid.slotOf[i] ?? 0;
+      for (const hit of cell.length > 1 ? cell.slice().sort(byVoice) : cell) {
+        hits.push({
+          beat,
+          slot,
+          voice: hit.voice,
+          dynamic: hit.dynamic,
+          hand: hit.hand,
+          source: hit.source,
+        });
+      }
+    }
+    const sketch: DrillBar = { bar: bar + 1, beats: grid.beats.slice(), tension: 0, hits };
+    const tension = gauge.ofBar(sketch);
+    bars.push({ bar: sketch.bar, beats: sketch.beats, tension, hits });
+  }
+  return bars;
+}

@@ -1,0 +1,2 @@
+export { createRng } from './rng';
+export type { Rng } from './rng';

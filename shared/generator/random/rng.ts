@@ -1,0 +1,53 @@
+import seedrandom from 'seedrandom';
+
+/**
+ * The engine's only source of randomness: a seeded generator drawn in a fixed order. seedrandom's
+ * default ARC4 generator gives the same stream for the same seed in every JavaScript engine.
+ */
+export interface Rng {
+  /** A float in [0, 1). */
+  next(): number;
+  /** An integer in [0, n). */
+  int(n: number): number;
+  /** True with probability `p`. */
+  chance(p: number): boolean;
+  /** An index chosen with probability proportional to its (non-negative) weight; -1 if all 0. */
+  weighted(weights: readonly number[]): number;
+  /** A new array with the items in a seeded order (Fisher–Yates). */
+  shuffle<T>(items: readonly T[]): T[];
+}
+
+/** Creates the seeded generator for one drill. */
+export function createRng(seed: string): Rng {
+  const prng = seedrandom(seed);
+  const next = (): number => prng();
+  const int = (n: number): number => Math.floor(next() * n);
+  return {
+    next,
+    int,
+    chance: (p) => next() < p,
+    weighted(weights) {
+      let total = 0;
+      for (const w of weights) total += w;
+      if (total <= 0) return -1;
+      let pick = next() * total;
+      for (let i = 0; i < weights.length; i++) {
+        pick -= weights[i] ?? 0;
+        if (pick < 0) return i;
+      }
+      // Rounding can leave a sliver at the end: the last positive weight takes it.
+      for (let i = weights.length - 1; i >= 0; i--) if ((weights[i] ?? 0) > 0) return i;
+      return -1;
+    },
+    shuffle(items) {
+      const out = items.slice();
+      for (let i = out.length - 1; i > 0; i--) {
+        const j = int(i + 1);
+        const tmp = out[i] as (typeof out)[number];
+        out[i] = out[j] as (typeof out)[number];
+        out[j] = tmp;
+      }
+      return out;
+    },
+  };
+}

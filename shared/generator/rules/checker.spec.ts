@@ -1,0 +1,156 @@
+import { describe, expect, it } from 'vitest';
+import {
+  checkDrill,
+  generateDrill,
+  parseRuleCard,
+  type Drill,
+  type DrillBar,
+  type DrillHit,
+} from '../index';
+
+const card = parseRuleCard({
+  bars: 2,
+  tempo: 100,
+  voices: ['kick', 'snare', 'hihat', 'tomFloor'],
+  ostinato: { voice: 'hihat', slots: [0, 2] },
+  density: 0.4,
+  rules: [
+    { kind: 'backbeat', voice: 'snare', beats: [2, 4] },
+    { kind: 'avoidDownbeat', voice: 'kick', resolveEvery: 2 },
+    { kind: 'fillHoles', voices: ['snare'], ghost: 0.5, accent: 0 },
+    { kind: 'tension', curve: [0.2, 0.8] },
+  ],
+});
+const drill = generateDrill(card, 'checked');
+
+/** The drill with bar 1's hits replaced. */
+function withHits(hits: (list: DrillHit[]) => DrillHit[], bar = 0): Drill {
+  const bars: DrillBar[] = drill.bars.map((b, i) =>
+    i === bar ? { ...b, hits: hits(b.hits.slice()) } : b,
+  );
+  return { ...drill, bars };
+}
+const codes = (d: Drill) => checkDrill(card, d).map((v) => v.code);
+
+describe('checkDrill', () => {
+  it('accepts what the generator makes', () => {
+    expect(checkDrill(card, drill)).toEqual([]);
+  });
+
+  it('catches unsorted and repeated hits', () => {
+    expect(codes(withHits((h) => h.reverse()))).toContain('order');
+    expect(codes(withHits((h) => [h[0]!, ...h]))).toContain('order');
+  });
+
+  it('catches hits outside the grid', () => {
+    expect(codes(withHits((h) => [...h, { ...h[h.length - 1]!, beat: 4, slot: 4 }]))).toContain(
+      'grid',
+    );
+  });
+
+  it('catches a missing backbeat and a dishonest source', () => {
+    expect(codes(withHits((h) => h.filter((x) => x.source !== 'backbeat')))).toContain('backbeat');
+    expect(
+      codes(
+        withHits((h) => h.map((x) => (x.source === 'backbeat' ? { ...x, source: 'fill' } : x))),
+      ),
+    ).toContain('backbeat');
+  });
+
+  it('catches a kick on an avoided downbeat', () => {
+    const kick: DrillHit = {
+      beat: 1,
+      slot: 0,
+      voice: 'kick',
+      dynamic: 'normal',
+      hand: null,
+      source: 'fill',
+    };
+    const d = withHits(
+      (h) =>
+        [...h, kick].sort(
+          (a, b) => a.beat - b.beat || a.slot - b.slot || (a.voice < b.voice ? -1 : 1),
+        ),
+      1,
+    );
+    expect(codes(d)).toContain('avoidDownbeat');
+  });
+
+  it('catches one hand on two voices, three hands, and feet with hands', () => {
+    const same = withHits((h) =>
+      h.map((x) => (x.beat === 2 && x.slot === 0 && x.hand ? { ...x, hand: 'R' } : x)),
+    );
+    expect(codes(same)).toContain('hands');
+    const tom: DrillHit = {
+      beat: 2,
+      slot: 0,
+      voice: 'tomFloor',
+      dynamic: 'normal',
+      hand: 'R',
+      source: 'fill',
+    };
+    const three = withHits((h) =>
+      [...h, tom].sort(
+        (a, b) => a.beat - b.beat || a.slot - b.slot || (a.voice < b.voice ? -1 : 1),
+      ),
+    );
+    expect(codes(three)).toContain('hands');
+    expect(
+      codes(withHits((h) => h.map((x) => (x.voice === 'kick' ? { ...x, hand: 'R' } : x)))),
+    ).toContain('hands');
+  });
+
+  it('catches one hand playing faster than the single-hand limit', () => {
+    const fast = parseRuleCard({
+      tempo: 240,
+      bars: 1,
+      voices: ['snare'],
+      density: 0,
+      rules: [
+        { kind: 'backbeat', voice: 'snare', beats: [1, 2, 3, 4] },
+        { kind: 'backbeat', voice: 'snare', beats: [1, 2, 3, 4], shift: 1 },
+      ],
+    });
+    const d = generateDrill(fast, 'fast');
+    expect(checkDrill(fast, d)).toEqual([]);
+    const oneHand = {
+      ...d,
+      bars: d.bars.map((b) => ({ ...b, hits: b.hits.map((x) => ({ ...x, hand: 'R' as const })) })),
+    };
+    expect(checkDrill(fast, oneHand).map((v) => v.code)).toContain('hands');
+  });
+
+  it('catches a wrong stored tension and a broken rank order', () => {
+    const wrong = { ...drill, bars: drill.bars.map((b) => ({ ...b, tension: b.tension + 0.5 })) };
+    expect(codes(wrong)).toContain('tension');
+    const flipped = {
+      ...drill,
+      bars: [drill.bars[1]!, drill.bars[0]!].map((b, i) => ({ ...b, bar: i + 1 })),
+    };
+    expect(
+      checkDrill(card, flipped).some((v) => v.code === 'tension' && /less tense/.test(v.message)),
+    ).toBe(true);
+  });
+
+  it('catches a wrong share of ghost notes', () => {
+    const ghostly = parseRuleCard({
+      bars: 1,
+      voices: ['snare', 'hihat'],
+      ostinato: { voice: 'hihat', slots: [0, 2] },
+      density: 1,
+      rules: [{ kind: 'fillHoles', voices: ['snare'], ghost: 0.5, accent: 0 }],
+    });
+    const d = generateDrill(ghostly, 'ghost');
+    expect(
+      d.bars[0]!.hits.filter((x) => x.source === 'fill' && x.dynamic === 'ghost'),
+    ).toHaveLength(4);
+    const loud = {
+      ...d,
+      bars: d.bars.map((b) => ({
+        ...b,
+        hits: b.hits.map((x) => ({ ...x, dynamic: 'accent' as const })),
+      })),
+    };
+    expect(checkDrill(ghostly, loud).map((v) => v.code)).toContain('fillHoles');
+  });
+});

@@ -1,0 +1,274 @@
+import {
+  HIT_SOURCES,
+  isHandVoice,
+  type Drill,
+  type DrillBar,
+  type DrillHit,
+  type VoiceId,
+} from '../drill';
+import { beatsOf, createGrid, instantOf, type Grid } from '../grid';
+import { checkHands } from './check-hands';
+import { where, type Located } from './located';
+import { measureTension } from '../tension';
+import { collectObligations, type Obligations } from '../obligations';
+import type { RuleCard } from '../schema';
+import { tensionUnits } from '../select';
+import { ENGINE_VERSION } from '../version';
+import { voiceWord } from '../words';
+import { describePart } from './describe';
+import { fillHolesOwners, fillVoices, shareCounts } from './fill-holes';
+import { overlapBudget } from './linear';
+import { ostinatoPlaysAt } from './ostinato';
+import { rankOrderBreaks, tensionTargets } from './tension';
+
+/** One broken rule or invariant in a drill, with where it happened when that applies. */
+export interface Violation {
+  /** What was broken: a rule kind, `ostinato`, `grid`, `order`, `hands`, `tension`, `drill`. */
+  readonly code: string;
+  readonly message: string;
+  readonly bar?: number;
+  readonly beat?: number;
+  readonly slot?: number;
+}
+
+/**
+ * Verifies a drill against its card: shape, grid bounds, order and uniqueness of hits, every
+ * rule, honest sources, playability (limbs, hands, single-hand rate) and the tension curve's
+ * rank order. Returns every violation found (empty = the drill is valid).
+ */
+export function checkDrill(card: RuleCard, drill: Drill): Violation[] {
+  return checkDrillWith(card, drill, measureTension);
+}
+
+/** `checkDrill` with the tension measure given (the generator passes its per-grid gauge). */
+export function checkDrillWith(
+  card: RuleCard,
+  drill: Drill,
+  measure: (bar: DrillBar) => number,
+  known?: { grid: Grid; ob: Obligations },
+): Violation[] {
+  const out: Violation[] = [];
+  const grid = known?.grid ?? createGrid(card.bars, beatsOf(card.subdivision, card.meter.beats));
+  if (drill.engine !== ENGINE_VERSION)
+    out.push({ code: 'drill', message: `Engine ${drill.engine} is not ${ENGINE_VERSION}.` });
+  if (drill.bars.length !== card.bars)
+    out.push({
+      code: 'drill',
+      message: `The drill has ${drill.bars.length} bars, the card ${card.bars}.`,
+    });
+  const cells = checkShape(grid, card, drill, out);
+  if (out.length > 0) return out;
+  const ob = known?.ob ?? collectObligations(card, grid);
+  checkObligations(card, grid, ob, cells, out);
+  checkFill(card, grid, ob, cells, out);
+  checkLinear(card, grid, cells, out);
+  checkHands(card, grid, cells, out);
+  checkTension(card, drill, measure, out);
+  return out;
+}
+
+function checkShape(grid: Grid, card: RuleCard, drill: Drill, out: Violation[]): Located[][] {
+  const cells: Located[][] = Array.from({ length: grid.instants }, () => []);
+  const voices = new Set<string>(card.voices);
+  drill.bars.forEach((bar, b) => {
+    if (bar.bar !== b + 1)
+      out.push({ code: 'drill', message: `Bar ${b + 1} is numbered ${bar.bar}.` });
+    if (bar.beats.join() !== grid.beats.join())
+      out.push({ code: 'grid', message: `Bar ${b + 1} has the wrong beats.`, bar: b + 1 });
+    let previous: DrillHit | null = null;
+    for (const hit of bar.hits) {
+      const at = { bar: b + 1, beat: hit.beat, slot: hit.slot };
+      const slots = grid.beats[hit.beat - 1];
+      if (
+        !Number.isInteger(hit.beat) ||
+        slots === undefined ||
+        !Number.isInteger(hit.slot) ||
+        hit.slot < 0 ||
+        hit.slot >= slots
+      ) {
+        out.push({ code: 'grid', message: `A ${hit.voice} hit lies outside the grid.`, ...at });
+        continue;
+      }
+      if (!voices.has(hit.voice))
+        out.push({
+          code: 'voices',
+          message: `The ${voiceWord(hit.voice)} is not a card voice.`,
+          ...at,
+        });
+      if (!HIT_SOURCES.includes(hit.source))
+        out.push({ code: 'drill', message: `Unknown source ${hit.source}.`, ...at });
+      if (!['ghost', 'normal', 'accent'].includes(hit.dynamic))
+        out.push({ code: 'drill', message: `Unknown dynamic ${hit.dynamic}.`, ...at });
+      if (previous && compareHits(previous, hit) >= 0)
+        out.push({
+          code: 'order',
+          message: 'Hits are not sorted by beat, slot and voice, or repeat a voice at one instant.',
+          ...at,
+        });
+      previous = hit;
+      const instant = instantOf(grid, b + 1, hit.beat, hit.slot);
+      cells[instant]?.push({ hit, bar: b + 1, instant });
+    }
+  });
+  return cells;
+}
+
+function compareHits(a: DrillHit, b: DrillHit): number {
+  return a.beat - b.beat || a.slot - b.slot || (a.voice < b.voice ? -1 : a.voice > b.voice ? 1 : 0);
+}
+
+function checkObligations(
+  card: RuleCard,
+  grid: Grid,
+  ob: Obligations,
+  cells: readonly Located[][],
+  out: Violation[],
+): void {
+  ob.cells.forEach((wanted, instant) => {
+    const present = cells[instant] ?? [];
+    for (const w of wanted) {
+      const hit = present.find((l) => l.hit.voice === w.voice);
+      const bar = Math.floor(instant / grid.slotsPerBar) + 1;
+      if (!hit) {
+        out.push({
+          code: w.source,
+          message: `${describePart(card, w.rule)} is missing its ${voiceWord(w.voice)} hit in bar ${bar}.`,
+          bar,
+        });
+      } else if (hit.hit.source !== w.source) {
+        out.push({
+          code: w.source,
+          message: `A ${voiceWord(w.voice)} hit is credited to ${hit.hit.source}, but ${w.source} comes first.`,
+          ...where(hit),
+        });
+      }
+    }
+    for (const l of present) {
+      if (l.hit.source === 'fill') continue;
+      if (!wanted.some((w) => w.voice === l.hit.voice && w.source === l.hit.source)) {
+        out.push({
+          code: l.hit.source,
+          message: `A ${voiceWord(l.hit.voice)} hit claims to come from ${l.hit.source}, which does not place it there.`,
+          ...where(l),
+        });
+      }
+    }
+  });
+  for (const [voice, instants] of ob.avoided) {
+    for (const [instant, rule] of instants) {
+      const l = (cells[instant] ?? []).find((x) => x.hit.voice === voice);
+      if (l)
+        out.push({
+          code: 'avoidDownbeat',
+          message: `${describePart(card, rule)} is broken: the ${voiceWord(voice)} plays beat 1.`,
+          ...where(l),
+        });
+    }
+  }
+}
+
+function checkFill(
+  card: RuleCard,
+  grid: Grid,
+  ob: Obligations,
+  cells: readonly Located[][],
+  out: Violation[],
+): void {
+  const owners = fillHolesOwners(card);
+  const allowed = new Set<VoiceId>(fillVoices(card));
+  const perRule = new Map<number, DrillHit[]>();
+  cells.forEach((present, instant) => {
+    for (const l of present) {
+      if (l.hit.source !== 'fill') continue;
+      const owner = owners.get(l.hit.voice);
+      if (!allowed.has(l.hit.voice))
+        out.push({
+          code: 'fill',
+          message: `The fill plays the ostinato's own voice.`,
+          ...where(l),
+        });
+      if ((ob.cells[instant] ?? []).some((w) => w.source !== 'ostinato')) {
+        out.push({
+          code: 'fill',
+          message: 'The fill takes a slot that a rule already holds.',
+          ...where(l),
+        });
+      }
+      if (owner === undefined) continue;
+      if (ostinatoPlaysAt(card, grid, instant)) {
+        out.push({
+          code: 'fillHoles',
+          message: `A ${voiceWord(l.hit.voice)} embellishment lands where the ostinato plays.`,
+          ...where(l),
+        });
+      }
+      const mine = perRule.get(owner) ?? [];
+      mine.push(l.hit);
+      perRule.set(owner, mine);
+    }
+  });
+  card.rules.forEach((rule, index) => {
+    if (rule.kind !== 'fillHoles') return;
+    const hits = perRule.get(index) ?? [];
+    const want = shareCounts(rule, hits.length);
+    const ghost = hits.filter((h) => h.dynamic === 'ghost').length;
+    const accent = hits.filter((h) => h.dynamic === 'accent').length;
+    if (ghost !== want.ghost || accent !== want.accent) {
+      out.push({
+        code: 'fillHoles',
+        message: `${describePart(card, index)} should mark ${want.ghost} ghost notes and ${want.accent} accents, not ${ghost} and ${accent}.`,
+      });
+    }
+  });
+}
+
+function checkLinear(
+  card: RuleCard,
+  grid: Grid,
+  cells: readonly Located[][],
+  out: Violation[],
+): void {
+  const budget = overlapBudget(card);
+  if (!Number.isFinite(budget)) return;
+  for (let bar = 0; bar < grid.bars; bar++) {
+    let overlaps = 0;
+    for (let i = 0; i < grid.slotsPerBar; i++)
+      if ((cells[bar * grid.slotsPerBar + i] ?? []).length >= 2) overlaps++;
+    if (overlaps > budget)
+      out.push({
+        code: 'linear',
+        message: `Bar ${bar + 1} has ${overlaps} overlaps; the linear rule allows ${budget}.`,
+        bar: bar + 1,
+      });
+  }
+}
+
+function checkTension(
+  card: RuleCard,
+  drill: Drill,
+  measure: (bar: DrillBar) => number,
+  out: Violation[],
+): void {
+  for (const bar of drill.bars) {
+    const measured = tensionUnits(measure(bar)) / 10000;
+    if (measured !== bar.tension) {
+      out.push({
+        code: 'tension',
+        message: `Bar ${bar.bar} records tension ${bar.tension} but measures ${measured}.`,
+        bar: bar.bar,
+      });
+    }
+  }
+  const targets = tensionTargets(card, drill.bars.length);
+  if (!targets) return;
+  for (const [a, b] of rankOrderBreaks(
+    targets,
+    drill.bars.map((bar) => bar.tension),
+  )) {
+    out.push({
+      code: 'tension',
+      message: `Bar ${a + 1} (target ${targets[a]}) should be less tense than bar ${b + 1} (target ${targets[b]}).`,
+      bar: b + 1,
+    });
+  }
+}

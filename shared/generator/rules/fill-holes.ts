@@ -1,0 +1,43 @@
+import type { Dynamic, VoiceId } from '../drill';
+import type { Rng } from '../random';
+import type { FillHolesRule, RuleCard } from '../schema';
+
+/**
+ * Which fillHoles rule governs each voice's embellishments (the first rule that lists it).
+ * Those voices are filled only in the holes, the slots where the ostinato rests.
+ */
+export function fillHolesOwners(card: RuleCard): Map<VoiceId, number> {
+  const owners = new Map<VoiceId, number>();
+  card.rules.forEach((rule, index) => {
+    if (rule.kind !== 'fillHoles') return;
+    for (const voice of rule.voices) if (!owners.has(voice)) owners.set(voice, index);
+  });
+  return owners;
+}
+
+/**
+ * Voices the density fill may use: every card voice except the ostinato's own (the time-keeper
+ * stays steady).
+ */
+export function fillVoices(card: RuleCard): VoiceId[] {
+  return card.voices.filter((voice) => voice !== card.ostinato?.voice);
+}
+
+/**
+ * How many of `count` embellishments a rule marks ghost and accent: the shares rounded, with
+ * accents taking what the ghosts leave.
+ */
+export function shareCounts(rule: FillHolesRule, count: number): { ghost: number; accent: number } {
+  const ghost = Math.min(count, Math.round(rule.ghost * count));
+  const accent = Math.min(count - ghost, Math.round(rule.accent * count));
+  return { ghost, accent };
+}
+
+/** Dynamics for a rule's `count` embellishments in time order, in a seeded arrangement. */
+export function embellishmentDynamics(rule: FillHolesRule, count: number, rng: Rng): Dynamic[] {
+  const { ghost, accent } = shareCounts(rule, count);
+  const dynamics: Dynamic[] = [];
+  for (let i = 0; i < count; i++)
+    dynamics.push(i < ghost ? 'ghost' : i < ghost + accent ? 'accent' : 'normal');
+  return rng.shuffle(dynamics);
+}

@@ -1,0 +1,244 @@
+import { z } from 'zod';
+import { VOICE_IDS } from './drill';
+import { listWords } from './words';
+
+/**
+ * Zod schemas for the rule card: the single source of its types. Every message names the field
+ * and its allowed range in a teacher's words; `parse.ts` adds the rule number and runs the checks
+ * that need more than one field.
+ */
+
+type Issue = { input?: unknown };
+const got = (iss: Issue): string => (iss.input === undefined ? '' : ` (got ${show(iss.input)})`);
+const show = (value: unknown): string =>
+  typeof value === 'string' ? `"${value}"` : (JSON.stringify(value) ?? String(value));
+
+/** A whole number in [min, max], with messages that say `label` and the range. */
+function wholeNumber(label: string, min: number, max: number, unit = '') {
+  const range = (iss: Issue): string =>
+    `${label} must be between ${min} and ${max}${unit}${got(iss)}.`;
+  const missing = (iss: Issue): string =>
+    iss.input === undefined ? `${label} is missing.` : range(iss);
+  return z
+    .number({ error: missing })
+    .int({ error: (iss) => `${label} must be a whole number${got(iss)}.` })
+    .min(min, { error: range })
+    .max(max, { error: range });
+}
+
+/** A share or a tension value in 0..1. */
+function share(label: string) {
+  const text = (iss: Issue): string =>
+    iss.input === undefined
+      ? `${label} is missing.`
+      : `${label} must be a number between 0 and 1${got(iss)}.`;
+  return z.number({ error: text }).min(0, { error: text }).max(1, { error: text });
+}
+
+function flag(label: string) {
+  return z.boolean({ error: (iss) => `${label} must be true or false${got(iss)}.` });
+}
+
+export const VoiceIdSchema = z.enum(VOICE_IDS, {
+  error: (iss) =>
+    `Unknown voice${got(iss)}: choose one of ${listWords(
+      VOICE_IDS.map((v) => `"${v}"`),
+      'or',
+    )}.`,
+});
+
+function voiceList(label: string) {
+  return z
+    .array(VoiceIdSchema, { error: (iss) => `${label} must be a list of voices${got(iss)}.` })
+    .min(1, { error: `${label} must name at least one voice.` })
+    .refine((voices) => new Set(voices).size === voices.length, {
+      error: `${label} lists a voice twice.`,
+    });
+}
+
+const SlotsPerBeat = wholeNumber(
+  'Slots per beat',
+  1,
+  8,
+  ' in the subdivision (2 = eighths, 4 = sixteenths)',
+);
+
+export const MeterSchema = z.object(
+  {
+    beats: wholeNumber('The number of beats in a bar', 1, 15),
+    unit: z.union([z.literal(2), z.literal(4), z.literal(8), z.literal(16)], {
+      error: (iss) =>
+        `The beat unit (bottom number of the meter) must be 2, 4, 8 or 16${got(iss)}.`,
+    }),
+  },
+  { error: 'The meter must give beats and a unit, e.g. { "beats": 4, "unit": 4 }.' },
+);
+
+export const SubdivisionSchema = z.union(
+  [
+    SlotsPerBeat,
+    z
+      .array(SlotsPerBeat, { error: 'The subdivision must be a number or a list of numbers.' })
+      .min(1, { error: 'The subdivision list needs one entry per beat.' }),
+  ],
+  {
+    error: (iss) =>
+      `The subdivision must be 1–8 slots per beat (2 eighths, 3 triplets, 4 sixteenths, 5 quintuplets, 6 sextuplets, 7 septuplets, 8 thirty-seconds), or one such number per beat${got(iss)}.`,
+  },
+);
+
+export const OstinatoSchema = z.object({
+  voice: VoiceIdSchema,
+  slots: z
+    .array(wholeNumber('An ostinato slot', 0, 7), {
+      error: 'The ostinato slots must be a list of positions inside the beat, e.g. [0, 2].',
+    })
+    .min(1, { error: 'The ostinato needs at least one slot per beat.' })
+    .refine((slots) => new Set(slots).size === slots.length, {
+      error: 'The ostinato lists a slot twice.',
+    }),
+  dynamic: z.enum(['ghost', 'normal', 'accent']).default('normal'),
+});
+
+const Dynamic = z.enum(['ghost', 'normal', 'accent'], {
+  error: (iss) => `A dynamic must be "ghost", "normal" or "accent"${got(iss)}.`,
+});
+
+export const BackbeatRuleSchema = z.object({
+  kind: z.literal('backbeat'),
+  voice: VoiceIdSchema,
+  beats: z
+    .array(wholeNumber('A backbeat beat', 1, 15), { error: 'Backbeat beats must be a list.' })
+    .min(1, { error: 'The backbeat needs at least one beat, e.g. [2, 4].' }),
+  shift: wholeNumber('The backbeat shift', -32, 32, ' slots').default(0),
+  bars: z
+    .array(wholeNumber('A backbeat bar', 1, 64))
+    .min(1)
+    .optional(),
+  dynamic: Dynamic.default('accent'),
+});
+
+export const AvoidDownbeatRuleSchema = z.object({
+  kind: z.literal('avoidDownbeat'),
+  voice: VoiceIdSchema,
+  resolveEvery: wholeNumber('resolveEvery', 0, 64, ' bars (0 = never resolve)').default(0),
+  anticipate: flag('anticipate').default(false),
+});
+
+export const FillHolesRuleSchema = z
+  .object({
+    kind: z.literal('fillHoles'),
+    voices: voiceList('The fillHoles voices'),
+    ghost: share('The ghost-note share').default(0),
+    accent: share('The accent share').default(0),
+  })
+  .refine((rule) => rule.ghost + rule.accent <= 1, {
+    error: 'The ghost-note and accent shares together must not exceed 1.',
+    path: ['ghost'],
+  });
+
+export const LinearRuleSchema = z.object({
+  kind: z.literal('linear'),
+  maxOverlaps: wholeNumber('maxOverlaps', 0, 120, ' instants per bar').default(0),
+});
+
+export const PolyrhythmRuleSchema = z.object({
+  kind: z.literal('polyrhythm'),
+  voices: voiceList('The polyrhythm voices'),
+  against: wholeNumber('The polyrhythm "against" count', 1, 32, ' hits'),
+  span: wholeNumber('The polyrhythm span', 1, 64, ' beats').optional(),
+});
+
+export const EuclidRuleSchema = z
+  .object({
+    kind: z.literal('euclid'),
+    voice: VoiceIdSchema,
+    pulses: wholeNumber('The Euclidean pulses', 1, 64),
+    steps: wholeNumber('The Euclidean steps', 1, 64),
+    rotation: wholeNumber('The Euclidean rotation', 0, 63, ' steps').default(0),
+    span: wholeNumber('The Euclidean span', 1, 64, ' beats').optional(),
+  })
+  .refine((rule) => rule.pulses <= rule.steps, {
+    error: 'A Euclidean rhythm cannot have more pulses than steps.',
+    path: ['pulses'],
+  });
+
+export const TensionRuleSchema = z.object({
+  kind: z.literal('tension'),
+  curve: z
+    .array(share('A tension target'), { error: 'The tension curve must be a list of numbers.' })
+    .min(1, { error: 'The tension curve needs at least one value.' })
+    .max(64, { error: 'The tension curve may hold at most 64 values (one per bar).' }),
+});
+
+const RULE_KINDS = [
+  'backbeat',
+  'avoidDownbeat',
+  'fillHoles',
+  'linear',
+  'polyrhythm',
+  'euclid',
+  'tension',
+] as const;
+
+export const RuleSchema = z.discriminatedUnion(
+  'kind',
+  [
+    BackbeatRuleSchema,
+    AvoidDownbeatRuleSchema,
+    FillHolesRuleSchema,
+    LinearRuleSchema,
+    PolyrhythmRuleSchema,
+    EuclidRuleSchema,
+    TensionRuleSchema,
+  ],
+  {
+    error: (iss) =>
+      `Unknown rule kind${got({ input: (iss.input as { kind?: unknown } | undefined)?.kind })}: use one of ${listWords(
+        RULE_KINDS.map((k) => `"${k}"`),
+        'or',
+      )}.`,
+  },
+);
+
+/** The card as written, before the defaults that depend on other fields are filled in. */
+export const RawRuleCardSchema = z.object(
+  {
+    meter: MeterSchema.default({ beats: 4, unit: 4 }),
+    bars: wholeNumber('The number of bars', 1, 64).default(4),
+    subdivision: SubdivisionSchema.default(4),
+    tempo: wholeNumber('Tempo', 20, 320, ' beats per minute').default(90),
+    voices: voiceList('The voices').default(['kick', 'snare', 'hihat']),
+    ostinato: OstinatoSchema.optional(),
+    density: share('The density').default(0.3),
+    rules: z.array(RuleSchema, { error: 'The rules must be a list.' }).default([]),
+  },
+  { error: 'A rule card must be an object with meter, bars, subdivision, tempo and voices.' },
+);
+
+export type RawRuleCard = z.infer<typeof RawRuleCardSchema>;
+type RawRule = RawRuleCard['rules'][number];
+type WithSpan<R> = R extends unknown
+  ? 'span' extends keyof R
+    ? Omit<R, 'span'> & { span: number }
+    : R
+  : never;
+
+/** A normalised rule: spans filled in (one bar when the card left them out). */
+export type Rule = WithSpan<RawRule>;
+export type RuleKind = Rule['kind'];
+export type BackbeatRule = Extract<Rule, { kind: 'backbeat' }>;
+export type AvoidDownbeatRule = Extract<Rule, { kind: 'avoidDownbeat' }>;
+export type FillHolesRule = Extract<Rule, { kind: 'fillHoles' }>;
+export type LinearRule = Extract<Rule, { kind: 'linear' }>;
+export type PolyrhythmRule = Extract<Rule, { kind: 'polyrhythm' }>;
+export type EuclidRule = Extract<Rule, { kind: 'euclid' }>;
+export type TensionRule = Extract<Rule, { kind: 'tension' }>;
+export type Ostinato = z.infer<typeof OstinatoSchema>;
+export type Meter = z.infer<typeof MeterSchema>;
+
+/** A validated rule card with every default filled in: what `generateDrill` takes. */
+export type RuleCard = Omit<RawRuleCard, 'rules'> & { readonly rules: readonly Rule[] };
+
+/** Rule kinds in the order the drill contract lists them (also the order of their sources). */
+export { RULE_KINDS };

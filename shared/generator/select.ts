@@ -1,0 +1,198 @@
+import { RuleConflictError } from './errors';
+import { initialFill, variantOf, type BarFill, type FillContext } from './fill';
+import type { TensionGauge } from './tension-gauge';
+import type { Rng } from './random';
+import { tensionLevels } from './rules/tension';
+
+/** Rounds of neighbour search before a tension curve is declared out of reach. */
+const MAX_ROUNDS = 64;
+
+/** Tension in ten-thousandths: the stored precision, compared as integers. */
+export function tensionUnits(tension: number): number {
+  return Math.round(tension * 10000);
+}
+
+interface Candidate {
+  readonly fill: BarFill;
+  readonly units: number;
+}
+
+/**
+ * Fills every bar, then (with a tension rule) searches neighbouring fills (moves, additions,
+ * removals) until one fill per bar keeps the curve's rank order. Bounded: throws a
+ * RuleConflictError when MAX_ROUNDS pass without success.
+ */
+export function chooseFills(
+  ctx: FillContext,
+  rng: Rng,
+  targets: readonly number[] | null,
+  gauge: TensionGauge,
+): BarFill[] {
+  const lean = (bar: number): number => (targets ? (targets[bar] ?? 0.5) : 0.5);
+  const base = Array.from({ length: ctx.grid.bars }, (_, bar) =>
+    initialFill(ctx, bar, rng, lean(bar)),
+  );
+  if (!targets) return base;
+  const levels = tensionLevels(targets);
+  if (levels.length <= 1) return base;
+  const measure = candidateMeter(ctx, gauge);
+  const candidates: Candidate[][] = base.map((fill) => [measure(fill)]);
+  for (let round = 0; round <= MAX_ROUNDS; round++) {
+    const picks = pickInOrder(levels, candidates, targets);
+    if (picks) return picks.map((k, bar) => (candidates[bar]?.[k] as Candidate).fill);
+    if (round === MAX_ROUNDS) break;
+    // Widen the choice of the bars that block an order: a step up from the most tense fill of
+    // a bar that cannot clear the level below, a step down from the calmest fill of each bar
+    // that set a floor under it, and a wander for each.
+    for (const [bar, direction] of blockers(levels, candidates)) {
+      const cands = candidates[bar];
+      if (!cands) continue;
+      keepNew(
+        cands,
+        measure(variantOf(ctx, extreme(cands, direction), rng, direction > 0 ? 1 : 0)),
+      );
+      const any = cands[rng.int(cands.length)] ?? (cands[0] as Candidate);
+      keepNew(cands, measure(variantOf(ctx, any.fill, rng, lean(bar))));
+    }
+  }
+  if ((globalThis as any).DBG)
+    (globalThis as any).console.log(
+      candidates
+        .map(
+          (c, b) =>
+            b +
+            ':' +
+            targets[b] +
+            ':' +
+            [...new Set(c.map((x) => x.units))].sort((a, b) => a - b).join(','),
+        )
+        .join('  '),
+    );
+  throw tensionConflict(ctx, targets);
+}
+
+/** Measures a candidate fill: its bar's onsets (obligations plus fill, ostinato left out). */
+function candidateMeter(ctx: FillContext, gauge: TensionGauge): (fill: BarFill) => Candidate {
+  const { grid, ob } = ctx;
+  const fixed = Array.from({ length: grid.bars }, (_, bar) =>
+    Array.from({ length: grid.slotsPerBar }, (_, i) =>
+      (ob.cells[bar * grid.slotsPerBar + i] ?? []).some((hit) => hit.source !== 'ostinato'),
+    ),
+  );
+  return (fill) => {
+    const onsets = (fixed[fill.bar] ?? []).slice();
+    for (const hit of fill.fills) onsets[hit.i] = true;
+    return { fill, units: gauge.units(onsets) };
+  };
+}
+
+/** Only the rank order counts, so one fill per tension value is enough. */
+function keepNew(cands: Candidate[], c: Candidate): void {
+  if (!cands.some((other) => other.units === c.units)) cands.push(c);
+}
+
+/**
+ * Bars that stop the rank order, with the way they should move. Levels are scanned from the
+ * calmest, every bar taking its least tense candidate above the level below (the pick that
+ * leaves most room above, so the scan fails exactly when no order exists). A bar with nothing
+ * above that floor should rise (+1); the bars that set the floors under it should fall (-1).
+ */
+function blockers(
+  levels: readonly number[][],
+  candidates: readonly Candidate[][],
+): Map<number, 1 | -1> {
+  const moves = new Map<number, 1 | -1>();
+  let floor = Number.NEGATIVE_INFINITY;
+  const chain: number[] = []; // the bar that set the floor, level by level
+  for (const level of levels) {
+    let top = floor;
+    let topBar = -1;
+    for (const bar of level) {
+      let pick = Number.POSITIVE_INFINITY;
+      let most = Number.NEGATIVE_INFINITY;
+      for (const c of candidates[bar] ?? []) {
+        if (c.units > floor && c.units < pick) pick = c.units;
+        if (c.units > most) most = c.units;
+      }
+      if (!Number.isFinite(pick)) {
+        moves.set(bar, 1);
+        for (const below of chain) if (!moves.has(below)) moves.set(below, -1);
+        pick = Math.max(floor + 1, most);
+      }
+      if (topBar < 0 || pick > top) {
+        top = pick;
+        topBar = bar;
+      }
+    }
+    floor = top;
+    chain.push(topBar);
+  }
+  return moves;
+}
+
+/** The least (-1) or most (+1) tense candidate. */
+function extreme(cands: readonly Candidate[], sign: 1 | -1): BarFill {
+  let best = cands[0] as Candidate;
+  for (const c of cands) if (sign * (c.units - best.units) > 0) best = c;
+  return best.fill;
+}
+
+/**
+ * One candidate per bar such that every bar of a lower level measures strictly below every bar
+ * of the next level, each as close to its target as that allows; null if none exists. Exact for
+ * the given candidates: a backward pass finds how high each level may go and still leave room
+ * above it, the forward pass then picks within those caps.
+ */
+function pickInOrder(
+  levels: readonly number[][],
+  candidates: readonly Candidate[][],
+  targets: readonly number[],
+): number[] | null {
+  const caps: number[] = new Array<number>(levels.length).fill(Number.POSITIVE_INFINITY);
+  for (let k = levels.length - 2; k >= 0; k--) {
+    let room = Number.POSITIVE_INFINITY;
+    for (const bar of levels[k + 1] ?? []) {
+      let best = Number.NEGATIVE_INFINITY;
+      for (const c of candidates[bar] ?? [])
+        if (c.units <= (caps[k + 1] ?? 0) && c.units > best) best = c.units;
+      room = Math.min(room, best);
+    }
+    if (!Number.isFinite(room)) return null;
+    caps[k] = room - 1;
+  }
+  const picks: number[] = new Array<number>(targets.length).fill(0);
+  let floor = Number.NEGATIVE_INFINITY;
+  for (let k = 0; k < levels.length; k++) {
+    let top = Number.NEGATIVE_INFINITY;
+    for (const bar of levels[k] ?? []) {
+      const goal = tensionUnits(targets[bar] ?? 0);
+      let pick = -1;
+      let pickDistance = Number.POSITIVE_INFINITY;
+      (candidates[bar] ?? []).forEach((c, index) => {
+        if (c.units <= floor || c.units > (caps[k] ?? 0)) return;
+        const distance = Math.abs(c.units - goal);
+        if (distance < pickDistance) {
+          pick = index;
+          pickDistance = distance;
+        }
+      });
+      if (pick < 0) return null;
+      picks[bar] = pick;
+      top = Math.max(top, candidates[bar]?.[pick]?.units ?? 0);
+    }
+    floor = top;
+  }
+  return picks;
+}
+
+function tensionConflict(ctx: FillContext, targets: readonly number[]): RuleConflictError {
+  const levels = tensionLevels(targets);
+  const low = (levels[0] ?? [0])[0] ?? 0;
+  const high = (levels[levels.length - 1] ?? [0])[0] ?? 0;
+  const hasLinear = ctx.card.rules.some((r) => r.kind === 'linear');
+  const rules = ['tension', 'density', ...(hasLinear ? ['linear'] : [])];
+  return new RuleConflictError(
+    `The tension rule asks bar ${high + 1} to be more tense than bar ${low + 1} (targets ${targets[high]} and ${targets[low]}), but with a density of ${ctx.card.density}${hasLinear ? ', the linear rule' : ''} and the other rules there are not enough free slots to make the bars differ in that order: raise the density, free some slots or flatten the curve.`,
+    rules,
+  );
+}
