@@ -9,6 +9,7 @@ import type { AttemptLimiter } from './auth/attempt-limiter';
 import type { Config } from './config';
 import { apiNotFound, errorHandler } from './error-handler';
 import { createHealthRouter } from './health/health-router';
+import { jsonBody } from './json-body';
 import { createLogger, type Logger } from './logger';
 import { builtInPresetViews } from './presets/built-in-presets';
 import { createPresetsRouter, type PresetView } from './presets/presets-router';
@@ -21,6 +22,8 @@ import {
   createSessionStore,
   warnWhenCookiesCannotBeSent,
 } from './session';
+import { StudentsService } from './students/students-service';
+import { createStudentsRouter } from './students/students-router';
 import { createUsersRouter } from './users/users-router';
 import { createSpaRouter } from './web/spa';
 
@@ -63,7 +66,7 @@ export function createApp(deps: AppDeps): Express {
     next();
   });
   app.use('/api', requireSameOrigin(config.publicUrl));
-  app.use('/api', express.json({ limit: JSON_BODY_LIMIT }));
+  app.use('/api', jsonBody({ limit: JSON_BODY_LIMIT }));
   // Before the session: a health check must not depend on the session store answering.
   app.use('/api/health', createHealthRouter(db));
   if (config.secureCookies) app.use('/api', warnWhenCookiesCannotBeSent(logger));
@@ -81,6 +84,7 @@ export function createApp(deps: AppDeps): Express {
     }),
   );
   app.use('/api/users', createUsersRouter(users));
+  app.use('/api/students', createStudentsRouter(new StudentsService(users)));
   app.use('/api/presets', createPresetsRouter(deps.presets ?? builtInPresetViews()));
   app.use('/api', apiNotFound);
 

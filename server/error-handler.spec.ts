@@ -46,13 +46,84 @@ describe('the API error shape', () => {
     expect(res.body.error.code).toBe('payload_too_large');
   });
 
+  it.each(['/api/presets/%E0%A4%A', '/api/presets/%00%ff'])(
+    'answers a malformed percent-encoding in %s with 400 invalid_path',
+    async (path) => {
+      const agent = await t.signIn('student');
+      const res = await agent.get(path);
+      expect(res.status).toBe(400);
+      expect(res.body).toEqual({
+        error: {
+          code: 'invalid_path',
+          message: 'The address contains malformed percent-encoding.',
+        },
+      });
+      expect(t.logLines.filter((line) => line.includes('"level":"error"'))).toEqual([]);
+    },
+  );
+
+  it('answers a malformed page address outside /api with 400, not 500', async () => {
+    const res = await request(t.app).get('/drills/%E0%A4%A');
+    expect(res.status).toBe(400);
+    expect(res.body.error.code).toBe('invalid_path');
+  });
+
   it('sends no-store on API answers', async () => {
     const res = await request(t.app).get('/api/auth/me');
     expect(res.headers['cache-control']).toBe('no-store');
   });
 });
 
+/** A bare app whose one route throws `error`, with the error handler logging into `lines`. */
+function appThrowing(error: unknown, lines: string[]) {
+  const app = express();
+  app.get('/boom', async () => {
+    throw error;
+  });
+  app.use(errorHandler(createLogger('info', (line) => lines.push(line))));
+  return app;
+}
+
+function clientError(status: number, key: 'status' | 'statusCode', message: string): Error {
+  return Object.assign(new Error(message), { [key]: status });
+}
+
 describe('errorHandler', () => {
+  it.each([
+    [400, 'status', 'bad_request', 'The server could not accept this request (400 Bad Request).'],
+    [404, 'statusCode', 'not_found', 'The server could not accept this request (404 Not Found).'],
+    [
+      415,
+      'status',
+      'unsupported_media_type',
+      'The server could not accept this request (415 Unsupported Media Type).',
+    ],
+  ] as const)(
+    'passes a library error carrying %i (as %s) through, without echoing its message',
+    async (status, key, code, message) => {
+      const lines: string[] = [];
+      const res = await request(
+        appThrowing(clientError(status, key, 'Failed at /internal/x'), lines),
+      ).get('/boom');
+      expect(res.status).toBe(status);
+      expect(res.body).toEqual({ error: { code, message } });
+      expect(res.text).not.toContain('internal');
+      expect(lines).toEqual([]);
+    },
+  );
+
+  it.each([
+    ['a 5xx status', clientError(503, 'status', 'upstream down')],
+    ['a status that is not a number', clientError(Number.NaN, 'status', 'odd')],
+    ['a URIError of its own', new URIError('URI malformed')],
+  ])('still answers an error with %s as a logged 500', async (_what, error) => {
+    const lines: string[] = [];
+    const res = await request(appThrowing(error, lines)).get('/boom');
+    expect(res.status).toBe(500);
+    expect(res.body.error.code).toBe('internal_error');
+    expect(lines).toHaveLength(1);
+  });
+
   it('turns an unexpected error into a 500 without the stack, and logs it', async () => {
     const lines: string[] = [];
     const app = express();

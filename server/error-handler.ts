@@ -1,3 +1,4 @@
+import { STATUS_CODES } from 'node:http';
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { HttpError } from './http-error';
 import { errorFields, type Logger } from './logger';
@@ -60,11 +61,42 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
   };
 }
 
+/**
+ * The 4xx status a library error carries (http-errors sets `status` and `statusCode`), if any.
+ * Such an error is the client's: answering it 500 would blame the server and page whoever is on
+ * call for a malformed request.
+ */
+function clientErrorStatus(error: unknown): number | undefined {
+  const candidate = error as { status?: unknown; statusCode?: unknown } | null;
+  const status = candidate?.status ?? candidate?.statusCode;
+  return Number.isInteger(status) && (status as number) >= 400 && (status as number) <= 499
+    ? (status as number)
+    : undefined;
+}
+
+/**
+ * Maps any thrown value onto the response sent. Library 4xx messages are not echoed: they are
+ * written for developers and may quote the input back (e.g. the undecodable path segment).
+ */
 function toHttpError(error: unknown): HttpError {
   if (error instanceof HttpError) return error;
   if (isBodyParserError(error)) {
     const known = BODY_ERRORS[error.type]!;
     return new HttpError(error.status, known.code, known.message);
+  }
+  const status = clientErrorStatus(error);
+  // The router marks a path segment that decodeURIComponent rejects (e.g. `%E0%A4%A`) as a 400.
+  if (status === 400 && error instanceof URIError) {
+    return new HttpError(400, 'invalid_path', 'The address contains malformed percent-encoding.');
+  }
+  if (status !== undefined) {
+    const reason = STATUS_CODES[status] ?? 'Client Error';
+    const code = reason.toLowerCase().replace(/[^a-z]+/g, '_');
+    return new HttpError(
+      status,
+      code,
+      `The server could not accept this request (${status} ${reason}).`,
+    );
   }
   return new HttpError(
     500,

@@ -1,6 +1,8 @@
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { AttemptLimiter } from './attempt-limiter';
+import { AuthService } from './auth-service';
+import { UsersRepository } from './users-repository';
 import { createTestApp, findAccount, type TestApp } from '../testing/test-app';
 import { SESSION_COOKIE } from '../session';
 
@@ -93,6 +95,44 @@ describe('POST /api/auth/sign-in', () => {
     expect(res.body.error.message).toMatch(/\.$/);
     const paths = (res.body.error.details as { path: string }[]).map((d) => d.path).sort();
     expect(paths).toEqual(['body.email', 'body.password']);
+  });
+
+  it('trims and lower-cases the e-mail before looking the account up', async () => {
+    const lookup = vi.spyOn(UsersRepository.prototype, 'findByEmail');
+    try {
+      await request(t.app)
+        .post('/api/auth/sign-in')
+        .send({ email: '\t Tomasz.REYES@Larkspur.Test  ', password: 'not-the-password' });
+      expect(lookup).toHaveBeenCalledWith('tomasz.reyes@larkspur.test');
+    } finally {
+      lookup.mockRestore();
+    }
+  });
+
+  it('keeps accepting unknown extra fields', async () => {
+    const res = await request(t.app)
+      .post('/api/auth/sign-in')
+      .send({ email: teacher.email, password: teacher.password, rememberMe: true });
+    expect(res.status).toBe(200);
+  });
+
+  it.each([
+    ['password', { email: teacher.email, password: 'p'.repeat(10_240) }, 'body.password'],
+    ['e-mail', { email: `${'e'.repeat(10_240)}@larkspur.test`, password: 'x' }, 'body.email'],
+  ])('answers a 10 kB %s with 400 without checking any password', async (_what, body, path) => {
+    const check = vi.spyOn(AuthService.prototype, 'verifyCredentials');
+    try {
+      const res = await request(t.app).post('/api/auth/sign-in').send(body);
+      expect(res.status).toBe(400);
+      expect(res.body.error.code).toBe('validation_failed');
+      expect(res.body.error.details).toEqual([{ path, message: expect.stringMatching(/at most/) }]);
+      expect(check).not.toHaveBeenCalled();
+      // Control: the spy does see a check of an ordinary-sized attempt.
+      await request(t.app).post('/api/auth/sign-in').send({ email: teacher.email, password: 'x' });
+      expect(check).toHaveBeenCalledTimes(1);
+    } finally {
+      check.mockRestore();
+    }
   });
 
   it('answers a body that is not JSON at all with 400', async () => {

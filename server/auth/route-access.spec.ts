@@ -50,10 +50,17 @@ describe('every API route states who may use it', () => {
         '/api/health',
         '/api/auth/sign-in',
         '/api/users',
+        '/api/students',
         '/api/presets/:id',
       ]),
     );
     const unguarded = apiRoutes.filter((r) => r.access === undefined);
     expect(unguarded).toEqual([]);
+  });
+
+  it('keeps the student list to teachers and admins', () => {
+    const router = (t.app as Express & { router: { stack: Layer[] } }).router;
+    const students = collectRoutes(router.stack, '', []).find((r) => r.path === '/api/students');
+    expect(students?.access).toEqual(['teacher', 'admin']);
   });
 });

@@ -53,6 +53,15 @@ export class UsersRepository {
     return rows.map(toPublicUser);
   }
 
+  /** Every active (not disabled) account holding `role`, in no particular order. */
+  async listActiveByRole(role: Role): Promise<PublicUser[]> {
+    const rows = await this.db<UserRow>('users')
+      .select(...PUBLIC_COLUMNS)
+      .where({ role })
+      .whereNull('disabled_at');
+    return rows.map(toPublicUser);
+  }
+
   async count(): Promise<number> {
     const result = await this.db('users').count<{ count: number | string }[]>({ count: '*' });
     return Number(result[0]?.count ?? 0);
