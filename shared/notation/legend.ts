@@ -17,9 +17,16 @@ import type { NotationModel } from './notation-model';
 import { STAFF_PLACEMENTS, vexKeyOf } from './staff-placement';
 import { svgText } from './svg-text';
 
-const PER_VOICE = 26;
+const PER_VOICE = 30;
 const CLEF_ROOM = 44;
 const GAP_AFTER = 22;
+const LABEL_SIZE = 12;
+/** First label baseline under the bottom line: clear of the kick's down-stem. */
+const LABEL_DROP = 50;
+const LABEL_ROW = 14;
+/** Average advance of the key's font per character, as a share of its size (a safe over-estimate). */
+const CHAR_WIDTH = 0.56;
+const LABEL_GAP = 6;
 
 /** Width the key takes, including the gap before the first bar. */
 export function legendWidth(model: NotationModel): number {
@@ -60,15 +67,47 @@ export function drawLegend(
   voice.addTickables(notes);
   new Formatter().joinVoices([voice]).formatToStave([voice], stave);
   voice.draw(ctx, stave);
-  const labelY = stave.getYForLine(4) + 52;
-  notes.forEach((note, i) => {
-    const label = STAFF_PLACEMENTS[model.voices[i]!].label;
-    const cx = note.getAbsoluteX() + note.getGlyphWidth() / 2;
-    svgText(ctx, label, cx, labelY, 'tensile-legend-label', {
-      size: 12,
-      anchor: 'start',
-      rotate: 55,
+  const labels = placeLabels(
+    notes.map((note, i) => ({
+      text: STAFF_PLACEMENTS[model.voices[i]!].label,
+      x: note.getAbsoluteX() + note.getGlyphWidth() / 2,
+    })),
+    x,
+    x + legendWidth(model) - LABEL_GAP,
+  );
+  const firstRowY = stave.getYForLine(4) + LABEL_DROP;
+  for (const label of labels) {
+    svgText(ctx, label.text, label.x, firstRowY + label.row * LABEL_ROW, 'tensile-legend-label', {
+      size: LABEL_SIZE,
     });
-  });
+  }
   ctx.closeGroup();
+}
+
+interface PlacedLabel {
+  readonly text: string;
+  /** Centre of the label. */
+  readonly x: number;
+  readonly row: number;
+}
+
+/**
+ * Upright labels centred under their noteheads, kept inside [left, right]; a label that would
+ * touch its left neighbour drops to the first row where it fits, so names never overlap and
+ * read without tilting the head.
+ */
+function placeLabels(
+  labels: readonly { readonly text: string; readonly x: number }[],
+  left: number,
+  right: number,
+): PlacedLabel[] {
+  const rowEnds: number[] = [];
+  return labels.map(({ text, x }) => {
+    const half = (text.length * LABEL_SIZE * CHAR_WIDTH) / 2;
+    const cx = Math.min(Math.max(x, left + half), right - half);
+    let row = rowEnds.findIndex((end) => end + LABEL_GAP <= cx - half);
+    if (row === -1) row = rowEnds.length;
+    rowEnds[row] = cx + half;
+    return { text, x: cx, row };
+  });
 }

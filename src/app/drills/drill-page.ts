@@ -7,6 +7,7 @@ import {
   input,
   linkedSignal,
   signal,
+  untracked,
 } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { FormsModule } from '@angular/forms';
@@ -22,12 +23,11 @@ import type { Drill } from '../../../shared/generator/index';
 import { generateFromCard } from './drill-result';
 import { DrillsApi, type PresetDetail } from './drills-api';
 import { PlaybackPanel } from './playback/playback-panel';
+import { RecentDrills } from './recent-drills';
 import { DrillScore } from './score/drill-score';
 import type { ScorePosition } from './score/score-layout';
+import { MAX_SEED_LENGTH, seedErrorState, seedProblem } from './seed-problem';
 import { freshSeed } from './seed-words';
-
-/** Longest seed the page accepts; seeds are words, not documents. */
-const MAX_SEED_LENGTH = 64;
 
 /**
  * `/drills/:cardId?seed=SEED`: one preset card's drill, generated in the browser, in notation with
@@ -58,6 +58,7 @@ export class DrillPage {
   private readonly api = inject(DrillsApi);
   private readonly router = inject(Router);
   private readonly session = inject(AuthSession);
+  private readonly recentDrills = inject(RecentDrills);
 
   protected readonly preset = toSignal(
     toObservable(this.cardId).pipe(switchMap((id) => toLoadState(this.api.preset(id)))),
@@ -73,6 +74,7 @@ export class DrillPage {
   );
   protected readonly seedDraft = linkedSignal(() => this.activeSeed() ?? '');
   protected readonly seedProblem = computed(() => seedProblem(this.seedDraft()));
+  protected readonly seedErrors = seedErrorState(this.seedProblem);
   protected readonly result = computed(() => {
     const preset = this.preset();
     const seed = this.activeSeed();
@@ -91,6 +93,15 @@ export class DrillPage {
     // A link without a seed gets one at once, written into the URL so a reload keeps the drill.
     effect(() => {
       if (this.seed() === undefined || this.activeSeed() === null) this.useSeed(freshSeed(), true);
+    });
+    // Every drill actually shown goes to the top of this browser's recent drills (see /drills).
+    effect(() => {
+      const preset = this.preset();
+      const drill = this.drill();
+      const seed = this.activeSeed();
+      if (preset.status !== 'ready' || drill === null || seed === null) return;
+      const { id: cardId, title } = preset.value;
+      untracked(() => this.recentDrills.record({ cardId, title, seed }));
     });
   }
 
@@ -118,11 +129,4 @@ export class DrillPage {
       replaceUrl,
     });
   }
-}
-
-function seedProblem(seed: string): string | null {
-  const trimmed = seed.trim();
-  if (trimmed === '') return 'Type a seed: any word or number.';
-  if (trimmed.length > MAX_SEED_LENGTH) return `A seed has at most ${MAX_SEED_LENGTH} characters.`;
-  return null;
 }

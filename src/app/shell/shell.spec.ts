@@ -88,6 +88,25 @@ describe('Shell', () => {
     expect(current?.getAttribute('href')).toBe('/practice');
   });
 
+  it('keeps Drills marked on the drills list, a drill, a new seed and back to the list', async () => {
+    const page = await renderAs(people.teacher);
+    const router = TestBed.inject(Router);
+    for (const url of [
+      '/drills',
+      '/drills/backbeat-basics?seed=amber-1',
+      '/drills/backbeat-basics?seed=amber-2',
+      '/drills',
+    ]) {
+      await router.navigateByUrl(url);
+      await fixture.whenStable();
+      const current = [...page.querySelectorAll('nav a[aria-current="page"]')];
+      expect(
+        current.map((a) => a.getAttribute('href')),
+        url,
+      ).toEqual(['/drills']);
+    }
+  });
+
   it('names the person and role on the account button, and signs out', async () => {
     const page = await renderAs(people.admin);
     const account = page.querySelector<HTMLButtonElement>('button[aria-label^="Account"]')!;

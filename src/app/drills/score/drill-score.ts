@@ -16,7 +16,13 @@ import type { Drill } from '../../../../shared/generator/index';
 import { buildNotation, type NotationModel } from '../../../../shared/notation/notation-model';
 import { targetTension } from '../drill-result';
 import { TensionPlot } from '../tension-plot/tension-plot';
-import { cursorBox, stepPosition, type ScoreLayout, type ScorePosition } from './score-layout';
+import {
+  cursorBox,
+  fitToWidth,
+  stepPosition,
+  type ScoreLayout,
+  type ScorePosition,
+} from './score-layout';
 
 /** Room under each system for the tension plots, in pixels. */
 const PLOT_ROOM = 52;
@@ -53,6 +59,8 @@ export class DrillScore {
   private renderToken = 0;
 
   protected readonly layout = signal<ScoreLayout | null>(null);
+  /** The engraving's full width and the factor that fits it into the host (1 when it fits). */
+  protected readonly fit = signal({ contentWidth: 0, scale: 1 });
   protected readonly failure = signal<string | null>(null);
   protected readonly model = computed(() => buildNotation(this.drill()));
   protected readonly highlight = computed(() => {
@@ -128,14 +136,23 @@ export class DrillScore {
       const { renderNotation } = await import('../../../../shared/notation/render-vexflow');
       await document.fonts?.ready;
       if (token !== this.renderToken) return;
-      const { svg, ...layout } = renderNotation(this.canvas().nativeElement, model, {
-        width,
-        showSticking,
-        showCounts,
-        gapBelowSystem: PLOT_ROOM,
-        ink: 'currentColor',
-      });
+      const engrave = (lineWidth: number) =>
+        renderNotation(this.canvas().nativeElement, model, {
+          width: lineWidth,
+          showSticking,
+          showCounts,
+          gapBelowSystem: PLOT_ROOM,
+          ink: 'currentColor',
+        });
+      let { svg, ...layout } = engrave(width);
+      const fit = fitToWidth(layout, width);
+      if (fit.contentWidth > width) {
+        // A bar ran past the line: engrave again on a line that holds it, so every system fills
+        // the same wider sheet, which the template scales down to the host as one.
+        ({ svg, ...layout } = engrave(fit.contentWidth));
+      }
       svg.setAttribute('aria-hidden', 'true');
+      this.fit.set(fit);
       this.layout.set(layout);
       this.failure.set(null);
     } catch (error) {

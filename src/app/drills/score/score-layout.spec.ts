@@ -1,4 +1,4 @@
-import { cursorBox, stepPosition, type ScoreLayout } from './score-layout';
+import { cursorBox, fitToWidth, stepPosition, type ScoreLayout } from './score-layout';
 
 const bars = [
   {
@@ -58,5 +58,28 @@ describe('cursorBox', () => {
   it('is null off the score', () => {
     expect(cursorBox(layout, { bar: 9, beat: 1 })).toBeNull();
     expect(cursorBox(layout, null)).toBeNull();
+  });
+});
+
+describe('fitToWidth', () => {
+  const barsEndingAt = (...rights: number[]) => rights.map((right) => ({ x: 0, width: right }));
+
+  it('leaves a score that fits as it is', () => {
+    expect(fitToWidth({ bars: barsEndingAt(300, 700) }, 800)).toEqual({
+      contentWidth: 800,
+      scale: 1,
+    });
+  });
+
+  it('scales a bar that runs past the edge back inside the width', () => {
+    // Rightmost bar line at 838, plus the 12 px margin: 850 drawn into 800.
+    const fit = fitToWidth({ bars: barsEndingAt(400, 838) }, 800);
+    expect(fit.contentWidth).toBe(850);
+    expect(fit.scale).toBeCloseTo(800 / 850, 6);
+    expect(fit.contentWidth * fit.scale).toBeCloseTo(800, 6);
+  });
+
+  it('never shrinks below the readable floor (the score scrolls instead)', () => {
+    expect(fitToWidth({ bars: barsEndingAt(988) }, 360).scale).toBe(0.75);
   });
 });

@@ -34,3 +34,22 @@ export function stepPosition(
   const start = index < 0 ? (by > 0 ? -1 : 0) : index;
   return all[(((start + by) % all.length) + all.length) % all.length] ?? null;
 }
+
+/** Room kept right of the last bar line, matching the engraver's left margin. */
+const RIGHT_MARGIN = 12;
+
+/**
+ * How to fit an engraving into `width`. A bar can be wider than a line (a dense bar beside the
+ * voice key on a tablet); rather than cut it off at the edge, the whole score is drawn at its
+ * full width and scaled down to fit, but never below `minScale` (below that it scrolls instead,
+ * as small notes stop being readable from a music stand).
+ */
+export function fitToWidth(
+  layout: { readonly bars: readonly Pick<BarBox, 'x' | 'width'>[] },
+  width: number,
+  minScale = 0.75,
+): { readonly contentWidth: number; readonly scale: number } {
+  const right = Math.max(0, ...layout.bars.map((bar) => bar.x + bar.width)) + RIGHT_MARGIN;
+  const contentWidth = Math.max(width, Math.ceil(right));
+  return { contentWidth, scale: Math.max(minScale, width / contentWidth) };
+}
