@@ -1,12 +1,19 @@
 /**
  * Engine benchmark: `npm run bench:engine`. Times `generateDrill` on a 16-bar, 4-voice card that
  * uses every rule kind (median, p99, drills per second, and the median against
- * `JSON.stringify` of the same drill), and the time to refuse an unsatisfiable card.
- * Prints figures; it asserts nothing (targets: median ≤ 1 ms, ratio ≤ 20).
+ * `JSON.stringify` of the same drill), and the time to refuse unsatisfiable cards: one caught by
+ * the obligation checks, one by the tension reach proof (formerly found by the search), and the
+ * worst cases where the search runs to its work budget (median and max over seeds).
+ * Prints figures; it asserts nothing (targets: median ≤ 1 ms, ratio ≤ 20, refusals ≤ 100 ms).
  */
 import { cpus } from 'node:os';
 import { generateDrill, parseRuleCard, RuleConflictError } from '../shared/generator/index';
-import { FULL_CARD, UNSATISFIABLE_CARD } from './engine-cards';
+import {
+  FULL_CARD,
+  SEARCH_CONFLICT_CARD,
+  UNSATISFIABLE_CARD,
+  WORST_CONFLICT_CARDS,
+} from './engine-cards';
 
 const WARM_UP = 300;
 const RUNS = Number(process.env['BENCH_RUNS'] ?? 3000);
@@ -26,7 +33,6 @@ function timeEach(runs: number, work: (i: number) => void): number[] {
 }
 
 const card = parseRuleCard(FULL_CARD);
-const clash = parseRuleCard(UNSATISFIABLE_CARD);
 for (let i = 0; i < WARM_UP; i++) generateDrill(card, `warm-${i}`);
 
 const drillTimes = timeEach(RUNS, (i) => generateDrill(card, `bench-${i}`));
@@ -42,15 +48,25 @@ const jsonTimes = timeEach(200, () => {
 }).map((t) => t / 100);
 const jsonMedian = quantile(jsonTimes, 0.5);
 
-const conflictTimes = timeEach(RUNS, (i) => {
-  try {
-    generateDrill(clash, `clash-${i}`);
-  } catch (error) {
-    if (!(error instanceof RuleConflictError)) throw error;
-    return;
-  }
-  throw new Error('The unsatisfiable card produced a drill.');
-});
+function refuse(raw: unknown, runs: number): number[] {
+  const unsatisfiable = parseRuleCard(raw);
+  return timeEach(runs, (i) => {
+    try {
+      generateDrill(unsatisfiable, `clash-${i}`);
+    } catch (error) {
+      if (!(error instanceof RuleConflictError)) throw error;
+      return;
+    }
+    throw new Error('The unsatisfiable card produced a drill.');
+  });
+}
+
+const conflictTimes = refuse(UNSATISFIABLE_CARD, RUNS);
+const searchConflictTimes = refuse(SEARCH_CONFLICT_CARD, Math.min(RUNS, 300));
+const worstRuns = Number(process.env['BENCH_WORST_RUNS'] ?? 30);
+refuse(WORST_CONFLICT_CARDS.linear, 3); // warm-up
+const worstLinear = refuse(WORST_CONFLICT_CARDS.linear, worstRuns);
+const worstHands = refuse(WORST_CONFLICT_CARDS.hands, worstRuns);
 
 const ms = (t: number): string => t.toFixed(3);
 console.log(
@@ -65,4 +81,15 @@ console.log(
 );
 console.log(
   `RuleConflictError (linear 0 vs backbeat on the ostinato)   median ${ms(quantile(conflictTimes, 0.5))} ms   p99 ${ms(quantile(conflictTimes, 0.99))} ms`,
+);
+const spread = (times: readonly number[]): string =>
+  `median ${ms(quantile(times, 0.5))} ms   max ${ms(times[times.length - 1] ?? Number.NaN)} ms`;
+console.log(
+  `RuleConflictError (16-level curve, proved out of reach)        ${spread(searchConflictTimes)}`,
+);
+console.log(
+  `RuleConflictError (worst: 64 × 15 beats × 8, linear 1, search)  ${spread(worstLinear)}`,
+);
+console.log(
+  `RuleConflictError (worst: 64 × 15 beats × 8, hands at 240 bpm)  ${spread(worstHands)}`,
 );

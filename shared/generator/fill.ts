@@ -142,22 +142,49 @@ export function freeCount(ctx: FillContext, bar: number): number {
   return (ctx.options[bar] ?? []).filter((voices) => voices.length > 0).length;
 }
 
-/** Adds one seeded, weighted fill hit; false when nothing more fits. */
-function addOne(ctx: FillContext, f: BarFill, rng: Rng, lean: number): boolean {
+/**
+ * Pick weights of a bar's instants at one lean, 0 where no fill voice is allowed: worked out
+ * once per fill or variant rather than once per added hit.
+ */
+function instantWeights(ctx: FillContext, bar: number, lean: number): number[] {
+  return (ctx.options[bar] ?? []).map((voices, i) =>
+    voices.length === 0 ? 0 : weightOf(ctx.strength[i] ?? 3, lean),
+  );
+}
+
+/** True when one of `voices` may be added at bar-local instant `i` of an unoccupied slot. */
+function anyAddable(ctx: FillContext, f: BarFill, i: number, voices: readonly VoiceId[]): boolean {
+  if ((f.size[i] ?? 0) === 1 && f.overlaps >= ctx.budget) return false;
+  if ((f.hands[i] ?? 0) < 2) return true;
+  return voices.some((v) => !isHandVoice(v));
+}
+
+/** The weights of the instants where a fill hit may go now (0 elsewhere). */
+function liveWeights(ctx: FillContext, f: BarFill, weightsAt: readonly number[]): number[] {
   const options = ctx.options[f.bar] ?? [];
   const weights = new Array<number>(options.length).fill(0);
   for (let i = 0; i < options.length; i++) {
-    const voices = options[i] ?? [];
-    if (voices.length === 0 || (f.mask[i] ?? 0) !== 0) continue;
-    if (voices.some((v) => canAdd(ctx, f, i, v))) weights[i] = weightOf(ctx.strength[i] ?? 3, lean);
+    const w = weightsAt[i] ?? 0;
+    if (w === 0 || (f.mask[i] ?? 0) !== 0) continue;
+    if (anyAddable(ctx, f, i, options[i] ?? [])) weights[i] = w;
   }
+  return weights;
+}
+
+/** Adds one seeded fill hit at an instant drawn by `weights`; its instant, or -1 if none fits. */
+function addDrawn(ctx: FillContext, f: BarFill, rng: Rng, weights: readonly number[]): number {
   const i = rng.weighted(weights);
-  if (i < 0) return false;
-  const allowed = (options[i] ?? []).filter((v) => canAdd(ctx, f, i, v));
+  if (i < 0) return -1;
+  const allowed = (ctx.options[f.bar]?.[i] ?? []).filter((v) => canAdd(ctx, f, i, v));
   const voice = allowed[rng.int(allowed.length)];
-  if (!voice) return false;
+  if (!voice) return -1;
   add(f, i, voice);
-  return true;
+  return i;
+}
+
+/** Adds one seeded, weighted fill hit; false when nothing more fits. */
+function addOne(ctx: FillContext, f: BarFill, rng: Rng, weightsAt: readonly number[]): boolean {
+  return addDrawn(ctx, f, rng, liveWeights(ctx, f, weightsAt)) >= 0;
 }
 
 /** Removes one seeded fill hit, preferring those that work against `lean`. */
@@ -174,20 +201,31 @@ function removeOne(ctx: FillContext, f: BarFill, rng: Rng, lean: number): boolea
 export function initialFill(ctx: FillContext, bar: number, rng: Rng, lean: number): BarFill {
   const f = emptyFill(ctx, bar);
   const count = Math.round(ctx.card.density * freeCount(ctx, bar));
-  for (let n = 0; n < count; n++) if (!addOne(ctx, f, rng, lean)) break;
+  // Additions only close instants: the one just taken, and every lone hit once the linear
+  // budget is spent. So the live weights are kept up to date instead of rebuilt per hit.
+  const weights = liveWeights(ctx, f, instantWeights(ctx, bar, lean));
+  for (let n = 0; n < count; n++) {
+    const overlaps = f.overlaps;
+    const i = addDrawn(ctx, f, rng, weights);
+    if (i < 0) break;
+    weights[i] = 0;
+    if (f.overlaps !== overlaps && f.overlaps >= ctx.budget)
+      for (let j = 0; j < weights.length; j++) if ((f.size[j] ?? 0) === 1) weights[j] = 0;
+  }
   return f;
 }
 
 /** A neighbour of a fill: one move (remove + add), addition or removal, leaning as asked. */
 export function variantOf(ctx: FillContext, from: BarFill, rng: Rng, lean: number): BarFill {
   const f = copyFill(from);
+  const weightsAt = instantWeights(ctx, f.bar, lean);
   const steps = 1 + rng.int(2);
   for (let s = 0; s < steps; s++) {
     const move = rng.int(3);
     if (move === 0) {
-      if (removeOne(ctx, f, rng, lean)) addOne(ctx, f, rng, lean);
+      if (removeOne(ctx, f, rng, lean)) addOne(ctx, f, rng, weightsAt);
     } else if (move === 1) {
-      addOne(ctx, f, rng, lean);
+      addOne(ctx, f, rng, weightsAt);
     } else {
       removeOne(ctx, f, rng, lean);
     }

@@ -4,15 +4,16 @@ import { isHandVoice, type Drill, type DrillBar, type DrillHit } from './drill';
 import { RuleConflictError } from './errors';
 import { createFillContext, type BarFill } from './fill';
 import { beatsOf, createGrid, type Grid } from './grid';
-import { assignHands, type WorkHit } from './hands';
+import { assignHandsRepairing, type WorkHit } from './hands';
 import { createTensionGauge, type TensionGauge } from './tension-gauge';
+import { assertTensionReachable } from './tension-reach';
 import { collectObligations, type Obligations } from './obligations';
 import { createRng, type Rng } from './random';
 import { checkDrillWith } from './rules/checker';
 import { embellishmentDynamics, fillHolesOwners } from './rules/fill-holes';
 import { rankOrderBreaks, tensionTargets } from './rules/tension';
 import type { RuleCard } from './schema';
-import { chooseFills } from './select';
+import { chooseFills, SEARCH_WORK_BUDGET, type SearchBudget } from './select';
 import { ENGINE_VERSION } from './version';
 
 /**
@@ -51,13 +52,17 @@ function fillAndStick(
 ): DrillBar[] {
   const ctx = createFillContext(card, grid, ob);
   const targets = tensionTargets(card, grid.bars);
+  if (targets) assertTensionReachable(ctx, targets, gauge);
+  const budget: SearchBudget = { left: SEARCH_WORK_BUDGET };
   for (let attempt = 0; attempt < MAX_STICKING_ATTEMPTS; attempt++) {
-    const cells = mergeCells(grid, ob, chooseFills(ctx, rng, targets, gauge));
+    const cells = mergeCells(grid, ob, chooseFills(ctx, rng, targets, gauge, budget));
     repairHands(card, grid, cells);
     markEmbellishments(card, cells, rng);
     const bars = buildBars(grid, cells, gauge);
     const tensions = bars.map((b) => b.tension);
     if (!targets || rankOrderBreaks(targets, tensions).length === 0) return bars;
+    // A spent search budget would only repeat the failed attempt's luck at full cost.
+    if (budget.left <= 0) break;
   }
   throw new RuleConflictError(
     `At ${card.tempo} beats per minute the hands cannot play enough of the fill for the tension rule's curve: slow the tempo, raise the density or flatten the curve.`,
@@ -83,27 +88,27 @@ function mergeCells(grid: Grid, ob: Obligations, fills: readonly BarFill[]): Wor
 
 /**
  * Assigns hands; where two hands cannot keep up, drops the latest fill stroke at or before the
- * trouble and tries again. Obligations alone are known to be playable, so this ends.
+ * trouble (wrapping round to the drill's end, which feeds the loop's second lap) and tries
+ * again. Obligations alone are known to be playable, so this ends.
  */
 function repairHands(card: RuleCard, grid: Grid, cells: WorkHit[][]): void {
-  for (;;) {
-    const failure = assignHands(grid, card.tempo, card.ostinato?.voice, cells);
-    if (!failure) return;
-    let removed = false;
-    for (let instant = failure.instant; instant >= 0 && !removed; instant--) {
+  // Drills loop: trouble early in the second lap can come from strokes at the drill's end.
+  const dropFillStroke = (trouble: number): number | null => {
+    for (let back = 0; back < cells.length; back++) {
+      const instant = (trouble - back + cells.length) % cells.length;
       const cell = cells[instant] ?? [];
       const k = cell.findIndex((hit) => hit.source === 'fill' && isHandVoice(hit.voice));
       if (k >= 0) {
         cell.splice(k, 1);
-        removed = true;
+        return instant;
       }
     }
-    if (!removed) {
-      throw new RuleConflictError(
-        'Two hands cannot play these rules at this tempo: slow it down.',
-        ['hands'],
-      );
-    }
+    return null;
+  };
+  if (assignHandsRepairing(grid, card.tempo, card.ostinato?.voice, cells, dropFillStroke)) {
+    throw new RuleConflictError('Two hands cannot play these rules at this tempo: slow it down.', [
+      'hands',
+    ]);
   }
 }
 

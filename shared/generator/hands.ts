@@ -69,15 +69,7 @@ export function assignHands(
   const cold = handPass(grid, tempo, ostinatoVoice, cells, NO_STROKE, NO_STROKE);
   if (cold.failure) return cold.failure;
   const loop = grid.bars * grid.beatsPerBar * grid.ticksPerBeat;
-  const warm = handPass(grid, tempo, ostinatoVoice, cells, cold.last.R - loop, cold.last.L - loop);
-  if (warm.failure) return warm.failure;
-  for (const hand of ['R', 'L'] as const) {
-    const first = warm.first[hand];
-    const last = warm.last[hand];
-    if (first === NO_STROKE || handRested(grid, tempo, first + loop - last)) continue;
-    return { instant: warm.lastAt[hand], reason: 'tooFast' };
-  }
-  return null;
+  return warmLap(grid, tempo, ostinatoVoice, cells, cold, loop);
 }
 
 const NO_STROKE = Number.NEGATIVE_INFINITY;
@@ -90,6 +82,26 @@ interface HandPass {
   readonly lastAt: Record<Hand, number>;
 }
 
+/** Each hand's first and last stroke (ticks) and the instant of the last: a pass's state. */
+type HandState = Float64Array; // [firstR, firstL, lastR, lastL, lastAtR, lastAtL]
+const FIRST = { R: 0, L: 1 } as const;
+const LAST = { R: 2, L: 3 } as const;
+const LAST_AT = { R: 4, L: 5 } as const;
+const STATE_SIZE = 6;
+
+function startState(startR: number, startL: number): HandState {
+  return Float64Array.of(NO_STROKE, NO_STROKE, startR, startL, -1, -1);
+}
+
+function passOf(failure: HandFailure | null, state: HandState): HandPass {
+  return {
+    failure,
+    first: { R: state[FIRST.R] ?? NO_STROKE, L: state[FIRST.L] ?? NO_STROKE },
+    last: { R: state[LAST.R] ?? NO_STROKE, L: state[LAST.L] ?? NO_STROKE },
+    lastAt: { R: state[LAST_AT.R] ?? -1, L: state[LAST_AT.L] ?? -1 },
+  };
+}
+
 function handPass(
   grid: Grid,
   tempo: number,
@@ -98,17 +110,32 @@ function handPass(
   startR: number,
   startL: number,
 ): HandPass {
+  const state = startState(startR, startL);
+  return passOf(handSteps(grid, tempo, ostinatoVoice, cells, 0, state), state);
+}
+
+/**
+ * Assigns hands from instant `from` on, updating `state` as strokes fall; returns the first
+ * failure. With `saved`, the state before each instant is written there (STATE_SIZE per
+ * instant), so a later pass can resume from any instant whose past has not changed.
+ */
+function handSteps(
+  grid: Grid,
+  tempo: number,
+  ostinatoVoice: VoiceId | undefined,
+  cells: readonly (readonly WorkHit[] | undefined)[],
+  from: number,
+  state: HandState,
+  saved?: Float64Array,
+): HandFailure | null {
   const ostinatoIsHand = ostinatoVoice !== undefined && isHandVoice(ostinatoVoice);
-  const first: Record<Hand, number> = { R: NO_STROKE, L: NO_STROKE };
-  const last: Record<Hand, number> = { R: startR, L: startL };
-  const lastAt: Record<Hand, number> = { R: -1, L: -1 };
   const strike = (hand: Hand, now: number, instant: number): void => {
-    if (first[hand] === NO_STROKE) first[hand] = now;
-    last[hand] = now;
-    lastAt[hand] = instant;
+    if (state[FIRST[hand]] === NO_STROKE) state[FIRST[hand]] = now;
+    state[LAST[hand]] = now;
+    state[LAST_AT[hand]] = instant;
   };
-  const done = (failure: HandFailure | null): HandPass => ({ failure, first, last, lastAt });
-  for (let instant = 0; instant < cells.length; instant++) {
+  for (let instant = from; instant < cells.length; instant++) {
+    saved?.set(state, instant * STATE_SIZE);
     const cell = cells[instant];
     if (!cell || cell.length === 0) continue;
     let one: WorkHit | undefined;
@@ -124,12 +151,14 @@ function handPass(
       else if (count === 2) two = hit;
     }
     if (count === 0 || !one) continue;
-    if (count > 2) return done({ instant, reason: 'tooManyHands' });
+    if (count > 2) return { instant, reason: 'tooManyHands' };
     const now = ticksOf(grid, instant);
-    const restedR = handRested(grid, tempo, now - last.R);
-    const restedL = handRested(grid, tempo, now - last.L);
+    const lastR = state[LAST.R] ?? NO_STROKE;
+    const lastL = state[LAST.L] ?? NO_STROKE;
+    const restedR = handRested(grid, tempo, now - lastR);
+    const restedL = handRested(grid, tempo, now - lastL);
     if (two) {
-      if (!restedR || !restedL) return done({ instant, reason: 'tooFast' });
+      if (!restedR || !restedL) return { instant, reason: 'tooFast' };
       const [right, left] = leadsRight(one, two, ostinatoVoice) ? [one, two] : [two, one];
       right.hand = 'R';
       left.hand = 'L';
@@ -138,13 +167,66 @@ function handPass(
       continue;
     }
     const prefersRight =
-      one.voice === ostinatoVoice ? true : ostinatoIsHand ? false : last.R <= last.L;
+      one.voice === ostinatoVoice ? true : ostinatoIsHand ? false : lastR <= lastL;
     const hand = pickHand(prefersRight, restedR, restedL);
-    if (!hand) return done({ instant, reason: 'tooFast' });
+    if (!hand) return { instant, reason: 'tooFast' };
     one.hand = hand;
     strike(hand, now, instant);
   }
-  return done(null);
+  return null;
+}
+
+/**
+ * `assignHands` that repairs as it goes: at each failure `drop(instant)` removes a stroke at or
+ * before the trouble and returns the instant it emptied (null when it found nothing to drop,
+ * which ends the repair with that failure). The first lap resumes from the emptied instant (what
+ * came before it is unchanged), so many drops cost about one lap each rather than one drill
+ * each; the result, hands included, is what calling `assignHands` after every drop would give.
+ */
+export function assignHandsRepairing(
+  grid: Grid,
+  tempo: number,
+  ostinatoVoice: VoiceId | undefined,
+  cells: readonly (readonly WorkHit[] | undefined)[],
+  drop: (instant: number) => number | null,
+): HandFailure | null {
+  const saved = new Float64Array((cells.length + 1) * STATE_SIZE);
+  const state = startState(NO_STROKE, NO_STROKE);
+  const loop = grid.bars * grid.beatsPerBar * grid.ticksPerBeat;
+  let from = 0;
+  for (;;) {
+    state.set(saved.subarray(from * STATE_SIZE, (from + 1) * STATE_SIZE));
+    if (from === 0) state.set(startState(NO_STROKE, NO_STROKE));
+    let failure = handSteps(grid, tempo, ostinatoVoice, cells, from, state, saved);
+    if (!failure) {
+      const cold = passOf(null, state);
+      failure = warmLap(grid, tempo, ostinatoVoice, cells, cold, loop);
+      if (!failure) return null;
+    }
+    const emptied = drop(failure.instant);
+    if (emptied === null) return failure;
+    from = Math.min(emptied, failure.instant);
+  }
+}
+
+/** The second lap from the first lap's last strokes, and the loop seam back to the start. */
+function warmLap(
+  grid: Grid,
+  tempo: number,
+  ostinatoVoice: VoiceId | undefined,
+  cells: readonly (readonly WorkHit[] | undefined)[],
+  cold: HandPass,
+  loop: number,
+): HandFailure | null {
+  const warm = handPass(grid, tempo, ostinatoVoice, cells, cold.last.R - loop, cold.last.L - loop);
+  if (warm.failure) return warm.failure;
+  for (const hand of ['R', 'L'] as const) {
+    const first = warm.first[hand];
+    const last = warm.last[hand];
+    if (first === NO_STROKE || handRested(grid, tempo, first + loop - last)) continue;
+    return { instant: warm.lastAt[hand], reason: 'tooFast' };
+  }
+  return null;
 }
 
 function leadsRight(a: WorkHit, b: WorkHit, ostinatoVoice: VoiceId | undefined): boolean {

@@ -9,7 +9,7 @@ import {
 import { beatsOf, createGrid, instantOf, type Grid } from '../grid';
 import { checkHands } from './check-hands';
 import { where, type Located } from './located';
-import { measureTension } from '../tension';
+import { measureTension, tensionMeter } from '../tension';
 import { collectObligations, type Obligations } from '../obligations';
 import type { RuleCard } from '../schema';
 import { tensionUnits } from '../select';
@@ -37,7 +37,12 @@ export interface Violation {
  * rank order. Returns every violation found (empty = the drill is valid).
  */
 export function checkDrill(card: RuleCard, drill: Drill): Violation[] {
-  return checkDrillWith(card, drill, measureTension);
+  // Bars on another grid are reported by the shape check before any tension is measured; the
+  // rest share the card's grid, so its metrical tree and maximum are built once, not per bar.
+  const meter = tensionMeter(beatsOf(card.subdivision, card.meter.beats));
+  const measure = (bar: DrillBar): number =>
+    bar.beats.join() === meter.beats.join() ? meter.measure(bar) : measureTension(bar);
+  return checkDrillWith(card, drill, measure);
 }
 
 /** `checkDrill` with the tension measure given (the generator passes its per-grid gauge). */

@@ -4,7 +4,8 @@
  */
 export { measureTension, tensionMeter, type TensionMeter } from './tension';
 export { lhlSyncopation, lhlOnGrid } from './lhl';
-export { maxLhlSyncopation } from './lhl-max';
+export { maxLhlSyncopation, maxLhlOnGrid } from './lhl-max';
+export { lhlRangeOnGrid, type LhlRange } from './lhl-range';
 export { weightedNoteToBeatDistance } from './wnbd';
 export { barOnsets } from './onsets';
 export { type BarGrid, type MetricalGrid, metricalGrid, primeFactors } from './metrical-grid';

@@ -1,0 +1,129 @@
+import { isHandVoice } from './drill';
+import { RuleConflictError } from './errors';
+import { emptyFill, type FillContext } from './fill';
+import { describePart, partKind } from './rules/describe';
+import { tensionLevels } from './rules/tension';
+import { listWords } from './words';
+import type { TensionGauge } from './tension-gauge';
+
+/** The raw syncopation range the fills of one bar can reach. */
+interface BarReach {
+  readonly least: number;
+  readonly most: number;
+}
+
+/**
+ * Proves, without searching, that no fill keeps a tension curve's rank order, and throws a
+ * RuleConflictError saying why; returns quietly when an order may exist (the search decides).
+ *
+ * Every drill the generator can make sounds each bar's obligatory hits (ostinato aside) and
+ * fills only slots where some fill voice is allowed, within the limbs and the linear budget the
+ * obligations already use up; so each bar's tension lies between the least and the greatest
+ * syncopation over those patterns (exact, `lhlRangeOnGrid`). If even those ranges cannot be
+ * stacked in the curve's order (each level strictly above the one below), no fill can. Both
+ * sides are whole numbers of the measure's units, so strictly above means one more.
+ */
+export function assertTensionReachable(
+  ctx: FillContext,
+  targets: readonly number[],
+  gauge: TensionGauge,
+): void {
+  const levels = tensionLevels(targets);
+  if (levels.length <= 1) return;
+  const reach = barReaches(ctx, gauge);
+  let floor = Number.NEGATIVE_INFINITY;
+  let floorBar = -1;
+  for (let k = 0; k < levels.length; k++) {
+    let top = Number.NEGATIVE_INFINITY;
+    let topBar = -1;
+    for (const bar of levels[k] ?? []) {
+      const r = reach[bar] as BarReach;
+      const pick = Math.max(r.least, floor + 1);
+      if (pick > r.most)
+        throw unreachable(ctx, gauge, targets, reach, levels, {
+          level: k,
+          bar,
+          below: floorBar,
+          floor,
+        });
+      if (pick > top) {
+        top = pick;
+        topBar = bar;
+      }
+    }
+    floor = top;
+    floorBar = topBar;
+  }
+}
+
+/** Per bar, the syncopation range its fills can reach; bars alike in slots are worked out once. */
+function barReaches(ctx: FillContext, gauge: TensionGauge): BarReach[] {
+  const { grid, ob } = ctx;
+  const known = new Map<string, BarReach>();
+  const out: BarReach[] = [];
+  for (let bar = 0; bar < grid.bars; bar++) {
+    const empty = emptyFill(ctx, bar);
+    // Adding to a lone hit makes an overlap; the obligations may have spent the budget already.
+    const overlapsLeft = empty.overlaps < ctx.budget;
+    const forced: boolean[] = [];
+    const allowed: boolean[] = [];
+    let key = '';
+    for (let i = 0; i < grid.slotsPerBar; i++) {
+      const cell = ob.cells[bar * grid.slotsPerBar + i] ?? [];
+      const fixed = cell.some((hit) => hit.source !== 'ostinato');
+      const fillable = (ctx.options[bar]?.[i] ?? []).some(
+        (voice) =>
+          !(isHandVoice(voice) && (empty.hands[i] ?? 0) >= 2) &&
+          !((empty.size[i] ?? 0) === 1 && !overlapsLeft),
+      );
+      forced.push(fixed);
+      allowed.push(fixed || fillable);
+      key += fixed ? 'x' : fillable ? 'o' : '.';
+    }
+    let r = known.get(key);
+    if (!r) {
+      r = gauge.reach(forced, allowed);
+      known.set(key, r);
+    }
+    out.push(r);
+  }
+  return out;
+}
+
+const tensionOf = (gauge: TensionGauge, raw: number): number =>
+  gauge.most === 0 ? 0 : Math.round((raw / gauge.most) * 10_000) / 10_000;
+
+function unreachable(
+  ctx: FillContext,
+  gauge: TensionGauge,
+  targets: readonly number[],
+  reach: readonly BarReach[],
+  levels: readonly number[][],
+  failure: { level: number; bar: number; below: number; floor: number },
+): RuleConflictError {
+  const { card, ob } = ctx;
+  const { level: failedLevel, bar, below, floor } = failure;
+  const asks = `The tension rule asks bar ${bar + 1} to be more tense than bar ${below + 1} (targets ${targets[bar]} and ${targets[below]})`;
+  const climbed = levels.slice(0, failedLevel + 1).flat();
+  const least = Math.min(...climbed.map((b) => reach[b]?.least ?? 0));
+  const most = Math.max(...climbed.map((b) => reach[b]?.most ?? 0));
+  const values = most - least + 1;
+  const parts = [...new Set(ob.placements.filter((p) => p.rule >= 0).map((p) => p.rule))];
+  const kinds = ['tension', ...new Set(parts.map((r) => partKind(card, r)))];
+  if (Number.isFinite(ctx.budget)) kinds.push('linear');
+  if (failedLevel + 1 > values) {
+    const span =
+      values === 1
+        ? `only one tension (${tensionOf(gauge, least)})`
+        : `only ${values} different tensions (from ${tensionOf(gauge, least)} to ${tensionOf(gauge, most)})`;
+    return new RuleConflictError(
+      `${asks}, but its curve climbs through ${failedLevel + 1} different targets up to there, while bars of this grid${parts.length > 0 ? ' with these rules' : ''} can measure ${span}: give the curve at most ${values} different value${values === 1 ? '' : 's'}, or use a finer subdivision.`,
+      kinds,
+    );
+  }
+  const taken = listWords(parts.map((r) => describePart(card, r)));
+  return new RuleConflictError(
+    `${asks}, but with the slots the fill may use${taken ? ` (${taken}${Number.isFinite(ctx.budget) ? ' and the linear rule' : ''} hold the others)` : ''} bar ${bar + 1} reaches at most tension ${tensionOf(gauge, reach[bar]?.most ?? 0)}, while the lower steps of the curve already push bar ${below + 1} to at least ${tensionOf(gauge, floor)}: free some slots, or flatten the curve.`,
+    kinds,
+  );
+}

@@ -1,0 +1,59 @@
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { lhlOnGrid } from './lhl';
+import { maxLhlOnGrid } from './lhl-max';
+import { lhlRangeOnGrid } from './lhl-range';
+import { metricalGrid } from './metrical-grid';
+
+/** Every allowed pattern that sounds the forced pulses, measured one by one: the slow truth. */
+function exhaustiveRange(beats: readonly number[], forced: boolean[], allowed: boolean[]) {
+  const grid = metricalGrid(beats);
+  let least = Number.POSITIVE_INFINITY;
+  let most = Number.NEGATIVE_INFINITY;
+  for (let mask = 0; mask < 1 << grid.pulses; mask++) {
+    const onsets = Array.from({ length: grid.pulses }, (_, i) => ((mask >> i) & 1) === 1);
+    if (onsets.some((on, i) => (on && !allowed[i] && !forced[i]) || (!on && forced[i]))) continue;
+    const value = lhlOnGrid(grid, onsets);
+    least = Math.min(least, value);
+    most = Math.max(most, value);
+  }
+  return { least, most };
+}
+
+const caseArb = fc
+  .array(fc.integer({ min: 1, max: 8 }), { minLength: 1, maxLength: 6 })
+  .filter((beats) => beats.reduce((a, b) => a + b, 0) <= 13)
+  .chain((beats) => {
+    const pulses = beats.reduce((a, b) => a + b, 0);
+    const flags = fc.array(fc.boolean(), { minLength: pulses, maxLength: pulses });
+    return fc.record({ beats: fc.constant(beats), forced: flags, allowed: flags });
+  });
+
+describe('lhlRangeOnGrid', () => {
+  it('equals the exhaustive least and greatest syncopation under forced and allowed pulses', () => {
+    fc.assert(
+      fc.property(caseArb, ({ beats, forced, allowed }) => {
+        const got = lhlRangeOnGrid(metricalGrid(beats), forced, allowed);
+        expect(got).toEqual(exhaustiveRange(beats, forced, allowed));
+      }),
+      { numRuns: 150 },
+    );
+  });
+
+  it('unconstrained, spans 0 to the exact maximum on every uniform grid', () => {
+    for (let beats = 1; beats <= 15; beats++) {
+      for (let slots = 1; slots <= 8; slots++) {
+        const grid = metricalGrid(Array.from({ length: beats }, () => slots));
+        expect(lhlRangeOnGrid(grid)).toEqual({ least: 0, most: maxLhlOnGrid(grid) });
+      }
+    }
+  });
+
+  it('pins a fully forced bar to its own value', () => {
+    // 4/4 in sixteenths: an onset on the 'a' of 4 alone, rests on every stronger position.
+    const grid = metricalGrid([4, 4, 4, 4]);
+    const forced = Array.from({ length: 16 }, (_, i) => i === 15);
+    const value = lhlOnGrid(grid, forced);
+    expect(lhlRangeOnGrid(grid, forced, forced)).toEqual({ least: value, most: value });
+  });
+});

@@ -1,0 +1,98 @@
+import { pushNote, restGain } from './lhl';
+import type { MetricalGrid } from './metrical-grid';
+
+/** The least and the greatest Longuet-Higgins & Lee syncopation a set of onset patterns reaches. */
+export interface LhlRange {
+  readonly least: number;
+  readonly most: number;
+}
+
+/**
+ * The exact range of Longuet-Higgins & Lee syncopation over every onset pattern of a bar that
+ * sounds all `forced` pulses and nothing outside `allowed` (forced pulses count as allowed;
+ * `undefined` = no pulse forced / every pulse allowed). The generator uses it to prove, without
+ * searching, that a tension curve is out of reach of the slots a fill may use.
+ *
+ * Dynamic programming over the terminal nodes of the parse in time order, as `maxLhlOnGrid`
+ * explains: the state is the pairable notes (a level mask) and the earliest pending deadline by
+ * which some onset must sound; min and max ride along the same transitions. The constraints only
+ * prune transitions: a rest may not cover a forced pulse, a note must start on an allowed pulse
+ * and may not hold over a forced one. Every pattern has exactly one parse, so the walks that
+ * survive are exactly the patterns asked about.
+ *
+ * Only reached states are visited (a few dozen per pulse at most), so the cost is linear in
+ * pulses.
+ */
+export function lhlRangeOnGrid(
+  grid: MetricalGrid,
+  forced?: readonly boolean[],
+  allowed?: readonly boolean[],
+): LhlRange {
+  const { pulses, level, nodeEnds, depth, ancestorEnd } = grid;
+  const codes = depth + 2;
+  const forcedBefore = new Int32Array(pulses + 1);
+  for (let i = 0; i < pulses; i++)
+    forcedBefore[i + 1] = (forcedBefore[i] ?? 0) + (forced?.[i] === true ? 1 : 0);
+  const mayStrike = (p: number): boolean =>
+    allowed === undefined || allowed[p] === true || forced?.[p] === true;
+  const silent = (from: number, to: number): boolean =>
+    (forcedBefore[to] ?? 0) === (forcedBefore[from] ?? 0);
+
+  // Best values by (pulse, state), and each pulse's reached states as a linked list, so only
+  // those few are visited.
+  const column = (1 << (depth + 1)) * codes;
+  const lows = new Int32Array((pulses + 1) * column).fill(-1);
+  const highs = new Int32Array((pulses + 1) * column);
+  const head = new Int32Array(pulses + 1).fill(-1);
+  const next = new Int32Array((pulses + 1) * column);
+
+  const relax = (at: number, state: number, low: number, high: number): void => {
+    const i = at * column + state;
+    const seen = lows[i] ?? -1;
+    if (seen < 0) {
+      next[i] = head[at] ?? -1;
+      head[at] = i;
+      lows[i] = low;
+      highs[i] = high;
+      return;
+    }
+    if (low < seen) lows[i] = low;
+    if (high > (highs[i] ?? 0)) highs[i] = high;
+  };
+
+  relax(0, 0, 0, 0);
+  for (let p = 0; p < pulses; p++) {
+    const ends = nodeEnds[p] ?? [];
+    const k = level[p] ?? 0;
+    const strike = mayStrike(p);
+    for (let i = head[p] ?? -1; i >= 0; i = next[i] ?? -1) {
+      const state = i - p * column;
+      const low = lows[i] ?? 0;
+      const high = highs[i] ?? 0;
+      const notes = (state / codes) | 0;
+      const code = state % codes;
+      const deadline = code === 0 ? Infinity : (ancestorEnd[p * (depth + 1) + code - 1] ?? 0);
+      const withNote = pushNote(notes, k) * codes;
+      const gain = restGain(notes, k);
+      for (let c = 0; c < ends.length; c++) {
+        const end = ends[c] ?? p + 1;
+        const parentCode = c === 0 ? 0 : k + c;
+        // A note here meets every pending deadline; its own parent needs a later onset.
+        if (strike && silent(p + 1, end)) relax(end, withNote + parentCode, low, high);
+        // A rest leaves the deadlines pending, so an onset must still fit before them.
+        if (end < deadline && silent(p, end))
+          relax(end, notes * codes + Math.max(code, parentCode), low + gain, high + gain);
+      }
+    }
+  }
+
+  let least = Number.POSITIVE_INFINITY;
+  let most = Number.NEGATIVE_INFINITY;
+  for (let i = head[pulses] ?? -1; i >= 0; i = next[i] ?? -1) {
+    if ((i - pulses * column) % codes !== 0) continue;
+    least = Math.min(least, lows[i] ?? 0);
+    most = Math.max(most, highs[i] ?? 0);
+  }
+  // Unreachable for forced ⊆ allowed (the forced pulses alone are a pattern); kept total anyway.
+  return Number.isFinite(most) ? { least, most } : { least: 0, most: 0 };
+}
