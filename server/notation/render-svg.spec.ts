@@ -149,4 +149,66 @@ describe('renderDrillSvg (Node, jsdom + @napi-rs/canvas)', () => {
     const plain = parse(renderDrillSvg(drill, { width: 1100 }).svg);
     expect(plain.querySelectorAll('.tensile-count, .tensile-sticking').length).toBe(0);
   });
+
+  it('writes the clef on every system and the time signature once, at the start', () => {
+    // Clef on every line, time signature only at the start and where the meter changes:
+    // E. Gould, "Behind Bars", Faber Music 2011, on clefs and time signatures (from memory).
+    const long = generateDrill(
+      parseRuleCard({ ...(quintuplets.card as object), bars: 8 }),
+      'lesson-12',
+    );
+    const render = renderDrillSvg(long, { width: 1100, showCounts: true });
+    const longDoc = parse(render.svg);
+    const openers = new Set(
+      render.layout.bars
+        .filter((b, i, all) => i === 0 || all[i - 1]!.system !== b.system)
+        .map((b) => b.bar),
+    );
+    expect(openers.size).toBeGreaterThan(1);
+    for (const bar of longDoc.querySelectorAll('.tensile-bar')) {
+      const number = Number(bar.getAttribute('data-bar'));
+      expect(bar.querySelectorAll('.vf-clef').length, `clef in bar ${number}`).toBe(
+        openers.has(number) ? 1 : 0,
+      );
+      expect(bar.querySelectorAll('.vf-timesignature').length, `time in bar ${number}`).toBe(
+        number === 1 ? 1 : 0,
+      );
+    }
+  });
+
+  it('counts every slot of every beat, lighter where no hit sounds, under the written notes', () => {
+    for (const preset of [quintuplets, presetWhere(subdivisionHas(3))]) {
+      const counted = generateDrill(parseRuleCard(preset.card), 'lesson-12');
+      const countedDoc = parse(renderDrillSvg(counted, { width: 1100, showCounts: true }).svg);
+      let silentSlots = 0;
+      for (const bar of counted.bars) {
+        const group = countedDoc.querySelector(`.tensile-bar[data-bar="${bar.bar}"]`)!;
+        const counts = [...group.querySelectorAll('.tensile-count')];
+        expect(counts).toHaveLength(bar.beats.reduce((a, b) => a + b, 0));
+        const xs = counts.map((c) => Number(c.getAttribute('x')));
+        // In time order along the bar: beat by beat, slot by slot.
+        for (let i = 1; i < xs.length; i++) expect(xs[i]!).toBeGreaterThan(xs[i - 1]!);
+        for (const count of counts) {
+          const beat = Number(count.getAttribute('data-beat'));
+          const slot = Number(count.getAttribute('data-slot'));
+          const sounds = bar.hits.some((h) => h.beat === beat && h.slot === slot);
+          const silent = count.classList.contains('tensile-count-silent');
+          expect(silent, `bar ${bar.bar} beat ${beat} slot ${slot}`).toBe(!sounds);
+          if (silent) {
+            silentSlots++;
+            expect(Number(count.getAttribute('opacity'))).toBeLessThan(1);
+          } else expect(count.hasAttribute('opacity')).toBe(false);
+          const note = group.querySelector(
+            `.tensile-note[data-beat="${beat}"][data-slot="${slot}"] .vf-notehead text`,
+          );
+          if (note)
+            expect(
+              Math.abs(Number(count.getAttribute('x')) - Number(note.getAttribute('x'))),
+            ).toBeLessThan(14);
+        }
+      }
+      // Holes in the pattern exist, so the lighter syllables are really exercised.
+      expect(silentSlots, preset.id).toBeGreaterThan(0);
+    }
+  });
 });

@@ -146,7 +146,7 @@ describe('buildNotation', () => {
     expect(events[1]!.accent).toBe(true);
   });
 
-  it('counts "1 e & a" in sixteenths and "1 & a" in triplets at the struck instants (common practice)', () => {
+  it('counts "1 e & a" in sixteenths and "1 & a" in triplets (common practice)', () => {
     const model = buildNotation(
       drillOf(
         [4, 3],
@@ -156,15 +156,25 @@ describe('buildNotation', () => {
     const [one, two] = model.bars[0]!.beats;
     expect(one!.counts.map((c) => c.text)).toEqual(['1', 'e', '&', 'a']);
     expect(two!.counts.map((c) => c.text)).toEqual(['2', '&', 'a']);
+    expect([...one!.counts, ...two!.counts].every((c) => c.sounding)).toBe(true);
     expect(two!.sticking).toEqual([]);
   });
 
-  it('always writes the beat number, even over a rest', () => {
-    const model = buildNotation(drillOf([4, 4], [hit(2, 3, 'snare')]));
-    expect(model.bars[0]!.beats.map((b) => b.counts.map((c) => c.text).join(' '))).toEqual([
-      '1',
-      '2 a',
-    ]);
+  it('counts every slot of the subdivision, marking the slots where nothing sounds', () => {
+    // Quintuplet with hits on 1, di, mi, ti: "ka" is still counted (Hoffman, Pelto and White 1996).
+    const model = buildNotation(
+      drillOf(
+        [5, 4],
+        [0, 2, 3, 4].map((s) => hit(1, s, 'snare')),
+      ),
+    );
+    const [one, two] = model.bars[0]!.beats;
+    expect(one!.counts.map((c) => c.text)).toEqual(['1', 'ka', 'di', 'mi', 'ti']);
+    expect(one!.counts.map((c) => c.sounding)).toEqual([true, false, true, true, true]);
+    expect(one!.counts.map((c) => c.slot)).toEqual([0, 1, 2, 3, 4]);
+    // An empty beat is counted in full, all of it silent, its number included.
+    expect(two!.counts.map((c) => c.text).join(' ')).toBe('2 e & a');
+    expect(two!.counts.some((c) => c.sounding)).toBe(false);
   });
 
   it('sticking lists both hands of a double stop, the voice higher on the staff first', () => {

@@ -56,10 +56,20 @@ export interface NotationBeat {
   readonly beat: number;
   readonly subdivision: number;
   readonly layers: readonly LayerBeat[];
-  /** Counting syllables: the beat's number, then every instant where something is struck. */
-  readonly counts: readonly { readonly slot: number; readonly text: string }[];
+  /**
+   * Counting syllables, one for every slot of the beat's subdivision (the beat's number first),
+   * so a student can count every slot; `sounding` tells whether anything is struck there.
+   */
+  readonly counts: readonly BeatCount[];
   /** Hands at every instant where a hand strikes, for the voice on the staff from top down. */
   readonly sticking: readonly { readonly slot: number; readonly hands: readonly Hand[] }[];
+}
+
+export interface BeatCount {
+  readonly slot: number;
+  readonly text: string;
+  /** A hit sounds on this slot (else it is counted silently). */
+  readonly sounding: boolean;
 }
 
 export interface NotationBar {
@@ -118,9 +128,11 @@ function notateBeat(
     ),
   );
   const struck = [...new Set(hits.map((hit) => hit.slot))].sort((a, b) => a - b);
-  // The beat's number is always written, so the count never loses its place in a sparse bar.
-  const counted = struck[0] === 0 ? struck : [0, ...struck];
-  const counts = counted.map((slot) => ({ slot, text: countSyllable(beat, slot, subdivision) }));
+  const counts = Array.from({ length: subdivision }, (_, slot) => ({
+    slot,
+    text: countSyllable(beat, slot, subdivision),
+    sounding: struck.includes(slot),
+  }));
   const sticking = struck
     .map((slot) => ({ slot, hands: handsAt(hits, slot) }))
     .filter((entry) => entry.hands.length > 0);

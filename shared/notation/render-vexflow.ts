@@ -6,10 +6,11 @@
  * Only the `vexflow/bravura` entry is used: it carries the Bravura and Academico fonts as data
  * URLs, so nothing is fetched at run time.
  */
-import { BarlineType, Formatter, Stave, SVGContext } from 'vexflow/bravura';
+import { BarlineType, Formatter, Stave, type SVGContext } from 'vexflow/bravura';
+import { drawBeatTexts } from './beat-texts';
+import { EngravingContext, withFastEngraving } from './engraving-context';
 import { drawLegend, legendWidth } from './legend';
 import type { NotationBar, NotationModel } from './notation-model';
-import { svgText } from './svg-text';
 import { planSystems } from './system-layout';
 import { engraveBar, minimumBarWidth, type EngravedBar, type EngravedNote } from './vexflow-bar';
 
@@ -37,7 +38,10 @@ export interface BeatBox {
 export interface BarBox {
   readonly bar: number;
   readonly system: number;
-  /** The stave's left edge and width (clef and time signature included on a system's first bar). */
+  /**
+   * The stave's left edge and width: a system's first bar includes its clef, and the drill's
+   * first bar also the time signature.
+   */
   readonly x: number;
   readonly width: number;
   /** y of the top and bottom stave lines. */
@@ -65,6 +69,8 @@ const HEADROOM = 86;
 /** Room under the bottom line for feet stems, their brackets and accents. */
 const FOOTROOM = 78;
 const COUNTS_ROW = 22;
+/** Least room per counted slot, so every syllable of the subdivision fits under the bar. */
+const COUNT_SLOT_ROOM = 16;
 /** VexFlow places the top line this far below the stave's y. */
 const STAVE_TOP_OFFSET = 4 * STAVE_SPACE;
 
@@ -74,8 +80,16 @@ export function renderNotation(
   model: NotationModel,
   options: RenderOptions,
 ): NotationLayout {
-  container.replaceChildren();
-  const ctx = new SVGContext(container);
+  return withFastEngraving(() => engrave(container, model, options));
+}
+
+function engrave(
+  container: HTMLElement,
+  model: NotationModel,
+  options: RenderOptions,
+): NotationLayout {
+  // Drawn off the page and attached once, so the page's style and layout are touched once.
+  const ctx = new EngravingContext(container.ownerDocument.createElement('div'));
   const svg = ctx.svg as SVGSVGElement;
   const ink = options.ink ?? 'black';
   ctx.setFillStyle(ink).setStrokeStyle(ink);
@@ -88,8 +102,10 @@ export function renderNotation(
   // Engraved once: measured for line breaking, then formatted to their staves and drawn.
   const engravedBars = model.bars.map((bar) => engraveBar(bar, model));
   const plans = planSystems({
-    barWidths: model.bars.map((bar, i) => naturalBarWidth(bar, engravedBars[i]!, model)),
-    systemStartWidth: systemStartWidth(model),
+    barWidths: model.bars.map((bar, i) =>
+      naturalBarWidth(bar, engravedBars[i]!, model, options.showCounts ?? false),
+    ),
+    systemStartWidth: systemStartWidths(model),
     lineWidth: (i) => options.width - 2 * MARGIN_X - (i === 0 ? legend : 0),
     maxBarsPerSystem: options.maxBarsPerSystem ?? 4,
   });
@@ -130,27 +146,49 @@ export function renderNotation(
   const height = plans.length * (systemHeight + gap);
   ctx.resize(options.width, height);
   svg.setAttribute('viewBox', `0 0 ${options.width} ${height}`);
+  container.replaceChildren(svg);
   return { width: options.width, height, bars: boxes, svg };
 }
 
-function naturalBarWidth(bar: NotationBar, engraved: EngravedBar, model: NotationModel): number {
+function naturalBarWidth(
+  bar: NotationBar,
+  engraved: EngravedBar,
+  model: NotationModel,
+  showCounts: boolean,
+): number {
   const notes = bar.beats.reduce(
     (n, beat) => n + Math.max(...beat.layers.map((l) => l.events.length), 1),
     0,
   );
+  const counted = showCounts ? bar.beats.reduce((n, beat) => n + beat.subdivision, 0) : 0;
   const measured = minimumBarWidth(engraved);
-  // Room to breathe beyond the tightest setting, and never under ~22 px a note.
-  return Math.max(measured * 1.3, notes * 22, model.meter.beats * 40) + 20;
+  // Room to breathe beyond the tightest setting, never under ~22 px a note, and room for the count.
+  return (
+    Math.max(measured * 1.3, notes * 22, counted * COUNT_SLOT_ROOM, model.meter.beats * 40) + 20
+  );
 }
 
-function systemStartWidth(model: NotationModel): number {
-  const plain = new Stave(0, 0, 400);
-  const opening = new Stave(0, 0, 400)
-    .addClef('percussion')
-    .addTimeSignature(`${model.meter.beats}/${model.meter.unit}`);
-  return opening.getNoteStartX() - plain.getNoteStartX();
+/** Room for what opens a system: the clef on every system, the time signature on the first. */
+function systemStartWidths(model: NotationModel): (systemIndex: number) => number {
+  const plain = new Stave(0, 0, 400).getNoteStartX();
+  const clef = new Stave(0, 0, 400).addClef('percussion').getNoteStartX() - plain;
+  const clefAndTime =
+    new Stave(0, 0, 400)
+      .addClef('percussion')
+      .addTimeSignature(timeSignatureOf(model))
+      .getNoteStartX() - plain;
+  return (systemIndex) => (systemIndex === 0 ? clefAndTime : clef);
 }
 
+function timeSignatureOf(model: NotationModel): string {
+  return `${model.meter.beats}/${model.meter.unit}`;
+}
+
+/**
+ * The stave of one bar. The clef opens every system, but the time signature is written once, at
+ * the start of the drill: it is only restated where the meter changes (E. Gould, "Behind Bars",
+ * Faber Music 2011, ch. "Time signatures"; from memory), and a drill keeps one meter throughout.
+ */
 function staveFor(
   bar: NotationBar,
   model: NotationModel,
@@ -161,9 +199,8 @@ function staveFor(
   barIndex: number,
 ): Stave {
   const stave = new Stave(x, y, width);
-  if (opensSystem) {
-    stave.addClef('percussion').addTimeSignature(`${model.meter.beats}/${model.meter.unit}`);
-  }
+  if (opensSystem) stave.addClef('percussion');
+  if (barIndex === 0) stave.addTimeSignature(timeSignatureOf(model));
   stave.setMeasure(bar.bar);
   // A drill is a loop: repeat signs around the whole drill say so in the trade's own terms.
   if (barIndex === 0) stave.setBegBarType(BarlineType.REPEAT_BEGIN);
@@ -203,7 +240,10 @@ function drawBar(
     }
     ctx.closeGroup();
   }
-  drawBeatTexts(ctx, bar, engraved, options, topLineY);
+  drawBeatTexts(ctx, bar, engraved, stave, {
+    stickingY: options.showSticking ? topLineY - HEADROOM - 2 : null,
+    countsY: options.showCounts ? topLineY + 4 * STAVE_SPACE + FOOTROOM + 16 : null,
+  });
   ctx.closeGroup();
 }
 
@@ -219,50 +259,6 @@ function drawNote(ctx: SVGContext, engraved: EngravedNote, stave: Stave): void {
   }
   note.setStave(stave).setContext(ctx).drawWithStyle();
   ctx.closeGroup();
-}
-
-/** Centre x of the note or rest that starts at each struck instant, keyed `beat:slot`. */
-function instantX(engraved: EngravedBar): Map<string, number> {
-  const xs = new Map<string, number>();
-  for (const { note, beat, event } of engraved.notes) {
-    const key = `${beat}:${event.slot}`;
-    const centre = note.getAbsoluteX() + note.getGlyphWidth() / 2;
-    if (event.kind === 'note' || !xs.has(key)) xs.set(key, centre);
-  }
-  return xs;
-}
-
-function drawBeatTexts(
-  ctx: SVGContext,
-  bar: NotationBar,
-  engraved: EngravedBar,
-  options: RenderOptions,
-  topLineY: number,
-): void {
-  const xs = instantX(engraved);
-  const stickingY = topLineY - HEADROOM - 2;
-  const countsY = topLineY + 4 * STAVE_SPACE + FOOTROOM + 16;
-  for (const beat of bar.beats) {
-    if (options.showSticking) {
-      for (const { slot, hands } of beat.sticking) {
-        const x = xs.get(`${beat.beat}:${slot}`);
-        if (x === undefined) continue;
-        const label = hands.length > 1 ? hands.join('+') : (hands[0] ?? '');
-        svgText(ctx, label, x, stickingY, 'tensile-sticking', { size: 15, weight: 'bold' });
-      }
-    }
-    if (options.showCounts) {
-      for (const { slot, text } of beat.counts) {
-        const x = xs.get(`${beat.beat}:${slot}`);
-        if (x === undefined) continue;
-        const onBeat = slot === 0;
-        svgText(ctx, text, x, countsY, 'tensile-count', {
-          size: onBeat ? 15 : 13,
-          weight: onBeat ? 'bold' : 'normal',
-        });
-      }
-    }
-  }
 }
 
 /** Beat areas: from just before each beat's first note to just before the next beat's. */

@@ -13,9 +13,11 @@ const WEINBERG_1994: Record<string, { position: number; notehead: string; place:
   hihatOpen: { position: 5, notehead: 'x', place: 'space above the staff, with an open mark' },
   ride: { position: 4, notehead: 'x', place: 'top line' },
   rideBell: { position: 4, notehead: 'diamond', place: 'top line' },
-  tomMid: { position: 2, notehead: 'normal', place: '4th line' },
+  // The table's `lowmidtom`: the first tom place below the top line (`hightom`/`himidtom`).
+  tomMid: { position: 2, notehead: 'normal', place: '4th line (D5)' },
   snare: { position: 1, notehead: 'normal', place: '3rd space' },
   rim: { position: 1, notehead: 'x', place: '3rd space (side stick, x head)' },
+  // The table's `highfloortom` (and `lowtom`).
   tomFloor: { position: -1, notehead: 'normal', place: '2nd space' },
   kick: { position: -3, notehead: 'normal', place: 'bottom space' },
   hihatFoot: { position: -5, notehead: 'x', place: 'space below the staff' },
@@ -29,6 +31,15 @@ describe('staff placement (Weinberg 1994 drum-set convention)', () => {
       expect(row.notehead).toBe(expected.notehead);
     });
   }
+
+  it('toms step down the staff as their pitch does: high E5, mid D5 (4th line), floor A4', () => {
+    const order = (['tomHigh', 'tomMid', 'tomFloor'] as const).map((v) => STAFF_PLACEMENTS[v]);
+    expect(order.map((p) => `${p.displayStep}${p.displayOctave}`)).toEqual(['E5', 'D5', 'A4']);
+    // The mid tom never shares a line or space with the ride, the snare or the high tom.
+    for (const other of ['ride', 'snare', 'tomHigh'] as const) {
+      expect(STAFF_PLACEMENTS.tomMid.position).not.toBe(STAFF_PLACEMENTS[other].position);
+    }
+  });
 
   it('high tom: top space (E5), a documented departure from the 1994 top line', () => {
     // Weinberg 1994 puts the high tom on the top line (+4). We move it one step down so that it

@@ -10,8 +10,16 @@
  * the 1994 table. The top line belongs to the ride; a high tom on the same line would put two
  * heads on one line whenever ride and tom sound together, and the tom would be told apart from the
  * ride by its notehead shape alone. The top-space tom is also what many later drum-set keys print
- * (from memory: the later PAS guide lists tom 1 in the top space). Mid tom (4th line) and floor
- * tom (2nd space) keep the 1994 places, so the three toms step down the staff as their pitch does.
+ * (from memory: the later PAS guide lists tom 1 in the top space).
+ *
+ * The mid tom keeps its 1994 place, the 4th line (D5, +2 steps). The LilyPond table names six toms
+ * and puts `hightom` and `himidtom` both on the top line (+4), `lowmidtom` on the 4th line (+2),
+ * `lowtom` and `highfloortom` in the 2nd space (−1) and `lowfloortom` on the 2nd line (−2). A
+ * three-tom kit (high, mid, floor) has one tom between the high tom and the floor tom, and the
+ * first place below the top line that the table gives a tom is the 4th line, so the mid tom sits
+ * there; putting it on the top line with `himidtom` would merge it with the 1994 high tom (and the
+ * ride). The floor tom keeps the 2nd space (`highfloortom`). With the high tom moved to the top
+ * space, the three toms step down the staff as their pitch does: E5, D5, A4.
  */
 import type { VoiceId } from '../generator/drill';
 
@@ -56,6 +64,7 @@ export const STAFF_PLACEMENTS: Readonly<Record<VoiceId, StaffPlacement>> = {
   rideBell: row('rideBell', 'Ride bell', 4, 'diamond', 'hands'),
   crash: row('crash', 'Crash', 6, 'x', 'hands'),
   tomHigh: row('tomHigh', 'High tom', 3, 'normal', 'hands'),
+  // 4th line, the 1994 `lowmidtom` place (see the note above on the toms).
   tomMid: row('tomMid', 'Mid tom', 2, 'normal', 'hands'),
   tomFloor: row('tomFloor', 'Floor tom', -1, 'normal', 'hands'),
 };

@@ -7,6 +7,8 @@ export interface TextStyle {
   readonly anchor?: 'start' | 'middle' | 'end';
   /** Degrees, clockwise, around the text's anchor point. */
   readonly rotate?: number;
+  /** Opacity (fill and inherited stroke), for text printed lighter than the music. */
+  readonly opacity?: number;
 }
 
 /** Add a `<text>` to the context's current group. */
@@ -27,6 +29,7 @@ export function svgText(
   text.setAttribute('font-weight', style.weight ?? 'normal');
   text.setAttribute('text-anchor', style.anchor ?? 'middle');
   text.setAttribute('fill', 'currentColor');
+  if (style.opacity !== undefined) text.setAttribute('opacity', String(style.opacity));
   if (style.rotate)
     text.setAttribute('transform', `rotate(${style.rotate} ${round(x)} ${round(y)})`);
   text.textContent = content;

@@ -4,7 +4,7 @@ import { planSystems } from './system-layout';
 
 const input = (widths: number[], line = 1000, start = 60, max = 4) => ({
   barWidths: widths,
-  systemStartWidth: start,
+  systemStartWidth: () => start,
   lineWidth: () => line,
   maxBarsPerSystem: max,
 });
@@ -38,5 +38,23 @@ describe('planSystems', () => {
         },
       ),
     );
+  });
+
+  it('gives the first system the wider opening (clef and time signature), the others the clef', () => {
+    const plans = planSystems({
+      barWidths: Array(8).fill(200),
+      systemStartWidth: (i) => (i === 0 ? 90 : 40),
+      lineWidth: () => 1000,
+      maxBarsPerSystem: 4,
+    });
+    expect(plans.map((p) => p.bars.length)).toEqual([4, 4]);
+    for (const [i, plan] of plans.entries()) {
+      const start = i === 0 ? 90 : 40;
+      // The bars share what is left after the opening; the first bar carries the opening.
+      const share = (1000 - start) / 4;
+      expect(plan.widths[0]).toBeCloseTo(share + start, 6);
+      expect(plan.widths[1]).toBeCloseTo(share, 6);
+      expect(plan.widths.reduce((a, b) => a + b, 0)).toBeCloseTo(1000, 6);
+    }
   });
 });

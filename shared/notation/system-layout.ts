@@ -16,8 +16,11 @@ export interface SystemPlan {
 export interface SystemLayoutInput {
   /** Natural width of each bar without the clef and time signature. */
   readonly barWidths: readonly number[];
-  /** Extra width the first bar of every system needs for clef and time signature. */
-  readonly systemStartWidth: number;
+  /**
+   * Extra width the first bar of each system needs: clef on every system, plus the time
+   * signature on the first.
+   */
+  readonly systemStartWidth: (systemIndex: number) => number;
   /** Width available for the bars of each line (the first line may be narrower). */
   readonly lineWidth: (systemIndex: number) => number;
   /** Most bars on one line. */
@@ -38,8 +41,9 @@ export function planSystems(input: SystemLayoutInput): SystemPlan[] {
   return plans;
 }
 
-function needed(input: SystemLayoutInput, bars: readonly number[]): number {
-  return bars.reduce((sum, bar) => sum + (input.barWidths[bar] ?? 0), input.systemStartWidth);
+function needed(input: SystemLayoutInput, bars: readonly number[], systemIndex: number): number {
+  const start = input.systemStartWidth(systemIndex);
+  return bars.reduce((sum, bar) => sum + (input.barWidths[bar] ?? 0), start);
 }
 
 function greedySizes(input: SystemLayoutInput): number[] {
@@ -50,7 +54,7 @@ function greedySizes(input: SystemLayoutInput): number[] {
     while (
       start + size < input.barWidths.length &&
       size < input.maxBarsPerSystem &&
-      needed(input, range(start, size + 1)) <= input.lineWidth(sizes.length)
+      needed(input, range(start, size + 1), sizes.length) <= input.lineWidth(sizes.length)
     ) {
       size++;
     }
@@ -73,7 +77,7 @@ function balancedSizes(input: SystemLayoutInput, count: number): number[] | null
   let start = 0;
   for (const [index, size] of sizes.entries()) {
     if (size > input.maxBarsPerSystem) return null;
-    if (size > 1 && needed(input, range(start, size)) > input.lineWidth(index)) return null;
+    if (size > 1 && needed(input, range(start, size), index) > input.lineWidth(index)) return null;
     start += size;
   }
   return sizes;
@@ -88,9 +92,10 @@ function stretch(
 ): number[] {
   const natural = bars.map((bar) => input.barWidths[bar] ?? 0);
   const naturalSum = natural.reduce((a, b) => a + b, 0);
-  const room = Math.max(input.lineWidth(systemIndex) - input.systemStartWidth, naturalSum);
+  const start = input.systemStartWidth(systemIndex);
+  const room = Math.max(input.lineWidth(systemIndex) - start, naturalSum);
   const factor = last ? Math.min(room / naturalSum, 1.5) : room / naturalSum;
-  return natural.map((w, i) => w * factor + (i === 0 ? input.systemStartWidth : 0));
+  return natural.map((w, i) => w * factor + (i === 0 ? start : 0));
 }
 
 function range(start: number, size: number): number[] {

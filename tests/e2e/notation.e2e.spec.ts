@@ -1,8 +1,9 @@
 /**
- * The drill page's notation in a real browser: a teacher opens the quintuplet and the 4:3
- * polyrhythm presets and the engraved SVG must hold one notehead per hit in the right voice, the
- * tuplet numbers the beats need, and every notehead on the line or space the drum-set convention
- * gives its instrument. Expected values come from the drill itself, generated here in Node with
+ * The drill page's notation in a real browser: a teacher opens the quintuplet, the triplet shuffle
+ * and the 4:3 polyrhythm presets and the engraved SVG must hold one notehead per hit in the right
+ * voice, the tuplet numbers the beats need (and no others), every notehead on the line or space
+ * the drum-set convention gives its instrument, one time signature, and a counting syllable under
+ * every slot. Expected values come from the drill itself, generated here in Node with
  * the same card and seed (the engine is deterministic across Node and browser).
  */
 import type { Browser, BrowserContext, Page } from 'playwright-core';
@@ -45,6 +46,8 @@ const QUINTUPLET = BUILT_IN_PRESETS.find((p) => {
   const sub = (p.card as RawCard)['subdivision'];
   return sub === 5 || (Array.isArray(sub) && sub.includes(5));
 });
+/** Triplet shuffle: hi-hat on slots 0 and 2 of every beat in three, so every beat is bracketed. */
+const SHUFFLE = BUILT_IN_PRESETS.find((p) => p.id === 'shuffle-kick-upbeats');
 const FOUR_OVER_THREE = BUILT_IN_PRESETS.find((p) =>
   (
     (p.card as RawCard)['rules'] as { kind: string; against?: number; span?: number }[] | undefined
@@ -71,6 +74,8 @@ interface Engraving {
   /** Each notehead's centre minus where its voice belongs, in pixels. */
   misplaced: { voice: string; off: number }[];
   placed: number;
+  timeSignatures: number;
+  counts: number;
 }
 
 /** Reads the score's SVG geometry as the browser laid it out (bounding boxes, not attributes). */
@@ -81,6 +86,8 @@ async function readEngraving(page: Page): Promise<Engraving> {
       tuplets: { hands: [], feet: [] },
       misplaced: [],
       placed: 0,
+      timeSignatures: svg.querySelectorAll('.tensile-bar .vf-timesignature').length,
+      counts: svg.querySelectorAll('.tensile-count').length,
     };
     for (const layer of ['hands', 'feet'] as const) {
       result.heads[layer] = svg.querySelectorAll(
@@ -121,6 +128,7 @@ describe('drill page notation (Chromium)', () => {
 
   beforeAll(async () => {
     expect(QUINTUPLET, 'a built-in quintuplet preset').toBeDefined();
+    expect(SHUFFLE, 'the built-in triplet shuffle preset').toBeDefined();
     expect(FOUR_OVER_THREE, 'a built-in 4:3 polyrhythm preset').toBeDefined();
     [server, browser] = await Promise.all([startServer(), launchChromium()]);
     context = await browser.newContext({ viewport: { width: 1366, height: 1000 } });
@@ -136,9 +144,12 @@ describe('drill page notation (Chromium)', () => {
     await server?.stop();
   });
 
-  for (const [name, preset] of [
-    ['quintuplet', QUINTUPLET],
-    ['4:3 polyrhythm', FOUR_OVER_THREE],
+  // `tuplet`: the bracket number the preset must show, or null when it must show none (4:3 is
+  // written in plain sixteenths across three quarter-note beats).
+  for (const [name, preset, tuplet] of [
+    ['quintuplet', QUINTUPLET, 5],
+    ['triplet shuffle', SHUFFLE, 3],
+    ['4:3 polyrhythm', FOUR_OVER_THREE, null],
   ] as const) {
     it(`engraves the ${name} preset as the convention writes it`, async () => {
       const drill = generateDrill(parseRuleCard(preset!.card), SEED);
@@ -162,9 +173,61 @@ describe('drill page notation (Chromium)', () => {
       }
       expect(engraving.placed).toBe(drill.bars.reduce((n, bar) => n + bar.hits.length, 0));
       expect(engraving.misplaced).toEqual([]);
-      if (name === 'quintuplet') expect(engraving.tuplets.hands).toContain('5');
+      const bracketed = [...engraving.tuplets.hands, ...engraving.tuplets.feet];
+      if (tuplet === null) {
+        expect(bracketed).toEqual([]);
+      } else {
+        // One bracket per beat with a voice layer on the tuplet grid, counted from the drill.
+        const due = bracketsDue(drill, tuplet, true) + bracketsDue(drill, tuplet, false);
+        expect(due, `beats in ${tuplet} with off-beat notes`).toBeGreaterThan(0);
+        expect(bracketed.filter((t) => t === String(tuplet))).toHaveLength(due);
+      }
+      // Time signature once, at the start; a syllable under every slot of every beat.
+      expect(engraving.timeSignatures).toBe(1);
+      expect(engraving.counts).toBe(
+        drill.bars.reduce((n, bar) => n + bar.beats.reduce((a, b) => a + b, 0), 0),
+      );
     });
   }
+
+  it("scrolls the cursor's line into view when it moves to a line off screen", async () => {
+    // A short window, so the drill's later lines start below the fold; reduced motion makes the
+    // scroll immediate (the score must honour prefers-reduced-motion).
+    const short = await browser.newContext({
+      viewport: { width: 1024, height: 520 },
+      reducedMotion: 'reduce',
+    });
+    try {
+      const shortPage = await short.newPage();
+      const teacher = DEMO_TEACHERS[0]!;
+      await signIn(shortPage, server.url, teacher.email, teacher.password);
+      const preset = QUINTUPLET!;
+      const drill = generateDrill(parseRuleCard(preset.card), SEED);
+      await shortPage.goto(`${server.url}/drills/${encodeURIComponent(preset.id)}?seed=${SEED}`);
+      const score = shortPage.locator('tensile-drill-score');
+      await score.locator('svg .tensile-bar').first().waitFor();
+      // The stave's lines: a bar's group also holds invisible full-height hit areas.
+      const lastBar = score.locator(
+        `svg .tensile-bar[data-bar="${drill.bars.length}"] > .vf-stave`,
+      );
+      const below = await lastBar.evaluate((g) => g.getBoundingClientRect().top > innerHeight);
+      expect(below, 'the last bar starts off screen').toBe(true);
+      await score.evaluate((el) => (el as HTMLElement).focus({ preventScroll: true }));
+      const cursorOnScreen = () =>
+        score.locator('.cursor').evaluate((el) => {
+          const rect = el.getBoundingClientRect();
+          return rect.top >= 0 && rect.bottom <= innerHeight;
+        });
+      const beats = drill.bars.reduce((n, bar) => n + bar.beats.length, 0);
+      for (let i = 0; i < beats; i++) {
+        await shortPage.keyboard.press('ArrowRight');
+        await expect.poll(cursorOnScreen, { message: `beat ${i + 1} on screen` }).toBe(true);
+      }
+      expect(await lastBar.evaluate((g) => g.getBoundingClientRect().top < innerHeight)).toBe(true);
+    } finally {
+      await short.close();
+    }
+  });
 
   it('keeps the seed in the address, and a new seed redraws another drill', async () => {
     const preset = QUINTUPLET!;

@@ -43,4 +43,37 @@ describe('PlaybackPanel', () => {
     await fixture.whenStable();
     expect(root.querySelector<HTMLInputElement>('input[type=number]')?.value).toBe('98');
   });
+
+  it('steps the tempo slider by 1 with the arrows and by 5 with Shift+arrows, inside 20–320', async () => {
+    const { fixture, root } = await render();
+    const thumb = root.querySelector<HTMLInputElement>('input[matSliderThumb], input[type=range]')!;
+    const field = () => root.querySelector<HTMLInputElement>('input[type=number]')!.value;
+    const press = (key: string, shiftKey = false) => {
+      const event = new KeyboardEvent('keydown', { key, code: key, shiftKey, bubbles: true, cancelable: true });
+      thumb.dispatchEvent(event);
+      return event;
+    };
+    const shifted = press('ArrowRight', true);
+    expect(shifted.defaultPrevented).toBe(true); // the native one-step move is replaced
+    await fixture.whenStable();
+    expect(field()).toBe('97');
+    press('ArrowUp', true);
+    press('ArrowLeft');
+    await fixture.whenStable();
+    expect(field()).toBe('101');
+    expect(thumb.value).toBe('101');
+    press('ArrowDown', true);
+    press('ArrowDown');
+    await fixture.whenStable();
+    expect(field()).toBe('95');
+    for (let i = 0; i < 60; i++) press('ArrowUp', true);
+    await fixture.whenStable();
+    expect(field()).toBe('320');
+    for (let i = 0; i < 70; i++) press('ArrowLeft', true);
+    await fixture.whenStable();
+    expect(field()).toBe('20');
+    // Page keys stay with the slider itself.
+    expect(press('PageUp').defaultPrevented).toBe(false);
+  });
 });
+

@@ -49,6 +49,14 @@ export const VOICE_LABELS: Readonly<Record<VoiceId, string>> = {
   tomFloor: 'Floor tom',
 };
 
+/** Which way each arrow key moves the tempo slider (up and right are faster). */
+const SLIDER_ARROWS: Readonly<Record<string, 1 | -1>> = {
+  ArrowUp: 1,
+  ArrowRight: 1,
+  ArrowDown: -1,
+  ArrowLeft: -1,
+};
+
 /** Above this master volume the hearing caution is shown prominently. */
 export const LOUD_VOLUME = 80;
 
@@ -199,6 +207,18 @@ export class PlaybackPanel {
     event.stopPropagation();
     const by = (event.shiftKey ? 5 : 1) * (event.key === 'ArrowUp' ? 1 : -1);
     this.setTempo(this.tempo() + by);
+  }
+
+  /**
+   * Arrow keys on the slider thumb: 1 BPM a press, 5 with Shift, as in the tempo field (a native
+   * range input ignores Shift and always moves one step). Page keys, Home and End stay native.
+   */
+  protected stepTempoSlider(event: KeyboardEvent): void {
+    const direction = SLIDER_ARROWS[event.key];
+    if (direction === undefined || event.ctrlKey || event.altKey || event.metaKey) return;
+    event.preventDefault();
+    event.stopPropagation();
+    this.setTempo(this.tempo() + direction * (event.shiftKey ? 5 : 1));
   }
 
   protected setBar(which: 'from' | 'to', value: number): void {

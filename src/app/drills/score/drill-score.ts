@@ -4,6 +4,7 @@ import {
   DestroyRef,
   ElementRef,
   afterNextRender,
+  afterRenderEffect,
   computed,
   effect,
   inject,
@@ -85,6 +86,12 @@ export class DrillScore {
     return `Drum notation: ${bars.length} bars of ${meter.beats}/${meter.unit}. Left and right arrows step through the beats.`;
   });
   protected readonly plotRoom = PLOT_ROOM;
+  /** The system (line) the cursor is on: changes only when the cursor moves to another line. */
+  private readonly cursorSystem = computed(() => {
+    const layout = this.layout();
+    const at = this.cursor();
+    return (layout && at && layout.bars.find((b) => b.bar === at.bar)?.system) ?? null;
+  });
 
   constructor() {
     const destroyRef = inject(DestroyRef);
@@ -110,6 +117,18 @@ export class DrillScore {
       const showCounts = this.showCounts();
       if (width > 0) void this.render(model, width, showSticking, showCounts);
     });
+    afterRenderEffect(() => {
+      if (this.cursorSystem() !== null) this.revealCursor();
+    });
+  }
+
+  /** Bring the cursor's line on screen when it is off it, smoothly unless motion is reduced. */
+  private revealCursor(): void {
+    const box = this.host.nativeElement.querySelector<HTMLElement>('.cursor');
+    const rect = box?.getBoundingClientRect();
+    if (!box || !rect || (rect.top >= 0 && rect.bottom <= window.innerHeight)) return;
+    const still = window.matchMedia?.('(prefers-reduced-motion: reduce)').matches ?? false;
+    box.scrollIntoView?.({ block: 'center', behavior: still ? 'auto' : 'smooth' });
   }
 
   /** Arrow keys step the highlighted beat; Escape clears it. */
