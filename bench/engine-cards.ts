@@ -63,8 +63,10 @@ export const SEARCH_CONFLICT_CARD = {
  * The worst refusals found: the largest grid (64 bars of 15 beats in thirty-seconds), where the
  * reach proof cannot see the conflict and the search runs to its work budget. `linear` allows one
  * overlap a bar over an ostinato on every slot, so each bar gets at most one fill hit; `hands`
- * asks for a full fill at 240 beats per minute, which the hands cannot play, so every sticking
- * attempt searches again.
+ * asks for a full fill at 240 beats per minute beside a ride on every other thirty-second. The
+ * hands could not play that fill (no hand stroke fits between two ride strokes), but the card is
+ * refused before the hands are reached: with every free slot filled, the search can only remove
+ * hits and runs out of its work budget on the first attempt.
  */
 export const WORST_CONFLICT_CARDS = {
   linear: {

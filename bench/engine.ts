@@ -85,11 +85,11 @@ console.log(
 const spread = (times: readonly number[]): string =>
   `median ${ms(quantile(times, 0.5))} ms   max ${ms(times[times.length - 1] ?? Number.NaN)} ms`;
 console.log(
-  `RuleConflictError (16-level curve, proved out of reach)        ${spread(searchConflictTimes)}`,
+  `RuleConflictError (a) 16-level curve, proved out of reach        ${spread(searchConflictTimes)}`,
 );
 console.log(
-  `RuleConflictError (worst: 64 × 15 beats × 8, linear 1, search)  ${spread(worstLinear)}`,
+  `RuleConflictError (b) worst: 64 × 15 beats × 8, linear 1, search  ${spread(worstLinear)}`,
 );
 console.log(
-  `RuleConflictError (worst: 64 × 15 beats × 8, hands at 240 bpm)  ${spread(worstHands)}`,
+  `RuleConflictError (c) worst: 64 × 15 beats × 8, fast hands, search  ${spread(worstHands)}`,
 );

@@ -17,6 +17,11 @@ export interface FillContext {
   readonly options: readonly (readonly VoiceId[])[][];
   /** Metrical strength of each bar-local instant: 0 downbeat, 1 beat, 2 half beat, 3 other. */
   readonly strength: readonly number[];
+  /**
+   * Per bar, its instants' pick weights by lean, worked out on first use: the search asks for
+   * the same few leans (the bar's target, 0 and 1) thousands of times on big cards.
+   */
+  readonly weightsByLean: Map<number, readonly number[]>[];
 }
 
 /** One bar's fill hits, with the counts the limits need; cheap to copy for variants. */
@@ -62,7 +67,8 @@ export function createFillContext(card: RuleCard, grid: Grid, ob: Obligations): 
     const slots = grid.beats[b] ?? 1;
     return slot === 0 ? (b === 0 ? 0 : 1) : slot * 2 === slots ? 2 : 3;
   });
-  return { card, grid, ob, budget: overlapBudget(card), options, strength };
+  const weightsByLean = Array.from({ length: grid.bars }, () => new Map<number, number[]>());
+  return { card, grid, ob, budget: overlapBudget(card), options, strength, weightsByLean };
 }
 
 /** An empty fill for a bar: only its obligations counted. */
@@ -72,8 +78,10 @@ export function emptyFill(ctx: FillContext, bar: number): BarFill {
   let overlaps = 0;
   for (let i = 0; i < ctx.grid.slotsPerBar; i++) {
     const cell = ctx.ob.cells[bar * ctx.grid.slotsPerBar + i] ?? [];
+    let handVoices = 0;
+    for (const hit of cell) if (isHandVoice(hit.voice)) handVoices++;
     size.push(cell.length);
-    hands.push(cell.filter((hit) => isHandVoice(hit.voice)).length);
+    hands.push(handVoices);
     if (cell.length >= 2) overlaps++;
   }
   return { bar, fills: [], size, hands, mask: new Array<number>(size.length).fill(0), overlaps };
@@ -144,12 +152,17 @@ export function freeCount(ctx: FillContext, bar: number): number {
 
 /**
  * Pick weights of a bar's instants at one lean, 0 where no fill voice is allowed: worked out
- * once per fill or variant rather than once per added hit.
+ * once per bar and lean rather than once per added hit. Shared: never write to the result.
  */
-function instantWeights(ctx: FillContext, bar: number, lean: number): number[] {
-  return (ctx.options[bar] ?? []).map((voices, i) =>
+function instantWeights(ctx: FillContext, bar: number, lean: number): readonly number[] {
+  const cache = ctx.weightsByLean[bar];
+  const known = cache?.get(lean);
+  if (known) return known;
+  const weights = (ctx.options[bar] ?? []).map((voices, i) =>
     voices.length === 0 ? 0 : weightOf(ctx.strength[i] ?? 3, lean),
   );
+  cache?.set(lean, weights);
+  return weights;
 }
 
 /** True when one of `voices` may be added at bar-local instant `i` of an unoccupied slot. */
@@ -175,11 +188,18 @@ function liveWeights(ctx: FillContext, f: BarFill, weightsAt: readonly number[])
 function addDrawn(ctx: FillContext, f: BarFill, rng: Rng, weights: readonly number[]): number {
   const i = rng.weighted(weights);
   if (i < 0) return -1;
-  const allowed = (ctx.options[f.bar]?.[i] ?? []).filter((v) => canAdd(ctx, f, i, v));
-  const voice = allowed[rng.int(allowed.length)];
-  if (!voice) return -1;
-  add(f, i, voice);
-  return i;
+  // The k-th allowed voice, counted in place (no list per draw); the draw is made even when
+  // none is allowed, as the stream of draws must not depend on how the choice is computed.
+  const options = ctx.options[f.bar]?.[i] ?? [];
+  let allowed = 0;
+  for (const v of options) if (canAdd(ctx, f, i, v)) allowed++;
+  let k = rng.int(allowed);
+  for (const v of options) {
+    if (!canAdd(ctx, f, i, v) || k-- > 0) continue;
+    add(f, i, v);
+    return i;
+  }
+  return -1;
 }
 
 /** Adds one seeded, weighted fill hit; false when nothing more fits. */
@@ -190,7 +210,13 @@ function addOne(ctx: FillContext, f: BarFill, rng: Rng, weightsAt: readonly numb
 /** Removes one seeded fill hit, preferring those that work against `lean`. */
 function removeOne(ctx: FillContext, f: BarFill, rng: Rng, lean: number): boolean {
   if (f.fills.length === 0) return false;
-  const weights = f.fills.map((hit) => weightOf(ctx.strength[hit.i] ?? 3, 1 - lean));
+  // One weight per strength, looked up per hit (the same values as weighing each hit afresh).
+  const against = 1 - lean;
+  const byStrength = [0, 1, 2, 3].map((strength) => weightOf(strength, against));
+  const weights = new Float64Array(f.fills.length);
+  f.fills.forEach((hit, k) => {
+    weights[k] = byStrength[ctx.strength[hit.i] ?? 3] as number;
+  });
   const k = rng.weighted(weights);
   if (k < 0) return false;
   removeAt(f, k);

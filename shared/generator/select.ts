@@ -86,10 +86,16 @@ function candidateMeter(ctx: FillContext, gauge: TensionGauge): (fill: BarFill) 
       (ob.cells[bar * grid.slotsPerBar + i] ?? []).some((hit) => hit.source !== 'ostinato'),
     ),
   );
+  // Thousands of candidates on big cards: mark the fill on the bar's own onsets, measure, and
+  // put the obligatory onsets back, rather than copy the bar per candidate.
+  const scratch = fixed.map((onsets) => onsets.slice());
   return (fill) => {
-    const onsets = (fixed[fill.bar] ?? []).slice();
+    const base = fixed[fill.bar] ?? [];
+    const onsets = scratch[fill.bar] ?? [];
     for (const hit of fill.fills) onsets[hit.i] = true;
-    return { fill, units: gauge.units(onsets) };
+    const units = gauge.units(onsets);
+    for (const hit of fill.fills) onsets[hit.i] = base[hit.i] === true;
+    return { fill, units };
   };
 }
 

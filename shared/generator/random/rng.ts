@@ -12,7 +12,7 @@ export interface Rng {
   /** True with probability `p`. */
   chance(p: number): boolean;
   /** An index chosen with probability proportional to its (non-negative) weight; -1 if all 0. */
-  weighted(weights: readonly number[]): number;
+  weighted(weights: ArrayLike<number>): number;
   /** A new array with the items in a seeded order (Fisher–Yates). */
   shuffle<T>(items: readonly T[]): T[];
 }
@@ -27,16 +27,19 @@ export function createRng(seed: string): Rng {
     int,
     chance: (p) => next() < p,
     weighted(weights) {
+      // Hot in the fill search: plain indexed loops, summed and spent in index order (the
+      // float results, hence the draws, depend on that order).
+      const n = weights.length;
       let total = 0;
-      for (const w of weights) total += w;
+      for (let i = 0; i < n; i++) total += weights[i] as number;
       if (total <= 0) return -1;
       let pick = next() * total;
-      for (let i = 0; i < weights.length; i++) {
-        pick -= weights[i] ?? 0;
+      for (let i = 0; i < n; i++) {
+        pick -= weights[i] as number;
         if (pick < 0) return i;
       }
       // Rounding can leave a sliver at the end: the last positive weight takes it.
-      for (let i = weights.length - 1; i >= 0; i--) if ((weights[i] ?? 0) > 0) return i;
+      for (let i = n - 1; i >= 0; i--) if ((weights[i] as number) > 0) return i;
       return -1;
     },
     shuffle(items) {
