@@ -22,7 +22,9 @@ const entries = [
 
 /** Static `import … from "./x.js"` and bare `import "./x.js"`; dynamic imports are left out. */
 function staticImports(code: string): string[] {
-  const found = code.matchAll(/(?:^|[;\s}])(?:import|export)\s*(?:[\w*{}\s,$]+from\s*)?["']\.\/([^"']+\.js)["']/g);
+  const found = code.matchAll(
+    /(?:^|[;\s}])(?:import|export)\s*(?:[\w*{}\s,$]+from\s*)?["']\.\/([^"']+\.js)["']/g,
+  );
   return [...found].map((m) => m[1] as string);
 }
 
@@ -46,8 +48,18 @@ const rows = [...initial].sort().map((file) => {
 });
 console.log(`Initial bundle: ${initial.size} files`);
 console.log(rows.join('\n'));
-console.log(`Initial bundle total: ${(raw / 1024).toFixed(1)} kB raw, ${(gzip / 1024).toFixed(1)} kB gzip`);
-const lazy = ['vexflow', 'Tone'].filter((name) =>
-  [...initial].some((file) => file.endsWith('.js') && readFileSync(join(dir, file), 'utf8').includes(name === 'Tone' ? 'ToneAudioNode' : 'VexFlow')),
+console.log(
+  `Initial bundle total: ${(raw / 1024).toFixed(1)} kB raw, ${(gzip / 1024).toFixed(1)} kB gzip`,
 );
-console.log(lazy.length === 0 ? 'VexFlow and Tone.js: not in the initial bundle' : `In the initial bundle: ${lazy.join(', ')}`);
+const lazy = ['vexflow', 'Tone'].filter((name) =>
+  [...initial].some(
+    (file) =>
+      file.endsWith('.js') &&
+      readFileSync(join(dir, file), 'utf8').includes(name === 'Tone' ? 'ToneAudioNode' : 'VexFlow'),
+  ),
+);
+console.log(
+  lazy.length === 0
+    ? 'VexFlow and Tone.js: not in the initial bundle'
+    : `In the initial bundle: ${lazy.join(', ')}`,
+);

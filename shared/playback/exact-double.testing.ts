@@ -55,6 +55,10 @@ export function addFractions(a: BigFraction, b: BigFraction): BigFraction {
   return fraction(a.num * b.den + b.num * a.den, a.den * b.den);
 }
 
-export function scaleFraction(a: BigFraction, num: bigint | number, den: bigint | number): BigFraction {
+export function scaleFraction(
+  a: BigFraction,
+  num: bigint | number,
+  den: bigint | number,
+): BigFraction {
   return fraction(a.num * BigInt(num), a.den * BigInt(den));
 }

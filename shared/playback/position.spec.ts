@@ -1,6 +1,13 @@
 import { describe, expect, it } from 'vitest';
 import type { DrillBar } from '../generator/drill';
-import { beatAtTime, changeTempo, cursorAt, segmentForBeat, timeOfBeat, TEMPO_CHANGE_GRID } from './position';
+import {
+  beatAtTime,
+  changeTempo,
+  cursorAt,
+  segmentForBeat,
+  timeOfBeat,
+  TEMPO_CHANGE_GRID,
+} from './position';
 import { rational } from './rational';
 import { loopShape } from './schedule';
 

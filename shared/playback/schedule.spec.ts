@@ -19,12 +19,21 @@ import {
 } from './schedule';
 
 function hit(beat: number, slot: number, voice: VoiceId = 'kick'): DrillHit {
-  return { beat, slot, voice, dynamic: 'normal', hand: voice === 'kick' ? null : 'R', source: 'fill' };
+  return {
+    beat,
+    slot,
+    voice,
+    dynamic: 'normal',
+    hand: voice === 'kick' ? null : 'R',
+    source: 'fill',
+  };
 }
 
 /** A bar with one hit of `voice` on every slot of every beat. */
 function everySlotBar(bar: number, beats: readonly number[], voice: VoiceId = 'kick'): DrillBar {
-  const hits = beats.flatMap((slots, b) => Array.from({ length: slots }, (_, s) => hit(b + 1, s, voice)));
+  const hits = beats.flatMap((slots, b) =>
+    Array.from({ length: slots }, (_, s) => hit(b + 1, s, voice)),
+  );
   return { bar, beats, tension: 0, hits };
 }
 
@@ -63,11 +72,21 @@ function idealHitTimes(drill: PlayableDrill, tempo: number, loops: number, count
 }
 
 describe('scheduleDrill timing', () => {
-  const quintuplets: PlayableDrill = { bars: [everySlotBar(1, [5, 5, 5, 5]), everySlotBar(2, [5, 5, 5, 5])] };
-  const septuplets: PlayableDrill = { bars: [everySlotBar(1, [7, 7, 7, 7]), everySlotBar(2, [7, 7, 7])] };
-  const mixed: PlayableDrill = { bars: [everySlotBar(1, [5, 7, 3, 8, 6]), everySlotBar(2, [7, 5])] };
+  const quintuplets: PlayableDrill = {
+    bars: [everySlotBar(1, [5, 5, 5, 5]), everySlotBar(2, [5, 5, 5, 5])],
+  };
+  const septuplets: PlayableDrill = {
+    bars: [everySlotBar(1, [7, 7, 7, 7]), everySlotBar(2, [7, 7, 7])],
+  };
+  const mixed: PlayableDrill = {
+    bars: [everySlotBar(1, [5, 7, 3, 8, 6]), everySlotBar(2, [7, 5])],
+  };
 
-  for (const [name, drill] of [['quintuplets', quintuplets], ['septuplets', septuplets], ['mixed', mixed]] as const) {
+  for (const [name, drill] of [
+    ['quintuplets', quintuplets],
+    ['septuplets', septuplets],
+    ['mixed', mixed],
+  ] as const) {
     for (const tempo of [40, 97, 300]) {
       it(`places ${name} at ${tempo} BPM on the nearest double to the exact time`, () => {
         const loops = 7;
@@ -78,7 +97,10 @@ describe('scheduleDrill timing', () => {
         expect(hits).toHaveLength(ideal.length);
         hits.forEach((event, i) => {
           const exact = ideal[i]!;
-          expect(isNearestDouble(event.time, exact.num, exact.den), `${event.time} vs ${exact.num}/${exact.den}`).toBe(true);
+          expect(
+            isNearestDouble(event.time, exact.num, exact.den),
+            `${event.time} vs ${exact.num}/${exact.den}`,
+          ).toBe(true);
         });
       });
     }
@@ -86,10 +108,14 @@ describe('scheduleDrill timing', () => {
 
   it('matches note lengths from the identity ms = 60000 / (BPM × notes per beat)', () => {
     // 120 BPM quintuplet sixteenths last 100 ms; 140 BPM septuplets 61.22 ms (derived identity).
-    const five = scheduleDrill(quintuplets, options({ tempo: 120 })).filter((e) => e.kind === 'hit');
+    const five = scheduleDrill(quintuplets, options({ tempo: 120 })).filter(
+      (e) => e.kind === 'hit',
+    );
     expect(five[1]!.time).toBe(0.1);
     expect(five[7]!.time).toBe(0.7);
-    const seven = scheduleDrill(septuplets, options({ tempo: 140 })).filter((e) => e.kind === 'hit');
+    const seven = scheduleDrill(septuplets, options({ tempo: 140 })).filter(
+      (e) => e.kind === 'hit',
+    );
     expect(seven[1]!.time * 1000).toBeCloseTo(61.22, 2);
     // Bar 2 of the quintuplet drill starts after 4 beats: 2 s at 120 BPM.
     expect(five.find((e) => e.bar === 2)!.time).toBe(2);
@@ -105,27 +131,37 @@ describe('count-in and loops', () => {
     ],
   };
 
-  it('plays one bar of clicks, as long as the loop\'s first bar, before the drill', () => {
+  it("plays one bar of clicks, as long as the loop's first bar, before the drill", () => {
     const shape = loopShape(drill, { from: 2, to: 3 }, true);
     expect(shape.countInBeats).toBe(3);
     expect(shape.lengthBeats).toBe(8);
     const clicks = countInEvents(shape, 60);
     expect(clicks.map((c) => c.time)).toEqual([0, 1, 2]);
     expect(clicks.map((c) => c.clickRole)).toEqual(['downbeat', 'beat', 'beat']);
-    const first = scheduleDrill(drill, options({ tempo: 60, range: { from: 2, to: 3 }, countIn: true }))
-      .find((e) => e.kind === 'hit');
+    const first = scheduleDrill(
+      drill,
+      options({ tempo: 60, range: { from: 2, to: 3 }, countIn: true }),
+    ).find((e) => e.kind === 'hit');
     expect(first).toMatchObject({ bar: 2, beat: 1, slot: 0, time: 3 });
   });
 
   it('offsets loop k by k × the loop length, exactly', () => {
     const tempo = 97;
-    const events = scheduleDrill(drill, options({ tempo, range: { from: 2, to: 3 }, countIn: true }), 200);
+    const events = scheduleDrill(
+      drill,
+      options({ tempo, range: { from: 2, to: 3 }, countIn: true }),
+      200,
+    );
     const last = events.filter((e) => e.loop === 199 && e.kind === 'hit');
     // Snare on the "&" of 3 in bar 2 and kick on the last triplet of beat 5 in bar 3, loop 199:
     // (3 + 199·8 + 2 + 1/2) beats and (3 + 199·8 + 3 + 4 + 2/3) beats at 97 BPM.
     expect(last.map((e) => e.voice)).toEqual(['kick', 'snare', 'kick']);
-    expect(isNearestDouble(last[1]!.time, BigInt((2 * (3 + 199 * 8 + 2) + 1) * 60), BigInt(2 * 97))).toBe(true);
-    expect(isNearestDouble(last[2]!.time, BigInt((3 * (3 + 199 * 8 + 7) + 2) * 60), BigInt(3 * 97))).toBe(true);
+    expect(
+      isNearestDouble(last[1]!.time, BigInt((2 * (3 + 199 * 8 + 2) + 1) * 60), BigInt(2 * 97)),
+    ).toBe(true);
+    expect(
+      isNearestDouble(last[2]!.time, BigInt((3 * (3 + 199 * 8 + 7) + 2) * 60), BigInt(3 * 97)),
+    ).toBe(true);
   });
 
   it('refuses a bar range outside the drill', () => {
@@ -153,14 +189,22 @@ describe('metronome, dynamics, mute and solo', () => {
 
   it('clicks on every beat, accenting beat 1 when asked', () => {
     const clicks = scheduleDrill(drill, options({ metronome })).filter((e) => e.kind === 'click');
-    expect(clicks.map((c) => [c.beat, c.slot, c.velocity])).toEqual([[1, 0, 1], [2, 0, 0.8]]);
-    const plain = scheduleDrill(drill, options({ metronome: { ...metronome, accentFirstBeat: false } }));
+    expect(clicks.map((c) => [c.beat, c.slot, c.velocity])).toEqual([
+      [1, 0, 1],
+      [2, 0, 0.8],
+    ]);
+    const plain = scheduleDrill(
+      drill,
+      options({ metronome: { ...metronome, accentFirstBeat: false } }),
+    );
     expect(plain.filter((e) => e.kind === 'click').map((c) => c.velocity)).toEqual([0.8, 0.8]);
   });
 
   it('adds a click on every subdivision when asked', () => {
-    const clicks = scheduleDrill(drill, options({ metronome: { ...metronome, subdivisions: true } }))
-      .filter((e) => e.kind === 'click');
+    const clicks = scheduleDrill(
+      drill,
+      options({ metronome: { ...metronome, subdivisions: true } }),
+    ).filter((e) => e.kind === 'click');
     expect(clicks).toHaveLength(8);
     expect(clicks.filter((c) => c.clickRole === 'subdivision')).toHaveLength(6);
   });
@@ -180,7 +224,9 @@ describe('metronome, dynamics, mute and solo', () => {
 
   it('silences muted voices, and everything but the soloed ones', () => {
     const voices = (o: Partial<ScheduleOptions>) =>
-      scheduleDrill(drill, options(o)).filter((e) => e.kind === 'hit').map((e) => e.voice);
+      scheduleDrill(drill, options(o))
+        .filter((e) => e.kind === 'hit')
+        .map((e) => e.voice);
     expect(voices({ mute: new Set(['snare']) })).toEqual(['hihat', 'kick']);
     expect(voices({ solo: new Set(['snare', 'kick']) })).toEqual(['snare', 'kick']);
     expect(voices({ solo: new Set(['snare']), mute: new Set(['snare']) })).toEqual([]);

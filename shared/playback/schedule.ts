@@ -125,7 +125,12 @@ export function loopShape(
     barOffsets.push(lengthBeats);
     lengthBeats += bar.beats.length;
   }
-  return { bars, barOffsets, lengthBeats, countInBeats: countIn ? (bars[0]?.beats.length ?? 0) : 0 };
+  return {
+    bars,
+    barOffsets,
+    lengthBeats,
+    countInBeats: countIn ? (bars[0]?.beats.length ?? 0) : 0,
+  };
 }
 
 /** Beats from playback start to the first beat of pass `loop` (an integer). */
@@ -224,10 +229,7 @@ export function isVoiceAudible(
 }
 
 /** The sound a click makes under the metronome options, or `null` when it stays silent. */
-export function clickSound(
-  event: PlaybackEvent,
-  metronome: MetronomeOptions,
-): ClickSound | null {
+export function clickSound(event: PlaybackEvent, metronome: MetronomeOptions): ClickSound | null {
   const role = event.clickRole;
   if (role === null) return null;
   if (event.loop >= 0 && !metronome.enabled) return null;

@@ -30,7 +30,9 @@ describe('tempo trainer steps', () => {
 
   it('steps down when the target is slower, and clamps tempos to 20–320 BPM', () => {
     const down = { startTempo: 120, stepBpm: 10, everyLoops: 1, targetTempo: 95 };
-    expect([0, 1, 2, 3, 4].map((n) => trainerStepForLoop(down, n).tempo)).toEqual([120, 110, 100, 95, 95]);
+    expect([0, 1, 2, 3, 4].map((n) => trainerStepForLoop(down, n).tempo)).toEqual([
+      120, 110, 100, 95, 95,
+    ]);
     const wild = { startTempo: 5, stepBpm: 100, everyLoops: 1, targetTempo: 900 };
     expect(trainerStepForLoop(wild, 0).tempo).toBe(20);
     expect(trainerStepForLoop(wild, 50).tempo).toBe(320);
@@ -72,7 +74,12 @@ describe('tempo trainer steps', () => {
 
 describe('tempo trainer loop starts', () => {
   /** Loop starts summed loop by loop as exact fractions (a different route from the code). */
-  function exactStart(t: TempoTrainer, loopBeats: number, countIn: number, loop: number): BigFraction {
+  function exactStart(
+    t: TempoTrainer,
+    loopBeats: number,
+    countIn: number,
+    loop: number,
+  ): BigFraction {
     let seconds = fraction(countIn * 60, t.startTempo);
     for (let n = 0; n < loop; n += 1) {
       seconds = addFractions(seconds, fraction(loopBeats * 60, trainerStepForLoop(t, n).tempo));
@@ -84,7 +91,9 @@ describe('tempo trainer loop starts', () => {
     const t = { startTempo: 97, stepBpm: 7, everyLoops: 3, targetTempo: 311 };
     for (const loop of [0, 1, 2, 3, 10, 57, 96, 97, 150]) {
       const exact = exactStart(t, 11, 4, loop);
-      expect(isNearestDouble(trainerLoopStartSeconds(t, 11, 4, loop), exact.num, exact.den)).toBe(true);
+      expect(isNearestDouble(trainerLoopStartSeconds(t, 11, 4, loop), exact.num, exact.den)).toBe(
+        true,
+      );
     }
   });
 
@@ -98,9 +107,13 @@ describe('tempo trainer loop starts', () => {
     expect(bigFractionToNumber(big, 3n * big)).toBe(1 / 3);
     expect(bigFractionToNumber(7n * big + 1n, big)).toBe(7);
     fc.assert(
-      fc.property(fc.bigInt({ min: 0n, max: 10n ** 60n }), fc.bigInt({ min: 1n, max: 10n ** 50n }), (n, d) => {
-        expect(isNearestDouble(bigFractionToNumber(n, d), n, d)).toBe(true);
-      }),
+      fc.property(
+        fc.bigInt({ min: 0n, max: 10n ** 60n }),
+        fc.bigInt({ min: 1n, max: 10n ** 50n }),
+        (n, d) => {
+          expect(isNearestDouble(bigFractionToNumber(n, d), n, d)).toBe(true);
+        },
+      ),
     );
   });
 });

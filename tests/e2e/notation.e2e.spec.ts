@@ -38,6 +38,7 @@ const WEINBERG_STEPS: Record<VoiceId, number> = {
   kick: -3,
   hihatFoot: -5,
 };
+/** One line-or-space step: half of VexFlow's default stave line distance (`Tables.STAVE_LINE_DISTANCE`, 10 px). */
 const STEP_PX = 5;
 const SEED = 'lesson-12';
 
@@ -80,43 +81,46 @@ interface Engraving {
 
 /** Reads the score's SVG geometry as the browser laid it out (bounding boxes, not attributes). */
 async function readEngraving(page: Page): Promise<Engraving> {
-  return page.locator('tensile-drill-score svg.tensile-notation').evaluate((svg, steps) => {
-    const result: Engraving = {
-      heads: { hands: 0, feet: 0 },
-      tuplets: { hands: [], feet: [] },
-      misplaced: [],
-      placed: 0,
-      timeSignatures: svg.querySelectorAll('.tensile-bar .vf-timesignature').length,
-      counts: svg.querySelectorAll('.tensile-count').length,
-    };
-    for (const layer of ['hands', 'feet'] as const) {
-      result.heads[layer] = svg.querySelectorAll(
-        `[data-voice="${layer}"] .tensile-note .vf-notehead`,
-      ).length;
-      result.tuplets[layer] = [
-        ...svg.querySelectorAll(`[data-voice="${layer}"] [data-tuplet]`),
-      ].map((t) => t.getAttribute('data-tuplet') ?? '');
-    }
-    for (const bar of svg.querySelectorAll('.tensile-bar')) {
-      const lines = [...bar.querySelectorAll(':scope > .vf-stave path')].map(
-        (p) => (p as SVGGraphicsElement).getBBox().y,
-      );
-      const topLine = Math.min(...lines);
-      for (const note of bar.querySelectorAll('.tensile-note')) {
-        const voices = (note.getAttribute('data-instruments') ?? '').split(' ');
-        note.querySelectorAll('.vf-notehead').forEach((head, i) => {
-          const glyph = head.querySelector('text') as SVGGraphicsElement;
-          const box = glyph.getBBox();
-          const voice = voices[i] ?? '';
-          const expected = topLine + (4 - (steps as Record<string, number>)[voice]!) * 5;
-          result.placed++;
-          const off = box.y + box.height / 2 - expected;
-          if (Math.abs(off) > 1.5) result.misplaced.push({ voice, off });
-        });
+  return page.locator('tensile-drill-score svg.tensile-notation').evaluate(
+    (svg, { steps, stepPx }) => {
+      const result: Engraving = {
+        heads: { hands: 0, feet: 0 },
+        tuplets: { hands: [], feet: [] },
+        misplaced: [],
+        placed: 0,
+        timeSignatures: svg.querySelectorAll('.tensile-bar .vf-timesignature').length,
+        counts: svg.querySelectorAll('.tensile-count').length,
+      };
+      for (const layer of ['hands', 'feet'] as const) {
+        result.heads[layer] = svg.querySelectorAll(
+          `[data-voice="${layer}"] .tensile-note .vf-notehead`,
+        ).length;
+        result.tuplets[layer] = [
+          ...svg.querySelectorAll(`[data-voice="${layer}"] [data-tuplet]`),
+        ].map((t) => t.getAttribute('data-tuplet') ?? '');
       }
-    }
-    return result;
-  }, WEINBERG_STEPS);
+      for (const bar of svg.querySelectorAll('.tensile-bar')) {
+        const lines = [...bar.querySelectorAll(':scope > .vf-stave path')].map(
+          (p) => (p as SVGGraphicsElement).getBBox().y,
+        );
+        const topLine = Math.min(...lines);
+        for (const note of bar.querySelectorAll('.tensile-note')) {
+          const voices = (note.getAttribute('data-instruments') ?? '').split(' ');
+          note.querySelectorAll('.vf-notehead').forEach((head, i) => {
+            const glyph = head.querySelector('text') as SVGGraphicsElement;
+            const box = glyph.getBBox();
+            const voice = voices[i] ?? '';
+            const expected = topLine + (4 - (steps as Record<string, number>)[voice]!) * stepPx;
+            result.placed++;
+            const off = box.y + box.height / 2 - expected;
+            if (Math.abs(off) > 1.5) result.misplaced.push({ voice, off });
+          });
+        }
+      }
+      return result;
+    },
+    { steps: WEINBERG_STEPS, stepPx: STEP_PX },
+  );
 }
 
 describe('drill page notation (Chromium)', () => {

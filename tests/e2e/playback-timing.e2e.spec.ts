@@ -35,23 +35,26 @@ describe('playback timing in Chromium (offline render, 44.1 kHz)', () => {
     await browser?.close();
   });
 
-  it.each(SCENARIOS.map((s) => [s.name, s] as const))('%s: every onset within 2 samples', async (_name, s) => {
-    const result = await renderScenario(page, s);
-    const ideal = idealOnsets(s, result);
-    expect(ideal.length).toBeGreaterThan(20);
-    expect(result.onsets, 'one detected onset per distinct instant').toHaveLength(ideal.length);
-    const change = result.segments[1];
-    if (s.tempoChange !== undefined && change !== undefined) {
-      // The bar position is kept: the new tempo starts where the old one had got to.
-      const beat = change.beatNum / change.beatDen;
-      expect(change.originTime).toBeCloseTo(0.05 + (beat * 60) / s.settings.tempo, 9);
-      expect(change.originTime).toBeGreaterThanOrEqual(s.tempoChange.atTime);
-      expect(change.tempo).toBe(s.tempoChange.tempo);
-    }
-    const error = worstError(result.onsets, ideal);
-    worst.push({ name: s.name, error });
-    expect(error).toBeLessThanOrEqual(2);
-  });
+  it.each(SCENARIOS.map((s) => [s.name, s] as const))(
+    '%s: every onset within 2 samples',
+    async (_name, s) => {
+      const result = await renderScenario(page, s);
+      const ideal = idealOnsets(s, result);
+      expect(ideal.length).toBeGreaterThan(20);
+      expect(result.onsets, 'one detected onset per distinct instant').toHaveLength(ideal.length);
+      const change = result.segments[1];
+      if (s.tempoChange !== undefined && change !== undefined) {
+        // The bar position is kept: the new tempo starts where the old one had got to.
+        const beat = change.beatNum / change.beatDen;
+        expect(change.originTime).toBeCloseTo(0.05 + (beat * 60) / s.settings.tempo, 9);
+        expect(change.originTime).toBeGreaterThanOrEqual(s.tempoChange.atTime);
+        expect(change.tempo).toBe(s.tempoChange.tempo);
+      }
+      const error = worstError(result.onsets, ideal);
+      worst.push({ name: s.name, error });
+      expect(error).toBeLessThanOrEqual(2);
+    },
+  );
 
   it('the check can fail: onsets 3 samples late are caught', async () => {
     const s = SCENARIOS[1]!;

@@ -6,7 +6,10 @@
 import type { Page } from 'playwright-core';
 import type { DrillBar } from '../../shared/generator/drill';
 import { generateDrill, parseRuleCard } from '../../shared/generator/index';
-import type { OfflineRenderRequest, OfflineRenderResult } from '../../src/app/drills/playback/offline-render';
+import type {
+  OfflineRenderRequest,
+  OfflineRenderResult,
+} from '../../src/app/drills/playback/offline-render';
 
 export const SAMPLE_RATE = 44_100;
 /** Audio-clock time of the first beat in every render: 2205 samples. */
@@ -65,7 +68,8 @@ export function idealOnsets(s: TimingScenario, result: OfflineRenderResult): num
   };
   for (let beat = 0; beat < countIn; beat += 1) sound(frac(beat), -1);
   const { mute, solo, metronome } = s.mix;
-  const audible = (voice: string) => !mute.includes(voice) && (solo.length === 0 || solo.includes(voice));
+  const audible = (voice: string) =>
+    !mute.includes(voice) && (solo.length === 0 || solo.includes(voice));
   let loopStart = frac(countIn);
   for (let loop = 0; toNumber(seconds(loopStart, loop)) < end; loop += 1) {
     let barStart = loopStart;
@@ -125,7 +129,10 @@ function secondsOf(
 /** The largest distance, in samples, between detected onsets and ideal ones, paired in order. */
 export function worstError(onsets: readonly number[], ideal: readonly number[]): number {
   if (onsets.length !== ideal.length) return Infinity;
-  return onsets.reduce((worst, onset, i) => Math.max(worst, Math.abs(onset - (ideal[i] ?? Infinity))), 0);
+  return onsets.reduce(
+    (worst, onset, i) => Math.max(worst, Math.abs(onset - (ideal[i] ?? Infinity))),
+    0,
+  );
 }
 
 const quintupletCard = parseRuleCard({
@@ -192,4 +199,3 @@ export const TIMING_SCENARIOS: TimingScenario[] = [
     seconds: 8,
   }),
 ];
-

@@ -1,11 +1,4 @@
-import {
-  HIT_SOURCES,
-  isHandVoice,
-  type Drill,
-  type DrillBar,
-  type DrillHit,
-  type VoiceId,
-} from '../drill';
+import { HIT_SOURCES, type Drill, type DrillBar, type DrillHit, type VoiceId } from '../drill';
 import { beatsOf, createGrid, instantOf, type Grid } from '../grid';
 import { checkHands } from './check-hands';
 import { where, type Located } from './located';

@@ -108,6 +108,11 @@ export class DrillsIndex {
   protected readonly seedErrors = seedErrorState(this.seedProblem);
   protected readonly maxSeedLength = MAX_SEED_LENGTH;
   protected readonly confirmingClear = signal(false);
+  /** What "Clear …" would remove, for the confirmation question. */
+  protected readonly clearScope = computed(() => {
+    const count = this.recent.entries().length;
+    return count === 1 ? 'the recent drill' : `all ${count} recent drills`;
+  });
 
   /** Open the chosen card's drill for the typed seed. */
   protected openDrill(): void {

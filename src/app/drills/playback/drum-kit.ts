@@ -27,7 +27,11 @@ export class DrumKit {
     const rate = tone.getContext().sampleRate;
     const buffer = (sound: ClickSound) =>
       this.keep(new tone.ToneAudioBuffer().fromArray(clickSamples(rate, sound)));
-    this.clicks = { accent: buffer('accent'), beat: buffer('beat'), subdivision: buffer('subdivision') };
+    this.clicks = {
+      accent: buffer('accent'),
+      beat: buffer('beat'),
+      subdivision: buffer('subdivision'),
+    };
     const openHat = this.metal({ decay: 0.5, release: 0.08, resonance: 5200, volume: -17 });
     const chokeOpen: Strike = (time) => openHat.triggerRelease(time);
     this.strikes = {
@@ -36,9 +40,18 @@ export class DrumKit {
       rim: this.rim(),
       hihat: this.chain(chokeOpen, this.hat({ decay: 0.05, resonance: 6000, volume: -16 }, 330)),
       hihatOpen: (time, velocity) => openHat.triggerAttack(330, time, velocity),
-      hihatFoot: this.chain(chokeOpen, this.hat({ decay: 0.035, resonance: 3400, volume: -20 }, 260)),
-      ride: this.hat({ decay: 1.3, resonance: 7600, harmonicity: 3.1, modulationIndex: 14, volume: -24 }, 420),
-      rideBell: this.hat({ decay: 0.9, resonance: 4200, harmonicity: 2.2, modulationIndex: 5, volume: -21 }, 720),
+      hihatFoot: this.chain(
+        chokeOpen,
+        this.hat({ decay: 0.035, resonance: 3400, volume: -20 }, 260),
+      ),
+      ride: this.hat(
+        { decay: 1.3, resonance: 7600, harmonicity: 3.1, modulationIndex: 14, volume: -24 },
+        420,
+      ),
+      rideBell: this.hat(
+        { decay: 0.9, resonance: 4200, harmonicity: 2.2, modulationIndex: 5, volume: -21 },
+        720,
+      ),
       crash: this.crash(),
       tomHigh: this.membrane(196, { pitchDecay: 0.03, octaves: 2, decay: 0.4, volume: -4 }),
       tomMid: this.membrane(147, { pitchDecay: 0.03, octaves: 2, decay: 0.48, volume: -4 }),

@@ -34,7 +34,9 @@ export interface OfflineRenderResult {
 }
 
 /** Renders a drill with the click voice and returns the onsets found in the result. */
-export async function renderDrillOffline(request: OfflineRenderRequest): Promise<OfflineRenderResult> {
+export async function renderDrillOffline(
+  request: OfflineRenderRequest,
+): Promise<OfflineRenderResult> {
   const { sampleRate } = request;
   const context = new OfflineAudioContext(1, Math.ceil(request.seconds * sampleRate), sampleRate);
   const clicks = createClickBuffers(context);

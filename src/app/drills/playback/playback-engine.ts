@@ -79,10 +79,16 @@ export class PlaybackEngine {
     const kit = this.ensureKit(tone);
     const start = context.currentTime + START_DELAY_SECONDS;
     this.openBus(start);
-    this.scheduler = new PlaybackScheduler(drill, settings, start, {
-      hit: (voice, time, velocity) => kit.play(voice, time, velocity),
-      click: (sound, time, velocity) => kit.click(sound, time, velocity),
-    }, () => this.mix);
+    this.scheduler = new PlaybackScheduler(
+      drill,
+      settings,
+      start,
+      {
+        hit: (voice, time, velocity) => kit.play(voice, time, velocity),
+        click: (sound, time, velocity) => kit.click(sound, time, velocity),
+      },
+      () => this.mix,
+    );
     this.status.set('playing');
     this.tick();
     this.ticker = context.setInterval(() => this.tick(), TICK_SECONDS);

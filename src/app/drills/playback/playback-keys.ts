@@ -20,7 +20,16 @@ export interface KeyLike {
   readonly target: EventTarget | null;
 }
 
-const TYPING_INPUTS = new Set(['text', 'number', 'search', 'email', 'password', 'url', 'tel', 'range']);
+const TYPING_INPUTS = new Set([
+  'text',
+  'number',
+  'search',
+  'email',
+  'password',
+  'url',
+  'tel',
+  'range',
+]);
 
 /** Whether keys typed here belong to the field (text, numbers, sliders, editable content). */
 export function isTypingTarget(target: EventTarget | null): boolean {
@@ -32,14 +41,21 @@ export function isTypingTarget(target: EventTarget | null): boolean {
 
 /** Controls where space already means "press this". */
 function isPressable(target: EventTarget | null): boolean {
-  return target instanceof Element && target.closest('button, a[href], [role="button"], [role="switch"], [role="checkbox"], [role="radio"], input') !== null;
+  return (
+    target instanceof Element &&
+    target.closest(
+      'button, a[href], [role="button"], [role="switch"], [role="checkbox"], [role="radio"], input',
+    ) !== null
+  );
 }
 
 /** Widgets that use the arrow keys themselves. */
 function usesArrows(target: EventTarget | null): boolean {
   return (
     target instanceof Element &&
-    target.closest('[role="radiogroup"], [role="listbox"], [role="menu"], [role="tablist"], [role="slider"], [role="grid"]') !== null
+    target.closest(
+      '[role="radiogroup"], [role="listbox"], [role="menu"], [role="tablist"], [role="slider"], [role="grid"]',
+    ) !== null
   );
 }
 

@@ -4,7 +4,13 @@ import { generateDrill, parseRuleCard } from '../../../../shared/generator/index
 import { PlaybackPanel } from './playback-panel';
 
 const drill = generateDrill(
-  parseRuleCard({ meter: { beats: 4, unit: 4 }, bars: 2, subdivision: 4, tempo: 92, voices: ['kick', 'snare', 'hihat'] }),
+  parseRuleCard({
+    meter: { beats: 4, unit: 4 },
+    bars: 2,
+    subdivision: 4,
+    tempo: 92,
+    voices: ['kick', 'snare', 'hihat'],
+  }),
   'panel-1',
 );
 
@@ -21,25 +27,40 @@ describe('PlaybackPanel', () => {
     expect(root.querySelector('button.play')?.textContent).toContain('Play');
     const tempo = root.querySelector<HTMLInputElement>('input[type=number]');
     expect(tempo?.value).toBe('92');
-    const mutes = [...root.querySelectorAll('button[aria-label^="Mute "]')].map((b) => b.getAttribute('aria-label'));
+    const mutes = [...root.querySelectorAll('button[aria-label^="Mute "]')].map((b) =>
+      b.getAttribute('aria-label'),
+    );
     expect(mutes).toEqual(['Mute Kick', 'Mute Snare', 'Mute Hi-hat']);
     expect(root.textContent).toContain('take breaks');
   });
 
   it('toggles mute with number keys and shows it in words, not colour alone', async () => {
     const { fixture, root } = await render();
-    document.body.dispatchEvent(new KeyboardEvent('keydown', { key: '2', code: 'Digit2', bubbles: true }));
+    document.body.dispatchEvent(
+      new KeyboardEvent('keydown', { key: '2', code: 'Digit2', bubbles: true }),
+    );
     await fixture.whenStable();
     const snare = root.querySelector('button[aria-label="Mute Snare"]');
     expect(snare?.getAttribute('aria-pressed')).toBe('true');
     expect(snare?.textContent).toContain('Muted');
-    expect(root.querySelector('button[aria-label="Mute Kick"]')?.getAttribute('aria-pressed')).toBe('false');
+    expect(root.querySelector('button[aria-label="Mute Kick"]')?.getAttribute('aria-pressed')).toBe(
+      'false',
+    );
   });
 
   it('nudges the tempo with the arrow keys, by 5 with Shift, inside 20–320', async () => {
     const { fixture, root } = await render();
-    document.body.dispatchEvent(new KeyboardEvent('keydown', { key: 'ArrowUp', code: 'ArrowUp', bubbles: true }));
-    document.body.dispatchEvent(new KeyboardEvent('keydown', { key: 'ArrowUp', code: 'ArrowUp', shiftKey: true, bubbles: true }));
+    document.body.dispatchEvent(
+      new KeyboardEvent('keydown', { key: 'ArrowUp', code: 'ArrowUp', bubbles: true }),
+    );
+    document.body.dispatchEvent(
+      new KeyboardEvent('keydown', {
+        key: 'ArrowUp',
+        code: 'ArrowUp',
+        shiftKey: true,
+        bubbles: true,
+      }),
+    );
     await fixture.whenStable();
     expect(root.querySelector<HTMLInputElement>('input[type=number]')?.value).toBe('98');
   });
@@ -49,7 +70,13 @@ describe('PlaybackPanel', () => {
     const thumb = root.querySelector<HTMLInputElement>('input[matSliderThumb], input[type=range]')!;
     const field = () => root.querySelector<HTMLInputElement>('input[type=number]')!.value;
     const press = (key: string, shiftKey = false) => {
-      const event = new KeyboardEvent('keydown', { key, code: key, shiftKey, bubbles: true, cancelable: true });
+      const event = new KeyboardEvent('keydown', {
+        key,
+        code: key,
+        shiftKey,
+        bubbles: true,
+        cancelable: true,
+      });
       thumb.dispatchEvent(event);
       return event;
     };
@@ -76,4 +103,3 @@ describe('PlaybackPanel', () => {
     expect(press('PageUp').defaultPrevented).toBe(false);
   });
 });
-

@@ -100,7 +100,10 @@ export class PlaybackPanel {
   protected readonly loopMode = signal<LoopMode>('drill');
   protected readonly barCount = computed(() => this.drill().bars.length);
   protected readonly rangeFrom = linkedSignal({ source: this.barCount, computation: () => 1 });
-  protected readonly rangeTo = linkedSignal({ source: this.barCount, computation: (count) => count });
+  protected readonly rangeTo = linkedSignal({
+    source: this.barCount,
+    computation: (count) => count,
+  });
   protected readonly countIn = signal(true);
   protected readonly metronome = signal(true);
   protected readonly accentFirstBeat = signal(true);
@@ -150,7 +153,10 @@ export class PlaybackPanel {
   private readonly runShape = computed(() => ({
     range:
       this.loopMode() === 'bars'
-        ? { from: Math.min(this.rangeFrom(), this.rangeTo()), to: Math.max(this.rangeFrom(), this.rangeTo()) }
+        ? {
+            from: Math.min(this.rangeFrom(), this.rangeTo()),
+            to: Math.max(this.rangeFrom(), this.rangeTo()),
+          }
         : null,
     countIn: this.countIn(),
     playOnce: this.loopMode() === 'once',
@@ -227,7 +233,12 @@ export class PlaybackPanel {
     (which === 'from' ? this.rangeFrom : this.rangeTo).set(bar);
   }
 
-  protected setWhole(target: { set(value: number): void }, value: number, min: number, max: number): void {
+  protected setWhole(
+    target: { set(value: number): void },
+    value: number,
+    min: number,
+    max: number,
+  ): void {
     if (Number.isFinite(value)) target.set(Math.min(max, Math.max(min, Math.round(value))));
   }
 

@@ -37,7 +37,12 @@ describe('PlaybackScheduler', () => {
     // Count-in of 2 beats at 120 BPM (0.5 s each), then bar 1 from 11 s.
     expect(log).toEqual(['accent@10.0000', 'beat@10.5000', 'accent@11.0000', 'kick@11.0000']);
     scheduler.pump(12.01);
-    expect(log.slice(4)).toEqual(['beat@11.5000', 'snare@11.7500', 'accent@12.0000', 'kick@12.0000']);
+    expect(log.slice(4)).toEqual([
+      'beat@11.5000',
+      'snare@11.7500',
+      'accent@12.0000',
+      'kick@12.0000',
+    ]);
   });
 
   it('reads mute and metronome settings at hand-over time', () => {
@@ -58,7 +63,9 @@ describe('PlaybackScheduler', () => {
     expect(scheduler.positionAt(1.2)).toEqual({ phase: 'drill', loop: 0, bar: 1, beat: 1 });
     // 2.4 beats at 1.2 s; beat 2 of bar 1 (beat 3 from start) comes 0.6 beats later at 60 BPM.
     const sent = scheduler.pump(10);
-    expect(sent.find((d) => d.event.kind === 'click' && d.event.bar === 1 && d.event.beat === 2)?.time).toBeCloseTo(1.8, 9);
+    expect(
+      sent.find((d) => d.event.kind === 'click' && d.event.bar === 1 && d.event.beat === 2)?.time,
+    ).toBeCloseTo(1.8, 9);
   });
 
   it('follows the tempo trainer loop by loop and reports its step', () => {
@@ -67,14 +74,22 @@ describe('PlaybackScheduler', () => {
     const scheduler = new PlaybackScheduler(drill, { ...settings, trainer }, 0, sink, () => mix);
     const sent = scheduler.pump(20);
     // Count-in 2 s, loop 0 (4 beats) at 60 BPM = 4 s, loop 1 at 120 BPM from 6 s.
-    const downbeats = sent.filter((d) => d.event.kind === 'hit' && d.event.voice === 'kick').map((d) => d.time);
+    const downbeats = sent
+      .filter((d) => d.event.kind === 'hit' && d.event.voice === 'kick')
+      .map((d) => d.time);
     expect(downbeats.slice(0, 4)).toEqual([2, 4, 6, 7]);
     expect(scheduler.trainerStepAt(6.5)).toEqual({ step: 2, steps: 2, tempo: 120 });
   });
 
   it('ends after one pass when playing once', () => {
     const { log, sink } = recorder();
-    const scheduler = new PlaybackScheduler(drill, { ...settings, playOnce: true, countIn: false }, 0, sink, () => mix);
+    const scheduler = new PlaybackScheduler(
+      drill,
+      { ...settings, playOnce: true, countIn: false },
+      0,
+      sink,
+      () => mix,
+    );
     scheduler.pump(100);
     expect(scheduler.endTime).toBe(2);
     expect(log.filter((l) => l.startsWith('kick'))).toHaveLength(2);
