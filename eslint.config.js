@@ -93,7 +93,7 @@ export default defineConfig([
   {
     name: 'tensile/engine-purity',
     files: ['shared/generator/**/*.ts'],
-    ignores: ['shared/generator/**/*.spec.ts', 'shared/generator/cli.ts'],
+    ignores: ['shared/generator/**/*.spec.ts'],
     rules: {
       'no-restricted-properties': [
         'error',

@@ -4,7 +4,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 
-const CLI = join(import.meta.dirname, 'cli.ts');
+const CLI = join(import.meta.dirname, 'generate-drill.ts');
 const dir = mkdtempSync(join(tmpdir(), 'tensile-cli-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
@@ -30,7 +30,7 @@ const GOOD = {
   rules: [{ kind: 'backbeat', voice: 'snare', beats: [2, 4], shift: 0 }],
 };
 
-describe('npm run generate (cli.ts)', () => {
+describe('npm run generate (generate-drill.ts)', () => {
   it('prints the drill of a good card as JSON, the same for the same seed', () => {
     const path = cardFile('good.json', GOOD);
     const first = run('--card', path, '--seed', 'lesson-12');

@@ -9,8 +9,13 @@
  */
 import { readFileSync } from 'node:fs';
 import { parseArgs } from 'node:util';
-import { generateDrill, parseRuleCard, RuleCardError, RuleConflictError } from './index';
-import { BUILT_IN_PRESETS, findBuiltInPreset } from './presets/index';
+import {
+  generateDrill,
+  parseRuleCard,
+  RuleCardError,
+  RuleConflictError,
+} from '../../shared/generator/index';
+import { BUILT_IN_PRESETS, findBuiltInPreset } from '../../shared/generator/presets/index';
 
 const USAGE = `Usage: npm run generate -- (--card FILE | --preset ID) [--seed SEED] [--compact]
 
