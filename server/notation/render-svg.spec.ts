@@ -3,29 +3,9 @@ import { describe, expect, it } from 'vitest';
 import { isHandVoice, type VoiceId } from '../../shared/generator/drill';
 import { generateDrill, parseRuleCard, type Drill } from '../../shared/generator/index';
 import { BUILT_IN_PRESETS } from '../../shared/generator/presets/index';
+import { STEP_PX, WEINBERG_STEPS } from '../../tests/support/drumset-staff';
 import { renderDrillSvg } from './render-svg';
 
-/**
- * Staff steps above the middle line for each voice: N. Weinberg, "Guidelines for Drumset
- * Notation", Percussive Notes, June 1994, pp. 15–26 (as encoded in LilyPond's
- * weinberg-drums-style), except the high tom, which Tensile writes in the top space.
- */
-const WEINBERG_STEPS: Partial<Record<VoiceId, number>> = {
-  crash: 6,
-  hihat: 5,
-  hihatOpen: 5,
-  ride: 4,
-  rideBell: 4,
-  tomHigh: 3,
-  tomMid: 2,
-  snare: 1,
-  rim: 1,
-  tomFloor: -1,
-  kick: -3,
-  hihatFoot: -5,
-};
-/** Half a stave space: one line-or-space step, in VexFlow's default pixels. */
-const STEP_PX = 5;
 /** SMuFL code points of the tuplet digits start at U+E880 ("tuplet0"). */
 const tupletGlyph = (n: number) => String.fromCodePoint(0xe880 + n);
 
@@ -119,7 +99,7 @@ describe('renderDrillSvg (Node, jsdom + @napi-rs/canvas)', () => {
         expect(heads).toHaveLength(voices.length);
         voices.forEach((voice, i) => {
           // The top line is 4 steps above the middle line.
-          expect(heads[i]).toBeCloseTo(topLine + (4 - WEINBERG_STEPS[voice]!) * STEP_PX, 0);
+          expect(heads[i]).toBeCloseTo(topLine + (4 - WEINBERG_STEPS[voice]) * STEP_PX, 0);
           checked++;
         });
       }

@@ -8,7 +8,7 @@
  */
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { isHandVoice, type VoiceId } from '../../shared/generator/drill';
+import { isHandVoice } from '../../shared/generator/drill';
 import { generateDrill, parseRuleCard, type Drill } from '../../shared/generator/index';
 import { BUILT_IN_PRESETS } from '../../shared/generator/presets/index';
 import {
@@ -19,27 +19,8 @@ import {
   type RunningServer,
 } from '../support/browser';
 import { DEMO_STUDENTS, DEMO_TEACHERS } from '../support/demo-accounts';
+import { STEP_PX, WEINBERG_STEPS } from '../support/drumset-staff';
 
-/**
- * Steps above the middle line: N. Weinberg, "Guidelines for Drumset Notation", Percussive Notes,
- * June 1994, pp. 15–26 (via LilyPond's weinberg-drums-style), high tom in the top space.
- */
-const WEINBERG_STEPS: Record<VoiceId, number> = {
-  crash: 6,
-  hihat: 5,
-  hihatOpen: 5,
-  ride: 4,
-  rideBell: 4,
-  tomHigh: 3,
-  tomMid: 2,
-  snare: 1,
-  rim: 1,
-  tomFloor: -1,
-  kick: -3,
-  hihatFoot: -5,
-};
-/** One line-or-space step: half of VexFlow's default stave line distance (`Tables.STAVE_LINE_DISTANCE`, 10 px). */
-const STEP_PX = 5;
 const SEED = 'lesson-12';
 
 type RawCard = Record<string, unknown>;

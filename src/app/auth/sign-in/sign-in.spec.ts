@@ -61,6 +61,18 @@ describe('SignIn', () => {
     await fixture.whenStable();
   }
 
+  /** Signs the demo student in from a page that asked to go on to `returnUrl` afterwards. */
+  async function signInAsStudentReturningTo(returnUrl: string): Promise<void> {
+    fixture.componentRef.setInput('returnUrl', returnUrl);
+    await type('E-mail', 'juno.marsh@larkspur.test');
+    await type('Password', 'larkspur-student');
+    await submit();
+    backend.expectOne(AUTH_SIGN_IN_URL).flush({
+      user: { id: 4, email: 'juno.marsh@larkspur.test', name: 'Juno Marsh', role: 'student' },
+    });
+    await fixture.whenStable();
+  }
+
   const errors = () => [...page.querySelectorAll('mat-error')].map((e) => e.textContent?.trim());
 
   it('labels both controls', () => {
@@ -104,26 +116,12 @@ describe('SignIn', () => {
   });
 
   it('goes on to the returnUrl after signing in', async () => {
-    fixture.componentRef.setInput('returnUrl', '/drills/backbeat-basics?seed=tidal-echo-31');
-    await type('E-mail', 'juno.marsh@larkspur.test');
-    await type('Password', 'larkspur-student');
-    await submit();
-    backend.expectOne(AUTH_SIGN_IN_URL).flush({
-      user: { id: 4, email: 'juno.marsh@larkspur.test', name: 'Juno Marsh', role: 'student' },
-    });
-    await fixture.whenStable();
+    await signInAsStudentReturningTo('/drills/backbeat-basics?seed=tidal-echo-31');
     expect(router.url).toBe('/drills/backbeat-basics?seed=tidal-echo-31');
   });
 
   it('ignores a returnUrl that points off the site and goes home instead', async () => {
-    fixture.componentRef.setInput('returnUrl', '//elsewhere.example/phish');
-    await type('E-mail', 'juno.marsh@larkspur.test');
-    await type('Password', 'larkspur-student');
-    await submit();
-    backend.expectOne(AUTH_SIGN_IN_URL).flush({
-      user: { id: 4, email: 'juno.marsh@larkspur.test', name: 'Juno Marsh', role: 'student' },
-    });
-    await fixture.whenStable();
+    await signInAsStudentReturningTo('//elsewhere.example/phish');
     expect(router.url).toBe('/assignments');
   });
 });

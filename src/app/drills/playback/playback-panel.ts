@@ -9,6 +9,7 @@ import {
   output,
   signal,
   untracked,
+  type WritableSignal,
 } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
@@ -56,6 +57,14 @@ const SLIDER_ARROWS: Readonly<Record<string, 1 | -1>> = {
   ArrowDown: -1,
   ArrowLeft: -1,
 };
+
+/** One whole-number setting of the tempo trainer, as its number field offers it. */
+interface TrainerField {
+  readonly label: string;
+  readonly value: WritableSignal<number>;
+  readonly min: number;
+  readonly max: number;
+}
 
 /** Above this master volume the hearing caution is shown prominently. */
 export const LOUD_VOLUME = 80;
@@ -118,6 +127,13 @@ export class PlaybackPanel {
   protected readonly trainerStep = signal(4);
   protected readonly trainerEvery = signal(2);
   protected readonly trainerTarget = linkedSignal(() => this.drill().card.tempo);
+  /** The trainer's settings in the order a teacher sets them, each kept to its whole range. */
+  protected readonly trainerFields: readonly TrainerField[] = [
+    { label: 'Start BPM', value: this.trainerStart, min: MIN_TEMPO, max: MAX_TEMPO },
+    { label: 'Step BPM', value: this.trainerStep, min: 1, max: 100 },
+    { label: 'Every (loops)', value: this.trainerEvery, min: 1, max: 64 },
+    { label: 'Target BPM', value: this.trainerTarget, min: MIN_TEMPO, max: MAX_TEMPO },
+  ];
 
   protected readonly voices = computed<readonly VoiceId[]>(() => {
     const used = new Set<VoiceId>(this.drill().card.voices);
@@ -233,13 +249,10 @@ export class PlaybackPanel {
     (which === 'from' ? this.rangeFrom : this.rangeTo).set(bar);
   }
 
-  protected setWhole(
-    target: { set(value: number): void },
-    value: number,
-    min: number,
-    max: number,
-  ): void {
-    if (Number.isFinite(value)) target.set(Math.min(max, Math.max(min, Math.round(value))));
+  protected setWhole(field: TrainerField, value: number): void {
+    if (Number.isFinite(value)) {
+      field.value.set(Math.min(field.max, Math.max(field.min, Math.round(value))));
+    }
   }
 
   protected toggleVoice(kind: 'mute' | 'solo', voice: VoiceId): void {
