@@ -5,16 +5,11 @@
  * its steps as it climbs. Headless Chromium normally lets audio start from a click or key press;
  * where it does not, the page must say that audio was blocked, and anything else fails.
  */
-import type { Browser, BrowserContext, Locator, Page } from 'playwright-core';
-import { afterAll, afterEach, beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import type { BrowserContext, Locator, Page } from 'playwright-core';
+import { afterEach, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { BUILT_IN_PRESETS, type BuiltInPreset } from '../../shared/generator/presets/index';
-import {
-  launchChromium,
-  recordForeignRequests,
-  signIn,
-  startServer,
-  type RunningServer,
-} from '../support/browser';
+import { recordForeignRequests, signIn } from '../support/browser';
+import { useServerAndBrowser } from '../support/browser-suite';
 import { DEMO_TEACHERS } from '../support/demo-accounts';
 
 const FOUR_FOUR = BUILT_IN_PRESETS.find((p) => p.id === 'early-backbeat');
@@ -158,8 +153,7 @@ async function openDrill(page: Page, baseUrl: string, card: BuiltInPreset): Prom
 }
 
 describe('drill playback in the browser', () => {
-  let server: RunningServer;
-  let browser: Browser;
+  const suite = useServerAndBrowser();
   let context: BrowserContext;
   let page: Page;
   let foreign: string[];
@@ -167,21 +161,15 @@ describe('drill playback in the browser', () => {
   beforeAll(async () => {
     expect(FOUR_FOUR, 'the built-in 4/4 "early-backbeat" preset').toBeDefined();
     expect((FOUR_FOUR!.card as { meter?: unknown }).meter).toEqual({ beats: 4, unit: 4 });
-    [server, browser] = await Promise.all([startServer(), launchChromium()]);
-  });
-
-  afterAll(async () => {
-    await browser?.close();
-    await server?.stop();
   });
 
   beforeEach(async () => {
-    context = await browser.newContext({ viewport: { width: 1366, height: 1000 } });
+    context = await suite.browser.newContext({ viewport: { width: 1366, height: 1000 } });
     page = await context.newPage();
     foreign = recordForeignRequests(page);
     const teacher = DEMO_TEACHERS[0]!;
-    await signIn(page, server.url, teacher.email, teacher.password);
-    await openDrill(page, server.url, FOUR_FOUR!);
+    await signIn(page, suite.server.url, teacher.email, teacher.password);
+    await openDrill(page, suite.server.url, FOUR_FOUR!);
   });
 
   afterEach(async () => {
@@ -275,7 +263,9 @@ describe('drill playback in the browser', () => {
   it('says so when the browser keeps audio suspended, and plays nothing', async () => {
     // A browser that withholds audio (an autoplay policy, a site setting): every audio context
     // stays suspended and resume() never answers. Set before the app's scripts load.
-    const blockedContext = await browser.newContext({ viewport: { width: 1366, height: 1000 } });
+    const blockedContext = await suite.browser.newContext({
+      viewport: { width: 1366, height: 1000 },
+    });
     try {
       await blockedContext.addInitScript(() => {
         const Native = window.AudioContext;
@@ -292,8 +282,8 @@ describe('drill playback in the browser', () => {
       });
       const blockedPage = await blockedContext.newPage();
       const teacher = DEMO_TEACHERS[1]!;
-      await signIn(blockedPage, server.url, teacher.email, teacher.password);
-      await openDrill(blockedPage, server.url, FOUR_FOUR!);
+      await signIn(blockedPage, suite.server.url, teacher.email, teacher.password);
+      await openDrill(blockedPage, suite.server.url, FOUR_FOUR!);
       await startCursorSampler(blockedPage);
       await playButton(blockedPage).click();
       expect(await playbackOutcome(blockedPage)).toBe('blocked');

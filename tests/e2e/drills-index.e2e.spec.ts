@@ -4,16 +4,11 @@
  * the "Open a drill" form opens any built-in card with a typed seed, and clearing the list asks
  * first. Students see their recent drills but get no form to pick cards or seeds.
  */
-import type { Browser, BrowserContext, Locator, Page } from 'playwright-core';
-import { afterAll, afterEach, beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import type { BrowserContext, Locator, Page } from 'playwright-core';
+import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { BUILT_IN_PRESETS, type BuiltInPreset } from '../../shared/generator/presets/index';
-import {
-  launchChromium,
-  recordForeignRequests,
-  signIn,
-  startServer,
-  type RunningServer,
-} from '../support/browser';
+import { recordForeignRequests, signIn } from '../support/browser';
+import { useServerAndBrowser } from '../support/browser-suite';
 import { DEMO_STUDENTS, DEMO_TEACHERS } from '../support/demo-accounts';
 
 function preset(id: string): BuiltInPreset {
@@ -110,24 +105,14 @@ async function goToDrillsFromNavigation(page: Page): Promise<void> {
 }
 
 describe('the drills index in the browser', () => {
-  let server: RunningServer;
-  let browser: Browser;
+  const suite = useServerAndBrowser();
   let context: BrowserContext;
   let page: Page;
   let foreign: string[];
 
-  beforeAll(async () => {
-    [server, browser] = await Promise.all([startServer(), launchChromium()]);
-  });
-
-  afterAll(async () => {
-    await browser?.close();
-    await server?.stop();
-  });
-
   beforeEach(async () => {
     // Wide enough that the side navigation is always shown (no menu button to press first).
-    context = await browser.newContext({ viewport: { width: 1366, height: 1000 } });
+    context = await suite.browser.newContext({ viewport: { width: 1366, height: 1000 } });
     page = await context.newPage();
     foreign = recordForeignRequests(page);
   });
@@ -138,10 +123,10 @@ describe('the drills index in the browser', () => {
 
   it('lists recent drills newest first, reopens one exactly and opens a new one from the form', async () => {
     const teacher = DEMO_TEACHERS[0]!;
-    await signIn(page, server.url, teacher.email, teacher.password);
+    await signIn(page, suite.server.url, teacher.email, teacher.password);
 
-    const older = await openDrillLink(page, server.url, EARLY_BACKBEAT, 'larkspur-week-3');
-    const newer = await openDrillLink(page, server.url, LINEAR_SIXTEENTHS, 'lesson 12b');
+    const older = await openDrillLink(page, suite.server.url, EARLY_BACKBEAT, 'larkspur-week-3');
+    const newer = await openDrillLink(page, suite.server.url, LINEAR_SIXTEENTHS, 'lesson 12b');
     expect(older.length).toBeGreaterThan(0);
     expect(newer.length).toBeGreaterThan(0);
 
@@ -193,9 +178,9 @@ describe('the drills index in the browser', () => {
 
   it('asks before clearing: keeping leaves the list, clearing empties it for good', async () => {
     const teacher = DEMO_TEACHERS[1]!;
-    await signIn(page, server.url, teacher.email, teacher.password);
-    await openDrillLink(page, server.url, EARLY_BACKBEAT, 'clear-me-1');
-    await openDrillLink(page, server.url, KICK_OFF_THE_ONE, 'clear-me-2');
+    await signIn(page, suite.server.url, teacher.email, teacher.password);
+    await openDrillLink(page, suite.server.url, EARLY_BACKBEAT, 'clear-me-1');
+    await openDrillLink(page, suite.server.url, KICK_OFF_THE_ONE, 'clear-me-2');
     await goToDrillsFromNavigation(page);
     await expect.poll(() => recentEntries(page)).toHaveLength(2);
 
@@ -232,13 +217,13 @@ describe('the drills index in the browser', () => {
 
   it('shows a student their recent drills but no form to open a card with a seed', async () => {
     const student = DEMO_STUDENTS[2]!;
-    await signIn(page, server.url, student.email, student.password);
+    await signIn(page, suite.server.url, student.email, student.password);
     const card = LINEAR_SIXTEENTHS;
-    await page.goto(`${server.url}/drills/${card.id}?seed=homework-4`);
+    await page.goto(`${suite.server.url}/drills/${card.id}?seed=homework-4`);
     await page.getByRole('heading', { level: 1, name: card.title, exact: true }).waitFor();
     await page.locator(SCORE_NOTE).first().waitFor();
 
-    await page.goto(`${server.url}/drills`);
+    await page.goto(`${suite.server.url}/drills`);
     await page.getByRole('heading', { level: 1, name: 'Drills', exact: true }).waitFor();
     await expect.poll(() => recentEntries(page)).toHaveLength(1);
     expect((await recentEntries(page))[0]).toMatch(entryPattern(card, 'homework-4'));

@@ -3,17 +3,12 @@
  * opens each role's pages (the drill page too, with its music font and audio), the browser may
  * talk to no host but the app's own server.
  */
-import type { Browser, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
 import { BUILT_IN_PRESETS } from '../../shared/generator/presets/index';
 import { navigationLabels, signOut, expectOnSignInPage } from '../support/app-pages';
-import {
-  launchChromium,
-  recordForeignRequests,
-  signIn,
-  startServer,
-  type RunningServer,
-} from '../support/browser';
+import { recordForeignRequests, signIn } from '../support/browser';
+import { useServerAndBrowser } from '../support/browser-suite';
 import {
   DEMO_ADMIN,
   DEMO_STUDENTS,
@@ -49,20 +44,10 @@ async function visitNavigation(page: Page): Promise<void> {
 }
 
 describe('the app talks only to its own server', () => {
-  let server: RunningServer;
-  let browser: Browser;
-
-  beforeAll(async () => {
-    [server, browser] = await Promise.all([startServer(), launchChromium()]);
-  });
-
-  afterAll(async () => {
-    await browser?.close();
-    await server?.stop();
-  });
+  const suite = useServerAndBrowser();
 
   it('the recorder notices foreign requests and WebSockets but spares data: and blob:', async () => {
-    const context = await browser.newContext();
+    const context = await suite.browser.newContext();
     const page = await context.newPage();
     const foreign = recordForeignRequests(page);
     // Answered locally, so the check needs no network of its own.
@@ -86,10 +71,10 @@ describe('the app talks only to its own server', () => {
   });
 
   it("the refusal recorder notices a foreign load blocked by the app's policy", async () => {
-    const context = await browser.newContext();
+    const context = await suite.browser.newContext();
     const page = await context.newPage();
     const refused = recordPolicyRefusals(page);
-    await page.goto(`${server.url}/sign-in`);
+    await page.goto(`${suite.server.url}/sign-in`);
     await page.evaluate(() => fetch('https://fonts.example.invalid/x').catch(() => undefined));
     await expect.poll(() => refused.length).toBeGreaterThan(0);
     await context.close();
@@ -100,20 +85,20 @@ describe('the app talks only to its own server', () => {
   it.each(accounts.map((account) => [account.role, account]))(
     'loading, signing in and browsing as the %s stays on localhost',
     async (_role, account) => {
-      const context = await browser.newContext();
+      const context = await suite.browser.newContext();
       const page = await context.newPage();
       const foreign = recordForeignRequests(page);
       const refused = recordPolicyRefusals(page);
 
-      await page.goto(server.url);
+      await page.goto(suite.server.url);
       await expectOnSignInPage(page);
       await settle(page);
-      await signIn(page, server.url, account.email, account.password);
+      await signIn(page, suite.server.url, account.email, account.password);
       await settle(page);
       await visitNavigation(page);
       const preset = BUILT_IN_PRESETS[0];
       if (preset) {
-        await page.goto(`${server.url}/drills/${preset.id}?seed=lesson-12`);
+        await page.goto(`${suite.server.url}/drills/${preset.id}?seed=lesson-12`);
         await settle(page);
       }
       await signOut(page);

@@ -6,18 +6,13 @@
  * every slot. Expected values come from the drill itself, generated here in Node with
  * the same card and seed (the engine is deterministic across Node and browser).
  */
-import type { Browser, BrowserContext, Page } from 'playwright-core';
+import type { BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { isHandVoice } from '../../shared/generator/drill';
 import { generateDrill, parseRuleCard, type Drill } from '../../shared/generator/index';
 import { BUILT_IN_PRESETS } from '../../shared/generator/presets/index';
-import {
-  launchChromium,
-  recordForeignRequests,
-  signIn,
-  startServer,
-  type RunningServer,
-} from '../support/browser';
+import { recordForeignRequests, signIn } from '../support/browser';
+import { useServerAndBrowser } from '../support/browser-suite';
 import { DEMO_STUDENTS, DEMO_TEACHERS } from '../support/demo-accounts';
 import { STEP_PX, WEINBERG_STEPS } from '../support/drumset-staff';
 
@@ -105,8 +100,7 @@ async function readEngraving(page: Page): Promise<Engraving> {
 }
 
 describe('drill page notation (Chromium)', () => {
-  let server: RunningServer;
-  let browser: Browser;
+  const suite = useServerAndBrowser();
   let context: BrowserContext;
   let page: Page;
   let foreign: string[];
@@ -115,18 +109,15 @@ describe('drill page notation (Chromium)', () => {
     expect(QUINTUPLET, 'a built-in quintuplet preset').toBeDefined();
     expect(SHUFFLE, 'the built-in triplet shuffle preset').toBeDefined();
     expect(FOUR_OVER_THREE, 'a built-in 4:3 polyrhythm preset').toBeDefined();
-    [server, browser] = await Promise.all([startServer(), launchChromium()]);
-    context = await browser.newContext({ viewport: { width: 1366, height: 1000 } });
+    context = await suite.browser.newContext({ viewport: { width: 1366, height: 1000 } });
     page = await context.newPage();
     foreign = recordForeignRequests(page);
     const teacher = DEMO_TEACHERS[0]!;
-    await signIn(page, server.url, teacher.email, teacher.password);
+    await signIn(page, suite.server.url, teacher.email, teacher.password);
   });
 
   afterAll(async () => {
     await context?.close();
-    await browser?.close();
-    await server?.stop();
   });
 
   // `tuplet`: the bracket number the preset must show, or null when it must show none (4:3 is
@@ -138,7 +129,7 @@ describe('drill page notation (Chromium)', () => {
   ] as const) {
     it(`engraves the ${name} preset as the convention writes it`, async () => {
       const drill = generateDrill(parseRuleCard(preset!.card), SEED);
-      await page.goto(`${server.url}/drills/${encodeURIComponent(preset!.id)}?seed=${SEED}`);
+      await page.goto(`${suite.server.url}/drills/${encodeURIComponent(preset!.id)}?seed=${SEED}`);
       await page.getByRole('heading', { level: 1, name: preset!.title }).waitFor();
       await page.locator('tensile-drill-score svg .tensile-bar').first().waitFor();
       const engraving = await readEngraving(page);
@@ -178,17 +169,19 @@ describe('drill page notation (Chromium)', () => {
   it("scrolls the cursor's line into view when it moves to a line off screen", async () => {
     // A short window, so the drill's later lines start below the fold; reduced motion makes the
     // scroll immediate (the score must honour prefers-reduced-motion).
-    const short = await browser.newContext({
+    const short = await suite.browser.newContext({
       viewport: { width: 1024, height: 520 },
       reducedMotion: 'reduce',
     });
     try {
       const shortPage = await short.newPage();
       const teacher = DEMO_TEACHERS[0]!;
-      await signIn(shortPage, server.url, teacher.email, teacher.password);
+      await signIn(shortPage, suite.server.url, teacher.email, teacher.password);
       const preset = QUINTUPLET!;
       const drill = generateDrill(parseRuleCard(preset.card), SEED);
-      await shortPage.goto(`${server.url}/drills/${encodeURIComponent(preset.id)}?seed=${SEED}`);
+      await shortPage.goto(
+        `${suite.server.url}/drills/${encodeURIComponent(preset.id)}?seed=${SEED}`,
+      );
       const score = shortPage.locator('tensile-drill-score');
       await score.locator('svg .tensile-bar').first().waitFor();
       // The stave's lines: a bar's group also holds invisible full-height hit areas.
@@ -216,7 +209,7 @@ describe('drill page notation (Chromium)', () => {
 
   it('keeps the seed in the address, and a new seed redraws another drill', async () => {
     const preset = QUINTUPLET!;
-    await page.goto(`${server.url}/drills/${encodeURIComponent(preset.id)}?seed=${SEED}`);
+    await page.goto(`${suite.server.url}/drills/${encodeURIComponent(preset.id)}?seed=${SEED}`);
     await page.locator('tensile-drill-score svg .tensile-bar').first().waitFor();
     await expect.poll(() => page.getByLabel('Seed').inputValue()).toBe(SEED);
     await page.reload();
@@ -234,12 +227,14 @@ describe('drill page notation (Chromium)', () => {
   });
 
   it('gives a seedless link a seed, and shows students the seed without letting them change it', async () => {
-    const studentContext = await browser.newContext({ viewport: { width: 1024, height: 900 } });
+    const studentContext = await suite.browser.newContext({
+      viewport: { width: 1024, height: 900 },
+    });
     try {
       const studentPage = await studentContext.newPage();
       const student = DEMO_STUDENTS[0]!;
-      await signIn(studentPage, server.url, student.email, student.password);
-      await studentPage.goto(`${server.url}/drills/${encodeURIComponent(QUINTUPLET!.id)}`);
+      await signIn(studentPage, suite.server.url, student.email, student.password);
+      await studentPage.goto(`${suite.server.url}/drills/${encodeURIComponent(QUINTUPLET!.id)}`);
       await studentPage.waitForURL((url) => (url.searchParams.get('seed') ?? '') !== '');
       const seed = new URL(studentPage.url()).searchParams.get('seed')!;
       await studentPage

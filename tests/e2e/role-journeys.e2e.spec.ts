@@ -3,16 +3,11 @@
  * through the form, land on the role's home with the role's navigation, sign out again; plus the
  * ways in that must fail (a wrong password, a student opening a teacher's page).
  */
-import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { afterAll, afterEach, beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import type { BrowserContext, Page } from 'playwright-core';
+import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { BUILT_IN_PRESETS } from '../../shared/generator/presets/index';
-import {
-  launchChromium,
-  signIn,
-  startServer,
-  fillSignInForm,
-  type RunningServer,
-} from '../support/browser';
+import { signIn, fillSignInForm } from '../support/browser';
+import { useServerAndBrowser } from '../support/browser-suite';
 import {
   DEMO_ADMIN,
   DEMO_STUDENTS,
@@ -51,22 +46,12 @@ const HOMES: readonly RoleHome[] = [
 ];
 
 describe('role journeys in the browser', () => {
-  let server: RunningServer;
-  let browser: Browser;
+  const suite = useServerAndBrowser();
   let context: BrowserContext;
   let page: Page;
 
-  beforeAll(async () => {
-    [server, browser] = await Promise.all([startServer(), launchChromium()]);
-  });
-
-  afterAll(async () => {
-    await browser?.close();
-    await server?.stop();
-  });
-
   beforeEach(async () => {
-    context = await browser.newContext();
+    context = await suite.browser.newContext();
     page = await context.newPage();
   });
 
@@ -77,7 +62,7 @@ describe('role journeys in the browser', () => {
   it.each(HOMES.map((home) => [home.account.role, home]))(
     'the demo %s signs in, lands on their home and signs out',
     async (_role, home) => {
-      await signIn(page, server.url, home.account.email, home.account.password);
+      await signIn(page, suite.server.url, home.account.email, home.account.password);
       await page.waitForURL((url) => url.pathname === home.path);
       await expect
         .poll(() => page.getByRole('heading', { level: 1 }).first().innerText())
@@ -87,14 +72,14 @@ describe('role journeys in the browser', () => {
       await signOut(page);
       await expectOnSignInPage(page);
       // The session is gone, not just the page: the home now sends the visitor to sign-in.
-      await page.goto(`${server.url}${home.path}`);
+      await page.goto(`${suite.server.url}${home.path}`);
       await expectOnSignInPage(page);
     },
   );
 
   it("the teacher's home lists every built-in rule card", async () => {
     const teacher = DEMO_TEACHERS[1]!;
-    await signIn(page, server.url, teacher.email, teacher.password);
+    await signIn(page, suite.server.url, teacher.email, teacher.password);
     await page.waitForURL((url) => url.pathname === '/rule-cards');
     expect(BUILT_IN_PRESETS.length).toBeGreaterThan(0);
     for (const preset of BUILT_IN_PRESETS) {
@@ -104,7 +89,7 @@ describe('role journeys in the browser', () => {
   });
 
   it('a wrong password keeps the visitor on sign-in with a readable error', async () => {
-    await page.goto(`${server.url}/sign-in`);
+    await page.goto(`${suite.server.url}/sign-in`);
     await fillSignInForm(page, DEMO_TEACHERS[0]!.email, 'not-the-password');
     const alert = page.getByRole('alert').filter({ hasText: /password|e-?mail|sign/i });
     await alert.first().waitFor({ state: 'visible' });
@@ -116,8 +101,8 @@ describe('role journeys in the browser', () => {
 
   it("a student who types a teacher's address is sent to their own home", async () => {
     const student = DEMO_STUDENTS[1]!;
-    await signIn(page, server.url, student.email, student.password);
-    await page.goto(`${server.url}/rule-cards`);
+    await signIn(page, suite.server.url, student.email, student.password);
+    await page.goto(`${suite.server.url}/rule-cards`);
     await page.waitForURL((url) => url.pathname === '/assignments');
     await page.getByText('That page is for teachers.').waitFor({ state: 'visible' });
     expect(await navigationLabels(page)).toEqual(['Assignments', 'Practice']);
@@ -125,7 +110,7 @@ describe('role journeys in the browser', () => {
 
   it('a signed-out visitor opening a private page goes to sign-in and then back there', async () => {
     const teacher = DEMO_TEACHERS[0]!;
-    await page.goto(`${server.url}/studio`);
+    await page.goto(`${suite.server.url}/studio`);
     await expectOnSignInPage(page);
     expect(new URL(page.url()).searchParams.get('returnUrl')).toBe('/studio');
     await fillSignInForm(page, teacher.email, teacher.password);
