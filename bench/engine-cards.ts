@@ -22,14 +22,9 @@ export const FULL_CARD = {
   ],
 };
 
+/** The same grid and voices as FULL_CARD, with rules that cannot all hold. */
 export const UNSATISFIABLE_CARD = {
-  meter: { beats: 4, unit: 4 },
-  bars: 16,
-  subdivision: 4,
-  tempo: 96,
-  voices: ['kick', 'snare', 'hihat', 'hihatFoot'],
-  ostinato: { voice: 'hihat', slots: [0, 2] },
-  density: 0.3,
+  ...FULL_CARD,
   rules: [
     { kind: 'backbeat', voice: 'snare', beats: [2, 4] },
     { kind: 'linear', maxOverlaps: 0 },
