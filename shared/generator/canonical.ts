@@ -1,3 +1,6 @@
+import type { VoiceId } from './drill';
+import { defaultGrouping } from './meter';
+import { rolesOf } from './roles';
 import type { RawRuleCard, Rule, RuleCard } from './schema';
 
 type RawRule = RawRuleCard['rules'][number];
@@ -12,8 +15,14 @@ const sortedUnique = (values: readonly number[]): number[] =>
  */
 export function canonicalCard(card: RawRuleCard | RuleCard): RuleCard {
   const ostinato = card.ostinato;
+  const grouping = card.meter.grouping ?? defaultGrouping(card.meter);
+  const hand = card.hand;
   return {
-    meter: { beats: card.meter.beats, unit: card.meter.unit },
+    meter: {
+      beats: card.meter.beats,
+      unit: card.meter.unit,
+      ...(grouping ? { grouping: grouping.slice() } : {}),
+    },
     bars: card.bars,
     subdivision: typeof card.subdivision === 'number' ? card.subdivision : card.subdivision.slice(),
     tempo: card.tempo,
@@ -27,12 +36,37 @@ export function canonicalCard(card: RawRuleCard | RuleCard): RuleCard {
           },
         }
       : {}),
+    layers: card.layers.map((layer) => ({
+      voice: layer.voice,
+      slots: sortedUnique(layer.slots),
+      ...(layer.beats ? { beats: sortedUnique(layer.beats) } : {}),
+      dynamic: layer.dynamic,
+    })),
+    roles: orderedRoles(card),
+    hand,
+    sticking: {
+      lead: card.sticking?.lead ?? hand,
+      doubles: card.sticking?.doubles ?? false,
+    },
+    ...(card.swing ? { swing: { unit: card.swing.unit, ratio: card.swing.ratio } } : {}),
+    measure: card.measure,
     density: card.density,
-    rules: card.rules.map((rule) => canonicalRule(rule, card.meter.beats)),
+    rules: card.rules.map((rule) => canonicalRule(rule, card.meter.beats, card.voices)),
   };
 }
 
-function canonicalRule(rule: RawRule | Rule, barBeats: number): Rule {
+/** Roles keyed in the card's voice order. */
+function orderedRoles(card: RawRuleCard | RuleCard): RuleCard['roles'] {
+  const roles = rolesOf(card);
+  const out: Partial<Record<VoiceId, (typeof roles)[VoiceId]>> = {};
+  for (const voice of card.voices) out[voice] = roles[voice];
+  return out;
+}
+
+/** Toms high to low, then the snare: the voices a phrase fill goes round by default. */
+const FILL_ORDER: readonly VoiceId[] = ['snare', 'tomHigh', 'tomMid', 'tomFloor'];
+
+function canonicalRule(rule: RawRule | Rule, barBeats: number, voices: readonly VoiceId[]): Rule {
   switch (rule.kind) {
     case 'backbeat':
       return {
@@ -49,6 +83,7 @@ function canonicalRule(rule: RawRule | Rule, barBeats: number): Rule {
         voice: rule.voice,
         resolveEvery: rule.resolveEvery,
         anticipate: rule.anticipate,
+        landing: rule.landing,
       };
     case 'fillHoles':
       return {
@@ -77,5 +112,13 @@ function canonicalRule(rule: RawRule | Rule, barBeats: number): Rule {
       };
     case 'tension':
       return { kind: rule.kind, curve: rule.curve.slice() };
+    case 'phrase':
+      return {
+        kind: rule.kind,
+        every: rule.every,
+        fillBeats: rule.fillBeats ?? barBeats,
+        voices: rule.voices?.slice() ?? FILL_ORDER.filter((voice) => voices.includes(voice)),
+        crash: rule.crash,
+      };
   }
 }

@@ -4,6 +4,7 @@ import { euclidLandings } from './rules/euclid';
 import { polyrhythmLandings } from './rules/polyrhythm';
 import type { Rule, RuleCard } from './schema';
 import { listWords, voiceWord } from './words';
+import { checkExtensions, checkPhrase } from './card-extension-checks';
 
 /**
  * Checks that need more than one field: the subdivision list matches the meter, rules use the
@@ -21,7 +22,14 @@ export function checkCardConsistency(card: RuleCard): RuleCardIssue[] {
   }
   const grid = createGrid(card.bars, beatsOf(card.subdivision, card.meter.beats));
   checkOstinato(card, grid, issues);
+  checkExtensions(card, grid, issues);
   card.rules.forEach((rule, index) => checkRule(card, grid, rule, index, issues));
+  if (card.rules.filter((r) => r.kind === 'phrase').length > 1) {
+    issues.push({
+      path: 'rules',
+      message: 'A card may have only one phrase rule: one phrase length for the whole drill.',
+    });
+  }
   if (card.rules.filter((r) => r.kind === 'tension').length > 1) {
     issues.push({
       path: 'rules',
@@ -84,6 +92,13 @@ function checkRule(
       });
     }
   }
+  if (rule.kind === 'avoidDownbeat' && rule.landing === 'end' && rule.resolveEvery === 0) {
+    issues.push({
+      path: `${at}.landing`,
+      message: `${named} lands at the end of each cycle, but resolveEvery is 0 (never land): give the cycle length in bars.`,
+    });
+  }
+  if (rule.kind === 'phrase') checkPhrase(card, rule, at, named, issues);
   if (rule.kind === 'polyrhythm') {
     const miss = firstMiss(polyrhythmLandings(rule, grid).map((l) => l.landing));
     if (miss) {

@@ -19,6 +19,11 @@ describe('parseRuleCard', () => {
       subdivision: 4,
       tempo: 90,
       voices: ['kick', 'snare', 'hihat'],
+      layers: [],
+      roles: { kick: 'anchor', snare: 'embellishment', hihat: 'embellishment' },
+      hand: 'right',
+      sticking: { lead: 'right', doubles: false },
+      measure: 'lhl',
       density: 0.3,
       rules: [],
     });
@@ -31,6 +36,42 @@ describe('parseRuleCard', () => {
       shift: 0,
       dynamic: 'accent',
     });
+  });
+
+  it('refuses unknown fields and names the likely intended one', () => {
+    expect(errorOf({ tempoo: 90 }).message).toBe('Unknown field "tempoo". Did you mean "tempo"?');
+    expect(errorOf({ tempoo: 90 }).path).toBe('tempoo');
+    const rule = errorOf({ rules: [{ kind: 'avoidDownbeat', voice: 'kick', resolveEvry: 2 }] });
+    expect(rule.message).toBe(
+      'Rule 1 (avoidDownbeat): Unknown field "resolveEvry". Did you mean "resolveEvery"?',
+    );
+    expect(rule.path).toBe('rules[0].resolveEvry');
+    expect(
+      errorOf({ rules: [{ kind: 'backbeat', voice: 'snare', beats: [2], shfit: 1 }] }).message,
+    ).toMatch(/Unknown field "shfit". Did you mean "shift"\?/);
+    expect(errorOf({ meter: { beats: 4, unit: 4, groupng: [2, 2] } }).message).toMatch(
+      /"groupng". Did you mean "grouping"/,
+    );
+    expect(errorOf({ colour: 'red' }).message).toMatch(
+      /Unknown field "colour". Allowed here: "meter"/,
+    );
+  });
+
+  it('groups compound and odd meters by default, and checks a given grouping', () => {
+    const grouping = (beats: number, unit: number) =>
+      parseRuleCard({ meter: { beats, unit } }).meter.grouping;
+    // Compound meters in dotted-quarter beats of three eighths; 7/8 as 2+2+3 (common practice).
+    expect(grouping(6, 8)).toEqual([3, 3]);
+    expect(grouping(12, 8)).toEqual([3, 3, 3, 3]);
+    expect(grouping(15, 8)).toEqual([3, 3, 3, 3, 3]);
+    expect(grouping(7, 8)).toEqual([2, 2, 3]);
+    expect(grouping(4, 4)).toBeUndefined();
+    expect(
+      parseRuleCard({ meter: { beats: 7, unit: 8, grouping: [3, 2, 2] } }).meter.grouping,
+    ).toEqual([3, 2, 2]);
+    expect(errorOf({ meter: { beats: 7, unit: 8, grouping: [3, 3] } }).message).toMatch(
+      /grouping 3\+3 adds up to 6 beats, but the meter has 7/,
+    );
   });
 
   it('names the field and its range in plain words', () => {

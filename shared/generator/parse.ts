@@ -3,6 +3,7 @@ import { canonicalCard } from './canonical';
 import { checkCardConsistency } from './card-checks';
 import { RuleCardError, type RuleCardIssue } from './errors';
 import { RawRuleCardSchema, type RuleCard } from './schema';
+import { knownFields, unknownFieldMessage } from './unknown-fields';
 
 /**
  * Validates a rule card (zod), fills its defaults and checks the fields that depend on each
@@ -13,7 +14,7 @@ export function parseRuleCard(input: unknown): RuleCard {
   if (!parsed.success) {
     throw new RuleCardError(
       'invalid_card',
-      parsed.error.issues.map((issue) => toIssue(issue, input)),
+      parsed.error.issues.flatMap((issue) => toIssues(issue, input)),
     );
   }
   const card = canonicalCard(parsed.data);
@@ -31,14 +32,24 @@ export function formatPath(path: readonly PropertyKey[]): string {
     .join('');
 }
 
-function toIssue(issue: z.core.$ZodIssue, input: unknown): RuleCardIssue {
-  const path = formatPath(issue.path);
+function toIssues(issue: z.core.$ZodIssue, input: unknown): RuleCardIssue[] {
+  if (issue.code !== 'unrecognized_keys') return [toIssue(issue.path, issue.message, input)];
   const [top, index] = issue.path;
+  const kind = top === 'rules' && typeof index === 'number' ? ruleKindAt(input, index) : null;
+  const known = knownFields(issue.path, kind);
+  return issue.keys.map((key) =>
+    toIssue([...issue.path, key], unknownFieldMessage(key, known), input),
+  );
+}
+
+function toIssue(at: readonly PropertyKey[], message: string, input: unknown): RuleCardIssue {
+  const path = formatPath(at);
+  const [top, index] = at;
   if (top === 'rules' && typeof index === 'number') {
     const kind = ruleKindAt(input, index);
-    return { path, message: `Rule ${index + 1}${kind ? ` (${kind})` : ''}: ${issue.message}` };
+    return { path, message: `Rule ${index + 1}${kind ? ` (${kind})` : ''}: ${message}` };
   }
-  return { path, message: issue.message };
+  return { path, message };
 }
 
 function ruleKindAt(input: unknown, index: number): string | null {

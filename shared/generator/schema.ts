@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { VOICE_IDS } from './drill';
+import { VOICE_IDS, type VoiceId } from './drill';
 import { listWords } from './words';
 
 /**
@@ -63,9 +63,15 @@ const SlotsPerBeat = wholeNumber(
   ' in the subdivision (2 = eighths, 4 = sixteenths)',
 );
 
-export const MeterSchema = z.object(
+export const MeterSchema = z.strictObject(
   {
     beats: wholeNumber('The number of beats in a bar', 1, 15),
+    grouping: z
+      .array(wholeNumber('A beat group', 1, 4, ' beats'), {
+        error: 'The grouping must be a list of beat counts, e.g. [2, 2, 3] for 7/8.',
+      })
+      .min(1, { error: 'The grouping needs at least one group.' })
+      .optional(),
     unit: z.union([z.literal(2), z.literal(4), z.literal(8), z.literal(16)], {
       error: (iss) =>
         `The beat unit (bottom number of the meter) must be 2, 4, 8 or 16${got(iss)}.`,
@@ -87,7 +93,7 @@ export const SubdivisionSchema = z.union(
   },
 );
 
-export const OstinatoSchema = z.object({
+export const OstinatoSchema = z.strictObject({
   voice: VoiceIdSchema,
   slots: z
     .array(wholeNumber('An ostinato slot', 0, 7), {
@@ -104,7 +110,7 @@ const Dynamic = z.enum(['ghost', 'normal', 'accent'], {
   error: (iss) => `A dynamic must be "ghost", "normal" or "accent"${got(iss)}.`,
 });
 
-export const BackbeatRuleSchema = z.object({
+export const BackbeatRuleSchema = z.strictObject({
   kind: z.literal('backbeat'),
   voice: VoiceIdSchema,
   beats: z
@@ -118,15 +124,21 @@ export const BackbeatRuleSchema = z.object({
   dynamic: Dynamic.default('accent'),
 });
 
-export const AvoidDownbeatRuleSchema = z.object({
+export const AvoidDownbeatRuleSchema = z.strictObject({
   kind: z.literal('avoidDownbeat'),
   voice: VoiceIdSchema,
   resolveEvery: wholeNumber('resolveEvery', 0, 64, ' bars (0 = never resolve)').default(0),
   anticipate: flag('anticipate').default(false),
+  landing: z
+    .enum(['start', 'end'], {
+      error: (iss) =>
+        `landing must be "start" (land on bar 1 of each cycle) or "end" (land on its last bar)${got(iss)}.`,
+    })
+    .default('start'),
 });
 
 export const FillHolesRuleSchema = z
-  .object({
+  .strictObject({
     kind: z.literal('fillHoles'),
     voices: voiceList('The fillHoles voices'),
     ghost: share('The ghost-note share').default(0),
@@ -137,12 +149,12 @@ export const FillHolesRuleSchema = z
     path: ['ghost'],
   });
 
-export const LinearRuleSchema = z.object({
+export const LinearRuleSchema = z.strictObject({
   kind: z.literal('linear'),
   maxOverlaps: wholeNumber('maxOverlaps', 0, 120, ' instants per bar').default(0),
 });
 
-export const PolyrhythmRuleSchema = z.object({
+export const PolyrhythmRuleSchema = z.strictObject({
   kind: z.literal('polyrhythm'),
   voices: voiceList('The polyrhythm voices'),
   against: wholeNumber('The polyrhythm "against" count', 1, 32, ' hits'),
@@ -150,7 +162,7 @@ export const PolyrhythmRuleSchema = z.object({
 });
 
 export const EuclidRuleSchema = z
-  .object({
+  .strictObject({
     kind: z.literal('euclid'),
     voice: VoiceIdSchema,
     pulses: wholeNumber('The Euclidean pulses', 1, 64),
@@ -163,7 +175,7 @@ export const EuclidRuleSchema = z
     path: ['pulses'],
   });
 
-export const TensionRuleSchema = z.object({
+export const TensionRuleSchema = z.strictObject({
   kind: z.literal('tension'),
   curve: z
     .array(share('A tension target'), { error: 'The tension curve must be a list of numbers.' })
@@ -171,9 +183,18 @@ export const TensionRuleSchema = z.object({
     .max(64, { error: 'The tension curve may hold at most 64 values (one per bar).' }),
 });
 
+export const PhraseRuleSchema = z.strictObject({
+  kind: z.literal('phrase'),
+  every: wholeNumber('The phrase length', 2, 16, ' bars'),
+  fillBeats: wholeNumber('The fill length', 1, 15, ' beats').optional(),
+  voices: voiceList('The phrase fill voices').optional(),
+  crash: flag('crash').default(true),
+});
+
 const RULE_KINDS = [
   'backbeat',
   'avoidDownbeat',
+  'phrase',
   'fillHoles',
   'linear',
   'polyrhythm',
@@ -191,6 +212,7 @@ export const RuleSchema = z.discriminatedUnion(
     PolyrhythmRuleSchema,
     EuclidRuleSchema,
     TensionRuleSchema,
+    PhraseRuleSchema,
   ],
   {
     error: (iss) =>
@@ -201,8 +223,52 @@ export const RuleSchema = z.discriminatedUnion(
   },
 );
 
+/** A further time-keeping layer: its voice plays these slots of the listed beats, every bar. */
+export const LayerSchema = z.strictObject({
+  voice: VoiceIdSchema,
+  slots: z
+    .array(wholeNumber('A layer slot', 0, 7), {
+      error: "A layer's slots must be a list of positions inside the beat, e.g. [0].",
+    })
+    .min(1, { error: 'A layer needs at least one slot per beat.' })
+    .refine((slots) => new Set(slots).size === slots.length, {
+      error: 'A layer lists a slot twice.',
+    }),
+  beats: z
+    .array(wholeNumber('A layer beat', 1, 15), { error: "A layer's beats must be a list." })
+    .min(1, { error: 'A layer needs at least one beat, e.g. [2, 4].' })
+    .optional(),
+  dynamic: z.enum(['ghost', 'normal', 'accent']).default('normal'),
+});
+
+export const VOICE_ROLES = ['time', 'anchor', 'embellishment', 'colour'] as const;
+export type VoiceRole = (typeof VOICE_ROLES)[number];
+
+const RoleSchema = z.enum(VOICE_ROLES, {
+  error: (iss) => `A voice role must be "time", "anchor", "embellishment" or "colour"${got(iss)}.`,
+});
+
+export const StickingSchema = z.strictObject({
+  lead: z
+    .enum(['right', 'left', 'alternate'], {
+      error: (iss) => `The sticking lead must be "right", "left" or "alternate"${got(iss)}.`,
+    })
+    .optional(),
+  doubles: flag('doubles').default(false),
+});
+
+export const SwingSchema = z.strictObject({
+  unit: z.union([z.literal(8), z.literal(16)], {
+    error: (iss) => `Swing applies to eighth (8) or sixteenth (16) pairs${got(iss)}.`,
+  }),
+  ratio: z
+    .number({ error: 'The swing ratio must be a number between 0.5 and 0.75.' })
+    .min(0.5, { error: 'The swing ratio must be between 0.5 (straight) and 0.75.' })
+    .max(0.75, { error: 'The swing ratio must be between 0.5 (straight) and 0.75.' }),
+});
+
 /** The card as written, before the defaults that depend on other fields are filled in. */
-export const RawRuleCardSchema = z.object(
+export const RawRuleCardSchema = z.strictObject(
   {
     meter: MeterSchema.default({ beats: 4, unit: 4 }),
     bars: wholeNumber('The number of bars', 1, 64).default(4),
@@ -210,6 +276,24 @@ export const RawRuleCardSchema = z.object(
     tempo: wholeNumber('Tempo', 20, 320, ' beats per minute').default(90),
     voices: voiceList('The voices').default(['kick', 'snare', 'hihat']),
     ostinato: OstinatoSchema.optional(),
+    layers: z.array(LayerSchema, { error: 'The layers must be a list.' }).max(4).default([]),
+    roles: z
+      .partialRecord(VoiceIdSchema, RoleSchema, {
+        error: 'The roles must map voices to roles, e.g. { "kick": "anchor" }.',
+      })
+      .optional(),
+    hand: z
+      .enum(['right', 'left'], {
+        error: (iss) => `The player's hand must be "right" or "left"${got(iss)}.`,
+      })
+      .default('right'),
+    sticking: StickingSchema.optional(),
+    swing: SwingSchema.optional(),
+    measure: z
+      .enum(['lhl', 'witek'], {
+        error: (iss) => `The tension measure must be "lhl" or "witek"${got(iss)}.`,
+      })
+      .default('lhl'),
     density: share('The density').default(0.3),
     rules: z.array(RuleSchema, { error: 'The rules must be a list.' }).default([]),
   },
@@ -221,7 +305,9 @@ type RawRule = RawRuleCard['rules'][number];
 type WithSpan<R> = R extends unknown
   ? 'span' extends keyof R
     ? Omit<R, 'span'> & { span: number }
-    : R
+    : 'fillBeats' extends keyof R
+      ? Omit<R, 'fillBeats' | 'voices'> & { fillBeats: number; voices: VoiceId[] }
+      : R
   : never;
 
 /** A normalised rule: spans filled in (one bar when the card left them out). */
@@ -234,11 +320,20 @@ export type LinearRule = Extract<Rule, { kind: 'linear' }>;
 export type PolyrhythmRule = Extract<Rule, { kind: 'polyrhythm' }>;
 export type EuclidRule = Extract<Rule, { kind: 'euclid' }>;
 export type TensionRule = Extract<Rule, { kind: 'tension' }>;
+export type PhraseRule = Extract<Rule, { kind: 'phrase' }>;
+export type Layer = z.infer<typeof LayerSchema>;
+export type Sticking = z.infer<typeof StickingSchema>;
+export type Swing = z.infer<typeof SwingSchema>;
 export type Ostinato = z.infer<typeof OstinatoSchema>;
 export type Meter = z.infer<typeof MeterSchema>;
 
 /** A validated rule card with every default filled in: what `generateDrill` takes. */
-export type RuleCard = Omit<RawRuleCard, 'rules'> & { readonly rules: readonly Rule[] };
+export type RuleCard = Omit<RawRuleCard, 'rules' | 'roles' | 'sticking'> & {
+  readonly rules: readonly Rule[];
+  readonly sticking: { readonly lead: 'right' | 'left' | 'alternate'; readonly doubles: boolean };
+  /** Every card voice's role (defaults filled in by `canonicalCard`). */
+  readonly roles: Readonly<Partial<Record<VoiceId, VoiceRole>>>;
+};
 
 /** Rule kinds in the order the drill contract lists them (also the order of their sources). */
 export { RULE_KINDS };

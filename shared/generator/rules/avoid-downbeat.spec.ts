@@ -9,6 +9,7 @@ const rule = (over: Partial<AvoidDownbeatRule>): AvoidDownbeatRule => ({
   voice: 'kick',
   resolveEvery: 0,
   anticipate: false,
+  landing: 'start',
   ...over,
 });
 

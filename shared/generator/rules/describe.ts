@@ -32,6 +32,8 @@ export function describePart(card: RuleCard, rule: number): string {
         : `the linear rule (at most ${r.maxOverlaps} overlaps a bar)`;
     case 'tension':
       return 'the tension rule';
+    case 'phrase':
+      return `the ${r.every}-bar phrase with its fill`;
   }
 }
 
