@@ -41,8 +41,10 @@ export const HIT_SOURCES = [
   'ostinato',
   'backbeat',
   'avoidDownbeat',
+  'phrase',
   'polyrhythm',
   'euclid',
+  'anchor',
   'fill',
 ] as const;
 export type HitSource = (typeof HIT_SOURCES)[number];

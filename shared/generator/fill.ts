@@ -2,7 +2,7 @@ import { isHandVoice, VOICE_IDS, type VoiceId } from './drill';
 import type { Grid } from './grid';
 import type { Obligations } from './obligations';
 import type { Rng } from './random';
-import { fillHolesOwners, fillVoices } from './rules/fill-holes';
+import { embellishmentVoices, fillVoices } from './rules/fill-holes';
 import { overlapBudget } from './rules/linear';
 import { ostinatoPlaysAt } from './rules/ostinato';
 import type { RuleCard } from './schema';
@@ -38,8 +38,11 @@ export interface BarFill {
 }
 
 export function createFillContext(card: RuleCard, grid: Grid, ob: Obligations): FillContext {
-  const owners = fillHolesOwners(card);
+  const embellishing = embellishmentVoices(card);
   const voices = fillVoices(card);
+  const keptFree = new Set<number>();
+  for (const instants of ob.avoided.values())
+    for (const instant of instants.keys()) keptFree.add(instant);
   const options: VoiceId[][][] = [];
   for (let bar = 0; bar < grid.bars; bar++) {
     const perInstant: VoiceId[][] = [];
@@ -47,16 +50,15 @@ export function createFillContext(card: RuleCard, grid: Grid, ob: Obligations): 
       const instant = bar * grid.slotsPerBar + i;
       const cell = ob.cells[instant] ?? [];
       // A slot another rule has taken is not free; the ostinato alone leaves it free.
-      const free = cell.every((hit) => hit.source === 'ostinato');
+      const free = cell.every((hit) => hit.source === 'ostinato') && !ob.inFill[instant];
       const hole = !ostinatoPlaysAt(card, grid, instant);
       perInstant.push(
         !free
           ? []
-          : voices.filter(
-              (v) =>
-                (hole || !owners.has(v)) &&
-                !ob.avoided.get(v)?.has(instant) &&
-                !cell.some((hit) => hit.voice === v),
+          : voices.filter((v) =>
+              embellishing.has(v)
+                ? hole && !keptFree.has(instant) && !cell.some((hit) => hit.voice === v)
+                : !ob.avoided.get(v)?.has(instant) && !cell.some((hit) => hit.voice === v),
             ),
       );
     }

@@ -10,7 +10,7 @@ import { assertTensionReachable } from './tension-reach';
 import { collectObligations, type Obligations } from './obligations';
 import { createRng, type Rng } from './random';
 import { checkDrillWith } from './rules/checker';
-import { embellishmentDynamics, fillHolesOwners } from './rules/fill-holes';
+import { embellishmentDynamics, embellishmentVoices, fillHolesOwners } from './rules/fill-holes';
 import { rankOrderBreaks, tensionTargets } from './rules/tension';
 import type { RuleCard } from './schema';
 import { chooseFills, SEARCH_WORK_BUDGET, type SearchBudget } from './select';
@@ -112,9 +112,17 @@ function repairHands(card: RuleCard, grid: Grid, cells: WorkHit[][]): void {
   }
 }
 
-/** Marks each fillHoles rule's share of its embellishments ghost or accent, in time order. */
+/**
+ * Marks each fillHoles rule's share of its embellishments ghost or accent, in time order; other
+ * embellishment voices play ghost notes, anchors at normal strength.
+ */
 function markEmbellishments(card: RuleCard, cells: WorkHit[][], rng: Rng): void {
   const owners = fillHolesOwners(card);
+  const embellishing = embellishmentVoices(card);
+  for (const cell of cells)
+    for (const hit of cell)
+      if (hit.source === 'fill' && embellishing.has(hit.voice) && !owners.has(hit.voice))
+        hit.dynamic = 'ghost';
   card.rules.forEach((rule, index) => {
     if (rule.kind !== 'fillHoles') return;
     const mine = cells.flatMap((cell) =>

@@ -1,12 +1,14 @@
 import type { VoiceId } from './drill';
 import type { Grid } from './grid';
 import type { WorkHit } from './hands';
+import { colourCrashes, placeAnchors } from './rules/anchor';
 import { planAvoidDownbeat } from './rules/avoid-downbeat';
 import { placeBackbeat } from './rules/backbeat';
 import { placeEuclid } from './rules/euclid';
-import { placeOstinato } from './rules/ostinato';
+import { fillWindow, phraseOf, placePhrase } from './rules/phrase';
 import { SOURCE_RANK, type Placement } from './rules/placement';
 import { placePolyrhythm } from './rules/polyrhythm';
+import { placeTimeLayers } from './rules/time-layers';
 import type { RuleCard } from './schema';
 
 /** Everything the card's rules demand before any fill is chosen. */
@@ -17,11 +19,19 @@ export interface Obligations {
   readonly cells: WorkHit[][];
   /** Per voice: instants where an avoidDownbeat rule keeps it silent, with that rule's index. */
   readonly avoided: ReadonlyMap<VoiceId, ReadonlyMap<number, number>>;
+  /** Per instant: inside a phrase's fill, where no groove fill goes. */
+  readonly inFill: readonly boolean[];
 }
 
-/** Places every obligatory hit of the card and merges them by the contract's precedence. */
+/**
+ * Places every obligatory hit of the card and merges them by precedence: time layers, the
+ * rules, the phrase fill (on what the rules leave free), then the anchors (kick on one, colour
+ * crash) where nothing keeps them off.
+ */
 export function collectObligations(card: RuleCard, grid: Grid): Obligations {
-  const placements: Placement[] = placeOstinato(card, grid);
+  const inFill = fillWindow(card, grid);
+  const crashed = crashInstants(card, grid);
+  const placements: Placement[] = placeTimeLayers(card, grid, inFill, crashed);
   const avoided = new Map<VoiceId, Map<number, number>>();
   card.rules.forEach((rule, index) => {
     switch (rule.kind) {
@@ -47,13 +57,39 @@ export function collectObligations(card: RuleCard, grid: Grid): Obligations {
         break;
     }
   });
+  const ruled = new Set(placements.filter((p) => p.source !== 'ostinato').map((p) => p.instant));
+  placements.push(...placePhrase(card, grid, (instant) => ruled.has(instant)));
+  const cells = merge(placements, grid);
+  const anchors = placeAnchors(card, grid, cells, avoided);
+  placements.push(...anchors);
+  // A crash the hands could not reach leaves the time cymbal where it was.
+  const unplayed = [...crashed].filter((i) => !anchors.some((p) => p.instant === i));
+  if (unplayed.length > 0 && !phraseOf(card)) {
+    const back = placeTimeLayers(card, grid, inFill, new Set());
+    placements.push(...back.filter((p) => unplayed.includes(p.instant)));
+  }
   // Stable sort: precedence by source, then the card's rule order.
   placements.sort((a, b) => SOURCE_RANK[a.source] - SOURCE_RANK[b.source] || a.rule - b.rule);
+  return { placements, cells: merge(placements, grid), avoided, inFill };
+}
+
+/** Where a crash replaces the time cymbal: the colour crash and each phrase landing's. */
+function crashInstants(card: RuleCard, grid: Grid): Set<number> {
+  const crashes = colourCrashes(card);
+  const phrase = phraseOf(card);
+  if (phrase?.rule.crash && card.voices.includes('crash')) {
+    for (let bar = phrase.rule.every; bar <= grid.bars; bar += phrase.rule.every)
+      crashes.add((bar % grid.bars) * grid.slotsPerBar);
+  }
+  return crashes;
+}
+
+function merge(placements: readonly Placement[], grid: Grid): WorkHit[][] {
   const cells: WorkHit[][] = Array.from({ length: grid.instants }, () => []);
   for (const p of placements) {
     const cell = cells[p.instant];
     if (!cell || cell.some((hit) => hit.voice === p.voice)) continue;
     cell.push({ voice: p.voice, source: p.source, dynamic: p.dynamic, rule: p.rule, hand: null });
   }
-  return { placements, cells, avoided };
+  return cells;
 }

@@ -2,9 +2,15 @@ import { wrapInstant, type Grid } from '../grid';
 import type { AvoidDownbeatRule } from '../schema';
 import type { Placement } from './placement';
 
-/** Bars 1, 1+N, 1+2N, … resolve onto the downbeat; `resolveEvery: 0` never does. */
+/**
+ * Bars 1, 1+N, 1+2N, … resolve onto the downbeat (landing `end`: bars N, 2N, …, so the cycle
+ * ends on its landing); `resolveEvery: 0` never does.
+ */
 export function isResolutionBar(rule: AvoidDownbeatRule, bar: number): boolean {
-  return rule.resolveEvery > 0 && (bar - 1) % rule.resolveEvery === 0;
+  if (rule.resolveEvery <= 0) return false;
+  return rule.landing === 'end'
+    ? bar % rule.resolveEvery === 0
+    : (bar - 1) % rule.resolveEvery === 0;
 }
 
 export interface DownbeatPlan {

@@ -65,6 +65,8 @@ describe('backbeat', () => {
       rules: [
         { kind: 'backbeat', voice: 'kick', beats: [1, 3], shift: 3, dynamic: 'normal' },
         { kind: 'backbeat', voice: 'kick', beats: [2, 4], shift: 2, dynamic: 'normal' },
+        // The figure leaves the downbeat to the bass player: keep the kick's anchor off it.
+        { kind: 'avoidDownbeat', voice: 'kick' },
       ],
     });
     const drill = generateDrill(card, 'tumbao');

@@ -9,7 +9,7 @@ import { tensionUnits } from '../select';
 import { ENGINE_VERSION } from '../version';
 import { voiceWord } from '../words';
 import { describePart } from './describe';
-import { fillHolesOwners, fillVoices, shareCounts } from './fill-holes';
+import { embellishmentVoices, fillHolesOwners, fillVoices, shareCounts } from './fill-holes';
 import { overlapBudget } from './linear';
 import { ostinatoPlaysAt } from './ostinato';
 import { rankOrderBreaks, tensionTargets } from './tension';
@@ -174,6 +174,9 @@ function checkFill(
 ): void {
   const owners = fillHolesOwners(card);
   const allowed = new Set<VoiceId>(fillVoices(card));
+  const embellishing = embellishmentVoices(card);
+  const keptFree = new Set<number>();
+  for (const instants of ob.avoided.values()) for (const i of instants.keys()) keptFree.add(i);
   const perRule = new Map<number, DrillHit[]>();
   cells.forEach((present, instant) => {
     for (const l of present) {
@@ -182,24 +185,18 @@ function checkFill(
       if (!allowed.has(l.hit.voice))
         out.push({
           code: 'fill',
-          message: `The fill plays the ostinato's own voice.`,
+          message: `The fill plays the ${voiceWord(l.hit.voice)}, whose part is ${card.roles[l.hit.voice] === 'time' ? 'to keep time' : card.roles[l.hit.voice] === 'colour' ? 'colour on a phrase start' : 'a fixed line'}.`,
           ...where(l),
         });
-      if ((ob.cells[instant] ?? []).some((w) => w.source !== 'ostinato')) {
+      if ((ob.cells[instant] ?? []).some((w) => w.source !== 'ostinato') || ob.inFill[instant]) {
         out.push({
           code: 'fill',
           message: 'The fill takes a slot that a rule already holds.',
           ...where(l),
         });
       }
+      if (embellishing.has(l.hit.voice)) checkEmbellishment(card, grid, l, keptFree, out);
       if (owner === undefined) continue;
-      if (ostinatoPlaysAt(card, grid, instant)) {
-        out.push({
-          code: 'fillHoles',
-          message: `A ${voiceWord(l.hit.voice)} embellishment lands where the ostinato plays.`,
-          ...where(l),
-        });
-      }
       const mine = perRule.get(owner) ?? [];
       mine.push(l.hit);
       perRule.set(owner, mine);
@@ -218,6 +215,35 @@ function checkFill(
       });
     }
   });
+}
+
+/** An embellishment sits in a hole, off the downbeats kept free, ghosted unless a rule says. */
+function checkEmbellishment(
+  card: RuleCard,
+  grid: Grid,
+  l: Located,
+  keptFree: ReadonlySet<number>,
+  out: Violation[],
+): void {
+  const voice = voiceWord(l.hit.voice);
+  if (ostinatoPlaysAt(card, grid, l.instant))
+    out.push({
+      code: 'fillHoles',
+      message: `A ${voice} embellishment lands where the ostinato plays.`,
+      ...where(l),
+    });
+  if (keptFree.has(l.instant))
+    out.push({
+      code: 'fill',
+      message: `A ${voice} embellishment lands on a downbeat the card keeps free.`,
+      ...where(l),
+    });
+  if (!fillHolesOwners(card).has(l.hit.voice) && l.hit.dynamic !== 'ghost')
+    out.push({
+      code: 'fill',
+      message: `A ${voice} embellishment is not a ghost note.`,
+      ...where(l),
+    });
 }
 
 function checkLinear(

@@ -6,6 +6,11 @@ import { listWords, voiceWord } from '../words';
  * "the backbeat on 2 and 4". `rule` is the index in `card.rules`, -1 for the ostinato.
  */
 export function describePart(card: RuleCard, rule: number): string {
+  if (rule <= -10) {
+    const layer = card.layers[-10 - rule];
+    return layer ? `the ${voiceWord(layer.voice)} layer` : 'a time layer';
+  }
+  if (rule === -3) return 'the kick on one';
   if (rule < 0)
     return card.ostinato ? `the ${voiceWord(card.ostinato.voice)} ostinato` : 'the ostinato';
   const r = card.rules[rule];
@@ -39,5 +44,7 @@ export function describePart(card: RuleCard, rule: number): string {
 
 /** The kind names behind parts, for `RuleConflictError.rules`. */
 export function partKind(card: RuleCard, rule: number): string {
+  if (rule <= -10) return 'layers';
+  if (rule === -3) return 'anchor';
   return rule < 0 ? 'ostinato' : (card.rules[rule]?.kind ?? 'rule');
 }

@@ -1,6 +1,7 @@
 import type { Dynamic, VoiceId } from '../drill';
 import type { Rng } from '../random';
 import type { FillHolesRule, RuleCard } from '../schema';
+import { lineVoices } from './anchor';
 
 /**
  * Which fillHoles rule governs each voice's embellishments (the first rule that lists it).
@@ -16,11 +17,25 @@ export function fillHolesOwners(card: RuleCard): Map<VoiceId, number> {
 }
 
 /**
- * Voices the density fill may use: every card voice except the ostinato's own (the time-keeper
- * stays steady).
+ * Voices the density fill may use: anchors and embellishments, never a time-keeper or a colour,
+ * and never a voice whose euclid or polyrhythm line would be blurred by extra notes.
  */
 export function fillVoices(card: RuleCard): VoiceId[] {
-  return card.voices.filter((voice) => voice !== card.ostinato?.voice);
+  const lines = lineVoices(card);
+  return card.voices.filter((voice) => {
+    const role = card.roles[voice];
+    return (role === 'anchor' || role === 'embellishment') && !lines.has(voice);
+  });
+}
+
+/**
+ * Voices filled as embellishments: ghosted by default, only in the holes of the ostinato, never
+ * on a downbeat the card keeps free. A voice a fillHoles rule lists is one, whatever its role.
+ */
+export function embellishmentVoices(card: RuleCard): Set<VoiceId> {
+  const out = new Set<VoiceId>(fillHolesOwners(card).keys());
+  for (const voice of card.voices) if (card.roles[voice] === 'embellishment') out.add(voice);
+  return out;
 }
 
 /**

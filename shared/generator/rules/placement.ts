@@ -17,7 +17,9 @@ export const SOURCE_RANK: Readonly<Record<HitSource, number>> = {
   ostinato: 0,
   backbeat: 1,
   avoidDownbeat: 2,
-  polyrhythm: 3,
-  euclid: 4,
-  fill: 5,
+  phrase: 3,
+  polyrhythm: 4,
+  euclid: 5,
+  anchor: 6,
+  fill: 7,
 };
