@@ -1,0 +1,56 @@
+import type { DrillBar } from '../drill';
+import { type BarGrid, metricalGrid } from './metrical-grid';
+import { type WitekStreams, gridWeights, witekOnWeights, witekStreams } from './witek';
+import { mostWitekOnWeights } from './witek-max';
+
+/** Measures bars of one grid with Witek's index; build it once per grid for many bars. */
+export interface WitekMeter {
+  readonly beats: BarGrid;
+  /** The greatest raw Witek index on this grid (the scale's 1). */
+  readonly most: number;
+  /** `measureWitek` for a bar on this meter's grid (throws if the bar's grid differs). */
+  measure(bar: DrillBar): number;
+  /** The scaled index of raw class streams by pulse (every layer the caller wants counted). */
+  measureStreams(streams: WitekStreams): number;
+}
+
+/**
+ * Builds the Witek meter of a bar grid: the metrical tree, its weights and the exact maximum are
+ * computed once, so each measure afterwards is one pass over the bar. The caller owns the meter;
+ * nothing is cached inside the engine. Mirrors `tensionMeter`.
+ */
+export function witekMeter(beats: BarGrid): WitekMeter {
+  const grid = metricalGrid(beats);
+  const weights = gridWeights(grid);
+  const { most } = mostWitekOnWeights(weights);
+  const scale = (value: number): number =>
+    most === 0 ? 0 : Math.round((value / most) * 10_000) / 10_000;
+  return {
+    beats,
+    most,
+    measure(bar) {
+      if (bar.beats.length !== beats.length || bar.beats.some((n, i) => n !== beats[i])) {
+        throw new RangeError(
+          `Bar ${bar.bar} is on grid [${bar.beats.join(', ')}], not [${beats.join(', ')}].`,
+        );
+      }
+      return scale(witekOnWeights(weights, witekStreams(bar, grid)));
+    },
+    measureStreams: (streams) => scale(witekOnWeights(weights, streams)),
+  };
+}
+
+/**
+ * A bar's polyphonic syncopation, 0..1: the index of M. A. G. Witek et al., "Syncopation,
+ * body-movement and pleasure in groove music", PLoS ONE 9(4): e94446, 2014 (see `witekOnWeights`
+ * for the reading of its rules), on every hit of the bar (the time-keeping layer included), divided
+ * by the greatest index any bar reaches on the same grid (exact, `mostWitekOnWeights`), rounded to
+ * 4 decimals. Measured on the bar alone, like `measureTension`; a grid on which nothing can
+ * syncopate measures 0.
+ *
+ * Not wired into the generator: the drill's tension stays `measureTension` unless a card chooses
+ * otherwise. Measuring many bars of one grid: use `witekMeter(beats)`, which gives the same values.
+ */
+export function measureWitek(bar: DrillBar): number {
+  return witekMeter(bar.beats).measure(bar);
+}
