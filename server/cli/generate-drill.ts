@@ -14,6 +14,7 @@ import {
   parseRuleCard,
   RuleCardError,
   RuleConflictError,
+  SearchExhaustedError,
 } from '../../shared/generator/index';
 import { BUILT_IN_PRESETS, findBuiltInPreset } from '../../shared/generator/presets/index';
 
@@ -81,7 +82,11 @@ export function main(argv: readonly string[]): number {
     process.stdout.write(`${JSON.stringify(drill, null, values.compact ? undefined : 2)}\n`);
     return 0;
   } catch (error) {
-    if (error instanceof RuleCardError || error instanceof RuleConflictError) {
+    if (
+      error instanceof RuleCardError ||
+      error instanceof RuleConflictError ||
+      error instanceof SearchExhaustedError
+    ) {
       process.stderr.write(`${error.message}\n`);
       return 1;
     }

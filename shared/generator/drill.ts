@@ -79,5 +79,10 @@ export interface Drill {
   readonly seed: string;
   /** The normalised rule card (every default filled in). */
   readonly card: RuleCard;
+  /**
+   * The calmest and the tensest bar tension this card allows (exact, on the same 0..1 scale as
+   * each bar's `tension`): a tension target t aims at least + t × (most − least).
+   */
+  readonly tensionReach: { readonly least: number; readonly most: number };
   readonly bars: readonly DrillBar[];
 }

@@ -42,3 +42,19 @@ export class RuleConflictError extends Error {
     this.rules = rules;
   }
 }
+
+/**
+ * The generator's search spent its work budget before it found a drill for this seed. Not a
+ * verdict on the card (impossible cards are refused with a RuleConflictError, by proof): another
+ * seed may well succeed.
+ */
+export class SearchExhaustedError extends Error {
+  override readonly name = 'SearchExhaustedError';
+  readonly code = 'search_exhausted';
+
+  constructor() {
+    super(
+      'The generator gave up on this seed before it found a drill: its search has a fixed budget of work. The card itself may well be fine: try another seed.',
+    );
+  }
+}

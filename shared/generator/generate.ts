@@ -1,12 +1,12 @@
 import { canonicalCard } from './canonical';
 import { assertNoObligationConflicts } from './conflicts';
 import { isHandVoice, type Drill, type DrillBar, type DrillHit } from './drill';
-import { RuleConflictError } from './errors';
-import { createFillContext, type BarFill } from './fill';
+import { RuleConflictError, SearchExhaustedError } from './errors';
+import { createFillContext, type BarFill, type FillContext } from './fill';
 import { beatsOf, createGrid, type Grid } from './grid';
 import { assignHandsRepairing, type WorkHit } from './hands';
 import { createTensionGauge, type TensionGauge } from './tension-gauge';
-import { assertTensionReachable } from './tension-reach';
+import { assertTensionReachable, cardReach } from './tension-reach';
 import { collectObligations, type Obligations } from './obligations';
 import { createRng, type Rng } from './random';
 import { checkDrillWith } from './rules/checker';
@@ -30,8 +30,11 @@ export function generateDrill(input: RuleCard, seed: string): Drill {
   assertNoObligationConflicts(card, grid, ob);
   const rng = createRng(seed);
   const gauge = createTensionGauge(grid.beats);
-  const bars = fillAndStick(card, grid, ob, rng, gauge);
-  const drill: Drill = { engine: ENGINE_VERSION, seed, card, bars };
+  const ctx = createFillContext(card, grid, ob);
+  const reach = cardReach(ctx, gauge);
+  const bars = fillAndStick(ctx, rng, gauge, reach);
+  const tensionReach = { least: gauge.scale(reach.least), most: gauge.scale(reach.most) };
+  const drill: Drill = { engine: ENGINE_VERSION, seed, card, tensionReach, bars };
   const violations = checkDrillWith(card, drill, gauge.ofBar, { grid, ob });
   if (violations.length > 0) {
     // Reaching this is an engine bug, not a card problem: say so plainly.
@@ -44,18 +47,20 @@ export function generateDrill(input: RuleCard, seed: string): Drill {
 const MAX_STICKING_ATTEMPTS = 4;
 
 function fillAndStick(
-  card: RuleCard,
-  grid: Grid,
-  ob: Obligations,
+  ctx: FillContext,
   rng: Rng,
   gauge: TensionGauge,
+  reach: { least: number; most: number },
 ): DrillBar[] {
-  const ctx = createFillContext(card, grid, ob);
+  const { card, grid, ob } = ctx;
   const targets = tensionTargets(card, grid.bars);
   if (targets) assertTensionReachable(ctx, targets, gauge);
+  // A target reads on what this card can reach: 0 its calmest bar, 1 its tensest.
+  const goals =
+    targets?.map((t) => gauge.unitsOfRaw(reach.least + t * (reach.most - reach.least))) ?? null;
   const budget: SearchBudget = { left: SEARCH_WORK_BUDGET };
   for (let attempt = 0; attempt < MAX_STICKING_ATTEMPTS; attempt++) {
-    const cells = mergeCells(grid, ob, chooseFills(ctx, rng, targets, gauge, budget));
+    const cells = mergeCells(grid, ob, chooseFills(ctx, rng, targets, gauge, budget, goals));
     repairHands(card, grid, cells);
     markEmbellishments(card, cells, rng);
     const bars = buildBars(grid, cells, gauge);
@@ -64,10 +69,8 @@ function fillAndStick(
     // A spent search budget would only repeat the failed attempt's luck at full cost.
     if (budget.left <= 0) break;
   }
-  throw new RuleConflictError(
-    `At ${card.tempo} beats per minute the hands cannot play enough of the fill for the tension rule's curve: slow the tempo, raise the density or flatten the curve.`,
-    ['tension', 'hands'],
-  );
+  // Not proven impossible: the hands dropped strokes the search had counted on.
+  throw new SearchExhaustedError();
 }
 
 function mergeCells(grid: Grid, ob: Obligations, fills: readonly BarFill[]): WorkHit[][] {

@@ -10,7 +10,12 @@ export { generateDrill } from './generate';
 export { checkDrill, type Violation } from './rules/checker';
 export { measureTension } from './tension';
 export { ENGINE_VERSION } from './version';
-export { RuleCardError, RuleConflictError, type RuleCardIssue } from './errors';
+export {
+  RuleCardError,
+  RuleConflictError,
+  SearchExhaustedError,
+  type RuleCardIssue,
+} from './errors';
 export { MAX_HAND_NOTES_PER_SECOND } from './hands';
 export {
   VOICE_IDS,
@@ -39,4 +44,11 @@ export {
   type TensionRule,
   type Ostinato,
   type Meter,
+  type PhraseRule,
+  type Layer,
+  type Sticking,
+  type Swing,
+  type VoiceRole,
+  VOICE_ROLES,
 } from './schema';
+export { defaultGrouping, isCompound } from './meter';

@@ -1,10 +1,10 @@
-import { RuleConflictError } from './errors';
-import { initialFill, variantOf, type BarFill, type FillContext } from './fill';
+import { SearchExhaustedError } from './errors';
+import { emptyFill, initialFill, variantOf, type BarFill, type FillContext } from './fill';
 import type { TensionGauge } from './tension-gauge';
 import type { Rng } from './random';
 import { tensionLevels } from './rules/tension';
 
-/** Rounds of neighbour search before a tension curve is declared out of reach. */
+/** Rounds of neighbour search after which the closest order found so far is kept. */
 const MAX_ROUNDS = 64;
 
 /**
@@ -34,8 +34,11 @@ interface Candidate {
 
 /**
  * Fills every bar, then (with a tension rule) searches neighbouring fills (moves, additions,
- * removals) until one fill per bar keeps the curve's rank order. Bounded: throws a
- * RuleConflictError when MAX_ROUNDS pass, or the work budget runs out, without success.
+ * removals) for one fill per bar that keeps the curve's rank order and comes as close as it can
+ * to each bar's goal (the target placed on the card's reachable range, in measure units).
+ * Bounded by its work budget only; when the budget runs out before any order was found it
+ * throws a SearchExhaustedError, which says the search gave up, never that the card is wrong
+ * (impossible cards are refused earlier, by proof).
  */
 export function chooseFills(
   ctx: FillContext,
@@ -43,39 +46,79 @@ export function chooseFills(
   targets: readonly number[] | null,
   gauge: TensionGauge,
   budget: SearchBudget,
+  goals: readonly number[] | null,
 ): BarFill[] {
   const lean = (bar: number): number => (targets ? (targets[bar] ?? 0.5) : 0.5);
   const base = Array.from({ length: ctx.grid.bars }, (_, bar) =>
     initialFill(ctx, bar, rng, lean(bar)),
   );
-  if (!targets) return base;
+  if (!targets || !goals) return base;
   const levels = tensionLevels(targets);
-  if (levels.length <= 1) return base;
   const meter = candidateMeter(ctx, gauge);
   const measure = (fill: BarFill): Candidate => {
     budget.left -= ctx.grid.slotsPerBar;
     return meter(fill);
   };
+  // The bare bar (obligations only) is always playable: every search starts with a way down.
   const candidates: Candidate[][] = base.map((fill) => [measure(fill)]);
-  for (let round = 0; round <= MAX_ROUNDS; round++) {
-    const picks = pickInOrder(levels, candidates, targets);
-    if (picks) return picks.map((k, bar) => (candidates[bar]?.[k] as Candidate).fill);
-    if (round === MAX_ROUNDS || budget.left <= 0) break;
-    // Widen the choice of the bars that block an order: a step up from the most tense fill of
-    // a bar that cannot clear the level below, a step down from the calmest fill of each bar
-    // that set a floor under it, and a wander for each.
-    for (const [bar, direction] of blockers(levels, candidates)) {
+  candidates.forEach((cands, bar) => keepNew(cands, measure(emptyFill(ctx, bar))));
+  let best: { picks: number[]; miss: number } | null = null;
+  for (let round = 0; ; round++) {
+    const picks = pickInOrder(levels, candidates, goals);
+    if (picks) {
+      const miss = missOf(picks, candidates, goals);
+      if (!best || miss < best.miss) best = { picks, miss };
+      if (miss <= goalTolerance(goals.length) || round >= MAX_ROUNDS) break;
+    } else if (round >= MAX_ROUNDS && best) {
+      break;
+    }
+    if (budget.left <= 0) break;
+    const moves = picks ? aims(picks, candidates, goals) : blockers(levels, candidates);
+    if (moves.size === 0) break;
+    for (const [bar, direction] of moves) {
       const cands = candidates[bar];
       if (!cands) continue;
-      keepNew(
-        cands,
-        measure(variantOf(ctx, extreme(cands, direction), rng, direction > 0 ? 1 : 0)),
-      );
+      const from = picks ? (cands[picks[bar] ?? 0] as Candidate).fill : extreme(cands, direction);
+      keepNew(cands, measure(variantOf(ctx, from, rng, direction > 0 ? 1 : 0)));
       const any = cands[rng.int(cands.length)] ?? (cands[0] as Candidate);
       keepNew(cands, measure(variantOf(ctx, any.fill, rng, lean(bar))));
     }
   }
-  throw tensionConflict(ctx, targets);
+  if (!best) throw new SearchExhaustedError();
+  const picks = best.picks;
+  return picks.map((k, bar) => (candidates[bar]?.[k] as Candidate).fill);
+}
+
+/**
+ * Sum of the picked bars' distances from their goals, in measure units; the search stops once
+ * the bars are on average within a few hundredths of their goals.
+ */
+function missOf(
+  picks: readonly number[],
+  candidates: readonly Candidate[][],
+  goals: readonly number[],
+): number {
+  let miss = 0;
+  picks.forEach((k, bar) => {
+    miss += Math.abs((candidates[bar]?.[k]?.units ?? 0) - (goals[bar] ?? 0));
+  });
+  return miss;
+}
+
+const goalTolerance = (bars: number): number => bars * 300;
+
+/** Bars whose pick is off its goal by more than the tolerance, and the way they should move. */
+function aims(
+  picks: readonly number[],
+  candidates: readonly Candidate[][],
+  goals: readonly number[],
+): Map<number, 1 | -1> {
+  const moves = new Map<number, 1 | -1>();
+  picks.forEach((k, bar) => {
+    const off = (candidates[bar]?.[k]?.units ?? 0) - (goals[bar] ?? 0);
+    if (Math.abs(off) > 300) moves.set(bar, off < 0 ? 1 : -1);
+  });
+  return moves;
 }
 
 /** Measures a candidate fill: its bar's onsets (obligations plus fill, ostinato left out). */
@@ -159,7 +202,7 @@ function extreme(cands: readonly Candidate[], sign: 1 | -1): BarFill {
 function pickInOrder(
   levels: readonly number[][],
   candidates: readonly Candidate[][],
-  targets: readonly number[],
+  goals: readonly number[],
 ): number[] | null {
   const caps: number[] = new Array<number>(levels.length).fill(Number.POSITIVE_INFINITY);
   for (let k = levels.length - 2; k >= 0; k--) {
@@ -173,12 +216,12 @@ function pickInOrder(
     if (!Number.isFinite(room)) return null;
     caps[k] = room - 1;
   }
-  const picks: number[] = new Array<number>(targets.length).fill(0);
+  const picks: number[] = new Array<number>(goals.length).fill(0);
   let floor = Number.NEGATIVE_INFINITY;
   for (let k = 0; k < levels.length; k++) {
     let top = Number.NEGATIVE_INFINITY;
     for (const bar of levels[k] ?? []) {
-      const goal = tensionUnits(targets[bar] ?? 0);
+      const goal = goals[bar] ?? 0;
       let pick = -1;
       let pickDistance = Number.POSITIVE_INFINITY;
       (candidates[bar] ?? []).forEach((c, index) => {
@@ -196,16 +239,4 @@ function pickInOrder(
     floor = top;
   }
   return picks;
-}
-
-function tensionConflict(ctx: FillContext, targets: readonly number[]): RuleConflictError {
-  const levels = tensionLevels(targets);
-  const low = (levels[0] ?? [0])[0] ?? 0;
-  const high = (levels[levels.length - 1] ?? [0])[0] ?? 0;
-  const hasLinear = ctx.card.rules.some((r) => r.kind === 'linear');
-  const rules = ['tension', 'density', ...(hasLinear ? ['linear'] : [])];
-  return new RuleConflictError(
-    `The tension rule asks bar ${high + 1} to be more tense than bar ${low + 1} (targets ${targets[high]} and ${targets[low]}), but with a density of ${ctx.card.density}${hasLinear ? ', the linear rule' : ''} and the other rules there are not enough free slots to make the bars differ in that order: raise the density, free some slots or flatten the curve.`,
-    rules,
-  );
 }

@@ -8,6 +8,10 @@ export interface TensionGauge {
   readonly most: number;
   /** Tension in ten-thousandths from the bar's onset stream (ostinato left out). */
   units(onsets: readonly boolean[]): number;
+  /** A raw syncopation value in ten-thousandths of the scale. */
+  unitsOfRaw(raw: number): number;
+  /** A raw syncopation value on the 0..1 scale, 4 decimals. */
+  scale(raw: number): number;
   /** Same value as `measureTension(bar)`, for a bar on this gauge's grid. */
   ofBar(bar: DrillBar): number;
   /**
@@ -28,9 +32,12 @@ export function createTensionGauge(beats: readonly number[]): TensionGauge {
   const most = maxLhlOnGrid(tree);
   const units = (onsets: readonly boolean[]): number =>
     most === 0 ? 0 : Math.round((lhlOnGrid(tree, onsets) / most) * 10_000);
+  const unitsOfRaw = (raw: number): number => (most === 0 ? 0 : Math.round((raw / most) * 10_000));
   return {
     most,
     units,
+    unitsOfRaw,
+    scale: (raw) => unitsOfRaw(raw) / 10_000,
     ofBar: (bar) => units(barOnsets(bar, tree)) / 10_000,
     reach: (forced, allowed) => lhlRangeOnGrid(tree, forced, allowed),
   };

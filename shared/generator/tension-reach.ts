@@ -56,6 +56,18 @@ export function assertTensionReachable(
   }
 }
 
+/**
+ * The least and greatest raw syncopation any bar of this card can measure: the scale a tension
+ * target is read on (0 = the calmest bar the card allows, 1 = the tensest).
+ */
+export function cardReach(ctx: FillContext, gauge: TensionGauge): BarReach {
+  const reach = barReaches(ctx, gauge);
+  return {
+    least: Math.min(...reach.map((r) => r.least)),
+    most: Math.max(...reach.map((r) => r.most)),
+  };
+}
+
 /** Per bar, the syncopation range its fills can reach; bars alike in slots are worked out once. */
 function barReaches(ctx: FillContext, gauge: TensionGauge): BarReach[] {
   const { grid, ob } = ctx;

@@ -1,6 +1,7 @@
 import {
   RuleCardError,
   RuleConflictError,
+  SearchExhaustedError,
   generateDrill,
   parseRuleCard,
   type Drill,
@@ -23,8 +24,11 @@ export function generateFromCard(card: unknown, seed: string): DrillResult {
       return {
         status: 'error',
         heading: 'These rules cannot all hold at once',
-        message: `${error.message} Relax one of them on the rule card, or try another seed.`,
+        message: `${error.message} Relax one of them on the rule card.`,
       };
+    }
+    if (error instanceof SearchExhaustedError) {
+      return { status: 'error', heading: 'Try another seed', message: error.message };
     }
     return {
       status: 'error',
