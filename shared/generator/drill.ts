@@ -84,5 +84,7 @@ export interface Drill {
    * each bar's `tension`): a tension target t aims at least + t × (most − least).
    */
   readonly tensionReach: { readonly least: number; readonly most: number };
+  /** `single` when the card leaves no room to vary: every seed gives this same drill. */
+  readonly variety: 'single' | 'many';
   readonly bars: readonly DrillBar[];
 }

@@ -1,5 +1,6 @@
 import { isHandVoice, VOICE_IDS, type VoiceId } from './drill';
-import type { Grid } from './grid';
+import { ticksOf, type Grid } from './grid';
+import { handRested } from './hands';
 import type { Obligations } from './obligations';
 import type { Rng } from './random';
 import { embellishmentVoices, fillVoices } from './rules/fill-holes';
@@ -40,6 +41,7 @@ export interface BarFill {
 export function createFillContext(card: RuleCard, grid: Grid, ob: Obligations): FillContext {
   const embellishing = embellishmentVoices(card);
   const voices = fillVoices(card);
+  const busy = handsBusy(card, grid, ob);
   const keptFree = new Set<number>();
   for (const instants of ob.avoided.values())
     for (const instant of instants.keys()) keptFree.add(instant);
@@ -56,9 +58,11 @@ export function createFillContext(card: RuleCard, grid: Grid, ob: Obligations): 
         !free
           ? []
           : voices.filter((v) =>
-              embellishing.has(v)
-                ? hole && !keptFree.has(instant) && !cell.some((hit) => hit.voice === v)
-                : !ob.avoided.get(v)?.has(instant) && !cell.some((hit) => hit.voice === v),
+              isHandVoice(v) && busy[instant]
+                ? false
+                : embellishing.has(v)
+                  ? hole && !keptFree.has(instant) && !cell.some((hit) => hit.voice === v)
+                  : !ob.avoided.get(v)?.has(instant) && !cell.some((hit) => hit.voice === v),
             ),
       );
     }
@@ -71,6 +75,42 @@ export function createFillContext(card: RuleCard, grid: Grid, ob: Obligations): 
   });
   const weightsByLean = Array.from({ length: grid.bars }, () => new Map<number, number[]>());
   return { card, grid, ob, budget: overlapBudget(card), options, strength, weightsByLean };
+}
+
+/**
+ * Per instant: true where no hand can add a stroke, because two obligatory hand strokes too
+ * close to each other for one hand (so one on each hand) both lie within a hand's rest time of
+ * it (the drill looping round). A sound test, not a complete one: it keeps fills, and the
+ * tension search, off slots no sticking could play.
+ */
+function handsBusy(card: RuleCard, grid: Grid, ob: Obligations): boolean[] {
+  const busy = new Array<boolean>(grid.instants).fill(false);
+  const loop = grid.bars * grid.beatsPerBar * grid.ticksPerBeat;
+  const ticks: number[] = [];
+  ob.cells.forEach((cell, instant) => {
+    for (const hit of cell) if (isHandVoice(hit.voice)) ticks.push(ticksOf(grid, instant));
+  });
+  if (ticks.length < 2) return busy;
+  // Three laps, so the window of an instant near either end sees the strokes round the loop.
+  const laps = [...ticks.map((t) => t - loop), ...ticks, ...ticks.map((t) => t + loop)];
+  const tooClose = (d: number): boolean => !handRested(grid, card.tempo, d);
+  let from = 0;
+  for (let instant = 0; instant < grid.instants; instant++) {
+    const now = ticksOf(grid, instant);
+    while (from < laps.length && !tooClose(now - (laps[from] ?? 0)) && (laps[from] ?? 0) < now)
+      from++;
+    for (let k = from; k + 1 < laps.length; k++) {
+      const a = laps[k] ?? 0;
+      const b = laps[k + 1] ?? 0;
+      if (a > now && !tooClose(a - now)) break;
+      if (b > now && !tooClose(b - now)) break;
+      if (tooClose(b - a)) {
+        busy[instant] = true;
+        break;
+      }
+    }
+  }
+  return busy;
 }
 
 /** An empty fill for a bar: only its obligations counted. */

@@ -34,7 +34,8 @@ export function generateDrill(input: RuleCard, seed: string): Drill {
   const reach = cardReach(ctx, gauge);
   const bars = fillAndStick(ctx, rng, gauge, reach);
   const tensionReach = { least: gauge.scale(reach.least), most: gauge.scale(reach.most) };
-  const drill: Drill = { engine: ENGINE_VERSION, seed, card, tensionReach, bars };
+  const variety = allowsOneDrill(ctx) ? 'single' : 'many';
+  const drill: Drill = { engine: ENGINE_VERSION, seed, card, tensionReach, variety, bars };
   const violations = checkDrillWith(card, drill, gauge.ofBar, { grid, ob });
   if (violations.length > 0) {
     // Reaching this is an engine bug, not a card problem: say so plainly.
@@ -43,8 +44,25 @@ export function generateDrill(input: RuleCard, seed: string): Drill {
   return drill;
 }
 
-/** Fresh fills are tried when removing strokes the hands cannot play breaks the tension order. */
-const MAX_STICKING_ATTEMPTS = 4;
+/**
+ * True when every seed gives the same drill: no bar has a fill to choose (the density rounds to
+ * nothing, or to every free slot with one voice each) and nothing else is drawn (no tension
+ * search, no ghost/accent shares to arrange).
+ */
+function allowsOneDrill(ctx: FillContext): boolean {
+  const { card, grid } = ctx;
+  if (card.rules.some((r) => r.kind === 'tension')) return false;
+  if (card.rules.some((r) => r.kind === 'fillHoles' && r.ghost > 0 && r.ghost + r.accent < 1))
+    return false;
+  for (let bar = 0; bar < grid.bars; bar++) {
+    const options = (ctx.options[bar] ?? []).filter((voices) => voices.length > 0);
+    const count = Math.round(card.density * options.length);
+    if (count === 0) continue;
+    if (count < options.length || options.some((voices) => voices.length > 1)) return false;
+  }
+  return true;
+}
+
 
 function fillAndStick(
   ctx: FillContext,
@@ -59,7 +77,9 @@ function fillAndStick(
   const goals =
     targets?.map((t) => gauge.unitsOfRaw(reach.least + t * (reach.most - reach.least))) ?? null;
   const budget: SearchBudget = { left: SEARCH_WORK_BUDGET };
-  for (let attempt = 0; attempt < MAX_STICKING_ATTEMPTS; attempt++) {
+  // Fresh fills are tried, while the work budget lasts, when removing strokes the hands cannot
+  // play breaks the tension order.
+  for (;;) {
     const cells = mergeCells(grid, ob, chooseFills(ctx, rng, targets, gauge, budget, goals));
     repairHands(card, grid, cells);
     markEmbellishments(card, cells, rng);

@@ -10,6 +10,12 @@ import quintupletsHihat135 from './quintuplets-hihat-1-3-5.json' with { type: 'j
 import rideWithFootOn2And4 from './ride-with-foot-on-2-and-4.json' with { type: 'json' };
 import shuffleKickUpbeats from './shuffle-kick-upbeats.json' with { type: 'json' };
 import tensionAndRelease from './tension-and-release.json' with { type: 'json' };
+import lateBackbeat from './late-backbeat.json' with { type: 'json' };
+import threeOffLandOnFour from './three-off-land-on-four.json' with { type: 'json' };
+import sixEightGroove from './six-eight-groove.json' with { type: 'json' };
+import twelveEightShuffle from './twelve-eight-shuffle.json' with { type: 'json' };
+import sevenEightTwoTwoThree from './seven-eight-two-two-three.json' with { type: 'json' };
+import grooveAndFill from './groove-and-fill.json' with { type: 'json' };
 
 /**
  * A rule card that ships with Tensile. `card` is the raw card as a teacher would write it; pass it
@@ -25,7 +31,9 @@ export interface BuiltInPreset {
 /** The built-in rule cards, in the order a lesson plan might take them. */
 export const BUILT_IN_PRESETS: readonly BuiltInPreset[] = [
   kickOffTheOne,
+  threeOffLandOnFour,
   earlyBackbeat,
+  lateBackbeat,
   lateBackbeatOverTheBarLine,
   rideWithFootOn2And4,
   linearSixteenths,
@@ -36,6 +44,10 @@ export const BUILT_IN_PRESETS: readonly BuiltInPreset[] = [
   quintupletsHihat134,
   euclideanFiveInSixteen,
   tensionAndRelease,
+  grooveAndFill,
+  sixEightGroove,
+  twelveEightShuffle,
+  sevenEightTwoTwoThree,
 ];
 
 /** The built-in preset with this id, or undefined. */

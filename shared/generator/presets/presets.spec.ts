@@ -72,7 +72,9 @@ describe('the facts each preset names', () => {
   it('ride-with-foot-on-2-and-4: ride eighths, hi-hat foot with the snare on 2 and 4', () => {
     everyBar('ride-with-foot-on-2-and-4', (bar) => {
       expect(spots(bar, 'ride')).toEqual(['1:0', '1:2', '2:0', '2:2', '3:0', '3:2', '4:0', '4:2']);
-      expect(spots(bar, 'hihatFoot', 'backbeat')).toEqual(['2:0', '4:0']);
+      // The foot keeps time as a layer: 2 and 4 and nothing else.
+      expect(spots(bar, 'hihatFoot')).toEqual(['2:0', '4:0']);
+      expect(spots(bar, 'hihatFoot', 'ostinato')).toEqual(['2:0', '4:0']);
       expect(spots(bar, 'snare', 'backbeat')).toEqual(['2:0', '4:0']);
     });
   });
@@ -106,12 +108,17 @@ describe('the facts each preset names', () => {
   // Derived arithmetic (common practice for 4:3): four even notes over three beats fall at
   // i × 3/4 beats, i.e. pulses 0, 3, 6, 9 of a 12-sixteenth bar, the 4-stream of the 3:4 grid on
   // lcm(3, 4) = 12 pulses.
-  it('four-over-three: kick and snare alternate on pulses 0, 3, 6 and 9 of the 3/4 bar', () => {
+  // 4:3 on 12 pulses: the four-stream on pulses 0, 3, 6 and 9 (the lcm grid, derived).
+  it('four-over-three: the kick plays pulses 0, 3, 6 and 9 of the 3/4 bar and nothing else', () => {
     everyBar('four-over-three', (bar) => {
       expect(bar.beats).toEqual([4, 4, 4]);
       const stream = bar.hits.filter((h) => h.source === 'polyrhythm');
       expect(stream.map((h) => (h.beat - 1) * 4 + h.slot)).toEqual([0, 3, 6, 9]);
-      expect(stream.map((h) => h.voice)).toEqual(['kick', 'snare', 'kick', 'snare']);
+      expect(stream.every((h) => h.voice === 'kick')).toBe(true);
+      expect(spots(bar, 'kick')).toEqual(['1:0', '1:3', '2:2', '3:1']);
+      expect(bar.hits.filter((h) => h.voice === 'snare').every((h) => h.dynamic === 'ghost')).toBe(
+        true,
+      );
     });
   });
 

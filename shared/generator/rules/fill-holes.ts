@@ -22,11 +22,16 @@ export function fillHolesOwners(card: RuleCard): Map<VoiceId, number> {
  */
 export function fillVoices(card: RuleCard): VoiceId[] {
   const lines = lineVoices(card);
+  const named = fillHolesOwners(card);
   return card.voices.filter((voice) => {
     const role = card.roles[voice];
+    // Toms colour a groove only when a fillHoles rule asks for them (common practice).
+    if (TOMS.has(voice) && !named.has(voice)) return false;
     return (role === 'anchor' || role === 'embellishment') && !lines.has(voice);
   });
 }
+
+const TOMS: ReadonlySet<VoiceId> = new Set<VoiceId>(['tomHigh', 'tomMid', 'tomFloor']);
 
 /**
  * Voices filled as embellishments: ghosted by default, only in the holes of the ostinato, never
