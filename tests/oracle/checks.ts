@@ -402,9 +402,10 @@ export function checkDrill(plan: Plan, drill: DrillLike): Violation[] {
  * An anchor voice plays beat 1 of every bar unless an avoidDownbeat rule keeps it off, the linear
  * budget forbids it, or a euclid/polyrhythm rule plays the voice (docs/engine.md, "Voice roles").
  *
- * The linear budget forbids the anchor only when the notes the card's rules place (fills aside:
- * they rank below the anchor) already use the bar's whole budget elsewhere and a note of another
- * limb stands on the downbeat, so the anchor would add one more overlap.
+ * The linear budget forbids the anchor only when the notes the card places (fills aside: they
+ * rank below the anchor; other anchors and colour count) already use the bar's whole budget
+ * elsewhere and a note of another limb stands on the downbeat, so the anchor would add one more
+ * overlap.
  */
 function checkAnchors(
   plan: Plan,
@@ -422,9 +423,7 @@ function checkAnchors(
       if (byKey.has(key(voice, down))) continue;
       if (plan.silent.some((s) => s.voice === voice && s.index === down)) continue;
       const placedByRules = (i: number): readonly Placed[] =>
-        (byIndex.get(i) ?? []).filter(
-          (h) => h.voice !== voice && h.source !== 'fill' && h.source !== 'anchor',
-        );
+        (byIndex.get(i) ?? []).filter((h) => h.voice !== voice && h.source !== 'fill');
       const others = placedByRules(down);
       let overlapsElsewhere = 0;
       for (let i = grid.downbeat(bar) + 1; i < grid.downbeat(bar) + grid.slotsPerBar; i++)
