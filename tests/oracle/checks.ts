@@ -1,0 +1,536 @@
+/**
+ * The oracle's checks of one drill against its card. Each check has a name; a finished drill
+ * must give no violation of any of them. The only exceptions to "the ostinato (and every layer)
+ * plays its slots in every beat of every bar" are the two that docs/engine.md allows: in a phrase's
+ * fill window the time layers of hand voices rest, and a phrase's landing crash replaces the time
+ * cymbal on its instant (see `rests` in plan.ts).
+ */
+import { isHand, rulesOf, FAR_SIDE_FOR_LEFT_HAND, type OracleCard, type Voice } from './card';
+import { key, PRECEDENCE, type Plan, type Source } from './plan';
+
+export interface HitLike {
+  readonly beat: number;
+  readonly slot: number;
+  readonly voice: string;
+  readonly dynamic: string;
+  readonly hand: string | null;
+  readonly source: string;
+}
+
+export interface BarLike {
+  readonly bar: number;
+  readonly beats: readonly number[];
+  readonly tension: number;
+  readonly hits: readonly HitLike[];
+}
+
+export interface DrillLike {
+  readonly engine: string;
+  readonly seed: string;
+  readonly card: unknown;
+  readonly bars: readonly BarLike[];
+}
+
+/** Every check of a drill, by name. */
+export const DRILL_CHECKS = [
+  'shape/bars',
+  'shape/beats',
+  'shape/range',
+  'shape/order',
+  'shape/one-note-per-voice',
+  'shape/sources',
+  'shape/hands',
+  'shape/one-voice-per-hand',
+  'shape/at-most-two-hands',
+  'card/grid',
+  'card/normalised',
+  'ostinato',
+  'layers',
+  'ostinato/rests',
+  'source/explained',
+  'source/precedence',
+  'backbeat',
+  'avoidDownbeat/silent',
+  'avoidDownbeat/resolve',
+  'avoidDownbeat/anticipate',
+  'polyrhythm',
+  'euclid',
+  'linear',
+  'fillHoles',
+  'roles/no-fill-in-time-or-colour',
+  'roles/colour-on-landings-only',
+  'roles/no-embellishment-on-free-downbeat',
+  'roles/embellishment-in-holes',
+  'roles/embellishment-dynamics',
+  'roles/anchor-on-one',
+  'roles/clean-figure',
+  'phrase/window',
+  'phrase/fill-played',
+  'phrase/alternating',
+  'phrase/landing-kick',
+  'phrase/landing-crash',
+  'tension/rank-order',
+] as const;
+
+/** The issue's checks for built-in presets, on top of the drill checks. */
+export const PRESET_CHECKS = [
+  'preset/kick-on-one-at-landings',
+  'preset/no-three-in-a-row',
+  'preset/no-hand-crossing',
+] as const;
+
+export type CheckName = (typeof DRILL_CHECKS)[number] | (typeof PRESET_CHECKS)[number];
+
+export interface Violation {
+  readonly check: CheckName;
+  readonly message: string;
+}
+
+interface Placed extends HitLike {
+  readonly bar: number;
+  readonly index: number;
+}
+
+/** Hits placed on the oracle's grid; hits off the grid are reported by shape/range and dropped. */
+function place(plan: Plan, drill: DrillLike, out: Violation[]): Placed[] {
+  const { grid, card } = plan;
+  const placed: Placed[] = [];
+  for (const bar of drill.bars) {
+    for (const hit of bar.hits) {
+      const inGrid =
+        Number.isInteger(bar.bar) &&
+        bar.bar >= 1 &&
+        bar.bar <= card.bars &&
+        Number.isInteger(hit.beat) &&
+        hit.beat >= 1 &&
+        hit.beat <= card.beatsPerBar &&
+        Number.isInteger(hit.slot) &&
+        hit.slot >= 0 &&
+        hit.slot < grid.slotsIn(hit.beat);
+      if (!inGrid) {
+        out.push({
+          check: 'shape/range',
+          message: `bar ${bar.bar}: ${hit.voice} at beat ${hit.beat} slot ${hit.slot} is off the grid`,
+        });
+        continue;
+      }
+      if (!card.voices.includes(hit.voice as Voice))
+        out.push({
+          check: 'shape/range',
+          message: `bar ${bar.bar}: voice ${hit.voice} is not on the card`,
+        });
+      placed.push({ ...hit, bar: bar.bar, index: grid.index(bar.bar, hit.beat, hit.slot) });
+    }
+  }
+  return placed;
+}
+
+const rank = (source: string): number => PRECEDENCE.indexOf(source as Source);
+
+/** Distinct limbs striking at one instant: each foot voice is its own foot, hands by `hand`. */
+function limbs(hits: readonly HitLike[]): number {
+  const set = new Set<string>();
+  for (const h of hits) set.add(isHand(h.voice) ? `hand:${h.hand ?? h.voice}` : `foot:${h.voice}`);
+  return set.size;
+}
+
+function groupBy<T>(items: readonly T[], by: (t: T) => number): Map<number, T[]> {
+  const map = new Map<number, T[]>();
+  for (const item of items) {
+    const k = by(item);
+    const list = map.get(k);
+    if (list) list.push(item);
+    else map.set(k, [item]);
+  }
+  return map;
+}
+
+/** Every violation of the drill checks. `normalised` compares the engine's echo of the card. */
+export function checkDrill(plan: Plan, drill: DrillLike): Violation[] {
+  const out: Violation[] = [];
+  const { grid, card } = plan;
+  const at = (index: number): string => grid.describe(index);
+
+  // ---- shape ----
+  if (drill.bars.length !== card.bars || drill.bars.some((b, i) => b.bar !== i + 1))
+    out.push({
+      check: 'shape/bars',
+      message: `bars numbered ${drill.bars.map((b) => b.bar).join(',')}, expected 1..${card.bars}`,
+    });
+  for (const bar of drill.bars) {
+    if (JSON.stringify(bar.beats) !== JSON.stringify(card.subs))
+      out.push({
+        check: 'shape/beats',
+        message: `bar ${bar.bar} has beats ${JSON.stringify(bar.beats)}, the card's subdivision gives ${JSON.stringify(card.subs)}`,
+      });
+    for (let i = 1; i < bar.hits.length; i++) {
+      const a = bar.hits[i - 1]!;
+      const b = bar.hits[i]!;
+      const ordered =
+        a.beat < b.beat ||
+        (a.beat === b.beat && (a.slot < b.slot || (a.slot === b.slot && a.voice <= b.voice)));
+      if (!ordered)
+        out.push({
+          check: 'shape/order',
+          message: `bar ${bar.bar}: ${a.voice} ${a.beat}.${a.slot} listed before ${b.voice} ${b.beat}.${b.slot}`,
+        });
+    }
+  }
+  const hits = place(plan, drill, out);
+  const byIndex = groupBy(hits, (h) => h.index);
+  const byKey = new Map<string, Placed>();
+  for (const h of hits) {
+    const k = key(h.voice, h.index);
+    if (byKey.has(k))
+      out.push({
+        check: 'shape/one-note-per-voice',
+        message: `${h.voice} twice at ${at(h.index)}`,
+      });
+    else byKey.set(k, h);
+    if (rank(h.source) < 0)
+      out.push({
+        check: 'shape/sources',
+        message: `unknown source "${h.source}" at ${at(h.index)}`,
+      });
+    const handOk = isHand(h.voice) ? h.hand === 'R' || h.hand === 'L' : h.hand === null;
+    if (!handOk)
+      out.push({
+        check: 'shape/hands',
+        message: `${h.voice} at ${at(h.index)} has hand ${JSON.stringify(h.hand)}`,
+      });
+  }
+  for (const [index, group] of byIndex) {
+    const hands = group.filter((h) => isHand(h.voice));
+    if (hands.length > 2)
+      out.push({
+        check: 'shape/at-most-two-hands',
+        message: `${hands.map((h) => h.voice).join(', ')} at once at ${at(index)}`,
+      });
+    for (const side of ['R', 'L'])
+      if (hands.filter((h) => h.hand === side).length > 1)
+        out.push({
+          check: 'shape/one-voice-per-hand',
+          message: `${hands
+            .filter((h) => h.hand === side)
+            .map((h) => h.voice)
+            .join(' and ')} both in hand ${side} at ${at(index)}`,
+        });
+  }
+
+  // ---- the card as the engine echoes it ----
+  for (const message of plan.offGrid) out.push({ check: 'card/grid', message });
+  out.push(...checkNormalised(card, drill.card));
+
+  // ---- every fixed note present ----
+  for (const want of plan.wants)
+    if (!byKey.has(key(want.voice, want.index)))
+      out.push({
+        check: want.check as CheckName,
+        message: `${want.voice} missing at ${at(want.index)} (${want.why})`,
+      });
+  for (const h of hits)
+    if (h.source === 'ostinato' && plan.rests.has(key(h.voice, h.index)))
+      out.push({
+        check: 'ostinato/rests',
+        message: `the ${h.voice} time layer plays at ${at(h.index)}, where docs/engine.md has it rest (phrase fill window or crash landing)`,
+      });
+  for (const s of plan.silent) {
+    const hit = byKey.get(key(s.voice, s.index));
+    if (hit)
+      out.push({
+        check: 'avoidDownbeat/silent',
+        message: `${s.voice} (source ${hit.source}) on the avoided downbeat ${at(s.index)} (${s.why})`,
+      });
+  }
+
+  // ---- every source explained, precedence kept ----
+  const phrase = rulesOf(card, 'phrase')[0];
+  for (const h of hits) {
+    const wanted = plan.wantedBy.get(key(h.voice, h.index)) ?? [];
+    const fixed = ['ostinato', 'backbeat', 'avoidDownbeat', 'polyrhythm', 'euclid'];
+    let explained = true;
+    if (fixed.includes(h.source)) explained = wanted.some((w) => w.part === h.source);
+    else if (h.source === 'phrase')
+      explained =
+        wanted.some((w) => w.part === 'phrase') ||
+        (plan.fillWindow.has(h.index) &&
+          isHand(h.voice) &&
+          phrase !== undefined &&
+          phrase.voices.includes(h.voice as Voice));
+    else if (h.source === 'anchor') {
+      const role = card.roles.get(h.voice as Voice);
+      explained = (role === 'anchor' || role === 'colour') && h.index === grid.downbeat(h.bar);
+    }
+    if (!explained)
+      out.push({
+        check: 'source/explained',
+        message: `${h.voice} at ${at(h.index)} has source ${h.source}, but no such part of the card places it there`,
+      });
+    const first = Math.min(PRECEDENCE.length, ...wanted.map((w) => rank(w.part)));
+    if (rank(h.source) >= 0 && first < rank(h.source))
+      out.push({
+        check: 'source/precedence',
+        message: `${h.voice} at ${at(h.index)} is named ${h.source}, but ${PRECEDENCE[first]} comes first and wants it`,
+      });
+  }
+
+  // ---- linear ----
+  const byBar = groupBy(hits, (h) => h.bar);
+  for (const rule of rulesOf(card, 'linear'))
+    for (const [bar, barHits] of byBar) {
+      const instants = [...groupBy(barHits, (h) => h.index)].filter(([, g]) => limbs(g) >= 2);
+      if (instants.length > rule.maxOverlaps)
+        out.push({
+          check: 'linear',
+          message: `bar ${bar}: ${instants.length} instants with two or more limbs (${instants
+            .map(([i]) => at(i))
+            .join('; ')}), linear allows ${rule.maxOverlaps}`,
+        });
+    }
+
+  // ---- fillHoles and roles ----
+  const ostinatoPlays = (index: number): boolean =>
+    card.ostinato !== null &&
+    (plan.wantedBy.get(key(card.ostinato.voice, index)) ?? []).some((w) => w.part === 'ostinato');
+  const fillHolesVoices = new Set(rulesOf(card, 'fillHoles').flatMap((r) => r.voices));
+  const accentAsked = new Set(
+    rulesOf(card, 'fillHoles')
+      .filter((r) => r.accent > 0)
+      .flatMap((r) => r.voices),
+  );
+  for (const h of hits) {
+    const role = card.roles.get(h.voice as Voice);
+    if (h.source === 'fill') {
+      if (fillHolesVoices.has(h.voice as Voice) && ostinatoPlays(h.index))
+        out.push({
+          check: 'fillHoles',
+          message: `fill ${h.voice} at ${at(h.index)}, where the ostinato plays`,
+        });
+      if (role === 'time' || role === 'colour')
+        out.push({
+          check: 'roles/no-fill-in-time-or-colour',
+          message: `fill ${h.voice} (role ${role}) at ${at(h.index)}`,
+        });
+      if (role === 'embellishment') {
+        if (plan.freeDownbeats.has(h.index))
+          out.push({
+            check: 'roles/no-embellishment-on-free-downbeat',
+            message: `fill ${h.voice} at ${at(h.index)}, a downbeat an avoidDownbeat rule keeps free`,
+          });
+        if (ostinatoPlays(h.index))
+          out.push({
+            check: 'roles/embellishment-in-holes',
+            message: `fill ${h.voice} at ${at(h.index)}, where the ostinato plays`,
+          });
+        const dynamicOk =
+          h.dynamic === 'accent'
+            ? accentAsked.has(h.voice as Voice)
+            : h.dynamic === 'ghost' || fillHolesVoices.has(h.voice as Voice);
+        if (!dynamicOk)
+          out.push({
+            check: 'roles/embellishment-dynamics',
+            message: `fill ${h.voice} at ${at(h.index)} is ${h.dynamic}; embellishments are ghost notes unless a fillHoles rule asks (accents only where it asks)`,
+          });
+      }
+    }
+    if (role === 'colour') {
+      const onLanding =
+        h.index === grid.downbeat(h.bar) && (h.bar === 1 || plan.landingBars.has(h.bar));
+      if (!onLanding)
+        out.push({
+          check: 'roles/colour-on-landings-only',
+          message: `${h.voice} (colour) at ${at(h.index)} (source ${h.source}); colour plays beat 1 of bar 1 and of phrase landings only`,
+        });
+    }
+    if (plan.figureVoices.has(h.voice as Voice) && (h.source === 'fill' || h.source === 'anchor'))
+      out.push({
+        check: 'roles/clean-figure',
+        message: `${h.voice} plays a euclid/polyrhythm figure but has a ${h.source} note at ${at(h.index)}`,
+      });
+  }
+  out.push(...checkAnchors(plan, byIndex, byKey));
+
+  // ---- phrase ----
+  if (phrase) {
+    for (const h of hits)
+      if (
+        h.source === 'phrase' &&
+        !(plan.wantedBy.get(key(h.voice, h.index)) ?? []).some((w) => w.part === 'phrase') &&
+        !plan.fillWindow.has(h.index)
+      )
+        out.push({
+          check: 'phrase/window',
+          message: `phrase note ${h.voice} at ${at(h.index)}, outside the fill window and the landing`,
+        });
+    for (const bar of plan.fillBars) {
+      const run = hits
+        .filter((h) => h.source === 'phrase' && h.bar === bar && plan.fillWindow.has(h.index))
+        .sort((a, b) => a.index - b.index || (a.hand ?? '').localeCompare(b.hand ?? ''));
+      if (run.length === 0)
+        out.push({
+          check: 'phrase/fill-played',
+          message: `bar ${bar} ends a ${phrase.every}-bar phrase but its last ${phrase.fillBeats} beat(s) hold no fill`,
+        });
+      if (!card.doubles)
+        for (let i = 1; i < run.length; i++)
+          if (run[i]!.hand === run[i - 1]!.hand)
+            out.push({
+              check: 'phrase/alternating',
+              message: `bar ${bar}: fill notes at ${at(run[i - 1]!.index)} and ${at(run[i]!.index)} both in hand ${run[i]!.hand} (runs alternate single strokes)`,
+            });
+    }
+  }
+
+  // ---- tension rank order (the drill's own stored values) ----
+  if (plan.targets)
+    for (let i = 0; i < drill.bars.length; i++)
+      for (let j = 0; j < drill.bars.length; j++) {
+        const ti = plan.targets[i];
+        const tj = plan.targets[j];
+        const a = drill.bars[i]!;
+        const b = drill.bars[j]!;
+        if (ti !== undefined && tj !== undefined && ti > tj && a.tension < b.tension)
+          out.push({
+            check: 'tension/rank-order',
+            message: `bar ${a.bar} (target ${ti}) measures ${a.tension}, below bar ${b.bar} (target ${tj}) at ${b.tension}`,
+          });
+      }
+  return out;
+}
+
+/**
+ * An anchor voice plays beat 1 of every bar unless an avoidDownbeat rule keeps it off, the linear
+ * budget forbids it, or a euclid/polyrhythm rule plays the voice (docs/engine.md, "Voice roles").
+ *
+ * The linear budget forbids the anchor only when the notes the card places (fills aside: they
+ * rank below the anchor; other anchors and colour count) already use the bar's whole budget
+ * elsewhere and a note of another limb stands on the downbeat, so the anchor would add one more
+ * overlap.
+ */
+function checkAnchors(
+  plan: Plan,
+  byIndex: ReadonlyMap<number, readonly Placed[]>,
+  byKey: ReadonlyMap<string, Placed>,
+): Violation[] {
+  const out: Violation[] = [];
+  const { grid, card } = plan;
+  const linear = rulesOf(card, 'linear');
+  const budget = linear.length ? Math.min(...linear.map((r) => r.maxOverlaps)) : Infinity;
+  for (const [voice, role] of card.roles) {
+    if (role !== 'anchor' || plan.figureVoices.has(voice)) continue;
+    for (let bar = 1; bar <= card.bars; bar++) {
+      const down = grid.downbeat(bar);
+      if (byKey.has(key(voice, down))) continue;
+      if (plan.silent.some((s) => s.voice === voice && s.index === down)) continue;
+      const placedByRules = (i: number): readonly Placed[] =>
+        (byIndex.get(i) ?? []).filter((h) => h.voice !== voice && h.source !== 'fill');
+      const others = placedByRules(down);
+      let overlapsElsewhere = 0;
+      for (let i = grid.downbeat(bar) + 1; i < grid.downbeat(bar) + grid.slotsPerBar; i++)
+        if (limbs(placedByRules(i)) >= 2) overlapsElsewhere += 1;
+      const forbidden = limbs(others) === 1 && overlapsElsewhere >= budget;
+      if (!forbidden)
+        out.push({
+          check: 'roles/anchor-on-one',
+          message: `${voice} (anchor) missing on beat 1 of bar ${bar}; no avoidDownbeat rule, linear budget or euclid/polyrhythm line keeps it off`,
+        });
+    }
+  }
+  return out;
+}
+
+/** The normalised card lists every voice's role and fills the documented rule defaults. */
+function checkNormalised(card: OracleCard, echoed: unknown): Violation[] {
+  const out: Violation[] = [];
+  const e = (echoed ?? {}) as { roles?: Record<string, string>; rules?: Record<string, unknown>[] };
+  for (const voice of card.voices) {
+    const got = e.roles?.[voice];
+    if (got !== card.roles.get(voice))
+      out.push({
+        check: 'card/normalised',
+        message: `the normalised card gives ${voice} the role ${String(got)}; docs/engine.md gives ${card.roles.get(voice)}`,
+      });
+  }
+  card.rules.forEach((rule, i) => {
+    const got = e.rules?.[i] ?? {};
+    const expect: Record<string, unknown> = {};
+    if (rule.kind === 'polyrhythm' || rule.kind === 'euclid') expect['span'] = rule.span;
+    if (rule.kind === 'avoidDownbeat') expect['landing'] = rule.landing;
+    if (rule.kind === 'phrase') {
+      expect['fillBeats'] = rule.fillBeats;
+      expect['voices'] = rule.voices;
+      expect['crash'] = rule.crash;
+    }
+    for (const [field, value] of Object.entries(expect))
+      if (JSON.stringify(got[field]) !== JSON.stringify(value))
+        out.push({
+          check: 'card/normalised',
+          message: `rule ${i + 1} (${rule.kind}) normalises ${field} to ${JSON.stringify(got[field])}; expected ${JSON.stringify(value)}`,
+        });
+  });
+  return out;
+}
+
+/** The issue's preset checks (on top of `checkDrill`). */
+export function checkPreset(plan: Plan, drill: DrillLike): Violation[] {
+  const out: Violation[] = [];
+  const { grid, card } = plan;
+  const hits: Placed[] = [];
+  for (const bar of drill.bars)
+    for (const h of bar.hits)
+      if (h.beat >= 1 && h.beat <= card.beatsPerBar && h.slot >= 0 && h.slot < grid.slotsIn(h.beat))
+        hits.push({ ...h, bar: bar.bar, index: grid.index(bar.bar, h.beat, h.slot) });
+  const byIndex = groupBy(hits, (h) => h.index);
+
+  // A kick on one in every landing bar: phrase landings and the resolution bars of kick
+  // avoidDownbeat rules.
+  if (card.voices.includes('kick')) {
+    const landings = new Set<number>([
+      ...plan.landingBars,
+      ...(plan.resolutionBars.get('kick') ?? []),
+    ]);
+    for (const bar of [...landings].sort((a, b) => a - b))
+      if (!(byIndex.get(grid.downbeat(bar)) ?? []).some((h) => h.voice === 'kick'))
+        out.push({
+          check: 'preset/kick-on-one-at-landings',
+          message: `no kick on beat 1 of bar ${bar}, a landing/resolution bar`,
+        });
+  }
+
+  // No hand plays three consecutive notes of the grid when the grid runs at least as fast as
+  // sixteenths at 120 BPM (8 notes a second: a slot lasts at most 1/8 s, i.e. tempo × slots ≥ 480
+  // a minute), unless the card asks for doubles. Issue 8, "Tests"; drills loop, so the check
+  // wraps from the last slot to the first.
+  if (!card.doubles) {
+    const fast = (i: number): boolean => grid.notesPerMinuteAt(i, card.tempo) >= 480;
+    const plays = (i: number, side: string): boolean =>
+      (byIndex.get(((i % grid.totalSlots) + grid.totalSlots) % grid.totalSlots) ?? []).some(
+        (h) => h.hand === side,
+      );
+    for (let i = 0; i < grid.totalSlots; i++)
+      for (const side of ['R', 'L'])
+        if (fast(i) && fast(i + 1) && plays(i, side) && plays(i + 1, side) && plays(i + 2, side))
+          out.push({
+            check: 'preset/no-three-in-a-row',
+            message: `hand ${side} plays three grid notes in a row from ${grid.describe(i)} at ${card.tempo} BPM`,
+          });
+  }
+
+  // No hand crossing: for a right-handed player the left hand does not play ride or floor tom
+  // while the right hand is free; mirrored for a left-handed player (docs/engine.md, "Sticking";
+  // the kit layout is common practice).
+  const crossing = card.hand === 'right' ? 'L' : 'R';
+  const other = card.hand === 'right' ? 'R' : 'L';
+  for (const [index, group] of byIndex)
+    for (const h of group)
+      if (
+        h.hand === crossing &&
+        FAR_SIDE_FOR_LEFT_HAND.has(h.voice) &&
+        !group.some((g) => g.hand === other)
+      )
+        out.push({
+          check: 'preset/no-hand-crossing',
+          message: `hand ${crossing} crosses to ${h.voice} at ${grid.describe(index)} while hand ${other} is free`,
+        });
+  return out;
+}
