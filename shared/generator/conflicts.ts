@@ -4,6 +4,7 @@ import { positionOf, slotsIn, type Grid } from './grid';
 import { assignHands, MAX_HAND_NOTES_PER_SECOND } from './hands';
 import type { Obligations } from './obligations';
 import { describePart, partKind } from './rules/describe';
+import { phraseOf } from './rules/phrase';
 import { overlapBudget } from './rules/linear';
 import type { Placement } from './rules/placement';
 import type { RuleCard } from './schema';
@@ -19,6 +20,35 @@ export function assertNoObligationConflicts(card: RuleCard, grid: Grid, ob: Obli
   assertAvoidedDownbeatsFree(card, grid, ob);
   assertLinearBudget(card, grid, ob);
   assertHandsSuffice(card, grid, ob);
+  assertPhraseHasRoom(card, grid, ob);
+}
+
+/** Every fill bar must have at least one slot the other rules leave to the fill. */
+function assertPhraseHasRoom(card: RuleCard, grid: Grid, ob: Obligations): void {
+  const phrase = phraseOf(card);
+  if (!phrase) return;
+  for (let bar = phrase.rule.every - 1; bar < grid.bars; bar += phrase.rule.every) {
+    const from = bar * grid.slotsPerBar;
+    const played = ob.placements.some(
+      (p) =>
+        p.source === 'phrase' &&
+        p.instant >= from &&
+        p.instant < from + grid.slotsPerBar &&
+        ob.inFill[p.instant],
+    );
+    if (played) continue;
+    const others = [
+      ...new Set(
+        ob.placements
+          .filter((p) => p.rule >= 0 && ob.inFill[p.instant] && p.source !== 'phrase')
+          .map((p) => p.rule),
+      ),
+    ];
+    throw new RuleConflictError(
+      `${capital(describePart(card, phrase.index))} has no room for its fill in bar ${bar + 1}: ${listWords(others.map((r) => describePart(card, r)))} already take${others.length === 1 ? 's' : ''} every slot of its last ${phrase.rule.fillBeats} beat${phrase.rule.fillBeats === 1 ? '' : 's'}. Lengthen the fill or move those rules.`,
+      ['phrase', ...others.map((r) => partKind(card, r))].filter(unique),
+    );
+  }
 }
 
 function where(grid: Grid, instant: number): string {

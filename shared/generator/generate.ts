@@ -63,7 +63,6 @@ function allowsOneDrill(ctx: FillContext): boolean {
   return true;
 }
 
-
 function fillAndStick(
   ctx: FillContext,
   rng: Rng,

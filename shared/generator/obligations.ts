@@ -58,7 +58,16 @@ export function collectObligations(card: RuleCard, grid: Grid): Obligations {
     }
   });
   const ruled = new Set(placements.filter((p) => p.source !== 'ostinato').map((p) => p.instant));
-  placements.push(...placePhrase(card, grid, (instant) => ruled.has(instant)));
+  const before = merge(placements, grid);
+  placements.push(
+    ...placePhrase(
+      card,
+      grid,
+      // The fill leaves out the slots other rules hold and the downbeats kept free.
+      (instant) => ruled.has(instant) || [...avoided.values()].some((kept) => kept.has(instant)),
+      (instant) => before[instant]?.length ?? 0,
+    ),
+  );
   const cells = merge(placements, grid);
   const anchors = placeAnchors(card, grid, cells, avoided);
   placements.push(...anchors);

@@ -113,6 +113,9 @@ export interface OracleCard {
   readonly lead: 'right' | 'left' | 'alternate';
   readonly doubles: boolean;
   readonly rules: readonly OracleRule[];
+  /** Beats per group of the meter, or null where each beat stands alone. */
+  readonly grouping: readonly number[] | null;
+  readonly measure: 'lhl' | 'witek';
 }
 
 type Loose = Record<string, unknown>;
@@ -134,6 +137,8 @@ export function readCard(written: unknown, normalised: unknown): OracleCard {
 
   const meter = obj(pick('meter'));
   const beatsPerBar = num(meter['beats'], 4);
+  const grouping = (obj(n['meter'])['grouping'] as number[] | undefined) ?? null;
+  const measure = pick('measure') === 'witek' ? 'witek' : 'lhl';
   const sub = pick('subdivision');
   const subs = Array.isArray(sub)
     ? (sub as number[]).slice()
@@ -255,6 +260,8 @@ export function readCard(written: unknown, normalised: unknown): OracleCard {
     lead: lead === 'left' || lead === 'right' || lead === 'alternate' ? lead : hand,
     doubles: sticking['doubles'] === true,
     rules,
+    grouping,
+    measure,
   };
 }
 

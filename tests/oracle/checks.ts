@@ -222,12 +222,24 @@ export function checkDrill(plan: Plan, drill: DrillLike): Violation[] {
   out.push(...checkNormalised(card, drill.card));
 
   // ---- every fixed note present ----
-  for (const want of plan.wants)
-    if (!byKey.has(key(want.voice, want.index)))
+  const crashAt = (index: number): boolean => byKey.has(key('crash', index));
+  for (const want of plan.wants) {
+    const k = key(want.voice, want.index);
+    if (plan.yields.has(k) && crashAt(want.index)) {
+      // The crash takes the layer's note; a note a rule puts on the same cymbal stays.
+      if (byKey.get(k)?.source === 'ostinato')
+        out.push({
+          check: 'ostinato/rests',
+          message: `the ${want.voice} plays with the colour crash at ${at(want.index)}, which replaces it`,
+        });
+      continue;
+    }
+    if (!byKey.has(k))
       out.push({
         check: want.check as CheckName,
         message: `${want.voice} missing at ${at(want.index)} (${want.why})`,
       });
+  }
   for (const h of hits)
     if (h.source === 'ostinato' && plan.rests.has(key(h.voice, h.index)))
       out.push({
@@ -266,7 +278,11 @@ export function checkDrill(plan: Plan, drill: DrillLike): Violation[] {
         check: 'source/explained',
         message: `${h.voice} at ${at(h.index)} has source ${h.source}, but no such part of the card places it there`,
       });
-    const first = Math.min(PRECEDENCE.length, ...wanted.map((w) => rank(w.part)));
+    const yielded = plan.yields.has(key(h.voice, h.index)) && byKey.has(key('crash', h.index));
+    const first = Math.min(
+      PRECEDENCE.length,
+      ...wanted.filter((w) => !(yielded && w.part === 'ostinato')).map((w) => rank(w.part)),
+    );
     if (rank(h.source) >= 0 && first < rank(h.source))
       out.push({
         check: 'source/precedence',
@@ -389,10 +405,11 @@ export function checkDrill(plan: Plan, drill: DrillLike): Violation[] {
         const tj = plan.targets[j];
         const a = drill.bars[i]!;
         const b = drill.bars[j]!;
-        if (ti !== undefined && tj !== undefined && ti > tj && a.tension < b.tension)
+        // Strict, as docs/engine.md reads the rank order: a higher target measures more tense.
+        if (ti !== undefined && tj !== undefined && ti > tj && a.tension <= b.tension)
           out.push({
             check: 'tension/rank-order',
-            message: `bar ${a.bar} (target ${ti}) measures ${a.tension}, below bar ${b.bar} (target ${tj}) at ${b.tension}`,
+            message: `bar ${a.bar} (target ${ti}) measures ${a.tension}, not above bar ${b.bar} (target ${tj}) at ${b.tension}`,
           });
       }
   return out;

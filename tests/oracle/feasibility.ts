@@ -10,13 +10,27 @@
  * 3. a bar holds more instants where two or more voices must strike together than a linear rule
  *    allows (each voice at an instant takes a limb of its own);
  *
+ * 5. a tension curve with two or more different targets, while every bar must sound the same: no
+ *    slot anywhere is open to a fill (docs/engine.md, "Voice roles": fills go to anchor and
+ *    embellishment voices only, embellishments only where the ostinato rests and off the
+ *    downbeats kept free, toms only when a fillHoles rule names them, never on a euclid or
+ *    polyrhythm voice) and the fixed notes repeat bar for bar; the rank order is strict, so equal
+ *    bars cannot keep it;
+ * 7. a phrase's fill bar whose fill beats are all taken by notes other rules fix (docs/engine.md,
+ *    "Phrases": a fill keeps at least one slot free of other rules);
+ * 6. the same, when every bar measures 0 on the Longuet-Higgins & Lee measure because no note
+ *    that counts (fills and rule notes; time layers are left out) can sound on a position with a
+ *    strictly stronger position after it in the bar: a syncopation needs a note on a weaker
+ *    position followed by silence on a stronger one (H. C. Longuet-Higgins, C. S. Lee, "The
+ *    rhythmic interpretation of monophonic music", Music Perception 1(4), 1984).
+ *
  * Besides these proofs it names one reason of sticking policy, which explains a refusal but does
  * not make a drill for the card wrong (the oracle checks it on presets only):
  * 4. the leading hand must play the time cymbal's whole pattern (docs/engine.md, "Sticking"),
  *    and that pattern puts three notes in a row on a grid at least as fast as sixteenths at
  *    120 BPM, which a single hand should not play without doubles (issue 8, "Tests").
  */
-import { isHand, rulesOf } from './card';
+import { isHand, rulesOf, type Voice } from './card';
 import { key, type Plan } from './plan';
 
 export interface Feasibility {
@@ -63,6 +77,30 @@ export function reasonAbout(plan: Plan): Feasibility {
         );
     }
 
+  if (plan.targets && new Set(plan.targets).size > 1 && barsCannotDiffer(plan))
+    reasons.push('every bar must sound the same, but the tension curve asks them to differ');
+  for (const bar of plan.fillBars) {
+    const from = grid.downbeat(bar);
+    const window = [...plan.fillWindow].filter((i) => i >= from && i < from + grid.slotsPerBar);
+    // Under a linear rule whose budget the bar's fixed notes already spend, a slot where a foot
+    // keeps time is taken too: a fill note there would be one overlap more.
+    const budget = Math.min(Infinity, ...rulesOf(card, 'linear').map((r) => r.maxOverlaps));
+    let together = 0;
+    for (let i = from; i < from + grid.slotsPerBar; i++)
+      if ((byIndex.get(i)?.size ?? 0) >= 2) together += 1;
+    const taken = (i: number): boolean =>
+      plan.wants.some(
+        (w) =>
+          w.index === i &&
+          w.part !== 'phrase' &&
+          (w.part !== 'ostinato' || (!isHand(w.voice) && together >= budget)),
+      ) || plan.freeDownbeats.has(i);
+    if (window.length > 0 && window.every(taken))
+      reasons.push(`the fill of bar ${bar} has no slot that other rules leave free`);
+  }
+  if (plan.targets && new Set(plan.targets).size > 1 && nothingCanSyncopate(plan))
+    reasons.push('no note can sound before a stronger silent position, so every bar measures 0');
+
   const lead = card.ostinato;
   if (lead && isHand(lead.voice) && card.lead !== 'alternate' && !card.doubles) {
     const plays = (i: number): boolean =>
@@ -81,4 +119,129 @@ export function reasonAbout(plan: Plan): Feasibility {
       }
   }
   return { impossible: reasons, policy };
+}
+
+const TOMS = new Set<Voice>(['tomHigh', 'tomMid', 'tomFloor']);
+
+/** Slots where some fill voice may sound (docs/engine.md, "Voice roles"). */
+function fillableSlots(plan: Plan): Set<number> {
+  const { card, grid } = plan;
+  const open = new Set<number>();
+  const named = new Set(rulesOf(card, 'fillHoles').flatMap((r) => r.voices));
+  const fillable = card.voices.filter((v) => {
+    const role = card.roles.get(v);
+    if (role !== 'anchor' && role !== 'embellishment') return false;
+    if (plan.figureVoices.has(v)) return false;
+    return !TOMS.has(v) || named.has(v);
+  });
+  const embellishing = (v: Voice): boolean => card.roles.get(v) === 'embellishment' || named.has(v);
+  const silentAt = new Set(plan.silent.map((x) => key(x.voice, x.index)));
+  const ostinatoAt = (i: number): boolean =>
+    card.ostinato !== null &&
+    (plan.wantedBy.get(key(card.ostinato.voice, i)) ?? []).some((w) => w.part === 'ostinato');
+  for (let i = 0; i < grid.totalSlots; i++) {
+    const wanted = plan.wants.filter((w) => w.index === i);
+    if (wanted.some((w) => w.part !== 'ostinato') || plan.fillWindow.has(i)) continue;
+    for (const v of fillable) {
+      if (wanted.some((w) => w.voice === v)) continue;
+      if (embellishing(v)) {
+        if (!ostinatoAt(i) && !plan.freeDownbeats.has(i)) {
+          open.add(i);
+          break;
+        }
+      } else if (!silentAt.has(key(v, i))) {
+        open.add(i);
+        break;
+      }
+    }
+  }
+  return open;
+}
+
+/** True when no slot is open to a fill and the notes the card fixes repeat in every bar. */
+function barsCannotDiffer(plan: Plan): boolean {
+  const { card, grid } = plan;
+  if (fillableSlots(plan).size > 0) return false;
+  const silentAt = new Set(plan.silent.map((x) => key(x.voice, x.index)));
+  // The fixed notes bar by bar (anchors on the downbeat where nothing keeps them off).
+  const signature = (bar: number): string => {
+    const from = grid.downbeat(bar);
+    const notes = plan.wants
+      .filter((w) => w.index >= from && w.index < from + grid.slotsPerBar)
+      .map((w) => `${w.voice}@${w.index - from}`);
+    for (const v of card.voices)
+      if (
+        card.roles.get(v) === 'anchor' &&
+        !plan.figureVoices.has(v) &&
+        !silentAt.has(key(v, from))
+      )
+        notes.push(`${v}@0`);
+    return [...new Set(notes)].sort().join(' ');
+  };
+  const first = signature(1);
+  for (let bar = 2; bar <= card.bars; bar++) if (signature(bar) !== first) return false;
+  return true;
+}
+
+/** Depth at which `index` first starts a node when `n` splits into its primes, smallest first. */
+function levelIn(index: number, n: number): number {
+  if (index === 0) return 0;
+  let size = n;
+  let level = 0;
+  for (let p = 2; size > 1;) {
+    if (size % p !== 0) {
+      p++;
+      continue;
+    }
+    size /= p;
+    level++;
+    if (index % size === 0) return level;
+  }
+  return level + 1;
+}
+
+/** Metrical level of each beat start in the bar (0 = the downbeat), by grouping when given. */
+function beatLevels(card: Plan['card']): number[] {
+  const beats = card.beatsPerBar;
+  if (!card.grouping) return Array.from({ length: beats }, (_, b) => levelIn(b, beats));
+  const groups = card.grouping;
+  let depth = 0;
+  for (let n = groups.length, p = 2; n > 1;)
+    if (n % p === 0) {
+      n /= p;
+      depth++;
+    } else p++;
+  const out: number[] = [];
+  groups.forEach((size, g) => {
+    for (let k = 0; k < size; k++) out.push(k === 0 ? levelIn(g, groups.length) : depth + 1);
+  });
+  return out;
+}
+
+/** True when no note that counts can sit before a strictly stronger position of its bar. */
+function nothingCanSyncopate(plan: Plan): boolean {
+  const { card, grid } = plan;
+  if (card.measure !== 'lhl') return false;
+  const levels = beatLevels(card);
+  const strongerLater = (beat: number, slot: number): boolean => {
+    // A later beat start is stronger than any slot inside a beat, and than a weaker beat start.
+    if (slot > 0 && beat < card.beatsPerBar) return true;
+    if (slot === 0) {
+      for (let b = beat + 1; b <= card.beatsPerBar; b++)
+        if ((levels[b - 1] ?? 0) < (levels[beat - 1] ?? 0)) return true;
+      return false;
+    }
+    const slots = grid.slotsIn(beat);
+    for (let s = slot + 1; s < slots; s++)
+      if (levelIn(s, slots) < levelIn(slot, slots)) return true;
+    return false;
+  };
+  const open = fillableSlots(plan);
+  for (let i = 0; i < grid.totalSlots; i++) {
+    const counts = open.has(i) || plan.wants.some((w) => w.index === i && w.part !== 'ostinato');
+    if (!counts) continue;
+    const { beat, slot } = grid.place(i);
+    if (strongerLater(beat, slot)) return false;
+  }
+  return true;
 }

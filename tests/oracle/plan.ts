@@ -71,6 +71,11 @@ export interface Plan {
   readonly crashLands: boolean;
   /** (voice, index) where a time layer rests (phrase fill window, crash landing). */
   readonly rests: ReadonlySet<string>;
+  /**
+   * (voice, index) of the time cymbal on beat 1 of bar 1 when a colour crash may take its place
+   * (no phrase rule): the cymbal is wanted there unless the crash sounds, and absent if it does.
+   */
+  readonly yields: ReadonlySet<string>;
   /** Voices a euclid or polyrhythm rule plays. */
   readonly figureVoices: ReadonlySet<Voice>;
   /** Positions of polyrhythm / euclid rules that fall between slots (parse should refuse). */
@@ -123,6 +128,8 @@ export function planOf(card: OracleCard): Plan {
 
   // Time layers, with their rests.
   const rests = new Set<string>();
+  const yields = new Set<string>();
+  const colourCrash = card.roles.get('crash') === 'colour' && rulesOf(card, 'phrase').length === 0;
   // "The time cymbal": the one the leading hand plays for its whole pattern (docs/engine.md,
   // "Sticking"): the ostinato's voice when it is a cymbal, else the first cymbal layer.
   const timeCymbal = card.timeLayers.find((l) => TIME_CYMBALS.has(l.voice))?.voice;
@@ -139,6 +146,8 @@ export function planOf(card: OracleCard): Plan {
         for (const slot of layer.slots) {
           if (slot >= grid.slotsIn(beat)) continue; // parse refuses such cards
           const index = grid.index(bar, beat, slot);
+          if (colourCrash && layer.voice === timeCymbal && index === 0)
+            yields.add(key(layer.voice, 0));
           if (restsAt(layer, index)) rests.add(key(layer.voice, index));
           else {
             const check = layer.isOstinato ? 'ostinato' : 'layers';
@@ -257,6 +266,7 @@ export function planOf(card: OracleCard): Plan {
     landingBars,
     crashLands,
     rests,
+    yields,
     figureVoices,
     offGrid,
     targets,

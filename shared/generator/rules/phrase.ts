@@ -2,6 +2,7 @@ import type { VoiceId } from '../drill';
 import { handRested } from '../hands';
 import { slotsIn, type Grid } from '../grid';
 import type { PhraseRule, RuleCard } from '../schema';
+import { overlapBudget } from './linear';
 import type { Placement } from './placement';
 
 /** The card's phrase rule and its index, if it has one. */
@@ -57,6 +58,7 @@ export function placePhrase(
   card: RuleCard,
   grid: Grid,
   taken: (instant: number) => boolean,
+  voicesAt: (instant: number) => number,
 ): Placement[] {
   const phrase = phraseOf(card);
   if (!phrase) return [];
@@ -71,7 +73,18 @@ export function placePhrase(
       for (let s = 0; s < slots; s += step)
         run.push(bar * grid.slotsPerBar + (grid.beatStart[b] ?? 0) + s);
     }
-    const playable = run.filter((instant) => !taken(instant));
+    // Where a foot keeps time the fill joins it only while the linear budget lasts.
+    let overlaps = 0;
+    for (let i = bar * grid.slotsPerBar; i < (bar + 1) * grid.slotsPerBar; i++)
+      if (voicesAt(i) >= 2) overlaps++;
+    const budget = overlapBudget(card);
+    const playable = run.filter((instant) => {
+      if (taken(instant)) return false;
+      if (voicesAt(instant) === 0) return true;
+      if (overlaps >= budget) return false;
+      overlaps++;
+      return true;
+    });
     playable.forEach((instant, k) => {
       const voice = rule.voices[Math.floor((k * rule.voices.length) / playable.length)];
       if (voice) out.push({ instant, voice, source: 'phrase', dynamic: 'normal', rule: index });

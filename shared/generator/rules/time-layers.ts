@@ -32,9 +32,22 @@ export function timeLayers(card: RuleCard): TimeLayer[] {
   return out;
 }
 
+/** Cymbals that keep time (common practice): what a crash takes the place of. */
+const TIME_CYMBALS: ReadonlySet<VoiceId> = new Set<VoiceId>([
+  'hihat',
+  'hihatOpen',
+  'ride',
+  'rideBell',
+]);
+
+/** The time cymbal: the first time layer (the ostinato first) played on a cymbal, if any. */
+export function timeCymbal(card: RuleCard): VoiceId | null {
+  return timeLayers(card).find((layer) => TIME_CYMBALS.has(layer.voice))?.voice ?? null;
+}
+
 /**
- * Every time-layer hit (source `ostinato`), except where the hands leave the time cymbal:
- * inside a phrase's fill (`resting`) and where a crash takes its place (`crashed`).
+ * Every time-layer hit (source `ostinato`), except where the hands leave it: hand layers inside
+ * a phrase's fill (`resting`), and the time cymbal where a crash takes its place (`crashed`).
  */
 export function placeTimeLayers(
   card: RuleCard,
@@ -43,14 +56,16 @@ export function placeTimeLayers(
   crashed: ReadonlySet<number>,
 ): Placement[] {
   const out: Placement[] = [];
+  const cymbal = timeCymbal(card);
   for (const layer of timeLayers(card)) {
     const hand = isHandVoice(layer.voice);
+    const yields = layer.voice === cymbal;
     for (let instant = 0; instant < grid.instants; instant++) {
       const inBar = instant % grid.slotsPerBar;
       const beat = grid.beatOf[inBar] ?? 0;
       if (layer.beats && !layer.beats.has(beat)) continue;
       if (!layer.slots.includes(grid.slotOf[inBar] ?? 0)) continue;
-      if (hand && (resting[instant] || crashed.has(instant))) continue;
+      if ((hand && resting[instant]) || (yields && crashed.has(instant))) continue;
       out.push({
         instant,
         voice: layer.voice,
