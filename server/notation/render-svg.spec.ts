@@ -192,3 +192,110 @@ describe('renderDrillSvg (Node, jsdom + @napi-rs/canvas)', () => {
     }
   });
 });
+
+/** Every y a path's absolute commands name (M, L, C, Q, S, T pairs; A's end point; V). */
+function pathYs(d: string): number[] {
+  const ys: number[] = [];
+  for (const [, command, args] of d.matchAll(/([A-Za-z])([^A-Za-z]*)/g)) {
+    const n = args!.match(/-?[\d.]+(?:e-?\d+)?/g)?.map(Number) ?? [];
+    if (command === 'A') for (let i = 6; i < n.length; i += 7) ys.push(n[i]!);
+    else if (command === 'V') ys.push(...n);
+    else if (command !== 'H' && command !== 'Z')
+      for (let i = 1; i < n.length; i += 2) ys.push(n[i]!);
+  }
+  return ys;
+}
+
+describe('marks above the first system', () => {
+  const swingCard = {
+    meter: { beats: 4, unit: 4 },
+    bars: 4,
+    subdivision: 4,
+    tempo: 92,
+    voices: ['kick', 'snare', 'hihat', 'crash'],
+    swing: { unit: 8, ratio: 0.6667 },
+    density: 0.6,
+  };
+  const swingDrill = generateDrill(parseRuleCard(swingCard), 'lesson-12');
+  const render = renderDrillSvg(swingDrill, { width: 1000, showSticking: true, showCounts: true });
+  const swingDoc = parse(render.svg);
+  const glyphsOf = (el: Element | null) =>
+    [...(el?.querySelectorAll('tspan[font-family="Bravura"]') ?? [])]
+      .map((t) => t.textContent)
+      .join('');
+
+  it('writes the metronome mark with the beat note, and the swing marking where playback swings', () => {
+    const tempo = swingDoc.querySelector('.tensile-marks .tensile-tempo-mark');
+    // Bravura's metronome-mark quarter note (SMuFL U+ECA5) and the card's tempo.
+    expect(glyphsOf(tempo)).toBe('\uECA5');
+    expect(tempo?.textContent?.replace(/\u00a0/g, ' ')).toContain('= 92');
+    expect(swingDoc.querySelector('.tensile-swing-words')?.textContent).toBe('Swing');
+    // Beamed eighths = quarter and eighth under a "3" (common practice for swung eighths).
+    expect(glyphsOf(swingDoc.querySelector('.tensile-swing-mark'))).toBe(
+      '\uE1F0\uE1F7\uE1F2\uE1F0\uECA7\uE1FE\uE1FF\uE200',
+    );
+    expect(swingDoc.querySelector('.tensile-marks')?.getAttribute('aria-label')).toMatch(
+      /^Tempo: quarter note = 92\. Swing eighths/,
+    );
+  });
+
+  it('keeps the marks in a band of their own, clear of everything the first system draws', () => {
+    const band = render.layout.bars[0]!.systemTop;
+    expect(band).toBeGreaterThan(0);
+    const marksBaseline = Number(swingDoc.querySelector('.tensile-marks text')?.getAttribute('y'));
+    // Noteheads reach 0.56 staff space under the baseline (Bravura metadata): 24 px glyphs.
+    expect(marksBaseline + 0.6 * 6).toBeLessThanOrEqual(band);
+    const firstSystem = render.layout.bars.filter((b) => b.system === 0).map((b) => b.bar);
+    const groups = [
+      ...firstSystem.map((bar) => swingDoc.querySelector(`.tensile-bar[data-bar="${bar}"]`)!),
+      swingDoc.querySelector('.tensile-legend')!,
+    ];
+    let highest = Infinity;
+    for (const group of groups) {
+      for (const text of group.querySelectorAll('text')) {
+        // A glyph or word reaches at most one em above its baseline.
+        const size = text.closest('[font-size]')?.getAttribute('font-size') ?? '10pt';
+        const px = size.endsWith('pt') ? (parseFloat(size) * 4) / 3 : parseFloat(size);
+        highest = Math.min(highest, Number(text.getAttribute('y')) - px);
+      }
+      for (const rect of group.querySelectorAll('rect')) {
+        highest = Math.min(highest, Number(rect.getAttribute('y')));
+      }
+      for (const path of group.querySelectorAll('path')) {
+        highest = Math.min(highest, ...pathYs(path.getAttribute('d') ?? ''));
+      }
+    }
+    expect(highest).toBeGreaterThanOrEqual(band);
+  });
+
+  it('moves the swing marking to a line of its own on a phone-width page', () => {
+    const phone = renderDrillSvg(swingDrill, { width: 390, showSticking: true, showCounts: true });
+    const lines = parse(phone.svg).querySelectorAll('.tensile-marks text');
+    expect(lines).toHaveLength(2);
+    expect(lines[1]!.querySelector('.tensile-swing-mark')).not.toBeNull();
+    expect(phone.layout.bars[0]!.systemTop).toBe(2 * render.layout.bars[0]!.systemTop);
+  });
+
+  it('writes no swing marking for a straight drill, and no marks when asked', () => {
+    const plainDrill = generateDrill(
+      parseRuleCard({ ...swingCard, swing: undefined }),
+      'lesson-12',
+    );
+    const straight = parse(renderDrillSvg(plainDrill).svg);
+    expect(straight.querySelector('.tensile-tempo-mark')).not.toBeNull();
+    expect(straight.querySelector('.tensile-swing-mark, .tensile-swing-words')).toBeNull();
+    const bare = renderDrillSvg(swingDrill, { width: 1000, showMarks: false });
+    expect(parse(bare.svg).querySelector('.tensile-marks')).toBeNull();
+    expect(bare.layout.bars[0]!.systemTop).toBe(0);
+  });
+
+  it('counts 6/8 in dotted quarters', () => {
+    const sixEight = generateDrill(
+      parseRuleCard({ ...swingCard, meter: { beats: 6, unit: 8 }, tempo: 120, swing: undefined }),
+      'lesson-12',
+    );
+    const tempo = parse(renderDrillSvg(sixEight).svg).querySelector('.tensile-tempo-mark');
+    expect(glyphsOf(tempo)).toBe('\uECA5\uECB7');
+    expect(tempo?.textContent?.replace(/\u00a0/g, ' ')).toContain('= 40');
+  });
+});

@@ -8,13 +8,13 @@
  */
 import type { DrillBar, DrillHit, Hand, VoiceId } from '../generator/drill';
 import { countSyllable } from './counting';
+import { headerMarks, type HeaderMarks, type MarkedCard } from './header-marks';
 import { spellBeat, type TupletRatio, type WrittenDuration } from './rhythm';
 import { STAFF_PLACEMENTS, vexKeyOf, type Layer } from './staff-placement';
 
 /** The part of a drill that notation reads (structurally a subset of the engine's `Drill`). */
 export interface NotationSource {
-  readonly card: {
-    readonly meter: { readonly beats: number; readonly unit: number };
+  readonly card: MarkedCard & {
     readonly voices?: readonly VoiceId[];
   };
   readonly bars: readonly DrillBar[];
@@ -85,6 +85,8 @@ export interface NotationModel {
   /** Voices that appear in the drill's card or hits, in staff order from the top. */
   readonly voices: readonly VoiceId[];
   readonly bars: readonly NotationBar[];
+  /** The metronome mark and swing marking above the first system. */
+  readonly marks: HeaderMarks;
 }
 
 /** Build the notation model of a drill. */
@@ -94,7 +96,7 @@ export function buildNotation(drill: NotationSource): NotationModel {
     voices.some((voice) => STAFF_PLACEMENTS[voice].layer === layer),
   );
   const bars = drill.bars.map((bar) => notateBar(bar, layers, drill.card.meter.unit));
-  return { meter: drill.card.meter, layers, voices, bars };
+  return { meter: drill.card.meter, layers, voices, bars, marks: headerMarks(drill.card) };
 }
 
 function voicesOf(drill: NotationSource): VoiceId[] {

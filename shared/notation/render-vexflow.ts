@@ -9,6 +9,7 @@
 import { BarlineType, Formatter, Stave, type SVGContext } from 'vexflow/bravura';
 import { drawBeatTexts } from './beat-texts';
 import { EngravingContext, withFastEngraving } from './engraving-context';
+import { drawHeaderMarks, layoutHeaderMarks } from './header-marks';
 import { drawLegend, legendWidth } from './legend';
 import type { NotationBar, NotationModel } from './notation-model';
 import { planSystems } from './system-layout';
@@ -26,6 +27,11 @@ export interface RenderOptions {
   readonly maxBarsPerSystem?: number;
   /** Colour of everything drawn (default black; `currentColor` follows the page's text colour). */
   readonly ink?: string;
+  /**
+   * Draw the metronome mark (and the swing marking when the drill swings) above the first
+   * system, in a band of its own (default true).
+   */
+  readonly showMarks?: boolean;
 }
 
 export interface BeatBox {
@@ -47,7 +53,10 @@ export interface BarBox {
   /** y of the top and bottom stave lines. */
   readonly topLineY: number;
   readonly bottomLineY: number;
-  /** The system's band: from its top to the start of the free gap under it. */
+  /**
+   * The system's band: from its top to the start of the free gap under it (the first system
+   * starts under the band of tempo and swing marks).
+   */
   readonly systemTop: number;
   readonly systemBottom: number;
   readonly beats: readonly BeatBox[];
@@ -113,9 +122,20 @@ function engrave(
   const counts = options.showCounts ? COUNTS_ROW : 0;
   const systemHeight = sticking + HEADROOM + 4 * STAVE_SPACE + FOOTROOM + counts;
   const gap = options.gapBelowSystem ?? 0;
+  // The marks start over the first bar (the key, if drawn, stays to their left); a line too
+  // narrow for them all puts the swing marking on a line of its own.
+  const shown = (options.showMarks ?? true) ? model.marks : { tempo: null, swing: null };
+  let marksX = MARGIN_X + legend;
+  let marks = layoutHeaderMarks(shown, options.width - MARGIN_X - marksX);
+  if (marks.width > options.width - MARGIN_X - marksX) {
+    // Not even one mark a line fits beside the key: start them at the margin instead.
+    marksX = MARGIN_X;
+    marks = layoutHeaderMarks(shown, options.width - 2 * MARGIN_X);
+  }
   const boxes: BarBox[] = [];
+  drawHeaderMarks(ctx, shown, marks, marksX, 0);
   plans.forEach((plan, systemIndex) => {
-    const systemTop = systemIndex * (systemHeight + gap);
+    const systemTop = marks.height + systemIndex * (systemHeight + gap);
     const topLineY = systemTop + sticking + HEADROOM;
     let x = MARGIN_X + (systemIndex === 0 ? legend : 0);
     if (systemIndex === 0 && showLegend)
@@ -143,7 +163,7 @@ function engrave(
       x += width;
     });
   });
-  const height = plans.length * (systemHeight + gap);
+  const height = marks.height + plans.length * (systemHeight + gap);
   ctx.resize(options.width, height);
   svg.setAttribute('viewBox', `0 0 ${options.width} ${height}`);
   container.replaceChildren(svg);

@@ -4,3 +4,4 @@ export * from './rational';
 export * from './schedule';
 export * from './tempo-trainer';
 export * from './position';
+export * from './swing';

@@ -80,7 +80,9 @@ export type CursorPosition =
 
 /**
  * The cursor for `beats` beats after playback start: `null` before the start. Beats count from
- * 1 as a drummer counts; `bar` is the bar number as written in the drill.
+ * 1 as a drummer counts; `bar` is the bar number as written in the drill. Swing moves notes only
+ * inside their beat (see `swing.ts`), so the same mapping serves straight and swung playback:
+ * a swung note's `at` still falls in its written bar and beat.
  */
 export function cursorAt(shape: LoopShape, beats: number): CursorPosition | null {
   if (!(beats >= 0) || shape.lengthBeats === 0) return null;

@@ -39,9 +39,21 @@ export function subtractRational(a: Rational, b: Rational): Rational {
   return rational(a.num * b.den - b.num * a.den, a.den * b.den);
 }
 
+export function multiplyRational(a: Rational, b: Rational): Rational {
+  // Cross-reduced first, so the products stay as small as the result allows.
+  const g1 = gcd(a.num, b.den) || 1;
+  const g2 = gcd(b.num, a.den) || 1;
+  return rational((a.num / g1) * (b.num / g2), (a.den / g2) * (b.den / g1));
+}
+
 /** Negative when `a < b`, zero when equal, positive when `a > b`. */
 export function compareRational(a: Rational, b: Rational): number {
-  return a.num * b.den - b.num * a.den;
+  const left = a.num * b.den;
+  const right = b.num * a.den;
+  if (Number.isSafeInteger(left) && Number.isSafeInteger(right)) return left - right;
+  // Far into a long run with fine swing ratios the products can pass 2^53: compare exactly.
+  const diff = BigInt(a.num) * BigInt(b.den) - BigInt(b.num) * BigInt(a.den);
+  return diff < 0n ? -1 : diff > 0n ? 1 : 0;
 }
 
 /** The fraction as a float (one correctly rounded division). */

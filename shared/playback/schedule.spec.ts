@@ -8,10 +8,12 @@ import {
   scaleFraction,
   type BigFraction,
 } from './exact-double.testing';
+import { cursorAt } from './position';
 import { compareRational } from './rational';
 import {
   compareEvents,
   countInEvents,
+  loopEvents,
   loopShape,
   scheduleDrill,
   type PlayableDrill,
@@ -278,5 +280,169 @@ describe('schedule properties', () => {
         },
       ),
     );
+  });
+});
+
+describe('swing', () => {
+  const card = (unit: 8 | 16, ratio: number, meterUnit = 4) => ({
+    meter: { unit: meterUnit },
+    swing: { unit, ratio },
+  });
+  const hitTimes = (drill: PlayableDrill, o: Partial<ScheduleOptions> = {}, loops = 1) =>
+    scheduleDrill(drill, options(o), loops).filter((e) => e.kind === 'hit');
+  const eighths: DrillBar = everySlotBar(1, [2, 2, 2, 2], 'ride');
+
+  it('plays a ratio of 0.5 exactly as straight, in every meter', () => {
+    fc.assert(
+      fc.property(
+        fc.array(barArbitrary, { minLength: 1, maxLength: 4 }),
+        fc.constantFrom(8, 16) as fc.Arbitrary<8 | 16>,
+        fc.constantFrom(2, 4, 8),
+        (bars, unit, meterUnit) => {
+          const drill = { bars: bars.map((b, i) => ({ bar: i + 1, tension: 0, ...b })) };
+          const metronome = { enabled: true, accentFirstBeat: true, subdivisions: true };
+          const straight = scheduleDrill(drill, options({ metronome }), 2);
+          const swung = scheduleDrill(
+            { ...drill, card: card(unit, 0.5, meterUnit) },
+            options({ metronome }),
+            2,
+          );
+          expect(swung).toEqual(straight);
+        },
+      ),
+      { numRuns: Math.min(200, Number(process.env['FC_RUNS'] ?? 200)) },
+    );
+  });
+
+  it('puts the swung "&" (ratio 0.6667) on the third note of the triplet, to the double', () => {
+    // The same groove written as triplets with the middle note left out.
+    const triplets: PlayableDrill = {
+      bars: [
+        {
+          bar: 1,
+          beats: [3, 3, 3, 3],
+          tension: 0,
+          hits: [1, 2, 3, 4].flatMap((b) => [hit(b, 0, 'ride'), hit(b, 2, 'ride')]),
+        },
+      ],
+    };
+    for (const tempo of [60, 97, 240]) {
+      const swung = hitTimes({ bars: [eighths], card: card(8, 0.6667) }, { tempo }, 3);
+      const written = hitTimes(triplets, { tempo }, 3);
+      expect(swung.map((e) => e.at)).toEqual(written.map((e) => e.at));
+      expect(swung.map((e) => e.time)).toEqual(written.map((e) => e.time));
+    }
+    // At 60 BPM the "&" of beat 1 sounds at 2/3 s: on the nearest double.
+    const and = hitTimes({ bars: [eighths], card: card(8, 0.6667) }, { tempo: 60 })[1]!;
+    expect(isNearestDouble(and.time, 2n, 3n)).toBe(true);
+  });
+
+  it('swings sixteenth pairs: "e" and "a" move, the "&" stays', () => {
+    const sixteenths: PlayableDrill = {
+      bars: [everySlotBar(1, [4, 4, 4, 4], 'hihat')],
+      card: card(16, 0.6),
+    };
+    const beat2 = hitTimes(sixteenths, { tempo: 100 }).filter((e) => e.beat === 2);
+    // Beat 2 starts 1 beat in; a sixteenth pair lasts 1/2 beat, its long note 0.6 of it.
+    expect(beat2.map((e) => `${e.at.num}/${e.at.den}`)).toEqual(['1/1', '13/10', '3/2', '9/5']);
+    // 13/10 beats at 100 BPM = 13·60 / (10·100) s.
+    expect(isNearestDouble(beat2[1]!.time, 13n * 60n, 1000n)).toBe(true);
+    // In 6/8 a sixteenth pair is one eighth beat: its second sixteenth moves.
+    const sixEight = hitTimes({
+      bars: [everySlotBar(1, [2, 2, 2, 2, 2, 2])],
+      card: card(16, 0.6, 8),
+    });
+    expect(sixEight.slice(0, 4).map((e) => `${e.at.num}/${e.at.den}`)).toEqual([
+      '0/1',
+      '3/5',
+      '1/1',
+      '8/5',
+    ]);
+  });
+
+  it('places a 32nd inside a swung pair by linear interpolation within its half', () => {
+    const thirtySeconds: PlayableDrill = {
+      bars: [{ bar: 1, beats: [8, 8], tension: 0, hits: [hit(2, 1), hit(2, 2), hit(2, 3)] }],
+      card: card(16, 0.6667),
+    };
+    // Beat 2, slots 1–3: 1 + 1/6, 1 + 1/3 (the swung "e"), 1 + 5/12.
+    expect(hitTimes(thirtySeconds).map((e) => `${e.at.num}/${e.at.den}`)).toEqual([
+      '7/6',
+      '4/3',
+      '17/12',
+    ]);
+  });
+
+  it('swings the subdivision clicks with the hits and leaves tuplet beats alone', () => {
+    const drill: PlayableDrill = {
+      bars: [{ bar: 1, beats: [2, 3, 6], tension: 0, hits: [hit(1, 1), hit(2, 1), hit(3, 3)] }],
+      card: card(8, 0.6667),
+    };
+    const metronome = { enabled: true, accentFirstBeat: false, subdivisions: true };
+    const events = scheduleDrill(drill, options({ metronome }));
+    const at = (kind: 'hit' | 'click') =>
+      events.filter((e) => e.kind === kind).map((e) => `${e.at.num}/${e.at.den}`);
+    expect(at('hit')).toEqual(['2/3', '4/3', '5/2']);
+    // Beat 1 swung; beat 2 (triplets) and beat 3 (sextuplets) as written.
+    expect(at('click')).toEqual([
+      '0/1',
+      '2/3',
+      '1/1',
+      '4/3',
+      '5/3',
+      '2/1',
+      '13/6',
+      '7/3',
+      '5/2',
+      '8/3',
+      '17/6',
+    ]);
+  });
+
+  it('keeps every swung event inside its beat, in order, so the cursor shows the written beat', () => {
+    fc.assert(
+      fc.property(
+        fc.array(barArbitrary, { minLength: 1, maxLength: 4 }),
+        fc.constantFrom(8, 16) as fc.Arbitrary<8 | 16>,
+        fc.integer({ min: 5000, max: 7500 }),
+        fc.boolean(),
+        (bars, unit, tenThousandths, countIn) => {
+          const drill = {
+            bars: bars.map((b, i) => ({ bar: i + 1, tension: 0, ...b })),
+            card: card(unit, tenThousandths / 10_000),
+          };
+          const metronome = { enabled: true, accentFirstBeat: true, subdivisions: true };
+          const shape = loopShape(drill, null, countIn);
+          const events = scheduleDrill(drill, options({ metronome, countIn }), 2);
+          for (let i = 1; i < events.length; i += 1) {
+            expect(compareEvents(events[i - 1]!, events[i]!)).toBeLessThanOrEqual(0);
+          }
+          for (const event of events.filter((e) => e.loop >= 0)) {
+            const position = cursorAt(shape, event.at.num / event.at.den);
+            expect(position).toEqual({
+              phase: 'drill',
+              loop: event.loop,
+              bar: event.bar,
+              beat: event.beat,
+            });
+          }
+        },
+      ),
+      { numRuns: Math.min(200, Number(process.env['FC_RUNS'] ?? 200)) },
+    );
+  });
+
+  it('stays exact far into a long run with a fine ratio', () => {
+    // 0.5813 reads as 93/160; pass 40 000 of a 4-beat loop starts 160 000 beats in.
+    const drill: PlayableDrill = {
+      bars: [{ ...eighths, beats: [4, 4, 4, 4] }],
+      card: card(16, 0.5813),
+    };
+    const shape = loopShape(drill, null, false);
+    const far = loopEvents(shape, 97, 40_000).filter((e) => e.kind === 'hit');
+    // Slot 1 of beat 1: 160 000 + (93/160) / 2 beats.
+    const [num, den] = [160_000n * 320n + 93n, 320n];
+    expect(isNearestDouble(far[1]!.time, num * 60n, den * 97n)).toBe(true);
+    expect(far[1]!.time).toBeLessThan(far[2]!.time);
   });
 });

@@ -6,14 +6,24 @@
  * number of beats in the bars before it. Loop k adds `k × loopLength` beats, and a count-in bar
  * (if any) comes first. Seconds are `beats × 60 / tempo`, one division per event: nothing is
  * accumulated, so the thousandth loop is as exact as the first.
+ *
+ * When the card swings, `s / slots` is replaced by the swung offset inside the beat (see
+ * `swing.ts`): the off-beat of each pair moves to the card's ratio, exactly. Beats never move,
+ * so bar and beat boundaries (and the cursor) are the same as straight.
  */
 import { VOICE_IDS, type Dynamic, type DrillBar, type VoiceId } from '../generator/drill';
 import { gmDrumNote } from './gm-drum-map';
-import { beatsToSeconds, compareRational, rational, type Rational } from './rational';
+import { addRational, beatsToSeconds, compareRational, rational, type Rational } from './rational';
+import { swingFeel, swungOffset, type SwingFeel, type SwingSpec } from './swing';
 
 /** What playback needs from a drill (a `Drill` from the engine satisfies it). */
 export interface PlayableDrill {
   readonly bars: readonly DrillBar[];
+  /** The card's beat unit and swing; without a card (or its swing) playback is straight. */
+  readonly card?: {
+    readonly meter: { readonly unit: number };
+    readonly swing?: SwingSpec | undefined;
+  };
 }
 
 /** Bars to loop, counted from 1, both ends included. */
@@ -99,6 +109,8 @@ export interface LoopShape {
   readonly lengthBeats: number;
   /** 0 without a count-in, else the beats of the loop's first bar. */
   readonly countInBeats: number;
+  /** The card's swing against its meter; `null` plays straight. */
+  readonly swing: SwingFeel | null;
 }
 
 /** Checks a bar range against the drill and returns the bars it covers. */
@@ -130,6 +142,7 @@ export function loopShape(
     barOffsets,
     lengthBeats,
     countInBeats: countIn ? (bars[0]?.beats.length ?? 0) : 0,
+    swing: drill.card ? swingFeel(drill.card.swing, drill.card.meter.unit) : null,
   };
 }
 
@@ -169,7 +182,8 @@ export function countInEvents(shape: LoopShape, tempo: number): PlaybackEvent[] 
 
 /**
  * Every event of one pass: all hits, and a click on every slot (role-tagged), before muting
- * and metronome settings are applied, so a live player can honour changes at once.
+ * and metronome settings are applied, so a live player can honour changes at once. Subdivision
+ * clicks swing with the hits, so the metronome never argues with the groove.
  */
 export function loopEvents(shape: LoopShape, tempo: number, loop: number): PlaybackEvent[] {
   const start = loopStartBeat(shape, loop);
@@ -178,7 +192,7 @@ export function loopEvents(shape: LoopShape, tempo: number, loop: number): Playb
     const barStart = start + (shape.barOffsets[index] ?? 0);
     bar.beats.forEach((slots, beatIndex) => {
       for (let slot = 0; slot < slots; slot += 1) {
-        const at = rational((barStart + beatIndex) * slots + slot, slots);
+        const at = slotTime(barStart + beatIndex, slot, slots, shape.swing);
         const role: ClickRole = slot > 0 ? 'subdivision' : beatIndex === 0 ? 'downbeat' : 'beat';
         events.push(clickEvent(at, tempo, { loop, bar: bar.bar, beat: beatIndex + 1, slot }, role));
       }
@@ -188,7 +202,7 @@ export function loopEvents(shape: LoopShape, tempo: number, loop: number): Playb
       if (slots === undefined || hit.slot < 0 || hit.slot >= slots) {
         throw new RangeError(`Bar ${bar.bar} has a hit outside its beats (beat ${hit.beat}).`);
       }
-      const at = rational((barStart + hit.beat - 1) * slots + hit.slot, slots);
+      const at = slotTime(barStart + hit.beat - 1, hit.slot, slots, shape.swing);
       events.push({
         kind: 'hit',
         at,
@@ -206,6 +220,12 @@ export function loopEvents(shape: LoopShape, tempo: number, loop: number): Playb
     }
   });
   return events.sort(compareEvents);
+}
+
+/** Beats from playback start to a slot of the beat that starts `beatStart` beats in. */
+function slotTime(beatStart: number, slot: number, slots: number, swing: SwingFeel | null) {
+  if (swing === null) return rational(beatStart * slots + slot, slots);
+  return addRational(rational(beatStart), swungOffset(slot, slots, swing));
 }
 
 /** Time order; at one instant clicks first, then hits in voice order. */
