@@ -166,6 +166,9 @@ function engrave(
   const height = marks.height + plans.length * (systemHeight + gap);
   ctx.resize(options.width, height);
   svg.setAttribute('viewBox', `0 0 ${options.width} ${height}`);
+  // VexFlow's invisible hit areas: nothing here is clicked, and a ghost note's parenthesis gives
+  // its area a bounding box that spans the system's start.
+  for (const rect of [...svg.querySelectorAll('rect[opacity="0"]')]) rect.remove();
   container.replaceChildren(svg);
   return { width: options.width, height, bars: boxes, svg };
 }
