@@ -199,6 +199,16 @@ describe('engine properties', () => {
           drill = generateDrill(card, seed);
         } catch (error) {
           if (!(error instanceof RuleConflictError)) throw error;
+          // A refusal names parts this card has (the oracle in tests/oracle proves each one).
+          const parts = new Set<string>([
+            ...card.rules.map((r) => r.kind),
+            ...(card.ostinato ? ['ostinato'] : []),
+            ...(card.layers.length > 0 ? ['layers'] : []),
+            'anchor',
+            'hands',
+          ]);
+          expect(error.rules.length).toBeGreaterThan(0);
+          for (const part of error.rules) expect(parts).toContain(part);
           expect(error.message.length).toBeGreaterThan(20);
           return;
         }

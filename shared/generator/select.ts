@@ -121,9 +121,24 @@ function aims(
   return moves;
 }
 
-/** Measures a candidate fill: its bar's onsets (obligations plus fill, ostinato left out). */
+/** Measures a candidate fill: its bar's obligations plus the fill, on the card's measure. */
 function candidateMeter(ctx: FillContext, gauge: TensionGauge): (fill: BarFill) => Candidate {
   const { grid, ob } = ctx;
+  if (gauge.measure !== 'lhl') {
+    const fixed = Array.from({ length: grid.bars }, (_, bar) =>
+      Array.from({ length: grid.slotsPerBar }, (_, i) =>
+        (ob.cells[bar * grid.slotsPerBar + i] ?? []).map((hit) => ({
+          voice: hit.voice,
+          time: hit.source === 'ostinato',
+        })),
+      ),
+    );
+    return (fill) => {
+      const voices = (fixed[fill.bar] ?? []).map((at) => at.slice());
+      for (const hit of fill.fills) voices[hit.i]?.push({ voice: hit.voice, time: false });
+      return { fill, units: gauge.unitsOfVoices(voices) };
+    };
+  }
   const fixed = Array.from({ length: grid.bars }, (_, bar) =>
     Array.from({ length: grid.slotsPerBar }, (_, i) =>
       (ob.cells[bar * grid.slotsPerBar + i] ?? []).some((hit) => hit.source !== 'ostinato'),
@@ -132,14 +147,22 @@ function candidateMeter(ctx: FillContext, gauge: TensionGauge): (fill: BarFill) 
   // Thousands of candidates on big cards: mark the fill on the bar's own onsets, measure, and
   // put the obligatory onsets back, rather than copy the bar per candidate.
   const scratch = fixed.map((onsets) => onsets.slice());
+  const lhl = lhlUnits(gauge);
   return (fill) => {
     const base = fixed[fill.bar] ?? [];
     const onsets = scratch[fill.bar] ?? [];
     for (const hit of fill.fills) onsets[hit.i] = true;
-    const units = gauge.units(onsets);
+    const units = lhl(onsets);
     for (const hit of fill.fills) onsets[hit.i] = base[hit.i] === true;
     return { fill, units };
   };
+}
+
+/** LHL tension units of a merged onset stream (every onset counts). */
+function lhlUnits(gauge: TensionGauge): (onsets: readonly boolean[]) => number {
+  const sound = [{ voice: 'snare' as const, time: false }];
+  const silent: { voice: 'snare'; time: boolean }[] = [];
+  return (onsets) => gauge.unitsOfVoices(onsets.map((on) => (on ? sound : silent)));
 }
 
 /** Only the rank order counts, so one fill per tension value is enough. */

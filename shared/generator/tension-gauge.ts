@@ -1,44 +1,109 @@
-import type { DrillBar } from './drill';
+import type { DrillBar, VoiceId } from './drill';
 import { barOnsets, lhlOnGrid, lhlRangeOnGrid, maxLhlOnGrid, metricalGrid } from './tension';
 import type { LhlRange } from './tension';
+import {
+  gridWeights,
+  WITEK_CLASS_OF_VOICE,
+  witekOnWeights,
+  witekStreams,
+  type WitekStreams,
+} from './tension/witek';
+import { witekMeter } from './tension/witek-meter';
+
+/** Which published measure a card's tension uses. */
+export type TensionMeasure = 'lhl' | 'witek';
 
 /** A bar's tension measured on a grid whose metrical tree is worked out once. */
 export interface TensionGauge {
-  /** The greatest Longuet-Higgins & Lee syncopation on the grid (tension 1). */
+  readonly measure: TensionMeasure;
+  /** The greatest raw syncopation on the grid (tension 1). */
   readonly most: number;
-  /** Tension in ten-thousandths from the bar's onset stream (ostinato left out). */
-  units(onsets: readonly boolean[]): number;
   /** A raw syncopation value in ten-thousandths of the scale. */
   unitsOfRaw(raw: number): number;
   /** A raw syncopation value on the 0..1 scale, 4 decimals. */
   scale(raw: number): number;
-  /** Same value as `measureTension(bar)`, for a bar on this gauge's grid. */
+  /**
+   * Tension in ten-thousandths of one bar, from the voices at each of its pulses (time layers
+   * included; the measure leaves out what it does not count).
+   */
+  unitsOfVoices(voices: readonly (readonly VoiceSound[])[]): number;
+  /** The raw (unscaled) syncopation of the same. */
+  rawOfVoices(voices: readonly (readonly VoiceSound[])[]): number;
+  /** Same value as `measureTension(bar, measure)`, for a bar on this gauge's grid. */
   ofBar(bar: DrillBar): number;
   /**
-   * The least and greatest raw syncopation (not scaled) of the bars that sound every `forced`
-   * pulse and nothing outside `allowed`: what any fill of those slots can reach.
+   * LHL only: the least and greatest raw syncopation (not scaled) of the bars that sound every
+   * `forced` pulse and nothing outside `allowed`: what any fill of those slots can reach.
    */
   reach(forced: readonly boolean[], allowed: readonly boolean[]): LhlRange;
+}
+
+/** A voice sounding at a pulse, and whether a time layer placed it. */
+export interface VoiceSound {
+  readonly voice: VoiceId;
+  readonly time: boolean;
 }
 
 /**
  * `measureTension` builds the metrical tree and its maximum on every call; the generator
  * measures hundreds of candidate bars on one grid, so it builds them once per drill. The value
- * is the same formula (LHL syncopation over the grid's maximum, 4 decimals); `checkDrill`
+ * is the same formula (the card's measure over the grid's maximum, 4 decimals); `checkDrill`
  * compares every stored tension with the same measure.
+ *
+ * Longuet-Higgins & Lee is monophonic and leaves the time layers out (the tension lies in what
+ * moves against them); Witek et al. weigh instruments against each other, the time-keeping
+ * hi-hat included, so every voice counts.
  */
-export function createTensionGauge(beats: readonly number[]): TensionGauge {
+export function createTensionGauge(
+  beats: readonly number[],
+  measure: TensionMeasure = 'lhl',
+): TensionGauge {
   const tree = metricalGrid(beats);
+  if (measure === 'witek') {
+    const weights = gridWeights(tree);
+    const most = witekMeter(beats).most;
+    const unitsOfRaw = (raw: number): number =>
+      most === 0 ? 0 : Math.round((raw / most) * 10_000);
+    const rawOfVoices = (voices: readonly (readonly VoiceSound[])[]): number =>
+      witekOnWeights(weights, streamsOf(voices));
+    return {
+      measure,
+      most,
+      unitsOfRaw,
+      scale: (raw) => unitsOfRaw(raw) / 10_000,
+      unitsOfVoices: (voices) => unitsOfRaw(rawOfVoices(voices)),
+      rawOfVoices,
+      ofBar: (bar) => unitsOfRaw(witekOnWeights(weights, witekStreams(bar, tree))) / 10_000,
+      reach: () => ({ least: 0, most }),
+    };
+  }
   const most = maxLhlOnGrid(tree);
   const units = (onsets: readonly boolean[]): number =>
     most === 0 ? 0 : Math.round((lhlOnGrid(tree, onsets) / most) * 10_000);
   const unitsOfRaw = (raw: number): number => (most === 0 ? 0 : Math.round((raw / most) * 10_000));
   return {
+    measure,
     most,
-    units,
     unitsOfRaw,
     scale: (raw) => unitsOfRaw(raw) / 10_000,
+    unitsOfVoices: (voices) => units(voices.map((at) => at.some((v) => !v.time))),
+    rawOfVoices: (voices) =>
+      lhlOnGrid(
+        tree,
+        voices.map((at) => at.some((v) => !v.time)),
+      ),
     ofBar: (bar) => units(barOnsets(bar, tree)) / 10_000,
     reach: (forced, allowed) => lhlRangeOnGrid(tree, forced, allowed),
   };
+}
+
+function streamsOf(voices: readonly (readonly VoiceSound[])[]): WitekStreams {
+  const low = voices.map(() => false);
+  const mid = low.slice();
+  const high = low.slice();
+  const by = { low, mid, high };
+  voices.forEach((at, pulse) => {
+    for (const v of at) by[WITEK_CLASS_OF_VOICE[v.voice]][pulse] = true;
+  });
+  return by;
 }

@@ -1,4 +1,5 @@
-import { isHandVoice } from './drill';
+import { isHandVoice, type VoiceId } from './drill';
+import { WITEK_CLASS_OF_VOICE } from './tension/witek';
 import { RuleConflictError } from './errors';
 import { emptyFill, type FillContext } from './fill';
 import { describePart, partKind } from './rules/describe';
@@ -10,6 +11,8 @@ import type { TensionGauge } from './tension-gauge';
 interface BarReach {
   readonly least: number;
   readonly most: number;
+  /** Every raw value the bar's fills can reach, ascending, when few enough to list. */
+  readonly values?: readonly number[];
 }
 
 /**
@@ -38,7 +41,9 @@ export function assertTensionReachable(
     let topBar = -1;
     for (const bar of levels[k] ?? []) {
       const r = reach[bar] as BarReach;
-      const pick = Math.max(r.least, floor + 1);
+      const pick = r.values
+        ? (r.values.find((v) => v > floor) ?? Number.POSITIVE_INFINITY)
+        : Math.max(r.least, floor + 1);
       if (pick > r.most)
         throw unreachable(ctx, gauge, targets, reach, levels, {
           level: k,
@@ -93,13 +98,74 @@ function barReaches(ctx: FillContext, gauge: TensionGauge): BarReach[] {
       key += fixed ? 'x' : fillable ? 'o' : '.';
     }
     let r = known.get(key);
-    if (!r) {
-      r = gauge.reach(forced, allowed);
+    if (!r || gauge.measure !== 'lhl') {
+      const range = gauge.measure === 'lhl' ? gauge.reach(forced, allowed) : null;
+      const values = listedValues(ctx, gauge, bar, allowed, forced);
+      r = values
+        ? { least: values[0] ?? 0, most: values[values.length - 1] ?? 0, values }
+        : (range ?? { least: 0, most: gauge.most });
       known.set(key, r);
     }
     out.push(r);
   }
   return out;
+}
+
+/** Bars with at most this many fill patterns have their reachable values listed exactly. */
+const LISTED_PATTERNS = 1024;
+
+/**
+ * Every raw value the fills of a bar can reach, when the bar has few enough fill patterns: each
+ * fillable slot stays silent or takes one fill voice (what the measure tells apart: any onset for
+ * LHL, the instrument class for Witek). The limbs and the linear budget are not applied, so the
+ * list can only be larger than what a drill reaches: a curve that cannot be stacked on it cannot
+ * be kept. Null when there are too many patterns (the exact range stands in).
+ */
+function listedValues(
+  ctx: FillContext,
+  gauge: TensionGauge,
+  bar: number,
+  allowed: readonly boolean[],
+  forced: readonly boolean[],
+): number[] | null {
+  const { grid, ob } = ctx;
+  const base = Array.from({ length: grid.slotsPerBar }, (_, i) =>
+    (ob.cells[bar * grid.slotsPerBar + i] ?? []).map((hit) => ({
+      voice: hit.voice,
+      time: hit.source === 'ostinato',
+    })),
+  );
+  const choices: { i: number; voices: VoiceId[] }[] = [];
+  let patterns = 1;
+  for (let i = 0; i < grid.slotsPerBar; i++) {
+    if (!allowed[i] || forced[i]) continue;
+    const distinct = new Map<string, VoiceId>();
+    for (const voice of ctx.options[bar]?.[i] ?? []) {
+      const effect = gauge.measure === 'lhl' ? 'onset' : WITEK_CLASS_OF_VOICE[voice];
+      if (!distinct.has(effect)) distinct.set(effect, voice);
+    }
+    if (distinct.size === 0) continue;
+    choices.push({ i, voices: [...distinct.values()] });
+    patterns *= distinct.size + 1;
+    if (patterns > LISTED_PATTERNS) return null;
+  }
+  const values = new Set<number>();
+  const walk = (k: number): void => {
+    const choice = choices[k];
+    if (!choice) {
+      values.add(gauge.rawOfVoices(base));
+      return;
+    }
+    walk(k + 1);
+    const at = base[choice.i] as { voice: VoiceId; time: boolean }[];
+    for (const voice of choice.voices) {
+      at.push({ voice, time: false });
+      walk(k + 1);
+      at.pop();
+    }
+  };
+  walk(0);
+  return [...values].sort((a, b) => a - b);
 }
 
 const tensionOf = (gauge: TensionGauge, raw: number): number =>

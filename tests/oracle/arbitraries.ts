@@ -10,7 +10,7 @@
  * - a tension curve is varied only when the notes the rules fix repeat bar for bar (then a drill
  *   whose bars all measure alike keeps any rank order, so the card is feasible); otherwise it is
  *   flat (every bar the same target: no order to keep), because the oracle does not measure
- *   tension.
+ *   tension; on the polyphonic (Witek) measure it is always flat.
  */
 import fc from 'fast-check';
 import { ALL_VOICES, isHand, readCard, type Voice } from './card';
@@ -383,7 +383,9 @@ function assemble(f: Frame, p: Picks): Json {
 
   // Flatten the tension curve unless the fixed notes repeat bar for bar.
   const tension = rules.find((r) => r['kind'] === 'tension');
-  if (tension && !repeatsEveryBar(card)) {
+  // The oracle reasons about Longuet-Higgins & Lee bars only (feasibility.ts): on the polyphonic
+  // measure a varied curve stays flat.
+  if (tension && (!repeatsEveryBar(card) || card['measure'] === 'witek')) {
     const curve = tension['curve'] as number[];
     tension['curve'] = curve.map(() => curve[0]!);
   }

@@ -2,7 +2,8 @@ import { HIT_SOURCES, type Drill, type DrillBar, type DrillHit, type VoiceId } f
 import { beatsOf, createGrid, instantOf, type Grid } from '../grid';
 import { checkHands } from './check-hands';
 import { where, type Located } from './located';
-import { measureTension, tensionMeter } from '../tension';
+import { measureTension } from '../tension';
+import { createTensionGauge } from '../tension-gauge';
 import { collectObligations, type Obligations } from '../obligations';
 import type { RuleCard } from '../schema';
 import { tensionUnits } from '../select';
@@ -32,9 +33,10 @@ export interface Violation {
 export function checkDrill(card: RuleCard, drill: Drill): Violation[] {
   // Bars on another grid are reported by the shape check before any tension is measured; the
   // rest share the card's grid, so its metrical tree and maximum are built once, not per bar.
-  const meter = tensionMeter(beatsOf(card.subdivision, card.meter.beats));
+  const beats = beatsOf(card.subdivision, card.meter.beats);
+  const gauge = createTensionGauge(beats, card.measure);
   const measure = (bar: DrillBar): number =>
-    bar.beats.join() === meter.beats.join() ? meter.measure(bar) : measureTension(bar);
+    bar.beats.join() === beats.join() ? gauge.ofBar(bar) : measureTension(bar, card.measure);
   return checkDrillWith(card, drill, measure);
 }
 

@@ -3,6 +3,7 @@ import { lhlOnGrid } from './lhl';
 import { maxLhlOnGrid } from './lhl-max';
 import { type BarGrid, metricalGrid } from './metrical-grid';
 import { barOnsets } from './onsets';
+import { measureWitek } from './witek-meter';
 
 /** Measures bars of one grid; build it once per grid when measuring many bars. */
 export interface TensionMeter {
@@ -56,7 +57,9 @@ export function tensionMeter(beats: BarGrid): TensionMeter {
  * syncopated; and it is a sum over rests, so one fill more or less moves it by a predictable step.
  *
  * Measuring many bars of one grid: use `tensionMeter(beats)`, which gives the same values.
+ * A card may choose the polyphonic measure of Witek et al. instead (`measure: "witek"`, see
+ * `measureWitek`); pass the card's measure to get the value its drills store.
  */
-export function measureTension(bar: DrillBar): number {
-  return tensionMeter(bar.beats).measure(bar);
+export function measureTension(bar: DrillBar, measure: 'lhl' | 'witek' = 'lhl'): number {
+  return measure === 'witek' ? measureWitek(bar) : tensionMeter(bar.beats).measure(bar);
 }
