@@ -29,7 +29,7 @@ export function generateDrill(input: RuleCard, seed: string): Drill {
   const ob = collectObligations(card, grid);
   assertNoObligationConflicts(card, grid, ob);
   const rng = createRng(seed);
-  const gauge = createTensionGauge(grid.beats);
+  const gauge = createTensionGauge(grid.beats, card.meter.grouping);
   const bars = fillAndStick(card, grid, ob, rng, gauge);
   const drill: Drill = { engine: ENGINE_VERSION, seed, card, bars };
   const violations = checkDrillWith(card, drill, gauge.ofBar, { grid, ob });

@@ -8,7 +8,7 @@ export interface TensionGauge {
   readonly most: number;
   /** Tension in ten-thousandths from the bar's onset stream (ostinato left out). */
   units(onsets: readonly boolean[]): number;
-  /** Same value as `measureTension(bar)`, for a bar on this gauge's grid. */
+  /** Same value as `measureTension(bar, grouping)`, for a bar on this gauge's grid. */
   ofBar(bar: DrillBar): number;
   /**
    * The least and greatest raw syncopation (not scaled) of the bars that sound every `forced`
@@ -21,10 +21,14 @@ export interface TensionGauge {
  * `measureTension` builds the metrical tree and its maximum on every call; the generator
  * measures hundreds of candidate bars on one grid, so it builds them once per drill. The value
  * is the same formula (LHL syncopation over the grid's maximum, 4 decimals); `checkDrill`
- * compares every stored tension with the same measure.
+ * compares every stored tension with the same measure. `grouping` is the card's
+ * `meter.grouping` (a level of the metrical tree between bar and beats; none for x/4 meters).
  */
-export function createTensionGauge(beats: readonly number[]): TensionGauge {
-  const tree = metricalGrid(beats);
+export function createTensionGauge(
+  beats: readonly number[],
+  grouping?: readonly number[] | null,
+): TensionGauge {
+  const tree = metricalGrid(beats, grouping);
   const most = maxLhlOnGrid(tree);
   const units = (onsets: readonly boolean[]): number =>
     most === 0 ? 0 : Math.round((lhlOnGrid(tree, onsets) / most) * 10_000);

@@ -32,7 +32,7 @@ export interface Violation {
 export function checkDrill(card: RuleCard, drill: Drill): Violation[] {
   // Bars on another grid are reported by the shape check before any tension is measured; the
   // rest share the card's grid, so its metrical tree and maximum are built once, not per bar.
-  const meter = tensionMeter(beatsOf(card.subdivision, card.meter.beats));
+  const meter = tensionMeter(beatsOf(card.subdivision, card.meter.beats), card.meter.grouping);
   const measure = (bar: DrillBar): number =>
     bar.beats.join() === meter.beats.join() ? meter.measure(bar) : measureTension(bar);
   return checkDrillWith(card, drill, measure);
