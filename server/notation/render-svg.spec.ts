@@ -299,3 +299,71 @@ describe('marks above the first system', () => {
     expect(tempo?.textContent?.replace(/\u00a0/g, ' ')).toContain('= 40');
   });
 });
+
+describe('renderDrillSvg: grouped eighth meters', () => {
+  /** A card with the hi-hat on every eighth, so each group's beam is complete. */
+  const eighthsCard = (beats: number, grouping?: number[]) =>
+    parseRuleCard({
+      meter: { beats, unit: 8, ...(grouping ? { grouping } : {}) },
+      subdivision: 1,
+      bars: 2,
+      voices: ['kick', 'snare', 'hihat'],
+      ostinato: { voice: 'hihat', slots: [0] },
+      density: 0.3,
+    });
+
+  /** Stems under each hands beam of each bar, e.g. `3 3 | 3 3`. */
+  function beamShape(svg: string): string {
+    const doc = parse(svg);
+    return [...doc.querySelectorAll('.tensile-bar')]
+      .map((bar) =>
+        [...bar.querySelectorAll('[data-voice="hands"] .vf-beam')]
+          .map((beam) => beam.querySelectorAll('.vf-stem').length)
+          .join(' '),
+      )
+      .join(' | ');
+  }
+
+  // Common practice; E. Gould, "Behind Bars" (Faber Music 2011), beaming in compound time (from
+  // memory): eighths beamed by the dotted-quarter beat, not as single flagged eighths.
+  it('beams 6/8 and 12/8 eighths in threes, with no flag on any hi-hat eighth', () => {
+    for (const [beats, shape] of [
+      [6, '3 3 | 3 3'],
+      [12, '3 3 3 3 | 3 3 3 3'],
+    ] as const) {
+      const { svg } = renderDrillSvg(generateDrill(eighthsCard(beats), 'threes'), {
+        width: 1100,
+      });
+      expect(beamShape(svg)).toBe(shape);
+      expect(parse(svg).querySelectorAll('[data-voice="hands"] .vf-flag')).toHaveLength(0);
+    }
+  });
+
+  it('shows 5/8, 7/8 and 15/8 groupings by beaming, and an uneven one over the signature', () => {
+    for (const [beats, grouping, shape, label] of [
+      [7, undefined, '2 2 3 | 2 2 3', '2+2+3'],
+      [7, [3, 2, 2], '3 2 2 | 3 2 2', '3+2+2'],
+      [5, undefined, '3 2 | 3 2', '3+2'],
+      [15, undefined, '3 3 3 3 3 | 3 3 3 3 3', null],
+    ] as const) {
+      const drill = generateDrill(eighthsCard(beats, grouping && [...grouping]), 'groups');
+      const { svg } = renderDrillSvg(drill, { width: 1100 });
+      expect(beamShape(svg)).toBe(shape);
+      const doc = parse(svg);
+      // The time signature stays the meter; the grouping is written once, over it.
+      expect(doc.querySelectorAll('.vf-timesignature')).toHaveLength(1);
+      const labels = [...doc.querySelectorAll('.tensile-grouping')].map((t) => t.textContent);
+      expect(labels).toEqual(label ? [label] : []);
+    }
+  });
+
+  it('keeps a cursor box for every beat, even one that a dotted quarter covers', () => {
+    const drill = generateDrill(eighthsCard(6), 'boxes');
+    const { layout } = renderDrillSvg(drill, { width: 1100 });
+    for (const bar of layout.bars) {
+      expect(bar.beats.map((b) => b.beat)).toEqual([1, 2, 3, 4, 5, 6]);
+      for (let i = 1; i < bar.beats.length; i++)
+        expect(bar.beats[i]!.x).toBeGreaterThan(bar.beats[i - 1]!.x);
+    }
+  });
+});

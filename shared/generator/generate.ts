@@ -29,7 +29,7 @@ export function generateDrill(input: RuleCard, seed: string): Drill {
   const ob = collectObligations(card, grid);
   assertNoObligationConflicts(card, grid, ob);
   const rng = createRng(seed);
-  const gauge = createTensionGauge(grid.beats, card.measure);
+  const gauge = createTensionGauge(grid.beats, card.measure, card.meter.grouping);
   const ctx = createFillContext(card, grid, ob);
   const reach = cardReach(ctx, gauge);
   const bars = fillAndStick(ctx, rng, gauge, reach);

@@ -8,7 +8,10 @@ import type { Meter } from './schema';
  * - quarter and half-note meters, and bars of one to three beats: no grouping (each beat counts).
  * Sixteenth meters group the same way. Returns null where the beats stand alone.
  */
-export function defaultGrouping(meter: Pick<Meter, 'beats' | 'unit'>): number[] | null {
+export function defaultGrouping(meter: {
+  readonly beats: number;
+  readonly unit: number;
+}): number[] | null {
   const { beats, unit } = meter;
   if (unit < 8 || beats <= 3) return null;
   if (beats % 3 === 0) return Array.from({ length: beats / 3 }, () => 3);

@@ -8,7 +8,7 @@ import {
   witekStreams,
   type WitekStreams,
 } from './tension/witek';
-import { witekMeter } from './tension/witek-meter';
+import { mostWitekOnWeights } from './tension/witek-max';
 
 /** Which published measure a card's tension uses. */
 export type TensionMeasure = 'lhl' | 'witek';
@@ -52,16 +52,18 @@ export interface VoiceSound {
  *
  * Longuet-Higgins & Lee is monophonic and leaves the time layers out (the tension lies in what
  * moves against them); Witek et al. weigh instruments against each other, the time-keeping
- * hi-hat included, so every voice counts.
+ * hi-hat included, so every voice counts. `grouping` is the card's `meter.grouping` (a level of
+ * the metrical tree between bar and beats; none for x/4 meters).
  */
 export function createTensionGauge(
   beats: readonly number[],
   measure: TensionMeasure = 'lhl',
+  grouping?: readonly number[] | null,
 ): TensionGauge {
-  const tree = metricalGrid(beats);
+  const tree = metricalGrid(beats, grouping);
   if (measure === 'witek') {
     const weights = gridWeights(tree);
-    const most = witekMeter(beats).most;
+    const most = mostWitekOnWeights(weights).most;
     const unitsOfRaw = (raw: number): number =>
       most === 0 ? 0 : Math.round((raw / most) * 10_000);
     const rawOfVoices = (voices: readonly (readonly VoiceSound[])[]): number =>

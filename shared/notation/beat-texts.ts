@@ -71,14 +71,13 @@ function drawCounts(
   bar.beats.forEach((beat, index) => {
     const xs = positions[index] ?? [];
     const size = syllableSize([...xs, positions[index + 1]?.[0] ?? stave.getNoteEndX()]);
-    for (const { slot, text, sounding } of beat.counts) {
+    for (const { slot, text, strong, sounding } of beat.counts) {
       const x = xs[slot];
       if (x === undefined) continue;
-      const onBeat = slot === 0;
       const className = sounding ? 'tensile-count' : 'tensile-count tensile-count-silent';
       const label = svgText(ctx, text, x, y, className, {
-        size: onBeat ? 15 : size,
-        weight: onBeat ? 'bold' : 'normal',
+        size: strong ? 15 : size,
+        weight: strong ? 'bold' : 'normal',
         ...(sounding ? {} : { opacity: SILENT_COUNT_OPACITY }),
       });
       label.setAttribute('data-beat', String(beat.beat));

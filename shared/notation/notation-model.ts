@@ -3,18 +3,37 @@
  * in two-voice drum-set writing, computed without any drawing library.
  *
  * Hands and feet are separate voices (hands stems up, feet stems down, as in two-voice kit
- * writing); each beat of each voice is spelled on its own (see `spellBeat`), so a tuplet bracket
- * never spans beats and beams break at every beat.
+ * writing). Each voice is spelled beat by beat (see `spellBeat`), so a tuplet bracket never spans
+ * beats and beams break at every beat; except in grouped eighth meters (6/8, 12/8, 7/8 as
+ * 2+2+3 …), where each group of beats is spelled and beamed as one unit (see `spellGroup`): 6/8
+ * eighths are beamed in threes, never left as single flagged eighths, and a silent dotted-quarter
+ * beat is one dotted-quarter rest. Beams and rests so show the grouping.
  */
 import type { DrillBar, DrillHit, Hand, VoiceId } from '../generator/drill';
-import { countSyllable } from './counting';
+import { defaultGrouping } from '../generator/meter';
+import { countBar } from './counting';
 import { headerMarks, type HeaderMarks, type MarkedCard } from './header-marks';
-import { spellBeat, type TupletRatio, type WrittenDuration } from './rhythm';
+import {
+  spellBeat,
+  spellGroup,
+  type RhythmEvent,
+  type TupletRatio,
+  type WrittenDuration,
+} from './rhythm';
 import { STAFF_PLACEMENTS, vexKeyOf, type Layer } from './staff-placement';
+
+/** The meter as notation reads it. */
+export interface NotationMeter {
+  readonly beats: number;
+  readonly unit: number;
+  /** Beats per group (`meter.grouping`); left out, the meter's default grouping is used. */
+  readonly grouping?: readonly number[] | undefined;
+}
 
 /** The part of a drill that notation reads (structurally a subset of the engine's `Drill`). */
 export interface NotationSource {
   readonly card: MarkedCard & {
+    readonly meter: NotationMeter;
     readonly voices?: readonly VoiceId[];
   };
   readonly bars: readonly DrillBar[];
@@ -34,7 +53,9 @@ export interface NotationHead {
 
 export interface NotationEvent {
   readonly kind: 'note' | 'rest';
-  /** Start as a slot of the drill's subdivision of this beat (0-based). */
+  /** The beat (from 1) the note or rest starts in. */
+  readonly beat: number;
+  /** Start as a slot of the drill's subdivision of that beat (0-based). */
   readonly slot: number;
   readonly duration: WrittenDuration;
   /** Heads sounding together, lowest on the staff first; empty for a rest. */
@@ -43,19 +64,37 @@ export interface NotationEvent {
   readonly accent: boolean;
 }
 
-export interface LayerBeat {
+/** Notes of one voice joined by a beam. */
+export interface NotationBeam {
+  /** Indices into the layer's `events` (notes only), in time order. */
+  readonly notes: readonly number[];
+  /**
+   * Positions in `notes` after which the secondary beams (sixteenths and shorter) break, so a
+   * dotted-quarter group of sixteenths reads as its three eighths.
+   */
+  readonly breaks: readonly number[];
+}
+
+/** A tuplet bracket over some events of one voice (one beat's, never across beats). */
+export interface NotationTuplet {
+  readonly ratio: TupletRatio;
+  /** Indices into the layer's `events`, in time order. */
+  readonly events: readonly number[];
+}
+
+/** One voice layer of one bar. */
+export interface LayerBar {
   readonly layer: Layer;
-  readonly tuplet: TupletRatio | null;
+  /** Notes and rests in time order; their lengths fill the bar. */
   readonly events: readonly NotationEvent[];
-  /** Indices into `events` of the notes beamed together (empty when nothing is beamed). */
-  readonly beam: readonly number[];
+  readonly beams: readonly NotationBeam[];
+  readonly tuplets: readonly NotationTuplet[];
 }
 
 export interface NotationBeat {
   /** Beat in the bar, from 1. */
   readonly beat: number;
   readonly subdivision: number;
-  readonly layers: readonly LayerBeat[];
   /**
    * Counting syllables, one for every slot of the beat's subdivision (the beat's number first),
    * so a student can count every slot; `sounding` tells whether anything is struck there.
@@ -68,6 +107,8 @@ export interface NotationBeat {
 export interface BeatCount {
   readonly slot: number;
   readonly text: string;
+  /** Printed bold: a counted beat's number, or a group's first count (see `countBar`). */
+  readonly strong: boolean;
   /** A hit sounds on this slot (else it is counted silently). */
   readonly sounding: boolean;
 }
@@ -76,10 +117,17 @@ export interface NotationBar {
   readonly bar: number;
   readonly tension: number;
   readonly beats: readonly NotationBeat[];
+  /** One entry per voice layer of the model, in the model's order. */
+  readonly layers: readonly LayerBar[];
 }
 
 export interface NotationModel {
-  readonly meter: { readonly beats: number; readonly unit: number };
+  readonly meter: {
+    readonly beats: number;
+    readonly unit: number;
+    /** Beats per group, or null where the beats stand alone (x/4, and x/8 bars of 1–3 beats). */
+    readonly grouping: readonly number[] | null;
+  };
   /** Voice layers written, hands first. */
   readonly layers: readonly Layer[];
   /** Voices that appear in the drill's card or hits, in staff order from the top. */
@@ -95,8 +143,19 @@ export function buildNotation(drill: NotationSource): NotationModel {
   const layers = (['hands', 'feet'] as const).filter((layer) =>
     voices.some((voice) => STAFF_PLACEMENTS[voice].layer === layer),
   );
-  const bars = drill.bars.map((bar) => notateBar(bar, layers, drill.card.meter.unit));
-  return { meter: drill.card.meter, layers, voices, bars, marks: headerMarks(drill.card) };
+  const { beats, unit } = drill.card.meter;
+  const given = drill.card.meter.grouping;
+  const grouping = given && given.length > 0 ? given.slice() : defaultGrouping({ beats, unit });
+  const meter = { beats, unit, grouping };
+  const bars = drill.bars.map((bar) => notateBar(bar, layers, meter));
+  return { meter, layers, voices, bars, marks: headerMarks(drill.card) };
+}
+
+/** "2+2+3" for an uneven grouping; null where the meter says it (even groups, or none). */
+export function groupingLabel(model: Pick<NotationModel, 'meter'>): string | null {
+  const grouping = model.meter.grouping;
+  if (!grouping || new Set(grouping).size < 2) return null;
+  return grouping.join('+');
 }
 
 function voicesOf(drill: NotationSource): VoiceId[] {
@@ -105,66 +164,180 @@ function voicesOf(drill: NotationSource): VoiceId[] {
   return [...used].sort((a, b) => STAFF_PLACEMENTS[b].position - STAFF_PLACEMENTS[a].position);
 }
 
-function notateBar(bar: DrillBar, layers: readonly Layer[], unit: number): NotationBar {
+function notateBar(
+  bar: DrillBar,
+  layers: readonly Layer[],
+  meter: NotationModel['meter'],
+): NotationBar {
+  const syllables = countBar(bar.beats, meter);
   const beats = bar.beats.map((subdivision, i) => {
     const beat = i + 1;
     const hits = bar.hits.filter((hit) => hit.beat === beat);
-    return notateBeat(beat, subdivision, hits, layers, unit);
+    const struck = new Set(hits.map((hit) => hit.slot));
+    const counts = (syllables[i] ?? []).map((syllable, slot) => ({
+      slot,
+      ...syllable,
+      sounding: struck.has(slot),
+    }));
+    const sticking = [...struck]
+      .sort((a, b) => a - b)
+      .map((slot) => ({ slot, hands: handsAt(hits, slot) }))
+      .filter((entry) => entry.hands.length > 0);
+    return { beat, subdivision, counts, sticking };
   });
-  return { bar: bar.bar, tension: bar.tension, beats };
-}
-
-function notateBeat(
-  beat: number,
-  subdivision: number,
-  hits: readonly DrillHit[],
-  layers: readonly Layer[],
-  unit: number,
-): NotationBeat {
-  const layerBeats = layers.map((layer) =>
+  const spans = beamSpans(bar.beats, meter);
+  const layerBars = layers.map((layer) =>
     notateLayer(
       layer,
-      subdivision,
-      hits.filter((h) => STAFF_PLACEMENTS[h.voice].layer === layer),
-      unit,
+      bar,
+      spans,
+      meter.unit,
+      bar.hits.filter((h) => STAFF_PLACEMENTS[h.voice].layer === layer),
     ),
   );
-  const struck = [...new Set(hits.map((hit) => hit.slot))].sort((a, b) => a - b);
-  const counts = Array.from({ length: subdivision }, (_, slot) => ({
-    slot,
-    text: countSyllable(beat, slot, subdivision),
-    sounding: struck.includes(slot),
-  }));
-  const sticking = struck
-    .map((slot) => ({ slot, hands: handsAt(hits, slot) }))
-    .filter((entry) => entry.hands.length > 0);
-  return { beat, subdivision, layers: layerBeats, counts, sticking };
+  return { bar: bar.bar, tension: bar.tension, beats, layers: layerBars };
+}
+
+/** A run of beats spelled and beamed together: one group of a grouped eighth meter, or a beat. */
+interface Span {
+  /** First beat, 0-based. */
+  readonly first: number;
+  readonly count: number;
+  /** Spelled as one unit (every beat of the group on one binary subdivision). */
+  readonly together: boolean;
+}
+
+/**
+ * The spans of a bar. Eighth and sixteenth meters group their beats (the meter's grouping; a bar
+ * of one to three beats without one is a single group, as 3/8's three eighths are beamed
+ * together); quarter and half-note beats each stand alone. A group is spelled as one unit when
+ * all its beats share one binary subdivision; a group holding tuplets is spelled beat by beat.
+ */
+function beamSpans(beats: readonly number[], meter: NotationModel['meter']): Span[] {
+  const groups = meter.unit >= 8 ? (meter.grouping ?? [beats.length]) : beats.map(() => 1);
+  const spans: Span[] = [];
+  let first = 0;
+  for (const count of groups) {
+    const slots = beats.slice(first, first + count);
+    const binary = slots.every((n) => n === slots[0] && (n & (n - 1)) === 0);
+    if (count > 1 && binary) spans.push({ first, count, together: true });
+    else
+      for (let b = first; b < first + count; b++)
+        spans.push({ first: b, count: 1, together: false });
+    first += count;
+  }
+  return spans;
 }
 
 function notateLayer(
   layer: Layer,
-  subdivision: number,
-  hits: readonly DrillHit[],
+  bar: DrillBar,
+  spans: readonly Span[],
   unit: number,
-): LayerBeat {
-  const rhythm = spellBeat(
-    subdivision,
-    hits.map((hit) => hit.slot),
-    unit,
-  );
-  const toSlot = subdivision / rhythm.grid;
-  const events = rhythm.events.map((event): NotationEvent => {
-    const slot = event.gridSlot * toSlot;
-    const heads = event.kind === 'note' ? headsAt(hits, slot) : [];
-    return {
-      kind: event.kind,
-      slot,
-      duration: event.duration,
-      heads,
-      accent: heads.some((head) => head.accent),
-    };
-  });
-  return { layer, tuplet: rhythm.tuplet, events, beam: beamOf(events) };
+  hits: readonly DrillHit[],
+): LayerBar {
+  const events: NotationEvent[] = [];
+  const beams: NotationBeam[] = [];
+  const tuplets: NotationTuplet[] = [];
+  for (const span of spans) {
+    const from = events.length;
+    if (span.together) {
+      const slots = bar.beats[span.first] ?? 1;
+      const inSpan = hits.filter(
+        (hit) => hit.beat > span.first && hit.beat <= span.first + span.count,
+      );
+      const rhythm = spellGroup(
+        span.count,
+        slots,
+        inSpan.map((hit) => (hit.beat - 1 - span.first) * slots + hit.slot),
+        unit,
+      );
+      const toSlot = slots / rhythm.grid;
+      for (const event of rhythm.events) {
+        const beat = span.first + Math.floor(event.gridSlot / rhythm.grid) + 1;
+        const slot = (event.gridSlot % rhythm.grid) * toSlot;
+        events.push(eventOf(event, beat, slot, inSpan));
+      }
+    } else {
+      const beat = span.first + 1;
+      const subdivision = bar.beats[span.first] ?? 1;
+      const inBeat = hits.filter((hit) => hit.beat === beat);
+      const rhythm = spellBeat(
+        subdivision,
+        inBeat.map((hit) => hit.slot),
+        unit,
+      );
+      const toSlot = subdivision / rhythm.grid;
+      for (const event of rhythm.events)
+        events.push(eventOf(event, beat, event.gridSlot * toSlot, inBeat));
+      if (rhythm.tuplet) {
+        const indices = Array.from({ length: events.length - from }, (_, i) => from + i);
+        tuplets.push({ ratio: rhythm.tuplet, events: indices });
+      }
+    }
+    beams.push(...beamsOf(events, from, span.count === 3 || span.count === 4));
+  }
+  return { layer, events, beams, tuplets };
+}
+
+function eventOf(
+  event: RhythmEvent,
+  beat: number,
+  slot: number,
+  hits: readonly DrillHit[],
+): NotationEvent {
+  const heads =
+    event.kind === 'note'
+      ? headsAt(
+          hits.filter((hit) => hit.beat === beat),
+          slot,
+        )
+      : [];
+  return {
+    kind: event.kind,
+    beat,
+    slot,
+    duration: event.duration,
+    heads,
+    accent: heads.some((head) => head.accent),
+  };
+}
+
+/**
+ * Beams over the events from `from` on (one span): each run of flagged notes (eighths and
+ * shorter) is beamed, over any rests between them; a quarter or longer note ends the run, and a
+ * lone flagged note keeps its flag. With `breakAtBeats`, secondary beams break where a new beat
+ * begins, so sixteenths in a group of three eighths read as three pairs (common practice; the
+ * VexFlow documentation of `Beam.setPartialBeamSideAt` calls the three-eighths reading of 6/8
+ * the typical one).
+ */
+function beamsOf(
+  events: readonly NotationEvent[],
+  from: number,
+  breakAtBeats: boolean,
+): NotationBeam[] {
+  const beams: NotationBeam[] = [];
+  let run: number[] = [];
+  const close = (): void => {
+    if (run.length >= 2) {
+      const breaks = breakAtBeats
+        ? run.slice(0, -1).flatMap((index, i) => {
+            const next = run[i + 1]!;
+            return events[next]!.beat !== events[index]!.beat ? [i] : [];
+          })
+        : [];
+      beams.push({ notes: run, breaks });
+    }
+    run = [];
+  };
+  for (let i = from; i < events.length; i++) {
+    const event = events[i]!;
+    if (event.kind === 'rest') continue;
+    if (event.duration.value >= 8) run.push(i);
+    else close();
+  }
+  close();
+  return beams;
 }
 
 function headsAt(hits: readonly DrillHit[], slot: number): NotationHead[] {
@@ -190,12 +363,4 @@ function handsAt(hits: readonly DrillHit[], slot: number): Hand[] {
     .filter((hit) => hit.slot === slot && hit.hand !== null)
     .sort((a, b) => STAFF_PLACEMENTS[b.voice].position - STAFF_PLACEMENTS[a.voice].position)
     .map((hit) => hit.hand as Hand);
-}
-
-/** Flagged notes of one beat share one beam; a single flagged note keeps its flag. */
-function beamOf(events: readonly NotationEvent[]): number[] {
-  const flagged = events.flatMap((event, i) =>
-    event.kind === 'note' && event.duration.value >= 8 ? [i] : [],
-  );
-  return flagged.length >= 2 ? flagged : [];
 }

@@ -6,12 +6,21 @@
  * Only the `vexflow/bravura` entry is used: it carries the Bravura and Academico fonts as data
  * URLs, so nothing is fetched at run time.
  */
-import { BarlineType, Formatter, Stave, type SVGContext } from 'vexflow/bravura';
+import {
+  BarlineType,
+  Formatter,
+  Stave,
+  StaveModifierPosition,
+  TimeSignature,
+  type SVGContext,
+} from 'vexflow/bravura';
 import { drawBeatTexts } from './beat-texts';
+import { countPositions } from './count-positions';
 import { EngravingContext, withFastEngraving } from './engraving-context';
 import { drawHeaderMarks, layoutHeaderMarks } from './header-marks';
 import { drawLegend, legendWidth } from './legend';
-import type { NotationBar, NotationModel } from './notation-model';
+import { svgText } from './svg-text';
+import { groupingLabel, type NotationBar, type NotationModel } from './notation-model';
 import { planSystems } from './system-layout';
 import { engraveBar, minimumBarWidth, type EngravedBar, type EngravedNote } from './vexflow-bar';
 
@@ -32,6 +41,11 @@ export interface RenderOptions {
    * system, in a band of its own (default true).
    */
   readonly showMarks?: boolean;
+  /**
+   * Write an uneven grouping ("2+2+3" in 7/8) over the time signature (default true). Even
+   * groupings (6/8, 12/8) go without: the meter says them.
+   */
+  readonly showGrouping?: boolean;
 }
 
 export interface BeatBox {
@@ -149,6 +163,8 @@ function engrave(
       stave.setDefaultLedgerLineStyle({ strokeStyle: ink, lineWidth: 2 });
       const engraved = engravedBars[barIndex]!;
       drawBar(ctx, bar, engraved, stave, options, topLineY);
+      if (barIndex === 0 && (options.showGrouping ?? true))
+        drawGrouping(ctx, model, stave, topLineY);
       boxes.push({
         bar: bar.bar,
         system: systemIndex,
@@ -158,7 +174,7 @@ function engrave(
         bottomLineY: topLineY + 4 * STAVE_SPACE,
         systemTop,
         systemBottom: systemTop + systemHeight,
-        beats: beatBoxes(engraved, stave),
+        beats: beatBoxes(bar, engraved, stave),
       });
       x += width;
     });
@@ -179,8 +195,11 @@ function naturalBarWidth(
   model: NotationModel,
   showCounts: boolean,
 ): number {
+  // Written events per beat (in whichever voice writes more there), summed over the bar.
   const notes = bar.beats.reduce(
-    (n, beat) => n + Math.max(...beat.layers.map((l) => l.events.length), 1),
+    (n, beat) =>
+      n +
+      Math.max(...bar.layers.map((l) => l.events.filter((e) => e.beat === beat.beat).length), 1),
     0,
   );
   const counted = showCounts ? bar.beats.reduce((n, beat) => n + beat.subdivision, 0) : 0;
@@ -205,6 +224,20 @@ function systemStartWidths(model: NotationModel): (systemIndex: number) => numbe
 
 function timeSignatureOf(model: NotationModel): string {
   return `${model.meter.beats}/${model.meter.unit}`;
+}
+
+/**
+ * The grouping of an odd meter written over its time signature, which stays the meter itself
+ * ("2+2+3" over 7/8): the usual way to show how the bar divides without changing the signature
+ * (common practice; E. Gould, "Behind Bars", Faber Music 2011, ch. "Time signatures", from
+ * memory). The beams show the same groups in every bar.
+ */
+function drawGrouping(ctx: SVGContext, model: NotationModel, stave: Stave, topLineY: number): void {
+  const label = groupingLabel(model);
+  const signature = stave.getModifiers(StaveModifierPosition.BEGIN, TimeSignature.CATEGORY)[0];
+  if (!label || !signature) return;
+  const x = signature.getX() + signature.getWidth() / 2;
+  svgText(ctx, label, x, topLineY - 8, 'tensile-grouping', { size: 13, weight: 'bold' });
 }
 
 /**
@@ -284,19 +317,31 @@ function drawNote(ctx: SVGContext, engraved: EngravedNote, stave: Stave): void {
   ctx.closeGroup();
 }
 
-/** Beat areas: from just before each beat's first note to just before the next beat's. */
-function beatBoxes(engraved: EngravedBar, stave: Stave): BeatBox[] {
-  const starts = new Map<number, number>();
-  for (const { note, beat } of engraved.notes) {
+/**
+ * Beat areas: from just before each beat's first note or rest to just before the next beat's. A
+ * beat where nothing starts (a dotted quarter of 6/8 covers three) gets the place its time gives
+ * it between the written instants around it, as the counting syllables do.
+ */
+function beatBoxes(bar: NotationBar, engraved: EngravedBar, stave: Stave): BeatBox[] {
+  const written = bar.beats.map(() => new Map<number, number>());
+  for (const { note, beat, event } of engraved.notes) {
+    const slots = written[beat - 1];
+    if (!slots) continue;
     const x = note.getAbsoluteX();
-    starts.set(beat, Math.min(starts.get(beat) ?? Infinity, x));
+    slots.set(event.slot, Math.min(slots.get(event.slot) ?? Infinity, x));
   }
-  const beats = [...starts.keys()].sort((a, b) => a - b);
+  const anchors = bar.beats.map((beat, i) => ({
+    subdivision: beat.subdivision,
+    written: written[i]!,
+  }));
+  const starts = countPositions(anchors, stave.getNoteStartX(), stave.getNoteEndX()).map(
+    (slots) => slots[0]!,
+  );
   const lead = 6;
-  return beats.map((beat, i) => {
-    const x = starts.get(beat)! - lead;
-    const next = beats[i + 1];
-    const end = next === undefined ? stave.getNoteEndX() : starts.get(next)! - lead;
-    return { beat, x, width: end - x };
+  return bar.beats.map((beat, i) => {
+    const x = starts[i]! - lead;
+    const next = starts[i + 1];
+    const end = next === undefined ? stave.getNoteEndX() : next - lead;
+    return { beat: beat.beat, x, width: end - x };
   });
 }

@@ -1,13 +1,16 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { soundingLength, spellBeat, type BeatRhythm } from './rhythm';
+import { soundingLength, spellBeat, spellGroup, type BeatRhythm } from './rhythm';
 
 /** Exact sum of the events' sounding lengths, as num/den of a whole note. */
-function beatLength(rhythm: BeatRhythm): { num: number; den: number } {
+function beatLength(rhythm: Pick<BeatRhythm, 'events'> & { tuplet?: BeatRhythm['tuplet'] }): {
+  num: number;
+  den: number;
+} {
   let num = 0;
   let den = 1;
   for (const event of rhythm.events) {
-    const part = soundingLength(event.duration, rhythm.tuplet);
+    const part = soundingLength(event.duration, rhythm.tuplet ?? null);
     num = num * part.den + part.num * den;
     den *= part.den;
     const g = gcd(num, den);
@@ -22,7 +25,7 @@ function gcd(a: number, b: number): number {
 }
 
 /** Written spelling as `8 8` / `8d 16` / `r16 8` for readable expectations. */
-function spelled(rhythm: BeatRhythm): string {
+function spelled(rhythm: Pick<BeatRhythm, 'events'>): string {
   return rhythm.events
     .map((e) => `${e.kind === 'rest' ? 'r' : ''}${e.duration.value}${e.duration.dots ? 'd' : ''}`)
     .join(' ');
@@ -121,4 +124,62 @@ describe('spellBeat: simplest readable spelling (common practice)', () => {
     expect(spelled(spellBeat(2, [0, 1], 2))).toBe('4 4');
     expect(spelled(spellBeat(4, [0, 2], 8))).toBe('16 16');
   });
+});
+
+describe('spellGroup: a group of a grouped eighth meter as one unit', () => {
+  const groupCase = fc
+    .record({
+      beats: fc.integer({ min: 1, max: 4 }),
+      slots: fc.constantFrom(1, 2, 4, 8),
+      unit: fc.constantFrom(8, 16),
+    })
+    .chain((g) =>
+      fc.record({
+        beats: fc.constant(g.beats),
+        slots: fc.constant(g.slots),
+        unit: fc.constant(g.unit),
+        onsets: fc.uniqueArray(fc.integer({ min: 0, max: g.beats * g.slots - 1 }), {
+          maxLength: g.beats * g.slots,
+        }),
+      }),
+    );
+
+  it('fills the group exactly, with a note at every hit and nowhere else', () => {
+    fc.assert(
+      fc.property(groupCase, ({ beats, slots, unit, onsets }) => {
+        const rhythm = spellGroup(beats, slots, onsets, unit);
+        const g = gcd(beats, unit);
+        expect(beatLength(rhythm)).toEqual({ num: beats / g, den: unit / g });
+        const factor = slots / rhythm.grid;
+        expect(
+          rhythm.events.filter((e) => e.kind === 'note').map((e) => e.gridSlot * factor),
+        ).toEqual([...onsets].sort((a, b) => a - b));
+        let at = 0;
+        for (const event of rhythm.events) {
+          expect(event.gridSlot).toBe(at);
+          at += event.length;
+        }
+        expect(at).toBe(beats * rhythm.grid);
+      }),
+    );
+  });
+
+  // Common practice; E. Gould, "Behind Bars" (Faber Music 2011), rests in compound time (from
+  // memory): a whole dotted-quarter rest, a quarter rest for the first two eighths of a beat,
+  // never for the last two.
+  it.each([
+    [3, 1, [], 'r4d'],
+    [3, 1, [2], 'r4 8'],
+    [3, 2, [0, 1], '16 16 r8 r8'],
+    [3, 2, [0, 3], '8d 16 r8'],
+    [2, 1, [], 'r4'],
+    [2, 1, [1], 'r8 8'],
+    [4, 1, [3], 'r4 r8 8'],
+    [4, 1, [1], 'r8 8 r4'],
+  ] as [number, number, number[], string][])(
+    'a group of %i beats of %i, hits on %j → %s',
+    (beats, slots, onsets, expected) => {
+      expect(spelled(spellGroup(beats, slots, onsets, 8))).toBe(expected);
+    },
+  );
 });

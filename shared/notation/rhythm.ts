@@ -72,6 +72,126 @@ export function spellBeat(
   return { grid, tuplet, events };
 }
 
+/** One group of beats of a grouped eighth meter, spelled as one unit (see `spellGroup`). */
+export interface GroupRhythm {
+  /** Slots per beat of the grid actually written (a divisor of the drill's slots per beat). */
+  readonly grid: number;
+  /** Notes and rests in time order over the whole group; their lengths sum to beats × grid. */
+  readonly events: readonly RhythmEvent[];
+}
+
+/**
+ * Spell one group of a grouped eighth meter (6/8's dotted quarter, 7/8's twos and three) as one
+ * unit, so the group reads as one beat of the meter (common practice; E. Gould, "Behind Bars",
+ * Faber Music 2011, chapters on beaming and rests in compound time, from memory):
+ * - notes last until the next onset where one value shows that: from the group's start any value
+ *   that fits (a dotted quarter for a lone hit on a dotted-quarter beat, quarter + eighth for
+ *   hits on 1 and 3 of 6/8); from a later beat either inside that beat or whole beats to the
+ *   group's end (eighth + quarter); off the beat, never past its beat;
+ * - rests fill whole beats where they can: the whole group (one dotted-quarter rest), or its
+ *   first two beats (a quarter rest), never its last two of three (two eighth rests, so the
+ *   dotted-quarter beat stays visible); in a group of four, halves as in simple time; inside a
+ *   beat, binary rests that start on a multiple of their own length, as in `spellBeat`.
+ * `beats` is the group's size (1–4), `slots` its slots per beat (1, 2, 4 or 8, the same for every
+ * beat), `onsets` the struck slots counted over the whole group (beat × slots + slot), `beatUnit`
+ * the meter's unit (8 or 16).
+ */
+export function spellGroup(
+  beats: number,
+  slots: number,
+  onsets: readonly number[],
+  beatUnit: number,
+): GroupRhythm {
+  const sorted = [...new Set(onsets)].sort((a, b) => a - b);
+  let reduction = slots;
+  while (reduction > 1 && sorted.some((slot) => slot % reduction !== 0)) reduction /= 2;
+  const grid = slots / reduction;
+  const total = beats * grid;
+  const at = sorted.map((slot) => slot / reduction);
+  const events: RhythmEvent[] = [];
+  pushGroupRests(events, 0, at[0] ?? total, grid, beats, beatUnit);
+  at.forEach((start, i) => {
+    const next = at[i + 1] ?? total;
+    const length = groupNoteLength(start, next - start, grid, beats);
+    events.push({
+      kind: 'note',
+      gridSlot: start,
+      length,
+      duration: writtenDuration(length, grid, beatUnit),
+    });
+    pushGroupRests(events, start + length, next, grid, beats, beatUnit);
+  });
+  return { grid, events };
+}
+
+/** Whole beats a rest may cover from beat `k` of a group of `beats`, longest first. */
+function restSpans(k: number, beats: number): readonly number[] {
+  if (beats === 4) return k === 0 ? [4, 2, 1] : k === 2 ? [2, 1] : [1];
+  return k === 0 ? [beats, 2, 1].filter((m) => m <= beats) : [1];
+}
+
+/** Whole beats a note may last from beat `k` of a group of `beats`. */
+function noteSpanFits(k: number, span: number, beats: number): boolean {
+  if (k + span > beats) return false;
+  if (beats === 4) return span === 1 || (span === 2 && k % 2 === 0) || k === 0;
+  return true;
+}
+
+function groupNoteLength(start: number, gap: number, grid: number, beats: number): number {
+  for (let length = Math.min(gap, beats * grid); length > 1; length--) {
+    if (isValue(length) && noteFits(start, length, grid, beats)) return length;
+  }
+  return 1;
+}
+
+/** Whether a note of `length` slots from group slot `start` keeps the group's beats readable. */
+function noteFits(start: number, length: number, grid: number, beats: number): boolean {
+  const offset = start % grid;
+  // Off the beat: never past its beat.
+  if (offset !== 0) return length <= grid - offset;
+  // On a beat, inside it.
+  if (length <= grid) return true;
+  // From the group's start any value that fits (a dotted eighth in 6/8 sixteenths included).
+  if (start === 0) return length % grid !== 0 || noteSpanFits(0, length / grid, beats);
+  // From a later beat, whole beats only.
+  return length % grid === 0 && noteSpanFits(start / grid, length / grid, beats);
+}
+
+/** A length one written value shows: 2^k or (dotted) 3·2^k slots. */
+function isValue(length: number): boolean {
+  const odd = length % 3 === 0 ? length / 3 : length;
+  return (odd & (odd - 1)) === 0;
+}
+
+function pushGroupRests(
+  events: RhythmEvent[],
+  from: number,
+  to: number,
+  grid: number,
+  beats: number,
+  beatUnit: number,
+): void {
+  let at = from;
+  while (at < to) {
+    let length: number;
+    if (at % grid === 0 && to - at >= grid) {
+      const whole = Math.floor((to - at) / grid);
+      const span = restSpans(at / grid, beats).find((m) => m <= whole) ?? 1;
+      length = span * grid;
+    } else {
+      length = grid;
+      while (length > 1 && (at % length !== 0 || at + length > to)) length /= 2;
+    }
+    events.push({
+      kind: 'rest',
+      gridSlot: at,
+      length,
+      duration: writtenDuration(length, grid, beatUnit),
+    });
+    at += length;
+  }
+}
+
 /** The real length of a written value under a tuplet, as a fraction of a whole note. */
 export function soundingLength(
   duration: WrittenDuration,

@@ -1,7 +1,8 @@
 /**
  * VexFlow objects for one bar of the notation model: one voice per layer (hands stems up, feet
- * stems down), with beams per beat, tuplet brackets per beat, accents, ghost-note parentheses and
- * open-hi-hat circles. Built fresh for every layout pass; nothing here draws.
+ * stems down), with the model's beams (per beat, or per group in grouped eighth meters), tuplet
+ * brackets per beat, accents, ghost-note parentheses and open-hi-hat circles. Built fresh for
+ * every layout pass; nothing here draws.
  */
 import {
   Articulation,
@@ -18,7 +19,7 @@ import {
   Voice,
   VoiceMode,
 } from 'vexflow/bravura';
-import type { LayerBeat, NotationBar, NotationEvent, NotationModel } from './notation-model';
+import type { LayerBar, NotationBar, NotationEvent, NotationModel } from './notation-model';
 import type { Layer } from './staff-placement';
 
 /** Where rests of each layer sit: hands' rests high, feet's rests low, out of each other's way. */
@@ -52,16 +53,15 @@ export function engraveBar(bar: NotationBar, model: NotationModel): EngravedBar 
   const voices = model.layers.map((layer) => {
     const voice = new Voice({ numBeats: model.meter.beats, beatValue: model.meter.unit });
     voice.setMode(VoiceMode.SOFT);
-    for (const beat of bar.beats) {
-      const layerBeat = beat.layers.find((l) => l.layer === layer);
-      if (!layerBeat) continue;
-      const staveNotes = layerBeat.events.map((event) => staveNoteOf(event, layer));
-      staveNotes.forEach((note, i) =>
-        notes.push({ note, layer, beat: beat.beat, event: layerBeat.events[i]! }),
-      );
-      addBeamAndTuplet(layerBeat, staveNotes, beams, tuplets);
-      voice.addTickables(staveNotes);
-    }
+    const layerBar = bar.layers.find((l) => l.layer === layer);
+    if (!layerBar) return { layer, voice };
+    const staveNotes = layerBar.events.map((event) => staveNoteOf(event, layer));
+    staveNotes.forEach((note, i) => {
+      const event = layerBar.events[i]!;
+      notes.push({ note, layer, beat: event.beat, event });
+    });
+    addBeamsAndTuplets(layerBar, staveNotes, beams, tuplets);
+    voice.addTickables(staveNotes);
     return { layer, voice };
   });
   return { voices, notes, beams, tuplets };
@@ -73,25 +73,30 @@ export function minimumBarWidth(engraved: EngravedBar): number {
   return new Formatter().joinVoices(voices).preCalculateMinTotalWidth(voices);
 }
 
-function addBeamAndTuplet(
-  layerBeat: LayerBeat,
+function addBeamsAndTuplets(
+  layerBar: LayerBar,
   staveNotes: StaveNote[],
   beams: { beam: Beam; layer: Layer }[],
   tuplets: EngravedTuplet[],
 ): void {
-  if (layerBeat.beam.length > 0) {
-    const beamed = layerBeat.beam.map((i) => staveNotes[i]!);
-    beams.push({ beam: new Beam(beamed), layer: layerBeat.layer });
+  for (const { notes, breaks } of layerBar.beams) {
+    const beam = new Beam(notes.map((i) => staveNotes[i]!));
+    // VexFlow breaks the sixteenth (and shorter) beams after each listed note.
+    if (breaks.length > 0) beam.breakSecondaryAt([...breaks]);
+    beams.push({ beam, layer: layerBar.layer });
   }
-  if (layerBeat.tuplet) {
-    const tuplet = new Tuplet(staveNotes, {
-      numNotes: layerBeat.tuplet.numNotes,
-      notesOccupied: layerBeat.tuplet.notesOccupied,
-      ratioed: false,
-      bracketed: true,
-      location: layerBeat.layer === 'hands' ? Tuplet.LOCATION_TOP : Tuplet.LOCATION_BOTTOM,
-    });
-    tuplets.push({ tuplet, layer: layerBeat.layer, numNotes: layerBeat.tuplet.numNotes });
+  for (const { ratio, events } of layerBar.tuplets) {
+    const tuplet = new Tuplet(
+      events.map((i) => staveNotes[i]!),
+      {
+        numNotes: ratio.numNotes,
+        notesOccupied: ratio.notesOccupied,
+        ratioed: false,
+        bracketed: true,
+        location: layerBar.layer === 'hands' ? Tuplet.LOCATION_TOP : Tuplet.LOCATION_BOTTOM,
+      },
+    );
+    tuplets.push({ tuplet, layer: layerBar.layer, numNotes: ratio.numNotes });
   }
 }
 

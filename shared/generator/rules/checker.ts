@@ -34,9 +34,11 @@ export function checkDrill(card: RuleCard, drill: Drill): Violation[] {
   // Bars on another grid are reported by the shape check before any tension is measured; the
   // rest share the card's grid, so its metrical tree and maximum are built once, not per bar.
   const beats = beatsOf(card.subdivision, card.meter.beats);
-  const gauge = createTensionGauge(beats, card.measure);
+  const gauge = createTensionGauge(beats, card.measure, card.meter.grouping);
   const measure = (bar: DrillBar): number =>
-    bar.beats.join() === beats.join() ? gauge.ofBar(bar) : measureTension(bar, card.measure);
+    bar.beats.join() === beats.join()
+      ? gauge.ofBar(bar)
+      : measureTension(bar, card.meter.grouping, card.measure);
   return checkDrillWith(card, drill, measure);
 }
 

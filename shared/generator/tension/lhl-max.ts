@@ -16,12 +16,20 @@ import { type BarGrid, type MetricalGrid, metricalGrid } from './metrical-grid';
  * earliest deadline) and the value is the best sum so far; the answer is the best state at the
  * bar's end with no deadline open.
  *
+ * The walk reads only the flattened tree (each pulse's chain of nodes, its level, the ends of its
+ * ancestors), so it is exact on every tree `metricalGrid` builds, the grouped ones (bar → groups →
+ * beats → slots) included, because two things hold there: every child lies one level below its
+ * parent (so a pulse's chain runs through consecutive depths and chain index c is depth k + c),
+ * and no node has a single child of its own span (a group of one beat is that beat, not a group
+ * node over it), so the parent of a chosen node always ends later than the node. The spec checks
+ * the maximum against every onset pattern on plain, tuplet, mixed and grouped grids.
+ *
  * Cost: O(pulses × depth × states) with 2^(depth+1) note masks and depth + 2 deadline codes:
  * the depth of a bar is at most 7 levels, so this is linear in pulses (about 2k steps for 16
  * sixteenths).
  */
-export function maxLhlSyncopation(beats: BarGrid): number {
-  return maxLhlOnGrid(metricalGrid(beats));
+export function maxLhlSyncopation(beats: BarGrid, grouping?: readonly number[] | null): number {
+  return maxLhlOnGrid(metricalGrid(beats, grouping));
 }
 
 /** `maxLhlSyncopation` on a grid already built. */

@@ -6,8 +6,13 @@ import { lhlRangeOnGrid } from './lhl-range';
 import { metricalGrid } from './metrical-grid';
 
 /** Every allowed pattern that sounds the forced pulses, measured one by one: the slow truth. */
-function exhaustiveRange(beats: readonly number[], forced: boolean[], allowed: boolean[]) {
-  const grid = metricalGrid(beats);
+function exhaustiveRange(
+  beats: readonly number[],
+  forced: boolean[],
+  allowed: boolean[],
+  grouping?: readonly number[],
+) {
+  const grid = metricalGrid(beats, grouping);
   let least = Number.POSITIVE_INFINITY;
   let most = Number.NEGATIVE_INFINITY;
   for (let mask = 0; mask < 1 << grid.pulses; mask++) {
@@ -29,12 +34,44 @@ const caseArb = fc
     return fc.record({ beats: fc.constant(beats), forced: flags, allowed: flags });
   });
 
+/** The same with a grouping of 1-4 beats per group between the bar and its beats. */
+const groupedCaseArb = fc
+  .array(fc.integer({ min: 1, max: 4 }), { minLength: 2, maxLength: 5 })
+  .chain((grouping) => {
+    const n = grouping.reduce((a, b) => a + b, 0);
+    return fc.record({
+      grouping: fc.constant(grouping),
+      beats: fc.array(fc.integer({ min: 1, max: 3 }), { minLength: n, maxLength: n }),
+    });
+  })
+  .filter(({ beats }) => beats.reduce((a, b) => a + b, 0) <= 13)
+  .chain(({ beats, grouping }) => {
+    const pulses = beats.reduce((a, b) => a + b, 0);
+    const flags = fc.array(fc.boolean(), { minLength: pulses, maxLength: pulses });
+    return fc.record({
+      beats: fc.constant(beats),
+      grouping: fc.constant(grouping),
+      forced: flags,
+      allowed: flags,
+    });
+  });
+
 describe('lhlRangeOnGrid', () => {
   it('equals the exhaustive least and greatest syncopation under forced and allowed pulses', () => {
     fc.assert(
       fc.property(caseArb, ({ beats, forced, allowed }) => {
         const got = lhlRangeOnGrid(metricalGrid(beats), forced, allowed);
         expect(got).toEqual(exhaustiveRange(beats, forced, allowed));
+      }),
+      { numRuns: 150 },
+    );
+  });
+
+  it('equals the exhaustive range on grouped grids (bar → groups → beats → slots)', () => {
+    fc.assert(
+      fc.property(groupedCaseArb, ({ beats, grouping, forced, allowed }) => {
+        const got = lhlRangeOnGrid(metricalGrid(beats, grouping), forced, allowed);
+        expect(got).toEqual(exhaustiveRange(beats, forced, allowed, grouping));
       }),
       { numRuns: 150 },
     );

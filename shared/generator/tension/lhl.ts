@@ -18,9 +18,15 @@ import { type BarGrid, type MetricalGrid, metricalGrid } from './metrical-grid';
  * weight of its start pulse. The notes seen so far are kept as a bit mask of levels holding only
  * the notes that can still be paired (a newer note hides every older note of equal or higher
  * weight), so each rest finds its note with one shift.
+ *
+ * `grouping` (beats per group, the card's `meter.grouping`) adds the group level to the tree.
  */
-export function lhlSyncopation(beats: BarGrid, onsets: readonly boolean[]): number {
-  return lhlOnGrid(metricalGrid(beats), onsets);
+export function lhlSyncopation(
+  beats: BarGrid,
+  onsets: readonly boolean[],
+  grouping?: readonly number[] | null,
+): number {
+  return lhlOnGrid(metricalGrid(beats, grouping), onsets);
 }
 
 /** `lhlSyncopation` on a grid already built (the onsets are read by pulse; missing = silent). */

@@ -17,6 +17,15 @@
  * For 4/4 in sixteenths this gives the weights 0,-4,-3,-4,-2,-4,-3,-4,-1,… used by the reference
  * implementation SynPy (C. Song, M. Pearce, C. Harte, "SynPy: a Python toolkit for syncopation
  * modelling", SMC 2015).
+ *
+ * A meter with a grouping (`meter.grouping`, beats per group: 6/8 as [3, 3], 7/8 as [2, 2, 3],
+ * 15/8 as five 3s) puts one more level between the bar and its beats: bar → groups → beats →
+ * slots. The bar divides into its groups (a composite group count prime-factored as above: four
+ * groups = 2 × 2, so in 12/8 the third dotted quarter is stronger than the second and fourth;
+ * five groups are one level), each group into its beats (2 or 3 beats: one level; 4 beats:
+ * 2 × 2; a group of one beat is the beat itself), each beat into its slots as above. So in 7/8 as
+ * 2+2+3 the eighths 1, 3 and 5 weigh -1 and the others -2, where the ungrouped tree would weigh
+ * all seven alike. Without a grouping the tree is exactly the one above.
  */
 
 /** Slots per beat, one entry per beat of the bar. */
@@ -25,6 +34,8 @@ export type BarGrid = readonly number[];
 /** One bar's tree, flattened: what the syncopation scans and the exact maximum need. */
 export interface MetricalGrid {
   readonly beats: BarGrid;
+  /** Beats per group, or null where the beats stand alone (bar → beats → slots). */
+  readonly grouping: readonly number[] | null;
   /** Pulses (slots) in the bar. */
   readonly pulses: number;
   /** Pulse of each beat's slot 0, plus the bar's end as a last entry. */
@@ -63,13 +74,24 @@ export function primeFactors(n: number): number[] {
 }
 
 /**
- * Builds the flattened metrical tree of a bar. Throws a RangeError for a grid that is not a list
- * of positive whole numbers of slots.
+ * Builds the flattened metrical tree of a bar, with the meter's grouping when it has one (beats
+ * per group, adding up to the bar's beats; see the file's comment). Throws a RangeError for a grid
+ * that is not a list of positive whole numbers of slots, or a grouping that does not fit it.
  */
-export function metricalGrid(beats: BarGrid): MetricalGrid {
+export function metricalGrid(beats: BarGrid, grouping?: readonly number[] | null): MetricalGrid {
   if (beats.length === 0 || beats.some((n) => !Number.isInteger(n) || n < 1)) {
     throw new RangeError(
       `A bar needs one or more beats of 1 or more slots (got [${beats.join(', ')}]).`,
+    );
+  }
+  if (
+    grouping &&
+    (grouping.length === 0 ||
+      grouping.some((n) => !Number.isInteger(n) || n < 1) ||
+      grouping.reduce((a, b) => a + b, 0) !== beats.length)
+  ) {
+    throw new RangeError(
+      `The grouping [${grouping.join(', ')}] does not divide a bar of ${beats.length} beats.`,
     );
   }
   const beatStarts = [0];
@@ -103,24 +125,60 @@ export function metricalGrid(beats: BarGrid): MetricalGrid {
     for (let i = 0; i < parts; i++) splitBeat(start + i * part, part, factors, f + 1, d + 1);
   };
 
-  const barFactors = primeFactors(beats.length);
-  const splitBeats = (firstBeat: number, count: number, f: number, d: number): void => {
+  /** `count` beats from `firstBeat` as one node, divided by `factors[f]`, `factors[f + 1]` … */
+  const splitBeats = (
+    firstBeat: number,
+    count: number,
+    factors: readonly number[],
+    f: number,
+    d: number,
+  ): void => {
     if (count === 1) {
       const slots = beats[firstBeat] ?? 1;
       splitBeat(beatStarts[firstBeat] ?? 0, slots, primeFactors(slots), 0, d);
       return;
     }
     addNode(beatStarts[firstBeat] ?? 0, beatStarts[firstBeat + count] ?? 0, d);
-    const parts = barFactors[f] ?? count;
+    const parts = factors[f] ?? count;
     const group = count / parts;
-    for (let i = 0; i < parts; i++) splitBeats(firstBeat + i * group, group, f + 1, d + 1);
+    for (let i = 0; i < parts; i++) splitBeats(firstBeat + i * group, group, factors, f + 1, d + 1);
   };
 
-  splitBeats(0, beats.length, 0, 0);
+  if (grouping && grouping.length > 1) {
+    // Bar → groups (the group count prime-factored) → each group's beats → slots.
+    const groupStarts = [0];
+    for (const size of grouping)
+      groupStarts.push((groupStarts[groupStarts.length - 1] ?? 0) + size);
+    const groupFactors = primeFactors(grouping.length);
+    const splitGroups = (firstGroup: number, count: number, f: number, d: number): void => {
+      const firstBeat = groupStarts[firstGroup] ?? 0;
+      if (count === 1) {
+        const size = grouping[firstGroup] ?? 1;
+        splitBeats(firstBeat, size, primeFactors(size), 0, d);
+        return;
+      }
+      addNode(beatStarts[firstBeat] ?? 0, beatStarts[groupStarts[firstGroup + count] ?? 0] ?? 0, d);
+      const parts = groupFactors[f] ?? count;
+      const size = count / parts;
+      for (let i = 0; i < parts; i++) splitGroups(firstGroup + i * size, size, f + 1, d + 1);
+    };
+    splitGroups(0, grouping.length, 0, 0);
+  } else {
+    splitBeats(0, beats.length, primeFactors(beats.length), 0, 0);
+  }
   const ancestorEnd = new Int32Array(pulses * (depth + 1));
   for (let i = 0; i < nodes.length; i += 3) {
     const [start = 0, end = 0, d = 0] = [nodes[i], nodes[i + 1], nodes[i + 2]];
     for (let p = start; p < end; p++) ancestorEnd[p * (depth + 1) + d] = end;
   }
-  return { beats, pulses, beatStarts, level, nodeEnds, depth, ancestorEnd };
+  return {
+    beats,
+    grouping: grouping && grouping.length > 0 ? grouping.slice() : null,
+    pulses,
+    beatStarts,
+    level,
+    nodeEnds,
+    depth,
+    ancestorEnd,
+  };
 }

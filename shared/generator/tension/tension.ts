@@ -3,11 +3,14 @@ import { lhlOnGrid } from './lhl';
 import { maxLhlOnGrid } from './lhl-max';
 import { type BarGrid, metricalGrid } from './metrical-grid';
 import { barOnsets } from './onsets';
-import { measureWitek } from './witek-meter';
+import { gridWeights, witekOnWeights, witekStreams } from './witek';
+import { mostWitekOnWeights } from './witek-max';
 
 /** Measures bars of one grid; build it once per grid when measuring many bars. */
 export interface TensionMeter {
   readonly beats: BarGrid;
+  /** The meter's grouping the tree was built with (null: the beats stand alone). */
+  readonly grouping: readonly number[] | null;
   /** The greatest Longuet-Higgins & Lee syncopation on this grid (the scale's 1). */
   readonly most: number;
   /** `measureTension` for a bar on this meter's grid (throws if the bar's grid differs). */
@@ -17,17 +20,20 @@ export interface TensionMeter {
 }
 
 /**
- * Builds the tension meter of a bar grid: the metrical tree and the exact maximum are computed
- * once, so each measure afterwards is a single pass over the bar (about a microsecond for 16
- * sixteenths). The caller owns the meter; nothing is cached inside the engine.
+ * Builds the tension meter of a bar grid, with the meter's grouping (beats per group, e.g. the
+ * card's `meter.grouping`) as a level of the metrical tree when given: the metrical tree and the
+ * exact maximum are computed once, so each measure afterwards is a single pass over the bar
+ * (about a microsecond for 16 sixteenths). The caller owns the meter; nothing is cached inside
+ * the engine.
  */
-export function tensionMeter(beats: BarGrid): TensionMeter {
-  const grid = metricalGrid(beats);
+export function tensionMeter(beats: BarGrid, grouping?: readonly number[] | null): TensionMeter {
+  const grid = metricalGrid(beats, grouping);
   const most = maxLhlOnGrid(grid);
   const scale = (value: number): number =>
     most === 0 ? 0 : Math.round((value / most) * 10_000) / 10_000;
   return {
     beats,
+    grouping: grid.grouping,
     most,
     measure(bar) {
       if (bar.beats.length !== beats.length || bar.beats.some((n, i) => n !== beats[i])) {
@@ -56,10 +62,24 @@ export function tensionMeter(beats: BarGrid): TensionMeter {
  * position is left unstruck), where the note-to-beat distance already rates plain sixteenths as
  * syncopated; and it is a sum over rests, so one fill more or less moves it by a predictable step.
  *
- * Measuring many bars of one grid: use `tensionMeter(beats)`, which gives the same values.
- * A card may choose the polyphonic measure of Witek et al. instead (`measure: "witek"`, see
- * `measureWitek`); pass the card's measure to get the value its drills store.
+ * A bar does not carry its meter's grouping: pass it (the card's `meter.grouping`) to measure on
+ * the grouped tree (6/8 as two dotted quarters, 7/8 as 2+2+3; see `metricalGrid`). Without it the
+ * beats stand alone, as in x/4 meters.
+ *
+ * Measuring many bars of one grid: use `tensionMeter(beats, grouping)`, which gives the same
+ * values. A card may choose the polyphonic measure of Witek et al. instead (`measure: "witek"`,
+ * see `measureWitek`); pass the card's measure to get the value its drills store.
  */
-export function measureTension(bar: DrillBar, measure: 'lhl' | 'witek' = 'lhl'): number {
-  return measure === 'witek' ? measureWitek(bar) : tensionMeter(bar.beats).measure(bar);
+export function measureTension(
+  bar: DrillBar,
+  grouping?: readonly number[] | null,
+  measure: 'lhl' | 'witek' = 'lhl',
+): number {
+  if (measure === 'witek') {
+    const weights = gridWeights(metricalGrid(bar.beats, grouping));
+    const most = mostWitekOnWeights(weights).most;
+    const raw = witekOnWeights(weights, witekStreams(bar, metricalGrid(bar.beats, grouping)));
+    return most === 0 ? 0 : Math.round((raw / most) * 10_000) / 10_000;
+  }
+  return tensionMeter(bar.beats, grouping).measure(bar);
 }

@@ -14,7 +14,11 @@ import {
   viewChild,
 } from '@angular/core';
 import type { Drill } from '../../../../shared/generator/index';
-import { buildNotation, type NotationModel } from '../../../../shared/notation/notation-model';
+import {
+  buildNotation,
+  groupingLabel,
+  type NotationModel,
+} from '../../../../shared/notation/notation-model';
 import { targetTension } from '../drill-result';
 import { TensionPlot } from '../tension-plot/tension-plot';
 import {
@@ -82,8 +86,12 @@ export class DrillScore {
     }));
   });
   protected readonly label = computed(() => {
-    const { meter, bars } = this.model();
-    return `Drum notation: ${bars.length} bars of ${meter.beats}/${meter.unit}. Left and right arrows step through the beats.`;
+    const model = this.model();
+    const { meter, bars } = model;
+    // An uneven grouping is read out as it is printed over the time signature ("2+2+3").
+    const grouping = groupingLabel(model);
+    const signature = `${meter.beats}/${meter.unit}${grouping ? ` (${grouping})` : ''}`;
+    return `Drum notation: ${bars.length} bars of ${signature}. Left and right arrows step through the beats.`;
   });
   protected readonly plotRoom = PLOT_ROOM;
   /** The system (line) the cursor is on: changes only when the cursor moves to another line. */
