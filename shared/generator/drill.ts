@@ -1,3 +1,4 @@
+import type { Difficulty } from './difficulty';
 import type { RuleCard } from './schema';
 
 /**
@@ -86,5 +87,7 @@ export interface Drill {
   readonly tensionReach: { readonly least: number; readonly most: number };
   /** `single` when the card leaves no room to vary: every seed gives this same drill. */
   readonly variety: 'single' | 'many';
+  /** How demanding the drill is (see `drillDifficulty`). */
+  readonly difficulty: Difficulty;
   readonly bars: readonly DrillBar[];
 }

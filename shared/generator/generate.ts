@@ -15,6 +15,7 @@ import { rankOrderBreaks, tensionTargets } from './rules/tension';
 import type { RuleCard } from './schema';
 import { chooseFills, SEARCH_WORK_BUDGET, type SearchBudget } from './select';
 import { ENGINE_VERSION } from './version';
+import { drillDifficulty } from './difficulty';
 
 /**
  * Generates the drill for a card and a seed: obligations first (ostinato, backbeat,
@@ -34,8 +35,9 @@ export function generateDrill(input: RuleCard, seed: string): Drill {
   const reach = cardReach(ctx, gauge);
   const bars = fillAndStick(ctx, rng, gauge, reach);
   const tensionReach = { least: gauge.scale(reach.least), most: gauge.scale(reach.most) };
-  const variety = allowsOneDrill(ctx) ? 'single' : 'many';
-  const drill: Drill = { engine: ENGINE_VERSION, seed, card, tensionReach, variety, bars };
+  const variety: Drill['variety'] = allowsOneDrill(ctx) ? 'single' : 'many';
+  const sketch = { engine: ENGINE_VERSION, seed, card, tensionReach, variety, bars };
+  const drill: Drill = { ...sketch, difficulty: drillDifficulty(sketch) };
   const violations = checkDrillWith(card, drill, gauge.ofBar, { grid, ob });
   if (violations.length > 0) {
     // Reaching this is an engine bug, not a card problem: say so plainly.

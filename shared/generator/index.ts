@@ -52,3 +52,4 @@ export {
   VOICE_ROLES,
 } from './schema';
 export { defaultGrouping, isCompound } from './meter';
+export { drillDifficulty, cardVariant, type Difficulty } from './difficulty';

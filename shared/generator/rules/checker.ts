@@ -8,6 +8,7 @@ import { collectObligations, type Obligations } from '../obligations';
 import type { RuleCard } from '../schema';
 import { tensionUnits } from '../select';
 import { ENGINE_VERSION } from '../version';
+import { drillDifficulty } from '../difficulty';
 import { voiceWord } from '../words';
 import { describePart } from './describe';
 import { embellishmentVoices, fillHolesOwners, fillVoices, shareCounts } from './fill-holes';
@@ -66,6 +67,8 @@ export function checkDrillWith(
   checkLinear(card, grid, cells, out);
   checkHands(card, grid, cells, out);
   checkTension(card, drill, measure, out);
+  if (JSON.stringify(drill.difficulty) !== JSON.stringify(drillDifficulty(drill)))
+    out.push({ code: 'drill', message: 'The difficulty does not match the drill.' });
   return out;
 }
 

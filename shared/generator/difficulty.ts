@@ -1,0 +1,130 @@
+import { FOOT_VOICES, type Drill, type DrillHit, type Hand } from './drill';
+import type { RuleCard } from './schema';
+
+/** How demanding a drill is to play, with the factors behind the score. */
+export interface Difficulty {
+  /** 0 (a first lesson) to 10 (the hardest the engine writes), one decimal. */
+  readonly score: number;
+  readonly level: 'beginner' | 'intermediate' | 'advanced';
+  readonly factors: {
+    /** Beats per minute as written. */
+    readonly tempo: number;
+    /** The fastest single hand, in notes per second (closest two strokes of one hand). */
+    readonly handRate: number;
+    /** The fastest single foot, in notes per second. */
+    readonly footRate: number;
+    /** Share of the grid's slots where something other than the time layers plays. */
+    readonly density: number;
+    /** Mean bar tension. */
+    readonly syncopation: number;
+    /** Share of sounding instants where two or more limbs strike together. */
+    readonly independence: number;
+  };
+}
+
+/**
+ * The references each factor is scaled by (each factor counts 0 at rest and 1 at its reference,
+ * capped there). Our own choice, tuned on the presets, not a published scale:
+ * - hand rate 12 notes a second (the engine's single-hand limit, common practice);
+ * - foot rate 8 notes a second (a sustained single-foot rate, common practice, from memory);
+ * - density 0.75 of the grid's slots, syncopation 0.8, independence 0.5.
+ */
+const REFERENCE = { handRate: 12, footRate: 8, density: 0.75, syncopation: 0.8, independence: 0.5 };
+
+/** Weights of the factors in the score (they add up to 1). */
+const WEIGHT = {
+  handRate: 0.3,
+  footRate: 0.15,
+  density: 0.15,
+  syncopation: 0.25,
+  independence: 0.15,
+};
+
+/**
+ * The drill's difficulty: a weighted sum of its fastest hand and foot, how much of the grid it
+ * fills, how syncopated it is and how often limbs strike together, each scaled to its reference
+ * and capped, times 10. Pure: the drill alone decides it.
+ */
+export function drillDifficulty(drill: Omit<Drill, 'difficulty'>): Difficulty {
+  const card = drill.card;
+  const secondsPerBeat = 60 / card.tempo;
+  const times: { t: number; hit: DrillHit }[] = [];
+  let slots = 0;
+  drill.bars.forEach((bar, b) => {
+    const beats = bar.beats.length;
+    slots += bar.beats.reduce((a, n) => a + n, 0);
+    for (const hit of bar.hits) {
+      const beatsIn = b * beats + (hit.beat - 1) + hit.slot / (bar.beats[hit.beat - 1] ?? 1);
+      times.push({ t: beatsIn * secondsPerBeat, hit });
+    }
+  });
+  const loop = drill.bars.length * (drill.bars[0]?.beats.length ?? 1) * secondsPerBeat;
+  const rate = (picks: (hit: DrillHit) => string | null): number => {
+    const last = new Map<string, number>();
+    const first = new Map<string, number>();
+    let gap = Infinity;
+    for (const { t, hit } of times) {
+      const limb = picks(hit);
+      if (limb === null) continue;
+      const before = last.get(limb);
+      if (before !== undefined && t > before) gap = Math.min(gap, t - before);
+      if (!first.has(limb)) first.set(limb, t);
+      last.set(limb, t);
+    }
+    for (const [limb, t] of last) {
+      const wrap = (first.get(limb) ?? t) + loop - t;
+      if (wrap > 0) gap = Math.min(gap, wrap);
+    }
+    return Number.isFinite(gap) ? 1 / gap : 0;
+  };
+  const handRate = rate((hit) => (hit.hand as Hand | null) ?? null);
+  const footRate = rate((hit) => (FOOT_VOICES.has(hit.voice) ? hit.voice : null));
+  const moving = new Set<number>();
+  const limbsAt = new Map<number, Set<string>>();
+  for (const { t, hit } of times) {
+    const key = Math.round(t * 1e6);
+    if (hit.source !== 'ostinato') moving.add(key);
+    const limbs = limbsAt.get(key) ?? new Set<string>();
+    limbs.add(hit.hand ?? hit.voice);
+    limbsAt.set(key, limbs);
+  }
+  const density = slots === 0 ? 0 : moving.size / slots;
+  const together = [...limbsAt.values()].filter((limbs) => limbs.size >= 2).length;
+  const independence = limbsAt.size === 0 ? 0 : together / limbsAt.size;
+  const syncopation =
+    drill.bars.reduce((sum, bar) => sum + bar.tension, 0) / Math.max(1, drill.bars.length);
+  const factors = { handRate, footRate, density, syncopation, independence };
+  let score = 0;
+  for (const name of Object.keys(WEIGHT) as (keyof typeof WEIGHT)[])
+    score += WEIGHT[name] * Math.min(1, factors[name] / REFERENCE[name]);
+  const rounded = Math.round(score * 100) / 10;
+  return {
+    score: rounded,
+    level: rounded < 3.5 ? 'beginner' : rounded < 6.5 ? 'intermediate' : 'advanced',
+    factors: {
+      tempo: card.tempo,
+      handRate: round2(handRate),
+      footRate: round2(footRate),
+      density: round2(density),
+      syncopation: round2(syncopation),
+      independence: round2(independence),
+    },
+  };
+}
+
+const round2 = (x: number): number => Math.round(x * 100) / 100;
+
+/**
+ * An easier or harder version of a card that keeps its idea (its meter, voices and rules): the
+ * tempo down 15 % or up 10 % (whole beats, within 20–320), the density down or up 0.15 (within
+ * 0–1). Curves, rules and roles stay as written.
+ */
+export function cardVariant(card: RuleCard, way: 'easier' | 'harder'): RuleCard {
+  const tempo =
+    way === 'easier'
+      ? Math.max(20, Math.round(card.tempo * 0.85))
+      : Math.min(320, Math.round(card.tempo * 1.1));
+  const step = way === 'easier' ? -0.15 : 0.15;
+  const density = Math.round(Math.min(1, Math.max(0, card.density + step)) * 100) / 100;
+  return { ...card, tempo, density };
+}
