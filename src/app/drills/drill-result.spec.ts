@@ -1,4 +1,4 @@
-import { generateFromCard, targetTension } from './drill-result';
+import { generateFromCard, onCardScale, targetTension } from './drill-result';
 
 const CARD = {
   meter: { beats: 4, unit: 4 },
@@ -55,5 +55,16 @@ describe('targetTension', () => {
     const result = generateFromCard({ ...CARD, rules: [CARD.rules[0]] }, 'lesson-12');
     if (result.status !== 'ready') throw new Error('card should generate');
     expect(targetTension(result.drill, 1)).toBeNull();
+  });
+});
+
+describe('onCardScale', () => {
+  it("places a bar's tension between the card's calmest and tensest bar", () => {
+    const drill = { tensionReach: { least: 0.2, most: 0.6 } } as Parameters<typeof onCardScale>[0];
+    expect(onCardScale(drill, 0.2)).toBe(0);
+    expect(onCardScale(drill, 0.4)).toBeCloseTo(0.5, 10);
+    expect(onCardScale(drill, 0.6)).toBe(1);
+    const flat = { tensionReach: { least: 0.3, most: 0.3 } } as Parameters<typeof onCardScale>[0];
+    expect(onCardScale(flat, 0.3)).toBeNull();
   });
 });

@@ -19,7 +19,7 @@ import {
   groupingLabel,
   type NotationModel,
 } from '../../../../shared/notation/notation-model';
-import { targetTension } from '../drill-result';
+import { onCardScale, targetTension } from '../drill-result';
 import { TensionPlot } from '../tension-plot/tension-plot';
 import {
   cursorBox,
@@ -82,6 +82,7 @@ export class DrillScore {
       y: box.systemBottom,
       width: box.width,
       tension: drill.bars.find((b) => b.bar === box.bar)?.tension ?? 0,
+      onScale: onCardScale(drill, drill.bars.find((b) => b.bar === box.bar)?.tension ?? 0),
       target: targetTension(drill, box.bar),
     }));
   });
