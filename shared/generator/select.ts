@@ -7,6 +7,9 @@ import { tensionLevels } from './rules/tension';
 /** Rounds of neighbour search after which the closest order found so far is kept. */
 const MAX_ROUNDS = 64;
 
+/** Rounds spent aiming closer to the targets once an order is found. */
+const AIM_ROUNDS = 24;
+
 /**
  * Work the tension search may spend on one drill, in slots of measured candidate bars (a
  * candidate costs about one unit per slot to build and measure). Rounds alone cost more on long
@@ -63,12 +66,15 @@ export function chooseFills(
   const candidates: Candidate[][] = base.map((fill) => [measure(fill)]);
   candidates.forEach((cands, bar) => keepNew(cands, measure(emptyFill(ctx, bar))));
   let best: { picks: number[]; miss: number } | null = null;
+  let found = -1;
   for (let round = 0; ; round++) {
     const picks = pickInOrder(levels, candidates, goals);
     if (picks) {
       const miss = missOf(picks, candidates, goals);
       if (!best || miss < best.miss) best = { picks, miss };
-      if (miss <= goalTolerance(goals.length) || round >= MAX_ROUNDS) break;
+      if (found < 0) found = round;
+      const aimed = round - found >= AIM_ROUNDS;
+      if (miss <= goalTolerance(goals.length) || aimed || round >= MAX_ROUNDS) break;
     } else if (round >= MAX_ROUNDS && best) {
       break;
     }
@@ -105,7 +111,10 @@ function missOf(
   return miss;
 }
 
-const goalTolerance = (bars: number): number => bars * 300;
+const goalTolerance = (bars: number): number => bars * GOAL_UNITS;
+
+/** How far a bar may sit from its goal, in ten-thousandths (0.04), before the search aims it. */
+const GOAL_UNITS = 400;
 
 /** Bars whose pick is off its goal by more than the tolerance, and the way they should move. */
 function aims(
@@ -116,7 +125,7 @@ function aims(
   const moves = new Map<number, 1 | -1>();
   picks.forEach((k, bar) => {
     const off = (candidates[bar]?.[k]?.units ?? 0) - (goals[bar] ?? 0);
-    if (Math.abs(off) > 300) moves.set(bar, off < 0 ? 1 : -1);
+    if (Math.abs(off) > GOAL_UNITS) moves.set(bar, off < 0 ? 1 : -1);
   });
   return moves;
 }
