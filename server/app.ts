@@ -4,6 +4,7 @@ import type session from 'express-session';
 import { createAuthRouter, createSignInLimiter } from './auth/auth-router';
 import { AuthService } from './auth/auth-service';
 import { createPassport } from './auth/passport-setup';
+import { PasswordHasher } from './auth/passwords';
 import { UsersRepository } from './auth/users-repository';
 import type { AttemptLimiter } from './auth/attempt-limiter';
 import type { Config } from './config';
@@ -50,7 +51,7 @@ export function createApp(deps: AppDeps): Express {
   const { config, db } = deps;
   const logger = deps.logger ?? createLogger(config.logLevel);
   const users = new UsersRepository(db);
-  const auth = new AuthService(users, config.bcryptCost);
+  const auth = new AuthService(users, new PasswordHasher(config.passwordHashCost), logger);
   const passport = createPassport(auth);
   const store = deps.sessionStore ?? createSessionStore(db, logger);
 

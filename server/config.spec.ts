@@ -26,7 +26,7 @@ describe('loadConfig', () => {
     expect(config.secureCookies).toBe(false);
     expect(config.trustProxy).toBe(false);
     expect(config.seedDemo).toBe(true);
-    expect(config.bcryptCost).toBe(12);
+    expect(config.passwordHashCost).toBe(15);
     expect(config.smtpUrl).toBeUndefined();
   });
 
@@ -45,18 +45,20 @@ describe('loadConfig', () => {
     expect(() => loadConfig({ PORT: port, DATA_DIR: dir })).toThrow(/PORT/);
   });
 
-  it('fails fast on a malformed PUBLIC_URL, SMTP_URL, SEED_DEMO or BCRYPT_COST', () => {
+  it('fails fast on a malformed PUBLIC_URL, SMTP_URL, SEED_DEMO or PASSWORD_HASH_COST', () => {
     expect(() => loadConfig({ PUBLIC_URL: 'not a url', DATA_DIR: dir })).toThrow(/PUBLIC_URL/);
     expect(() => loadConfig({ SMTP_URL: 'http://mail.test', DATA_DIR: dir })).toThrow(/SMTP_URL/);
     expect(() => loadConfig({ SEED_DEMO: 'maybe', DATA_DIR: dir })).toThrow(/SEED_DEMO/);
-    expect(() => loadConfig({ BCRYPT_COST: '3', DATA_DIR: dir })).toThrow(/BCRYPT_COST/);
+    expect(() => loadConfig({ PASSWORD_HASH_COST: '9', DATA_DIR: dir })).toThrow(
+      /PASSWORD_HASH_COST/,
+    );
   });
 
-  it('refuses a low bcrypt cost in production but allows it in tests', () => {
-    expect(loadConfig({ BCRYPT_COST: '4', DATA_DIR: dir }).bcryptCost).toBe(4);
-    expect(() => loadConfig({ BCRYPT_COST: '4', NODE_ENV: 'production', DATA_DIR: dir })).toThrow(
-      /BCRYPT_COST/,
-    );
+  it('refuses a low password hash cost in production but allows it in tests', () => {
+    expect(loadConfig({ PASSWORD_HASH_COST: '10', DATA_DIR: dir }).passwordHashCost).toBe(10);
+    expect(() =>
+      loadConfig({ PASSWORD_HASH_COST: '10', NODE_ENV: 'production', DATA_DIR: dir }),
+    ).toThrow(/PASSWORD_HASH_COST/);
   });
 
   it('refuses a short SESSION_SECRET', () => {

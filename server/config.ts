@@ -1,5 +1,6 @@
 import path from 'node:path';
 import { z } from 'zod';
+import { DEFAULT_HASH_COST } from './auth/passwords';
 import { MIN_SESSION_SECRET_LENGTH, readOrCreateSessionSecret } from './session-secret';
 
 /** Where and how the server keeps its data. */
@@ -20,8 +21,8 @@ export interface Config {
   /** Passed to Express's `trust proxy` setting. */
   readonly trustProxy: boolean | number | string;
   readonly seedDemo: boolean;
-  /** bcrypt cost factor for new password hashes (log2 of the rounds). */
-  readonly bcryptCost: number;
+  /** scrypt cost for new password hashes: log2 of N (see server/auth/passwords.ts). */
+  readonly passwordHashCost: number;
   readonly logLevel: LogLevelName;
   readonly production: boolean;
 }
@@ -47,7 +48,7 @@ const envSchema = z.object({
   PUBLIC_URL: z.url({ protocol: /^https?$/ }).optional(),
   TRUST_PROXY: z.string().min(1).optional(),
   SEED_DEMO: booleanText.default(true),
-  BCRYPT_COST: z.coerce.number().int().min(4).max(15).default(12),
+  PASSWORD_HASH_COST: z.coerce.number().int().min(10).max(20).default(DEFAULT_HASH_COST),
   LOG_LEVEL: z.enum(['debug', 'info', 'warn', 'error', 'silent']).default('info'),
 });
 
@@ -68,9 +69,9 @@ export function loadConfig(env: Env = process.env, cwd: string = process.cwd()):
   }
   const values = parsed.data;
   const production = values.NODE_ENV === 'production';
-  if (production && values.BCRYPT_COST < 10) {
+  if (production && values.PASSWORD_HASH_COST < DEFAULT_HASH_COST) {
     throw new ConfigError(
-      'Invalid server configuration. BCRYPT_COST: must be 10 or more in production',
+      `Invalid server configuration. PASSWORD_HASH_COST: must be ${DEFAULT_HASH_COST} or more in production`,
     );
   }
   const dataDir = path.resolve(cwd, values.DATA_DIR);
@@ -86,7 +87,7 @@ export function loadConfig(env: Env = process.env, cwd: string = process.cwd()):
     smtpUrl: values.SMTP_URL,
     trustProxy: parseTrustProxy(values.TRUST_PROXY, secureCookies),
     seedDemo: values.SEED_DEMO,
-    bcryptCost: values.BCRYPT_COST,
+    passwordHashCost: values.PASSWORD_HASH_COST,
     logLevel: values.LOG_LEVEL,
     production,
   });

@@ -29,7 +29,7 @@ function start(dataDir: string, extraEnv: Record<string, string> = {}): Promise<
       ...process.env,
       PORT: '0',
       DATA_DIR: dataDir,
-      BCRYPT_COST: '4',
+      PASSWORD_HASH_COST: '10',
       LOG_LEVEL: 'info',
       ...extraEnv,
     },

@@ -1,5 +1,6 @@
 import type { AddressInfo } from 'node:net';
 import { createApp } from './app';
+import { PasswordHasher } from './auth/passwords';
 import { loadConfig } from './config';
 import { createDb, migrateLatest } from './db';
 import { seedDemo } from './demo/seed-demo';
@@ -16,7 +17,7 @@ async function main(): Promise<void> {
   const ran = await migrateLatest(db);
   if (ran.length > 0) logger.info('Database migrated', { migrations: ran });
   if (config.seedDemo) {
-    const added = await seedDemo(db, { bcryptCost: config.bcryptCost });
+    const added = await seedDemo(db, new PasswordHasher(config.passwordHashCost));
     if (added > 0) logger.info('Demo accounts added', { count: added });
   }
   const sessionStore = createSessionStore(db, logger);

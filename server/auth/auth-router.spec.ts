@@ -1,7 +1,9 @@
+import bcrypt from 'bcryptjs';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { AttemptLimiter } from './attempt-limiter';
 import { AuthService } from './auth-service';
+import { PasswordHasher } from './passwords';
 import { UsersRepository } from './users-repository';
 import { createTestApp, findAccount, type TestApp } from '../testing/test-app';
 import { SESSION_COOKIE } from '../session';
@@ -168,6 +170,51 @@ describe('POST /api/auth/sign-in', () => {
       .post('/api/auth/sign-in')
       .send({ email: teacher.email, password: 'leaky-secret-1' });
     expect(t.logLines.join('\n')).not.toContain('leaky-secret-1');
+  });
+});
+
+describe('password hashes at sign-in', () => {
+  const storedHash = async (email: string) =>
+    ((await t.db('users').where({ email }).first()) as { password_hash: string }).password_hash;
+
+  it('replaces an old bcrypt hash with scrypt at the next successful sign-in', async () => {
+    const student = findAccount('noor.castellan@larkspur.test');
+    await t
+      .db('users')
+      .where({ email: student.email })
+      .update({ password_hash: await bcrypt.hash(student.password, 4) });
+    const wrong = await request(t.app)
+      .post('/api/auth/sign-in')
+      .send({ email: student.email, password: 'not-it' });
+    expect(wrong.status).toBe(401);
+    expect(await storedHash(student.email)).toMatch(/^\$2[aby]\$/);
+
+    const right = await request(t.app)
+      .post('/api/auth/sign-in')
+      .send({ email: student.email, password: student.password });
+    expect(right.status).toBe(200);
+    const upgraded = await storedHash(student.email);
+    expect(upgraded).toMatch(/^\$scrypt\$ln=10,r=8,p=1\$/);
+    // The new hash works, and is not replaced again.
+    const again = await request(t.app)
+      .post('/api/auth/sign-in')
+      .send({ email: student.email, password: student.password });
+    expect(again.status).toBe(200);
+    expect(await storedHash(student.email)).toBe(upgraded);
+  });
+
+  it('checks one scrypt hash for an unknown e-mail too, so timing does not reveal accounts', async () => {
+    const verify = vi.spyOn(PasswordHasher.prototype, 'verify');
+    try {
+      const res = await request(t.app)
+        .post('/api/auth/sign-in')
+        .send({ email: 'not-a-student@larkspur.test', password: 'anything' });
+      expect(res.status).toBe(401);
+      expect(verify).toHaveBeenCalledTimes(1);
+      expect(verify.mock.calls[0]![1]).toMatch(/^\$scrypt\$ln=10,/);
+    } finally {
+      verify.mockRestore();
+    }
   });
 });
 

@@ -62,6 +62,11 @@ export class UsersRepository {
     return rows.map(toPublicUser);
   }
 
+  /** Stores a new password hash for the account. */
+  async updatePasswordHash(id: number, passwordHash: string): Promise<void> {
+    await this.db('users').where({ id }).update({ password_hash: passwordHash });
+  }
+
   async count(): Promise<number> {
     const result = await this.db('users').count<{ count: number | string }[]>({ count: '*' });
     return Number(result[0]?.count ?? 0);
