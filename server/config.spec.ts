@@ -97,6 +97,23 @@ describe('loadConfig', () => {
   it('reads SEED_DEMO=false', () => {
     expect(loadConfig({ SEED_DEMO: 'false', DATA_DIR: dir }).seedDemo).toBe(false);
   });
+
+  it('seeds the demo school by default on a developer machine, never by default in production', () => {
+    const dev = loadConfig({ DATA_DIR: dir });
+    expect(dev.production).toBe(false);
+    expect(dev.seedDemo).toBe(true);
+    for (const env of [
+      { NODE_ENV: 'production' },
+      { PUBLIC_URL: 'https://studio.larkspur.test' },
+      { NODE_ENV: 'development', PUBLIC_URL: 'https://studio.larkspur.test' },
+    ]) {
+      const config = loadConfig({ ...env, DATA_DIR: dir });
+      expect(config.production).toBe(true);
+      expect(config.seedDemo).toBe(false);
+      // Only an explicit SEED_DEMO=true (a public demo on purpose) seeds in production.
+      expect(loadConfig({ ...env, SEED_DEMO: 'true', DATA_DIR: dir }).seedDemo).toBe(true);
+    }
+  });
 });
 
 describe('session secret', () => {

@@ -20,10 +20,15 @@ export interface Config {
   readonly smtpUrl: string | undefined;
   /** Passed to Express's `trust proxy` setting. */
   readonly trustProxy: boolean | number | string;
+  /**
+   * Seed the demo school into an empty database. Off in production unless SEED_DEMO=true is set
+   * explicitly; then the demo accounts' published passwords are accepted at start too.
+   */
   readonly seedDemo: boolean;
   /** scrypt cost for new password hashes: log2 of N (see server/auth/passwords.ts). */
   readonly passwordHashCost: number;
   readonly logLevel: LogLevelName;
+  /** NODE_ENV=production, or an https PUBLIC_URL: real people's data, no demo defaults. */
   readonly production: boolean;
 }
 
@@ -47,7 +52,7 @@ const envSchema = z.object({
   SMTP_URL: z.url({ protocol: /^smtps?$/ }).optional(),
   PUBLIC_URL: z.url({ protocol: /^https?$/ }).optional(),
   TRUST_PROXY: z.string().min(1).optional(),
-  SEED_DEMO: booleanText.default(true),
+  SEED_DEMO: booleanText.optional(),
   PASSWORD_HASH_COST: z.coerce.number().int().min(10).max(20).default(DEFAULT_HASH_COST),
   LOG_LEVEL: z.enum(['debug', 'info', 'warn', 'error', 'silent']).default('info'),
 });
@@ -68,15 +73,16 @@ export function loadConfig(env: Env = process.env, cwd: string = process.cwd()):
     throw new ConfigError(`Invalid server configuration. ${problems.join('; ')}`);
   }
   const values = parsed.data;
-  const production = values.NODE_ENV === 'production';
+  const publicUrl = stripTrailingSlash(values.PUBLIC_URL ?? `http://localhost:${values.PORT}`);
+  const secureCookies = publicUrl.startsWith('https:');
+  // An https address means a deployment people reach, whatever NODE_ENV says.
+  const production = values.NODE_ENV === 'production' || secureCookies;
   if (production && values.PASSWORD_HASH_COST < DEFAULT_HASH_COST) {
     throw new ConfigError(
       `Invalid server configuration. PASSWORD_HASH_COST: must be ${DEFAULT_HASH_COST} or more in production`,
     );
   }
   const dataDir = path.resolve(cwd, values.DATA_DIR);
-  const publicUrl = stripTrailingSlash(values.PUBLIC_URL ?? `http://localhost:${values.PORT}`);
-  const secureCookies = publicUrl.startsWith('https:');
   return Object.freeze({
     port: values.PORT,
     publicUrl,
@@ -86,7 +92,7 @@ export function loadConfig(env: Env = process.env, cwd: string = process.cwd()):
     sessionSecret: values.SESSION_SECRET ?? readOrCreateSessionSecret(dataDir),
     smtpUrl: values.SMTP_URL,
     trustProxy: parseTrustProxy(values.TRUST_PROXY, secureCookies),
-    seedDemo: values.SEED_DEMO,
+    seedDemo: values.SEED_DEMO ?? !production,
     passwordHashCost: values.PASSWORD_HASH_COST,
     logLevel: values.LOG_LEVEL,
     production,

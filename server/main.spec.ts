@@ -4,6 +4,9 @@ import os from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { PasswordHasher } from './auth/passwords';
+import { createDb, migrateLatest } from './db';
+import { seedDemo } from './demo/seed-demo';
 import { findAccount } from './testing/test-app';
 
 // Starts the real entry point the way `npm run serve` does (`node --import tsx`, not Vitest's
@@ -56,6 +59,27 @@ function start(dataDir: string, extraEnv: Record<string, string> = {}): Promise<
   });
 }
 
+/** Runs the entry point until it exits on its own (a refused start). */
+async function runToExit(
+  dir: string,
+  extraEnv: Record<string, string>,
+): Promise<{ code: number | null; stderr: string }> {
+  const child = spawn(process.execPath, SERVE, {
+    cwd: ROOT,
+    env: { ...process.env, PORT: '0', DATA_DIR: dir, ...extraEnv },
+    stdio: ['ignore', 'pipe', 'pipe'],
+  });
+  let stderr = '';
+  child.stderr.on('data', (chunk: Buffer) => (stderr += chunk.toString()));
+  const timer = setTimeout(() => child.kill('SIGKILL'), 20_000);
+  const code = await new Promise<number | null>((resolve) => child.on('exit', resolve));
+  clearTimeout(timer);
+  return { code, stderr };
+}
+
+/** A production start: the production hash cost, no SEED_DEMO. */
+const PRODUCTION = { NODE_ENV: 'production', PASSWORD_HASH_COST: '15' };
+
 let dataDir: string;
 beforeAll(async () => {
   dataDir = await mkdtemp(path.join(os.tmpdir(), 'tensile-main-'));
@@ -95,17 +119,64 @@ describe('server/main.ts under tsx', () => {
   });
 
   it('fails fast with a readable message on a bad PORT', async () => {
-    const child = spawn(process.execPath, SERVE, {
-      cwd: ROOT,
-      env: { ...process.env, PORT: 'eighty', DATA_DIR: dataDir },
-      stdio: ['ignore', 'pipe', 'pipe'],
-    });
-    let stderr = '';
-    child.stderr.on('data', (chunk: Buffer) => (stderr += chunk.toString()));
-    const code = await new Promise<number | null>((resolve) => child.on('exit', resolve));
+    const { code, stderr } = await runToExit(dataDir, { PORT: 'eighty' });
     expect(code).toBe(1);
     expect(stderr).toMatch(/Tensile could not start: Invalid server configuration\. PORT/);
     expect(stderr).not.toMatch(/\n\s+at /);
+  });
+
+  it('never seeds the demo school in production unless SEED_DEMO=true says so', async () => {
+    const fresh = await mkdtemp(path.join(os.tmpdir(), 'tensile-prod-'));
+    try {
+      const server = await start(fresh, PRODUCTION);
+      try {
+        expect(server.output()).not.toContain('Demo accounts added');
+        const admin = findAccount('admin');
+        const signIn = await fetch(`${server.url}/api/auth/sign-in`, {
+          method: 'POST',
+          headers: { 'content-type': 'application/json' },
+          body: JSON.stringify({ email: admin.email, password: admin.password }),
+        });
+        expect(signIn.status).toBe(401);
+      } finally {
+        server.child.kill('SIGTERM');
+        expect(await server.exited).toBe(0);
+      }
+      // Asked for explicitly (a public demo): seeded, and the log says the passwords work.
+      const demo = await start(fresh, { ...PRODUCTION, SEED_DEMO: 'true' });
+      demo.child.kill('SIGTERM');
+      expect(await demo.exited).toBe(0);
+      expect(demo.output()).toContain('Demo accounts added');
+      expect(demo.output()).toMatch(/SEED_DEMO=true in production/);
+    } finally {
+      await rm(fresh, { recursive: true, force: true });
+    }
+  });
+
+  it('refuses to start in production while an account still has a demo password', async () => {
+    const seeded = await mkdtemp(path.join(os.tmpdir(), 'tensile-prod-'));
+    try {
+      const db = createDb({
+        database: { client: 'better-sqlite3', filename: path.join(seeded, 'tensile.sqlite') },
+      });
+      try {
+        await migrateLatest(db);
+        await seedDemo(db, new PasswordHasher(10));
+      } finally {
+        await db.destroy();
+      }
+      for (const env of [PRODUCTION, { PUBLIC_URL: 'https://studio.larkspur.test' }]) {
+        const refused = await runToExit(seeded, { ...env, PASSWORD_HASH_COST: '15' });
+        expect(refused.code).toBe(1);
+        expect(refused.stderr).toMatch(
+          /Tensile could not start: .*accounts still accept a published demo password: .*imogen\.vale@larkspur\.test \(admin\)/,
+        );
+        expect(refused.stderr).toMatch(/SEED_DEMO=true/);
+        expect(refused.stderr).not.toMatch(/\n\s+at /);
+      }
+    } finally {
+      await rm(seeded, { recursive: true, force: true });
+    }
   });
 
   it('shares its settings with the knex CLI through knexfile.ts', async () => {

@@ -296,7 +296,10 @@ describe('sign-in attempt limit', () => {
 
 describe('cookies behind an https address', () => {
   it('marks the session cookie Secure when the proxy reports https', async () => {
-    const secure = await createTestApp({ env: { PUBLIC_URL: 'https://studio.larkspur.test' } });
+    // An https address is production: the production hash cost applies.
+    const secure = await createTestApp({
+      env: { PUBLIC_URL: 'https://studio.larkspur.test', PASSWORD_HASH_COST: '15' },
+    });
     try {
       const res = await request(secure.app)
         .post('/api/auth/sign-in')

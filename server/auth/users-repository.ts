@@ -33,6 +33,17 @@ export class UsersRepository {
       .first();
   }
 
+  /** Accounts with one of these e-mails or holding `role`, stored hash included. */
+  async listWithPasswordHashes(filter: {
+    emails: readonly string[];
+    role: Role;
+  }): Promise<UserRow[]> {
+    return this.db<UserRow>('users')
+      .whereIn('email', filter.emails.map(normaliseEmail))
+      .orWhere({ role: filter.role })
+      .orderBy('id');
+  }
+
   /** The active (not disabled) account with this id. */
   async findActiveById(id: number): Promise<PublicUser | undefined> {
     const row = await this.db<UserRow>('users')
