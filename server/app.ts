@@ -1,12 +1,12 @@
 import express, { type Express } from 'express';
 import type { Knex } from 'knex';
 import type session from 'express-session';
-import { createAuthRouter, createSignInLimiter } from './auth/auth-router';
+import { createAuthRouter } from './auth/auth-router';
 import { AuthService } from './auth/auth-service';
 import { createPassport } from './auth/passport-setup';
 import { PasswordHasher } from './auth/passwords';
+import { SignInLimiter } from './auth/sign-in-limiter';
 import { UsersRepository } from './auth/users-repository';
-import type { AttemptLimiter } from './auth/attempt-limiter';
 import type { Config } from './config';
 import { apiNotFound, errorHandler } from './error-handler';
 import { createHealthRouter } from './health/health-router';
@@ -37,7 +37,8 @@ export interface AppDeps {
   readonly sessionStore?: session.Store;
   /** The built browser app; defaults to `dist/tensile/browser`. */
   readonly browserDist?: string;
-  readonly signInLimiter?: AttemptLimiter;
+  /** Sign-in attempt limits; defaults to {@link SignInLimiter}'s own, counted in `db`. */
+  readonly signInLimiter?: SignInLimiter;
   readonly presets?: readonly PresetView[];
 }
 
@@ -80,7 +81,7 @@ export function createApp(deps: AppDeps): Express {
     '/api/auth',
     createAuthRouter({
       passport,
-      limiter: deps.signInLimiter ?? createSignInLimiter(),
+      limiter: deps.signInLimiter ?? new SignInLimiter(db),
       cookieName: SESSION_COOKIE,
     }),
   );

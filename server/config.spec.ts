@@ -85,11 +85,14 @@ describe('loadConfig', () => {
     );
   });
 
-  it('marks cookies secure and trusts private-network proxies behind an https address', () => {
+  it('marks cookies secure behind an https address but trusts no proxy unless told', () => {
     const config = loadConfig({ PUBLIC_URL: 'https://studio.larkspur.test/', DATA_DIR: dir });
     expect(config.publicUrl).toBe('https://studio.larkspur.test');
     expect(config.secureCookies).toBe(true);
-    expect(config.trustProxy).toBe('loopback, linklocal, uniquelocal');
+    expect(config.trustProxy).toBe(false);
+    expect(loadConfig({ TRUST_PROXY: 'loopback, 10.0.0.5', DATA_DIR: dir }).trustProxy).toBe(
+      'loopback, 10.0.0.5',
+    );
     expect(loadConfig({ TRUST_PROXY: '2', DATA_DIR: dir }).trustProxy).toBe(2);
     expect(loadConfig({ TRUST_PROXY: 'true', DATA_DIR: dir }).trustProxy).toBe(true);
   });

@@ -18,7 +18,10 @@ export interface Config {
   readonly database: DatabaseConfig;
   readonly sessionSecret: string;
   readonly smtpUrl: string | undefined;
-  /** Passed to Express's `trust proxy` setting. */
+  /**
+   * Passed to Express's `trust proxy` setting: which proxies may report the client's address
+   * (X-Forwarded-For) and protocol. Off unless TRUST_PROXY names them.
+   */
   readonly trustProxy: boolean | number | string;
   /**
    * Seed the demo school into an empty database. Off in production unless SEED_DEMO=true is set
@@ -91,7 +94,7 @@ export function loadConfig(env: Env = process.env, cwd: string = process.cwd()):
     database: parseDatabaseUrl(values.DATABASE_URL, dataDir, cwd),
     sessionSecret: values.SESSION_SECRET ?? readOrCreateSessionSecret(dataDir),
     smtpUrl: values.SMTP_URL,
-    trustProxy: parseTrustProxy(values.TRUST_PROXY, secureCookies),
+    trustProxy: parseTrustProxy(values.TRUST_PROXY),
     seedDemo: values.SEED_DEMO ?? !production,
     passwordHashCost: values.PASSWORD_HASH_COST,
     logLevel: values.LOG_LEVEL,
@@ -123,15 +126,14 @@ function parseDatabaseUrl(url: string | undefined, dataDir: string, cwd: string)
 }
 
 /**
- * Behind an https address the server normally sits behind a TLS-terminating proxy, so by
- * default it then trusts proxies on loopback and private networks (never public addresses,
- * which could forge client IPs). Explicit values follow Express's `trust proxy` setting.
+ * Trusts no proxy unless told: a trusted X-Forwarded-For names the client the sign-in limiter
+ * counts, and any host on a private network (another tenant, a compromised container) could
+ * otherwise pick that name. Values follow Express's `trust proxy` setting: addresses, subnets
+ * or names such as `loopback`, comma-separated; a hop count; or `true` (every hop: only when
+ * nothing can reach the server but the proxy).
  */
-function parseTrustProxy(
-  value: string | undefined,
-  secureCookies: boolean,
-): boolean | number | string {
-  if (value === undefined) return secureCookies ? 'loopback, linklocal, uniquelocal' : false;
+function parseTrustProxy(value: string | undefined): boolean | number | string {
+  if (value === undefined) return false;
   if (value === 'true') return true;
   if (value === 'false') return false;
   if (/^\d+$/.test(value)) return Number(value);

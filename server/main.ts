@@ -3,6 +3,7 @@ import { createApp } from './app';
 import { PasswordHasher } from './auth/passwords';
 import { ConfigError, loadConfig } from './config';
 import { createDb, migrateLatest } from './db';
+import { SignInLimiter } from './auth/sign-in-limiter';
 import { UsersRepository } from './auth/users-repository';
 import { DemoPasswordsError, refuseDemoPasswords } from './demo/demo-passwords';
 import { seedDemo } from './demo/seed-demo';
@@ -32,7 +33,9 @@ async function main(): Promise<void> {
     await refuseDemoPasswords(new UsersRepository(db), passwords);
   }
   const sessionStore = createSessionStore(db, logger);
-  const app = createApp({ config, db, logger, sessionStore });
+  const signInLimiter = new SignInLimiter(db);
+  const stopSweeping = signInLimiter.startSweeping(logger);
+  const app = createApp({ config, db, logger, sessionStore, signInLimiter });
   const server = app.listen(config.port, () => {
     const { port } = server.address() as AddressInfo;
     logger.info('Tensile is listening', {
@@ -58,6 +61,7 @@ async function main(): Promise<void> {
     forced.unref();
     server.close(() => {
       stopSessionStore(sessionStore);
+      stopSweeping();
       db.destroy().then(
         () => process.exit(0),
         () => process.exit(1),

@@ -9,6 +9,7 @@ import request from 'supertest';
 import { createApp, type AppDeps } from '../app';
 import { PasswordHasher } from '../auth/passwords';
 import type { Role } from '../auth/roles';
+import { SignInLimiter, type SignInLimits } from '../auth/sign-in-limiter';
 import { loadConfig, type Config } from '../config';
 import { createDb, migrateLatest } from '../db';
 import { DEMO_ACCOUNTS, type DemoAccount } from '../demo/seed-demo';
@@ -43,7 +44,9 @@ export interface TestAppOptions {
   /** Add the demo accounts (default true). */
   readonly seed?: boolean;
   /** Overrides for {@link createApp}'s dependencies. */
-  readonly deps?: Partial<Omit<AppDeps, 'config' | 'db'>>;
+  readonly deps?: Partial<Omit<AppDeps, 'config' | 'db' | 'signInLimiter'>>;
+  /** Sign-in limits other than the defaults (counted in the test database). */
+  readonly signInLimits?: SignInLimits;
 }
 
 /** scrypt's lowest allowed cost (N = 2^10) keeps tests fast; production uses 15 or more. */
@@ -72,6 +75,7 @@ export async function createTestApp(options: TestAppOptions = {}): Promise<TestA
     logger,
     sessionStore,
     browserDist: path.join(dataDir, 'no-dist'),
+    signInLimiter: new SignInLimiter(db, options.signInLimits),
     ...options.deps,
   });
 
