@@ -21,6 +21,7 @@ import {
   SESSION_COOKIE,
   createSessionMiddleware,
   createSessionStore,
+  refreshSession,
   warnWhenCookiesCannotBeSent,
 } from './session';
 import { StudentsService } from './students/students-service';
@@ -75,6 +76,7 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api', createSessionMiddleware(config, store));
   app.use('/api', passport.initialize());
   app.use('/api', passport.session());
+  app.use('/api', refreshSession());
 
   // Feature routers; each route states the roles it allows.
   app.use(

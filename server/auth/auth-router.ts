@@ -1,6 +1,7 @@
 import { Router, type Request, type Response } from 'express';
 import type passport from 'passport';
 import { HttpError } from '../http-error';
+import { saveSession } from '../session';
 import { validate } from '../validate';
 import type { SignInBody } from './auth-schemas';
 import { signInBody } from './auth-schemas';
@@ -45,6 +46,7 @@ export function createAuthRouter(deps: AuthRouterDeps): Router {
     await new Promise<void>((resolve, reject) =>
       req.login(user, (error: unknown) => (error ? reject(error) : resolve())),
     );
+    await saveSession(req);
     res.json({ user: publicUser(user) });
   });
 
