@@ -11,6 +11,7 @@ import type { Config } from './config';
 import { apiNotFound, errorHandler } from './error-handler';
 import { createHealthRouter } from './health/health-router';
 import { jsonBody } from './json-body';
+import { answerWrongMethods } from './method-not-allowed';
 import { createLogger, type Logger } from './logger';
 import { builtInPresetViews } from './presets/built-in-presets';
 import { createPresetsRouter, type PresetView } from './presets/presets-router';
@@ -71,25 +72,30 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api', requireSameOrigin(config.publicUrl));
   app.use('/api', jsonBody({ limit: JSON_BODY_LIMIT }));
   // Before the session: a health check must not depend on the session store answering.
-  app.use('/api/health', createHealthRouter(db));
+  app.use('/api/health', answerWrongMethods(createHealthRouter(db)));
   if (config.secureCookies) app.use('/api', warnWhenCookiesCannotBeSent(logger));
   app.use('/api', createSessionMiddleware(config, store));
   app.use('/api', passport.initialize());
   app.use('/api', passport.session());
   app.use('/api', refreshSession());
 
-  // Feature routers; each route states the roles it allows.
+  // Feature routers; each route states the roles it allows, and a wrong method gets a 405.
   app.use(
     '/api/auth',
-    createAuthRouter({
-      passport,
-      limiter: deps.signInLimiter ?? new SignInLimiter(db),
-      cookieName: SESSION_COOKIE,
-    }),
+    answerWrongMethods(
+      createAuthRouter({
+        passport,
+        limiter: deps.signInLimiter ?? new SignInLimiter(db),
+        cookieName: SESSION_COOKIE,
+      }),
+    ),
   );
-  app.use('/api/users', createUsersRouter(users));
-  app.use('/api/students', createStudentsRouter(new StudentsService(users)));
-  app.use('/api/presets', createPresetsRouter(deps.presets ?? builtInPresetViews()));
+  app.use('/api/users', answerWrongMethods(createUsersRouter(users)));
+  app.use('/api/students', answerWrongMethods(createStudentsRouter(new StudentsService(users))));
+  app.use(
+    '/api/presets',
+    answerWrongMethods(createPresetsRouter(deps.presets ?? builtInPresetViews())),
+  );
   app.use('/api', apiNotFound);
 
   app.use(createSpaRouter(deps.browserDist));

@@ -136,6 +136,24 @@ describe('POST /api/auth/sign-in', () => {
     }
   });
 
+  it.each([
+    [
+      'e-mail',
+      { email: `${'e'.repeat(5_000)}@larkspur.test`, password: 'x' },
+      /e-mail address has at most 254 characters/,
+    ],
+    [
+      'password',
+      { email: teacher.email, password: 'p'.repeat(5_000) },
+      /password has at most 200 characters/,
+    ],
+  ])('says how long a 5,000-character %s may be', async (_what, body, message) => {
+    const res = await request(t.app).post('/api/auth/sign-in').send(body);
+    expect(res.status).toBe(400);
+    expect(res.body.error.message).toMatch(message);
+    expect(res.body.error.message).not.toMatch(/missing|like/);
+  });
+
   it('answers a body that is not JSON at all with 400', async () => {
     const res = await request(t.app).post('/api/auth/sign-in').type('text/plain').send('hello');
     expect(res.status).toBe(400);
