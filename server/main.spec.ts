@@ -9,7 +9,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { PasswordHasher } from './auth/passwords';
 import { createDb, migrateLatest } from './db';
 import { seedDemo } from './demo/seed-demo';
-import { findAccount } from './testing/test-app';
+import { AGE_SESSIONS, findAccount } from './testing/test-app';
 
 // Starts the real entry point the way `npm run serve` does (`node --import tsx`, not Vitest's
 // transform), so this checks that knex loads the TypeScript migrations in production, that demo seeding
@@ -209,7 +209,7 @@ describe('server/main.ts under tsx', () => {
         const other = new Database(path.join(dir, 'tensile.sqlite'));
         try {
           // Due a refresh (a write), as a session is after 5 minutes; then lock as `sqlite3` would.
-          other.exec(`update sessions set sess = json_set(sess, '$.refreshedAt', 0)`);
+          other.exec(AGE_SESSIONS);
           other.exec('BEGIN IMMEDIATE');
           other.exec('UPDATE users SET name = name WHERE id = -1');
           const started = performance.now();

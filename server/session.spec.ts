@@ -13,7 +13,7 @@ import {
   SafeSessionStore,
   createSessionStore,
 } from './session';
-import { createTestApp, findAccount, type TestApp } from './testing/test-app';
+import { AGE_SESSIONS, createTestApp, findAccount, type TestApp } from './testing/test-app';
 
 let t: TestApp | undefined;
 afterEach(async () => {
@@ -22,9 +22,9 @@ afterEach(async () => {
   t = undefined;
 });
 
-/** Makes every stored session look last refreshed long ago, so its next request renews it. */
+/** Makes every stored session look saved an hour ago, so its next request renews it. */
 async function ageSessions(app: TestApp): Promise<void> {
-  await app.db.raw(`update sessions set sess = json_set(sess, '$.refreshedAt', 0)`);
+  await app.db.raw(AGE_SESSIONS);
 }
 
 function sqliteFile(app: TestApp): string {

@@ -1,5 +1,5 @@
 import { ConnectSessionKnexStore } from 'connect-session-knex';
-import type { Request, RequestHandler } from 'express';
+import type { RequestHandler } from 'express';
 import session, { type SessionData } from 'express-session';
 import type { Knex } from 'knex';
 import type { Config } from './config';
@@ -21,7 +21,7 @@ export const SESSION_REFRESH_MS = 5 * 60_000;
 
 declare module 'express-session' {
   interface SessionData {
-    /** When the session was last saved with a new expiry (epoch ms). */
+    /** When {@link refreshSession} last renewed the session (epoch ms). */
     refreshedAt?: number;
   }
 }
@@ -105,7 +105,7 @@ export function stopSessionStore(store: SafeSessionStore): void {
 
 /**
  * express-session with an HttpOnly, SameSite=Lax cookie, `Secure` behind an https address. Not
- * rolling and never resaved unchanged: only {@link saveSession} renews a session's expiry.
+ * rolling and never resaved unchanged: only {@link refreshSession} renews a session's expiry.
  */
 export function createSessionMiddleware(
   config: Pick<Config, 'sessionSecret' | 'secureCookies'>,
@@ -129,27 +129,22 @@ export function createSessionMiddleware(
 }
 
 /**
- * Stores the session now, with a new expiry, instead of when the response ends: a store failure
- * then becomes this request's 503, not an error after the answer has gone out. The changed
- * `refreshedAt` also makes express-session send the cookie again with the new expiry.
- */
-export function saveSession(req: Request): Promise<void> {
-  req.session.refreshedAt = Date.now();
-  req.session.touch();
-  return new Promise((resolve, reject) =>
-    req.session.save((error: unknown) => (error ? reject(error) : resolve())),
-  );
-}
-
-/**
- * Renews a signed-in session's expiry when its last refresh is older than `refreshAfterMs`, so
- * a session lasts a week from the last visit while most requests write nothing.
+ * Renews a signed-in session's expiry once it was last saved more than `refreshAfterMs` ago, so
+ * a session lasts a week from the last visit while most requests write nothing. The save happens
+ * here, before the route, instead of when the response ends: a store failure is then this
+ * request's 503, not an error after the answer has gone out. (Sign-in needs nothing of this:
+ * Passport saves the new session itself before answering.)
  */
 export function refreshSession(refreshAfterMs: number = SESSION_REFRESH_MS): RequestHandler {
   return (req, _res, next) => {
     if (!req.user || !req.session) return next();
-    if (Date.now() - (req.session.refreshedAt ?? 0) < refreshAfterMs) return next();
-    saveSession(req).then(() => next(), next);
+    // The loaded session still carries the expiry it was stored with: saved at expires − max age.
+    const expires = req.session.cookie.expires?.getTime() ?? 0;
+    if (Date.now() - (expires - SESSION_MAX_AGE_MS) < refreshAfterMs) return next();
+    // A changed value makes express-session send the cookie again, with the new expiry.
+    req.session.refreshedAt = Date.now();
+    req.session.touch();
+    req.session.save((error: unknown) => next(error));
   };
 }
 

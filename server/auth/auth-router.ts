@@ -1,7 +1,6 @@
 import { Router, type Request, type Response } from 'express';
 import type passport from 'passport';
 import { HttpError } from '../http-error';
-import { saveSession } from '../session';
 import { validate } from '../validate';
 import type { SignInBody } from './auth-schemas';
 import { signInBody } from './auth-schemas';
@@ -42,11 +41,11 @@ export function createAuthRouter(deps: AuthRouterDeps): Router {
     const user = await authenticate(deps.passport, req, res);
     if (!user) throw new HttpError(401, 'invalid_credentials', WRONG_CREDENTIALS);
     await deps.limiter.succeeded(address, body.email);
-    // req.login regenerates the session (Passport 0.7), so a pre-sign-in id is never reused.
+    // req.login regenerates the session (Passport 0.7), so a pre-sign-in id is never reused,
+    // and saves it before we answer, so a store failure is this request's 503.
     await new Promise<void>((resolve, reject) =>
       req.login(user, (error: unknown) => (error ? reject(error) : resolve())),
     );
-    await saveSession(req);
     res.json({ user: publicUser(user) });
   });
 

@@ -117,6 +117,14 @@ export async function createTestApp(options: TestAppOptions = {}): Promise<TestA
   };
 }
 
+/**
+ * SQLite statement that makes every stored session look saved an hour ago (its expiry a week
+ * from then), so the next signed-in request is due a refresh, i.e. a write.
+ */
+export const AGE_SESSIONS =
+  "update sessions set sess = json_set(sess, '$.cookie.expires', " +
+  "strftime('%Y-%m-%dT%H:%M:%fZ', 'now', '-1 hour', '+7 days'))";
+
 /** The demo account with this e-mail, or the first demo account holding this role. */
 export function findAccount(who: Role | string): DemoAccount {
   const account =
