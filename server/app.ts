@@ -1,15 +1,17 @@
 import express, { type Express } from 'express';
 import type { Knex } from 'knex';
 import type session from 'express-session';
-import { createAuthRouter, createSignInLimiter } from './auth/auth-router';
+import { createAuthRouter } from './auth/auth-router';
 import { AuthService } from './auth/auth-service';
 import { createPassport } from './auth/passport-setup';
+import { PasswordHasher } from './auth/passwords';
+import { SignInLimiter } from './auth/sign-in-limiter';
 import { UsersRepository } from './auth/users-repository';
-import type { AttemptLimiter } from './auth/attempt-limiter';
 import type { Config } from './config';
 import { apiNotFound, errorHandler } from './error-handler';
 import { createHealthRouter } from './health/health-router';
 import { jsonBody } from './json-body';
+import { answerWrongMethods } from './method-not-allowed';
 import { createLogger, type Logger } from './logger';
 import { builtInPresetViews } from './presets/built-in-presets';
 import { createPresetsRouter, type PresetView } from './presets/presets-router';
@@ -20,6 +22,7 @@ import {
   SESSION_COOKIE,
   createSessionMiddleware,
   createSessionStore,
+  refreshSession,
   warnWhenCookiesCannotBeSent,
 } from './session';
 import { StudentsService } from './students/students-service';
@@ -36,7 +39,8 @@ export interface AppDeps {
   readonly sessionStore?: session.Store;
   /** The built browser app; defaults to `dist/tensile/browser`. */
   readonly browserDist?: string;
-  readonly signInLimiter?: AttemptLimiter;
+  /** Sign-in attempt limits; defaults to {@link SignInLimiter}'s own, counted in `db`. */
+  readonly signInLimiter?: SignInLimiter;
   readonly presets?: readonly PresetView[];
 }
 
@@ -50,7 +54,7 @@ export function createApp(deps: AppDeps): Express {
   const { config, db } = deps;
   const logger = deps.logger ?? createLogger(config.logLevel);
   const users = new UsersRepository(db);
-  const auth = new AuthService(users, config.bcryptCost);
+  const auth = new AuthService(users, new PasswordHasher(config.passwordHashCost), logger);
   const passport = createPassport(auth);
   const store = deps.sessionStore ?? createSessionStore(db, logger);
 
@@ -68,24 +72,30 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api', requireSameOrigin(config.publicUrl));
   app.use('/api', jsonBody({ limit: JSON_BODY_LIMIT }));
   // Before the session: a health check must not depend on the session store answering.
-  app.use('/api/health', createHealthRouter(db));
+  app.use('/api/health', answerWrongMethods(createHealthRouter(db)));
   if (config.secureCookies) app.use('/api', warnWhenCookiesCannotBeSent(logger));
   app.use('/api', createSessionMiddleware(config, store));
   app.use('/api', passport.initialize());
   app.use('/api', passport.session());
+  app.use('/api', refreshSession());
 
-  // Feature routers; each route states the roles it allows.
+  // Feature routers; each route states the roles it allows, and a wrong method gets a 405.
   app.use(
     '/api/auth',
-    createAuthRouter({
-      passport,
-      limiter: deps.signInLimiter ?? createSignInLimiter(),
-      cookieName: SESSION_COOKIE,
-    }),
+    answerWrongMethods(
+      createAuthRouter({
+        passport,
+        limiter: deps.signInLimiter ?? new SignInLimiter(db),
+        cookieName: SESSION_COOKIE,
+      }),
+    ),
   );
-  app.use('/api/users', createUsersRouter(users));
-  app.use('/api/students', createStudentsRouter(new StudentsService(users)));
-  app.use('/api/presets', createPresetsRouter(deps.presets ?? builtInPresetViews()));
+  app.use('/api/users', answerWrongMethods(createUsersRouter(users)));
+  app.use('/api/students', answerWrongMethods(createStudentsRouter(new StudentsService(users))));
+  app.use(
+    '/api/presets',
+    answerWrongMethods(createPresetsRouter(deps.presets ?? builtInPresetViews())),
+  );
   app.use('/api', apiNotFound);
 
   app.use(createSpaRouter(deps.browserDist));

@@ -26,7 +26,7 @@ describe('loadConfig', () => {
     expect(config.secureCookies).toBe(false);
     expect(config.trustProxy).toBe(false);
     expect(config.seedDemo).toBe(true);
-    expect(config.bcryptCost).toBe(12);
+    expect(config.passwordHashCost).toBe(15);
     expect(config.smtpUrl).toBeUndefined();
   });
 
@@ -45,18 +45,20 @@ describe('loadConfig', () => {
     expect(() => loadConfig({ PORT: port, DATA_DIR: dir })).toThrow(/PORT/);
   });
 
-  it('fails fast on a malformed PUBLIC_URL, SMTP_URL, SEED_DEMO or BCRYPT_COST', () => {
+  it('fails fast on a malformed PUBLIC_URL, SMTP_URL, SEED_DEMO or PASSWORD_HASH_COST', () => {
     expect(() => loadConfig({ PUBLIC_URL: 'not a url', DATA_DIR: dir })).toThrow(/PUBLIC_URL/);
     expect(() => loadConfig({ SMTP_URL: 'http://mail.test', DATA_DIR: dir })).toThrow(/SMTP_URL/);
     expect(() => loadConfig({ SEED_DEMO: 'maybe', DATA_DIR: dir })).toThrow(/SEED_DEMO/);
-    expect(() => loadConfig({ BCRYPT_COST: '3', DATA_DIR: dir })).toThrow(/BCRYPT_COST/);
+    expect(() => loadConfig({ PASSWORD_HASH_COST: '9', DATA_DIR: dir })).toThrow(
+      /PASSWORD_HASH_COST/,
+    );
   });
 
-  it('refuses a low bcrypt cost in production but allows it in tests', () => {
-    expect(loadConfig({ BCRYPT_COST: '4', DATA_DIR: dir }).bcryptCost).toBe(4);
-    expect(() => loadConfig({ BCRYPT_COST: '4', NODE_ENV: 'production', DATA_DIR: dir })).toThrow(
-      /BCRYPT_COST/,
-    );
+  it('refuses a low password hash cost in production but allows it in tests', () => {
+    expect(loadConfig({ PASSWORD_HASH_COST: '10', DATA_DIR: dir }).passwordHashCost).toBe(10);
+    expect(() =>
+      loadConfig({ PASSWORD_HASH_COST: '10', NODE_ENV: 'production', DATA_DIR: dir }),
+    ).toThrow(/PASSWORD_HASH_COST/);
   });
 
   it('refuses a short SESSION_SECRET', () => {
@@ -83,17 +85,37 @@ describe('loadConfig', () => {
     );
   });
 
-  it('marks cookies secure and trusts private-network proxies behind an https address', () => {
+  it('marks cookies secure behind an https address but trusts no proxy unless told', () => {
     const config = loadConfig({ PUBLIC_URL: 'https://studio.larkspur.test/', DATA_DIR: dir });
     expect(config.publicUrl).toBe('https://studio.larkspur.test');
     expect(config.secureCookies).toBe(true);
-    expect(config.trustProxy).toBe('loopback, linklocal, uniquelocal');
+    expect(config.trustProxy).toBe(false);
+    expect(loadConfig({ TRUST_PROXY: 'loopback, 10.0.0.5', DATA_DIR: dir }).trustProxy).toBe(
+      'loopback, 10.0.0.5',
+    );
     expect(loadConfig({ TRUST_PROXY: '2', DATA_DIR: dir }).trustProxy).toBe(2);
     expect(loadConfig({ TRUST_PROXY: 'true', DATA_DIR: dir }).trustProxy).toBe(true);
   });
 
   it('reads SEED_DEMO=false', () => {
     expect(loadConfig({ SEED_DEMO: 'false', DATA_DIR: dir }).seedDemo).toBe(false);
+  });
+
+  it('seeds the demo school by default on a developer machine, never by default in production', () => {
+    const dev = loadConfig({ DATA_DIR: dir });
+    expect(dev.production).toBe(false);
+    expect(dev.seedDemo).toBe(true);
+    for (const env of [
+      { NODE_ENV: 'production' },
+      { PUBLIC_URL: 'https://studio.larkspur.test' },
+      { NODE_ENV: 'development', PUBLIC_URL: 'https://studio.larkspur.test' },
+    ]) {
+      const config = loadConfig({ ...env, DATA_DIR: dir });
+      expect(config.production).toBe(true);
+      expect(config.seedDemo).toBe(false);
+      // Only an explicit SEED_DEMO=true (a public demo on purpose) seeds in production.
+      expect(loadConfig({ ...env, SEED_DEMO: 'true', DATA_DIR: dir }).seedDemo).toBe(true);
+    }
   });
 });
 

@@ -1,5 +1,6 @@
 import path from 'node:path';
 import { z } from 'zod';
+import { DEFAULT_HASH_COST } from './auth/passwords';
 import { MIN_SESSION_SECRET_LENGTH, readOrCreateSessionSecret } from './session-secret';
 
 /** Where and how the server keeps its data. */
@@ -17,12 +18,20 @@ export interface Config {
   readonly database: DatabaseConfig;
   readonly sessionSecret: string;
   readonly smtpUrl: string | undefined;
-  /** Passed to Express's `trust proxy` setting. */
+  /**
+   * Passed to Express's `trust proxy` setting: which proxies may report the client's address
+   * (X-Forwarded-For) and protocol. Off unless TRUST_PROXY names them.
+   */
   readonly trustProxy: boolean | number | string;
+  /**
+   * Seed the demo school into an empty database. Off in production unless SEED_DEMO=true is set
+   * explicitly; then the demo accounts' published passwords are accepted at start too.
+   */
   readonly seedDemo: boolean;
-  /** bcrypt cost factor for new password hashes (log2 of the rounds). */
-  readonly bcryptCost: number;
+  /** scrypt cost for new password hashes: log2 of N (see server/auth/passwords.ts). */
+  readonly passwordHashCost: number;
   readonly logLevel: LogLevelName;
+  /** NODE_ENV=production, or an https PUBLIC_URL: real people's data, no demo defaults. */
   readonly production: boolean;
 }
 
@@ -46,8 +55,8 @@ const envSchema = z.object({
   SMTP_URL: z.url({ protocol: /^smtps?$/ }).optional(),
   PUBLIC_URL: z.url({ protocol: /^https?$/ }).optional(),
   TRUST_PROXY: z.string().min(1).optional(),
-  SEED_DEMO: booleanText.default(true),
-  BCRYPT_COST: z.coerce.number().int().min(4).max(15).default(12),
+  SEED_DEMO: booleanText.optional(),
+  PASSWORD_HASH_COST: z.coerce.number().int().min(10).max(20).default(DEFAULT_HASH_COST),
   LOG_LEVEL: z.enum(['debug', 'info', 'warn', 'error', 'silent']).default('info'),
 });
 
@@ -67,15 +76,16 @@ export function loadConfig(env: Env = process.env, cwd: string = process.cwd()):
     throw new ConfigError(`Invalid server configuration. ${problems.join('; ')}`);
   }
   const values = parsed.data;
-  const production = values.NODE_ENV === 'production';
-  if (production && values.BCRYPT_COST < 10) {
+  const publicUrl = stripTrailingSlash(values.PUBLIC_URL ?? `http://localhost:${values.PORT}`);
+  const secureCookies = publicUrl.startsWith('https:');
+  // An https address means a deployment people reach, whatever NODE_ENV says.
+  const production = values.NODE_ENV === 'production' || secureCookies;
+  if (production && values.PASSWORD_HASH_COST < DEFAULT_HASH_COST) {
     throw new ConfigError(
-      'Invalid server configuration. BCRYPT_COST: must be 10 or more in production',
+      `Invalid server configuration. PASSWORD_HASH_COST: must be ${DEFAULT_HASH_COST} or more in production`,
     );
   }
   const dataDir = path.resolve(cwd, values.DATA_DIR);
-  const publicUrl = stripTrailingSlash(values.PUBLIC_URL ?? `http://localhost:${values.PORT}`);
-  const secureCookies = publicUrl.startsWith('https:');
   return Object.freeze({
     port: values.PORT,
     publicUrl,
@@ -84,9 +94,9 @@ export function loadConfig(env: Env = process.env, cwd: string = process.cwd()):
     database: parseDatabaseUrl(values.DATABASE_URL, dataDir, cwd),
     sessionSecret: values.SESSION_SECRET ?? readOrCreateSessionSecret(dataDir),
     smtpUrl: values.SMTP_URL,
-    trustProxy: parseTrustProxy(values.TRUST_PROXY, secureCookies),
-    seedDemo: values.SEED_DEMO,
-    bcryptCost: values.BCRYPT_COST,
+    trustProxy: parseTrustProxy(values.TRUST_PROXY),
+    seedDemo: values.SEED_DEMO ?? !production,
+    passwordHashCost: values.PASSWORD_HASH_COST,
     logLevel: values.LOG_LEVEL,
     production,
   });
@@ -116,15 +126,14 @@ function parseDatabaseUrl(url: string | undefined, dataDir: string, cwd: string)
 }
 
 /**
- * Behind an https address the server normally sits behind a TLS-terminating proxy, so by
- * default it then trusts proxies on loopback and private networks (never public addresses,
- * which could forge client IPs). Explicit values follow Express's `trust proxy` setting.
+ * Trusts no proxy unless told: a trusted X-Forwarded-For names the client the sign-in limiter
+ * counts, and any host on a private network (another tenant, a compromised container) could
+ * otherwise pick that name. Values follow Express's `trust proxy` setting: addresses, subnets
+ * or names such as `loopback`, comma-separated; a hop count; or `true` (every hop: only when
+ * nothing can reach the server but the proxy).
  */
-function parseTrustProxy(
-  value: string | undefined,
-  secureCookies: boolean,
-): boolean | number | string {
-  if (value === undefined) return secureCookies ? 'loopback, linklocal, uniquelocal' : false;
+function parseTrustProxy(value: string | undefined): boolean | number | string {
+  if (value === undefined) return false;
   if (value === 'true') return true;
   if (value === 'false') return false;
   if (/^\d+$/.test(value)) return Number(value);

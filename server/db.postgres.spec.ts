@@ -1,5 +1,6 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { SignInLimiter } from './auth/sign-in-limiter';
 import { loadConfig } from './config';
 import { createDb, migrateLatest, rollbackAll } from './db';
 import { createTestApp, findAccount, type TestApp } from './testing/test-app';
@@ -55,6 +56,20 @@ describe.skipIf(!url)('PostgreSQL (DATABASE_URL=postgres://…)', () => {
     expect((await agent.post('/api/auth/sign-out')).status).toBe(204);
     expect((await agent.get('/api/auth/me')).status).toBe(401);
     expect((await request(t.app).get('/api/health')).body.db).toBe('ok');
+  });
+
+  it('counts sign-in attempts atomically when 20 arrive at once on separate connections', async () => {
+    const limiter = new SignInLimiter(t.db, {
+      perAddress: { attempts: 100, windowSeconds: 60 },
+      perAccount: { attempts: 3, windowSeconds: 60 },
+    });
+    const verdicts = await Promise.all(
+      Array.from({ length: 20 }, () => limiter.begin('198.51.100.9', 'pg@larkspur.test')),
+    );
+    expect(verdicts.filter((verdict) => verdict.allowed)).toHaveLength(3);
+    await limiter.succeeded('198.51.100.9', 'pg@larkspur.test');
+    expect((await limiter.begin('198.51.100.9', 'pg@larkspur.test')).allowed).toBe(true);
+    expect(await limiter.sweep(Date.now() + 2 * 3_600_000)).toBeGreaterThan(0);
   });
 
   it('rolls back cleanly', async () => {

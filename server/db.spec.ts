@@ -3,7 +3,7 @@ import os from 'node:os';
 import path from 'node:path';
 import type { Knex } from 'knex';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import { createDb, migrateLatest, rollbackAll } from './db';
+import { SQLITE_BUSY_TIMEOUT_MS, createDb, migrateLatest, rollbackAll } from './db';
 import { ProjectMigrationSource } from './migration-source';
 
 let dir: string;
@@ -28,6 +28,14 @@ describe('createDb and migrations', () => {
     const foreignKeys = (await db.raw('pragma foreign_keys')) as { foreign_keys: number }[];
     expect(journal[0]?.journal_mode).toBe('wal');
     expect(foreignKeys[0]?.foreign_keys).toBe(1);
+  });
+
+  it('sets synchronous = NORMAL and a short busy timeout, as docs/security.md states', async () => {
+    const synchronous = (await db.raw('pragma synchronous')) as { synchronous: number }[];
+    const timeout = (await db.raw('pragma busy_timeout')) as { timeout: number }[];
+    expect(synchronous[0]?.synchronous).toBe(1); // 0 OFF, 1 NORMAL, 2 FULL, 3 EXTRA
+    expect(timeout[0]?.timeout).toBe(SQLITE_BUSY_TIMEOUT_MS);
+    expect(SQLITE_BUSY_TIMEOUT_MS).toBe(500);
   });
 
   it('runs every migration file once, in timestamp order', async () => {

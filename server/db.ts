@@ -6,6 +6,14 @@ import { MIGRATIONS_DIR, MIGRATION_EXTENSIONS, ProjectMigrationSource } from './
 
 type DbConfig = Pick<Config, 'database'>;
 
+/**
+ * How long a write waits for another process's SQLite write lock before failing with
+ * SQLITE_BUSY (answered 503). better-sqlite3 waits on the main thread, so every request waits
+ * with it: long enough for another process's short write, short enough that a stuck lock stalls
+ * the server for half a second per write instead of seconds.
+ */
+export const SQLITE_BUSY_TIMEOUT_MS = 500;
+
 /** better-sqlite3's connection object, as far as `afterCreate` needs it. */
 interface SqliteConnection {
   pragma(source: string): unknown;
@@ -33,9 +41,12 @@ export function knexConfig(config: DbConfig): Knex.Config {
       max: 1,
       afterCreate(connection: SqliteConnection, done: (error: Error | null, c: unknown) => void) {
         try {
+          // Set here rather than trusted to build defaults; docs/security.md says what each
+          // means (synchronous = NORMAL: a power cut may lose the last commits, never the file).
           connection.pragma('journal_mode = WAL');
+          connection.pragma('synchronous = NORMAL');
           connection.pragma('foreign_keys = ON');
-          connection.pragma('busy_timeout = 5000');
+          connection.pragma(`busy_timeout = ${SQLITE_BUSY_TIMEOUT_MS}`);
           done(null, connection);
         } catch (error) {
           done(error as Error, connection);

@@ -124,6 +124,29 @@ describe('errorHandler', () => {
     expect(lines).toHaveLength(1);
   });
 
+  it.each([
+    ['SQLite held past the busy timeout', { code: 'SQLITE_BUSY' }],
+    ['a PostgreSQL lock timeout', { code: '55P03' }],
+    ['no pooled connection in time', { name: 'KnexTimeoutError' }],
+  ])(
+    'answers a busy database (%s) with 503 and Retry-After, and logs it',
+    async (_what, fields) => {
+      const lines: string[] = [];
+      const res = await request(appThrowing(Object.assign(new Error('busy'), fields), lines)).get(
+        '/boom',
+      );
+      expect(res.status).toBe(503);
+      expect(res.headers['retry-after']).toBe('5');
+      expect(res.body).toEqual({
+        error: {
+          code: 'service_unavailable',
+          message: 'The server is busy just now. Please try again in a moment.',
+        },
+      });
+      expect(lines).toHaveLength(1);
+    },
+  );
+
   it('turns an unexpected error into a 500 without the stack, and logs it', async () => {
     const lines: string[] = [];
     const app = express();

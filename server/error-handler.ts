@@ -1,5 +1,6 @@
 import { STATUS_CODES } from 'node:http';
 import type { ErrorRequestHandler, RequestHandler } from 'express';
+import { isDatabaseBusy } from './db-errors';
 import { HttpError } from './http-error';
 import { errorFields, type Logger } from './logger';
 
@@ -32,6 +33,9 @@ function isBodyParserError(error: unknown): error is BodyParserError {
   );
 }
 
+/** Seconds a client is asked to wait after a 503 for a busy database. */
+const RETRY_AFTER_BUSY_S = 5;
+
 /** JSON 404 for any `/api/*` path that no router answered. */
 export const apiNotFound: RequestHandler = (req, _res, next) => {
   next(
@@ -57,6 +61,8 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
     if (httpError.status >= 500) {
       logger.error('Request failed', { method: req.method, path: req.path, ...errorFields(error) });
     }
+    // A busy database or session store usually answers again within seconds.
+    if (httpError.status === 503) res.setHeader('Retry-After', String(RETRY_AFTER_BUSY_S));
     res.status(httpError.status).json(httpError.toBody());
   };
 }
@@ -80,6 +86,13 @@ function clientErrorStatus(error: unknown): number | undefined {
  */
 function toHttpError(error: unknown): HttpError {
   if (error instanceof HttpError) return error;
+  if (isDatabaseBusy(error)) {
+    return new HttpError(
+      503,
+      'service_unavailable',
+      'The server is busy just now. Please try again in a moment.',
+    );
+  }
   if (isBodyParserError(error)) {
     const known = BODY_ERRORS[error.type]!;
     return new HttpError(error.status, known.code, known.message);

@@ -1,7 +1,11 @@
 import type { AddressInfo } from 'node:net';
 import { createApp } from './app';
-import { loadConfig } from './config';
+import { PasswordHasher } from './auth/passwords';
+import { ConfigError, loadConfig } from './config';
 import { createDb, migrateLatest } from './db';
+import { SignInLimiter } from './auth/sign-in-limiter';
+import { UsersRepository } from './auth/users-repository';
+import { DemoPasswordsError, refuseDemoPasswords } from './demo/demo-passwords';
 import { seedDemo } from './demo/seed-demo';
 import { createLogger, errorFields } from './logger';
 import { createSessionStore, stopSessionStore } from './session';
@@ -15,12 +19,23 @@ async function main(): Promise<void> {
   const db = createDb(config);
   const ran = await migrateLatest(db);
   if (ran.length > 0) logger.info('Database migrated', { migrations: ran });
+  const passwords = new PasswordHasher(config.passwordHashCost);
   if (config.seedDemo) {
-    const added = await seedDemo(db, { bcryptCost: config.bcryptCost });
+    const added = await seedDemo(db, passwords);
     if (added > 0) logger.info('Demo accounts added', { count: added });
+    if (config.production) {
+      logger.warn(
+        'SEED_DEMO=true in production: the demo accounts and their published passwords work',
+      );
+    }
+  } else if (config.production) {
+    // Refuse to serve while the README's demo passwords would open an account.
+    await refuseDemoPasswords(new UsersRepository(db), passwords);
   }
   const sessionStore = createSessionStore(db, logger);
-  const app = createApp({ config, db, logger, sessionStore });
+  const signInLimiter = new SignInLimiter(db);
+  const stopSweeping = signInLimiter.startSweeping(logger);
+  const app = createApp({ config, db, logger, sessionStore, signInLimiter });
   const server = app.listen(config.port, () => {
     const { port } = server.address() as AddressInfo;
     logger.info('Tensile is listening', {
@@ -46,6 +61,7 @@ async function main(): Promise<void> {
     forced.unref();
     server.close(() => {
       stopSessionStore(sessionStore);
+      stopSweeping();
       db.destroy().then(
         () => process.exit(0),
         () => process.exit(1),
@@ -58,10 +74,10 @@ async function main(): Promise<void> {
 }
 
 main().catch((error: unknown) => {
-  // Configuration errors carry a readable message; print it without a stack trace.
+  // Configuration and demo-password refusals carry a readable message; print it without a stack.
   const message = error instanceof Error ? error.message : String(error);
   process.stderr.write(`Tensile could not start: ${message}\n`);
-  if (!(error instanceof Error && error.name === 'ConfigError')) {
+  if (!(error instanceof ConfigError || error instanceof DemoPasswordsError)) {
     process.stderr.write(`${(error as Error)?.stack ?? ''}\n`);
   }
   process.exit(1);

@@ -39,4 +39,21 @@ describe('validate', () => {
     expect(details.map((d) => d.path)).toEqual(['params.id', 'query.page', 'body.title']);
     expect(details[2]?.message).toBe('Give the item a title.');
   });
+
+  it("repeats a few fields' own messages as the error's message, and sums up many", async () => {
+    const one = await request(appWith()).post('/items/7').send({ title: ' ' });
+    expect(one.body.error.message).toBe('Give the item a title.');
+    const many = await request(appWith()).post('/items/x?page=0').send({ title: ' ' });
+    expect(many.body.error.message).toMatch(/ Give the item a title\.$/);
+    const app = express();
+    app.use(express.json());
+    const field = (name: string) => z.string({ error: `Give ${name}.` });
+    const body = z.object({ a: field('a'), b: field('b'), c: field('c'), d: field('d') });
+    app.post('/four', validate({ body }), (_req, res) => {
+      res.end();
+    });
+    app.use(errorHandler(createLogger('silent')));
+    const four = await request(app).post('/four').send({});
+    expect(four.body.error.message).toBe('Some fields are missing or not valid.');
+  });
 });

@@ -31,14 +31,27 @@ export function validate(schemas: RequestSchemas): RequestHandler {
       }
     }
     if (details.length > 0) {
-      next(
-        new HttpError(400, 'validation_failed', 'Some fields are missing or not valid.', details),
-      );
+      next(new HttpError(400, 'validation_failed', summary(details), details));
       return;
     }
     next();
   };
 }
+
+/**
+ * The error's one-line message: the fields' own sentences when there are few (a client that
+ * shows only this line then says what is wrong, e.g. how long a password may be), a summary
+ * when there are many.
+ */
+function summary(details: readonly ErrorDetail[]): string {
+  const messages = [...new Set(details.map((detail) => detail.message))];
+  return messages.length <= MESSAGES_IN_SUMMARY
+    ? messages.join(' ')
+    : 'Some fields are missing or not valid.';
+}
+
+/** Field messages quoted in the summary line before it just says that some are wrong. */
+const MESSAGES_IN_SUMMARY = 3;
 
 function toDetail(part: string, issue: z.core.$ZodIssue): ErrorDetail {
   const path = [part, ...issue.path.map(String)].join('.');

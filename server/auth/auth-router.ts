@@ -2,25 +2,19 @@ import { Router, type Request, type Response } from 'express';
 import type passport from 'passport';
 import { HttpError } from '../http-error';
 import { validate } from '../validate';
-import { AttemptLimiter } from './attempt-limiter';
 import type { SignInBody } from './auth-schemas';
 import { signInBody } from './auth-schemas';
 import { LOCAL_STRATEGY } from './passport-setup';
 import { allowAnyone, requireSignIn } from './require-role';
 import type { PublicUser } from './roles';
-import { normaliseEmail } from './users-repository';
+import { addressKey, type SignInLimiter } from './sign-in-limiter';
 
 /** Dependencies of {@link createAuthRouter}. */
 export interface AuthRouterDeps {
   readonly passport: passport.Authenticator;
-  readonly limiter: AttemptLimiter;
+  readonly limiter: SignInLimiter;
   /** The session cookie's name, cleared on sign-out. */
   readonly cookieName: string;
-}
-
-/** 10 failed sign-ins per address and e-mail per 15 minutes: common practice for web sign-in. */
-export function createSignInLimiter(): AttemptLimiter {
-  return new AttemptLimiter({ maxFailures: 10, windowMs: 15 * 60_000 });
 }
 
 const WRONG_CREDENTIALS = 'Email or password is not correct.';
@@ -36,24 +30,19 @@ export function createAuthRouter(deps: AuthRouterDeps): Router {
 
   router.post('/sign-in', allowAnyone, validate({ body: signInBody }), async (req, res) => {
     const body = req.body as SignInBody;
-    const key = `${req.ip ?? 'unknown'}|${normaliseEmail(body.email)}`;
-    const waitMs = deps.limiter.retryAfterMs(key);
-    if (waitMs > 0) {
-      const minutes = Math.ceil(waitMs / 60_000);
-      res.setHeader('Retry-After', String(Math.ceil(waitMs / 1000)));
-      throw new HttpError(
-        429,
-        'too_many_attempts',
-        `Too many sign-in attempts. Try again in ${minutes} minute${minutes === 1 ? '' : 's'}.`,
-      );
+    // req.ip honours X-Forwarded-For only from the proxies TRUST_PROXY names.
+    const address = addressKey(req.ip);
+    // Counted before the password is checked, so parallel guesses cannot outrun the count.
+    const verdict = await deps.limiter.begin(address, body.email);
+    if (!verdict.allowed) {
+      res.setHeader('Retry-After', String(Math.ceil(verdict.retryAfterMs / 1000)));
+      throw tooManyAttempts(verdict.retryAfterMs);
     }
     const user = await authenticate(deps.passport, req, res);
-    if (!user) {
-      deps.limiter.recordFailure(key);
-      throw new HttpError(401, 'invalid_credentials', WRONG_CREDENTIALS);
-    }
-    deps.limiter.reset(key);
-    // req.login regenerates the session (Passport 0.7), so a pre-sign-in id is never reused.
+    if (!user) throw new HttpError(401, 'invalid_credentials', WRONG_CREDENTIALS);
+    await deps.limiter.succeeded(address, body.email);
+    // req.login regenerates the session (Passport 0.7), so a pre-sign-in id is never reused,
+    // and saves it before we answer, so a store failure is this request's 503.
     await new Promise<void>((resolve, reject) =>
       req.login(user, (error: unknown) => (error ? reject(error) : resolve())),
     );
@@ -93,6 +82,22 @@ function authenticate(
     ) as (req: Request, res: Response, next: (error?: unknown) => void) => void;
     handler(req, res, reject);
   });
+}
+
+/** 429 saying how long to wait, in minutes up to an hour and in hours beyond. */
+function tooManyAttempts(waitMs: number): HttpError {
+  const minutes = Math.ceil(waitMs / 60_000);
+  const hours = Math.ceil(minutes / 60);
+  const wait = minutes < 60 ? plural(minutes, 'minute') : plural(hours, 'hour');
+  return new HttpError(
+    429,
+    'too_many_attempts',
+    `Too many sign-in attempts. Try again in ${wait}.`,
+  );
+}
+
+function plural(count: number, unit: string): string {
+  return `${count} ${unit}${count === 1 ? '' : 's'}`;
 }
 
 function publicUser(user: PublicUser): PublicUser {

@@ -3,7 +3,7 @@ import { z } from 'zod';
 /**
  * Body of `POST /api/auth/sign-in`. Unknown fields are dropped, not refused: clients may send
  * extras (e.g. a "remember me" flag) and sign-in should not break over them. The length caps
- * refuse a huge password before bcrypt spends time on it (bcrypt reads only 72 bytes anyway).
+ * refuse a huge password before scrypt spends time on it.
  */
 export const signInBody = z.object({
   // Normalised here so the lookup, the attempt limiter and passport all see the same address.

@@ -33,6 +33,17 @@ export class UsersRepository {
       .first();
   }
 
+  /** Accounts with one of these e-mails or holding `role`, stored hash included. */
+  async listWithPasswordHashes(filter: {
+    emails: readonly string[];
+    role: Role;
+  }): Promise<UserRow[]> {
+    return this.db<UserRow>('users')
+      .whereIn('email', filter.emails.map(normaliseEmail))
+      .orWhere({ role: filter.role })
+      .orderBy('id');
+  }
+
   /** The active (not disabled) account with this id. */
   async findActiveById(id: number): Promise<PublicUser | undefined> {
     const row = await this.db<UserRow>('users')
@@ -60,6 +71,11 @@ export class UsersRepository {
       .where({ role })
       .whereNull('disabled_at');
     return rows.map(toPublicUser);
+  }
+
+  /** Stores a new password hash for the account. */
+  async updatePasswordHash(id: number, passwordHash: string): Promise<void> {
+    await this.db('users').where({ id }).update({ password_hash: passwordHash });
   }
 
   async count(): Promise<number> {

@@ -1,8 +1,9 @@
 import { afterEach, describe, expect, it } from 'vitest';
-import { verifyPassword } from '../auth/passwords';
+import { PasswordHasher } from '../auth/passwords';
 import { createTestApp, type TestApp } from '../testing/test-app';
 import { DEMO_ACCOUNTS, seedDemo } from './seed-demo';
 
+const hasher = new PasswordHasher(10);
 let t: TestApp | undefined;
 afterEach(async () => {
   await t?.close();
@@ -12,7 +13,7 @@ afterEach(async () => {
 describe('seedDemo', () => {
   it('adds the Larkspur Rhythm School accounts to an empty database, passwords hashed', async () => {
     t = await createTestApp({ seed: false });
-    expect(await seedDemo(t.db, { bcryptCost: 4 })).toBe(DEMO_ACCOUNTS.length);
+    expect(await seedDemo(t.db, hasher)).toBe(DEMO_ACCOUNTS.length);
     const rows = (await t.db('users').select('email', 'role', 'password_hash')) as {
       email: string;
       role: string;
@@ -31,8 +32,8 @@ describe('seedDemo', () => {
       const row = rows.find((r) => r.email === account.email)!;
       expect(account.email).toMatch(/\.test$/);
       expect(row.password_hash).not.toContain(account.password);
-      expect(row.password_hash).toMatch(/^\$2[aby]\$04\$/);
-      expect(await verifyPassword(account.password, row.password_hash)).toBe(true);
+      expect(row.password_hash).toMatch(/^\$scrypt\$ln=10,r=8,p=1\$/);
+      expect(await hasher.verify(account.password, row.password_hash)).toBe(true);
     }
     // Same password, different salt.
     const teachers = rows.filter((r) => r.role === 'teacher');
@@ -44,8 +45,8 @@ describe('seedDemo', () => {
     await t
       .db('users')
       .insert({ email: 'solo@larkspur.test', name: 'Solo', role: 'admin', password_hash: 'x' });
-    expect(await seedDemo(t.db, { bcryptCost: 4 })).toBe(0);
-    expect(await seedDemo(t.db, { bcryptCost: 4 })).toBe(0);
+    expect(await seedDemo(t.db, hasher)).toBe(0);
+    expect(await seedDemo(t.db, hasher)).toBe(0);
     expect((await t.db('users').count({ n: '*' }))[0]).toEqual({ n: 1 });
   });
 });

@@ -1,5 +1,5 @@
 import type { Knex } from 'knex';
-import { hashPassword } from '../auth/passwords';
+import type { PasswordHasher } from '../auth/passwords';
 import type { Role } from '../auth/roles';
 import { UsersRepository } from '../auth/users-repository';
 
@@ -62,7 +62,7 @@ export const DEMO_ACCOUNTS: readonly DemoAccount[] = [
  * Adds the demo accounts when the database has no accounts at all (first start), so a
  * restart never re-creates accounts an admin removed or changed. Returns how many were added.
  */
-export async function seedDemo(db: Knex, options: { bcryptCost: number }): Promise<number> {
+export async function seedDemo(db: Knex, passwords: PasswordHasher): Promise<number> {
   const users = new UsersRepository(db);
   if ((await users.count()) > 0) return 0;
   const hashed = await Promise.all(
@@ -70,7 +70,7 @@ export async function seedDemo(db: Knex, options: { bcryptCost: number }): Promi
       email: account.email,
       name: account.name,
       role: account.role,
-      passwordHash: await hashPassword(account.password, options.bcryptCost),
+      passwordHash: await passwords.hash(account.password),
     })),
   );
   // Checked again inside the transaction: another process may have seeded meanwhile.

@@ -108,7 +108,7 @@ function serverEnv(port: number, dataDir: string, options: StartServerOptions): 
     DATA_DIR: dataDir,
     SEED_DEMO: options.seedDemo === false ? 'false' : 'true',
     // Demo passwords are hashed at seeding; a low cost keeps each server start short.
-    BCRYPT_COST: '4',
+    PASSWORD_HASH_COST: '10',
     LOG_LEVEL: 'warn',
     ...options.env,
   };

@@ -95,6 +95,17 @@ describe('SignIn', () => {
     expect(errors()).toEqual([]);
   });
 
+  it('explains a 5,000-character e-mail or password by its length, and sends nothing', async () => {
+    await type('E-mail', `${'e'.repeat(5_000)}@larkspur.test`);
+    await type('Password', 'p'.repeat(5_000));
+    await submit();
+    expect(errors()).toEqual([
+      'An e-mail address has at most 254 characters.',
+      'A password has at most 200 characters.',
+    ]);
+    backend.expectNone(AUTH_SIGN_IN_URL);
+  });
+
   it("shows the server's own message when sign-in is refused", async () => {
     await type('E-mail', 'juno.marsh@larkspur.test');
     await type('Password', 'not-the-password');

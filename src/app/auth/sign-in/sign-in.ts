@@ -33,9 +33,12 @@ export class SignIn {
   /** Where to go after signing in (query parameter, bound by the router). */
   readonly returnUrl = input<string>();
 
+  // The same length caps as the server's, so an over-long entry is explained by its length.
+  protected readonly maxEmailLength = 254;
+  protected readonly maxPasswordLength = 200;
   protected readonly form = inject(FormBuilder).nonNullable.group({
-    email: ['', [Validators.required, Validators.email]],
-    password: ['', Validators.required],
+    email: ['', [Validators.required, Validators.maxLength(this.maxEmailLength), Validators.email]],
+    password: ['', [Validators.required, Validators.maxLength(this.maxPasswordLength)]],
   });
   protected readonly pending = signal(false);
   protected readonly failure = signal<string | null>(null);
