@@ -1,5 +1,5 @@
 import type { RuleCardIssue } from './errors';
-import { beatsOf, createGrid, type Grid, type Landing } from './grid';
+import { beatsOf, createGrid, gcd, type Grid, type Landing } from './grid';
 import { euclidLandings } from './rules/euclid';
 import { polyrhythmLandings } from './rules/polyrhythm';
 import type { Rule, RuleCard } from './schema';
@@ -123,8 +123,6 @@ function firstMiss(landings: readonly Landing[]): { beat: number } | null {
   for (const landing of landings) if (!landing.ok) return { beat: landing.beat };
   return null;
 }
-
-const gcd = (a: number, b: number): number => (b === 0 ? a : gcd(b, a % b));
 
 /** Which subdivision would put `count` even points over `span` beats on slots. */
 function suggest(count: number, span: number): string {

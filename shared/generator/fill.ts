@@ -171,12 +171,6 @@ function removeAt(f: BarFill, k: number): void {
   if (isHandVoice(hit.voice)) f.hands[hit.i] = (f.hands[hit.i] ?? 1) - 1;
 }
 
-/** Removes the fill hit of `voice` at bar-local instant `i` (hand repair). */
-export function removeFill(f: BarFill, i: number, voice: VoiceId): void {
-  const k = f.fills.findIndex((hit) => hit.i === i && hit.voice === voice);
-  if (k >= 0) removeAt(f, k);
-}
-
 /**
  * Pick weight of an instant by metrical strength, leaning on-beat for a calm bar (`lean` 0) and
  * off-beat for a tense one (`lean` 1). Integer tables keep the arithmetic exact.

@@ -30,7 +30,7 @@ export interface Grid {
   readonly slotOf: readonly number[];
 }
 
-const gcd = (a: number, b: number): number => (b === 0 ? a : gcd(b, a % b));
+export const gcd = (a: number, b: number): number => (b === 0 ? a : gcd(b, a % b));
 export const lcm = (a: number, b: number): number => (a / gcd(a, b)) * b;
 
 /** Slots per beat for each beat, from a card's subdivision (number or per-beat list). */

@@ -9,6 +9,7 @@ import {
   type WitekStreams,
 } from './tension/witek';
 import { mostWitekOnWeights } from './tension/witek-max';
+import { unitsOf } from './tension/scale';
 
 /** Which published measure a card's tension uses. */
 export type TensionMeasure = 'lhl' | 'witek';
@@ -64,8 +65,7 @@ export function createTensionGauge(
   if (measure === 'witek') {
     const weights = gridWeights(tree);
     const most = mostWitekOnWeights(weights).most;
-    const unitsOfRaw = (raw: number): number =>
-      most === 0 ? 0 : Math.round((raw / most) * 10_000);
+    const unitsOfRaw = (raw: number): number => unitsOf(raw, most);
     const rawOfVoices = (voices: readonly (readonly VoiceSound[])[]): number =>
       witekOnWeights(weights, streamsOf(voices));
     return {
@@ -80,9 +80,8 @@ export function createTensionGauge(
     };
   }
   const most = maxLhlOnGrid(tree);
-  const units = (onsets: readonly boolean[]): number =>
-    most === 0 ? 0 : Math.round((lhlOnGrid(tree, onsets) / most) * 10_000);
-  const unitsOfRaw = (raw: number): number => (most === 0 ? 0 : Math.round((raw / most) * 10_000));
+  const units = (onsets: readonly boolean[]): number => unitsOf(lhlOnGrid(tree, onsets), most);
+  const unitsOfRaw = (raw: number): number => unitsOf(raw, most);
   return {
     measure,
     most,

@@ -168,8 +168,6 @@ function listedValues(
   return [...values].sort((a, b) => a - b);
 }
 
-const tensionOf = (gauge: TensionGauge, raw: number): number =>
-  gauge.most === 0 ? 0 : Math.round((raw / gauge.most) * 10_000) / 10_000;
 
 function unreachable(
   ctx: FillContext,
@@ -192,8 +190,8 @@ function unreachable(
   if (failedLevel + 1 > values) {
     const span =
       values === 1
-        ? `only one tension (${tensionOf(gauge, least)})`
-        : `only ${values} different tensions (from ${tensionOf(gauge, least)} to ${tensionOf(gauge, most)})`;
+        ? `only one tension (${gauge.scale(least)})`
+        : `only ${values} different tensions (from ${gauge.scale(least)} to ${gauge.scale(most)})`;
     return new RuleConflictError(
       `${asks}, but its curve climbs through ${failedLevel + 1} different targets up to there, while bars of this grid${parts.length > 0 ? ' with these rules' : ''} can measure ${span}: give the curve at most ${values} different value${values === 1 ? '' : 's'}, or use a finer subdivision.`,
       kinds,
@@ -201,7 +199,7 @@ function unreachable(
   }
   const taken = listWords(parts.map((r) => describePart(card, r)));
   return new RuleConflictError(
-    `${asks}, but with the slots the fill may use${taken ? ` (${taken}${Number.isFinite(ctx.budget) ? ' and the linear rule' : ''} hold the others)` : ''} bar ${bar + 1} reaches at most tension ${tensionOf(gauge, reach[bar]?.most ?? 0)}, while the lower steps of the curve already push bar ${below + 1} to at least ${tensionOf(gauge, floor)}: free some slots, or flatten the curve.`,
+    `${asks}, but with the slots the fill may use${taken ? ` (${taken}${Number.isFinite(ctx.budget) ? ' and the linear rule' : ''} hold the others)` : ''} bar ${bar + 1} reaches at most tension ${gauge.scale(reach[bar]?.most ?? 0)}, while the lower steps of the curve already push bar ${below + 1} to at least ${gauge.scale(floor)}: free some slots, or flatten the curve.`,
     kinds,
   );
 }

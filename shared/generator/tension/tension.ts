@@ -5,6 +5,7 @@ import { type BarGrid, metricalGrid } from './metrical-grid';
 import { barOnsets } from './onsets';
 import { gridWeights, witekOnWeights, witekStreams } from './witek';
 import { mostWitekOnWeights } from './witek-max';
+import { scaled } from './scale';
 
 /** Measures bars of one grid; build it once per grid when measuring many bars. */
 export interface TensionMeter {
@@ -29,8 +30,7 @@ export interface TensionMeter {
 export function tensionMeter(beats: BarGrid, grouping?: readonly number[] | null): TensionMeter {
   const grid = metricalGrid(beats, grouping);
   const most = maxLhlOnGrid(grid);
-  const scale = (value: number): number =>
-    most === 0 ? 0 : Math.round((value / most) * 10_000) / 10_000;
+  const scale = (value: number): number => scaled(value, most);
   return {
     beats,
     grouping: grid.grouping,
@@ -79,7 +79,7 @@ export function measureTension(
     const weights = gridWeights(metricalGrid(bar.beats, grouping));
     const most = mostWitekOnWeights(weights).most;
     const raw = witekOnWeights(weights, witekStreams(bar, metricalGrid(bar.beats, grouping)));
-    return most === 0 ? 0 : Math.round((raw / most) * 10_000) / 10_000;
+    return scaled(raw, most);
   }
   return tensionMeter(bar.beats, grouping).measure(bar);
 }

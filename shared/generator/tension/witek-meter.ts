@@ -2,6 +2,7 @@ import type { DrillBar } from '../drill';
 import { type BarGrid, metricalGrid } from './metrical-grid';
 import { type WitekStreams, gridWeights, witekOnWeights, witekStreams } from './witek';
 import { mostWitekOnWeights } from './witek-max';
+import { scaled } from './scale';
 
 /** Measures bars of one grid with Witek's index; build it once per grid for many bars. */
 export interface WitekMeter {
@@ -23,8 +24,7 @@ export function witekMeter(beats: BarGrid): WitekMeter {
   const grid = metricalGrid(beats);
   const weights = gridWeights(grid);
   const { most } = mostWitekOnWeights(weights);
-  const scale = (value: number): number =>
-    most === 0 ? 0 : Math.round((value / most) * 10_000) / 10_000;
+  const scale = (value: number): number => scaled(value, most);
   return {
     beats,
     most,
