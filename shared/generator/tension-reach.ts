@@ -168,7 +168,6 @@ function listedValues(
   return [...values].sort((a, b) => a - b);
 }
 
-
 function unreachable(
   ctx: FillContext,
   gauge: TensionGauge,
