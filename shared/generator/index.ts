@@ -11,7 +11,7 @@ export { checkDrill, type Violation } from './rules/checker';
 export { measureTension } from './tension';
 export { ENGINE_VERSION } from './version';
 export { RuleCardError, RuleConflictError, type RuleCardIssue } from './errors';
-export { MAX_HAND_NOTES_PER_SECOND } from './hands';
+export { FOOT_LIMITS, HAND_LIMITS, type StrokeLimits } from './hands';
 export {
   VOICE_IDS,
   FOOT_VOICES,
