@@ -1,7 +1,7 @@
 import { isHandVoice } from './drill';
 import { RuleConflictError } from './errors';
 import { positionOf, slotsIn, type Grid } from './grid';
-import { assignHands, MAX_HAND_NOTES_PER_SECOND } from './hands';
+import { assignHands, FOOT_LIMITS, HAND_LIMITS } from './hands';
 import type { Obligations } from './obligations';
 import { describePart, partKind } from './rules/describe';
 import { phraseOf } from './rules/phrase';
@@ -112,16 +112,26 @@ function assertLinearBudget(card: RuleCard, grid: Grid, ob: Obligations): void {
 }
 
 function assertHandsSuffice(card: RuleCard, grid: Grid, ob: Obligations): void {
-  const failure = assignHands(grid, card.tempo, card.ostinato?.voice, ob.cells);
+  const failure = assignHands(card, grid, ob.cells);
   if (!failure) return;
   const cell = ob.cells[failure.instant] ?? [];
   const parts = partsNear(ob.placements, failure.instant).map((r) => describePart(card, r));
   const kinds = partsNear(ob.placements, failure.instant).map((r) => partKind(card, r));
   const hands = cell.filter((hit) => isHandVoice(hit.voice)).map((hit) => voiceWord(hit.voice));
+  const at = where(grid, failure.instant);
+  const singles = `a hand plays single strokes at fewer than ${HAND_LIMITS.singlesPerSecond} a second${card.sticking.doubles ? ` and doubles at up to ${HAND_LIMITS.doublesPerSecond}` : ''}`;
   const message =
     failure.reason === 'tooManyHands'
-      ? `At ${where(grid, failure.instant)} ${listWords(parts)} need the ${listWords(hands)} at once, but a drummer has only two hands.`
-      : `At ${card.tempo} beats per minute, ${listWords(parts)} ask a hand for more than ${MAX_HAND_NOTES_PER_SECOND} notes a second around ${where(grid, failure.instant)}: slow the tempo or thin out the hand parts.`;
+      ? `At ${at} ${listWords(parts)} need the ${listWords(hands)} at once, but a drummer has only two hands.`
+      : failure.reason === 'feet'
+        ? `At ${card.tempo} beats per minute, ${listWords(parts)} ask the ${voiceWord(failure.voice ?? 'kick')} to play faster than one foot can around ${at} (single strokes at fewer than ${FOOT_LIMITS.singlesPerSecond} a second, doubles at up to ${FOOT_LIMITS.doublesPerSecond}, never three in a row faster than singles): slow the tempo or thin out the foot part.`
+        : failure.reason === 'tooFast'
+          ? `At ${card.tempo} beats per minute, ${listWords(parts)} ask the hands for more than they can play around ${at} (${singles}): slow the tempo or thin out the hand parts.`
+          : failure.streams
+            ? `${capital(listWords(failure.streams))} cannot each keep to one hand: change a voice or thin out one of them.`
+            : failure.arms
+              ? `Around ${at}, ${listWords(parts)} would cross the arms both ways (the leading hand on its far side of the kit while the other reaches for its own): lead with the other hand (open-handed) or move that part to the snare or the toms.`
+              : `Around ${at}, ${listWords(parts)} leave no sticking a teacher would write (the time on the leading hand, figures on one hand, no crossing while the other hand is free, no hand playing three notes of a run while the other waits): change the sticking lead or thin out the hand parts.`;
   throw new RuleConflictError(message, [...kinds, 'hands'].filter(unique));
 }
 

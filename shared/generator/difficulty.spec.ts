@@ -25,7 +25,7 @@ describe('drill difficulty', () => {
     const slow = mean(groove({ tempo: 60, density: 0.1 }));
     const fast = mean(groove({ tempo: 160, density: 0.7 }));
     expect(fast).toBeGreaterThan(slow);
-    for (const card of [groove({ tempo: 20 }), groove({ tempo: 320, density: 1 })]) {
+    for (const card of [groove({ tempo: 20 }), groove({ tempo: 200, density: 1 })]) {
       const { score } = generateDrill(card, 'z').difficulty;
       expect(score).toBeGreaterThanOrEqual(0);
       expect(score).toBeLessThanOrEqual(10);

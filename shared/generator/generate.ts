@@ -1,6 +1,6 @@
 import { canonicalCard } from './canonical';
 import { assertNoObligationConflicts } from './conflicts';
-import { isHandVoice, type Drill, type DrillBar, type DrillHit } from './drill';
+import { type Drill, type DrillBar, type DrillHit } from './drill';
 import { RuleConflictError, SearchExhaustedError } from './errors';
 import { createFillContext, type BarFill, type FillContext } from './fill';
 import { beatsOf, createGrid, type Grid } from './grid';
@@ -111,25 +111,11 @@ function mergeCells(grid: Grid, ob: Obligations, fills: readonly BarFill[]): Wor
 }
 
 /**
- * Assigns hands; where two hands cannot keep up, drops the latest fill stroke at or before the
- * trouble (wrapping round to the drill's end, which feeds the loop's second lap) and tries
- * again. Obligations alone are known to be playable, so this ends.
+ * Assigns hands; where the limbs cannot keep up, the sticking stage removes fill strokes (see
+ * `assignHandsRepairing`). Obligations alone are known to be playable, so this ends.
  */
 function repairHands(card: RuleCard, grid: Grid, cells: WorkHit[][]): void {
-  // Drills loop: trouble early in the second lap can come from strokes at the drill's end.
-  const dropFillStroke = (trouble: number): number | null => {
-    for (let back = 0; back < cells.length; back++) {
-      const instant = (trouble - back + cells.length) % cells.length;
-      const cell = cells[instant] ?? [];
-      const k = cell.findIndex((hit) => hit.source === 'fill' && isHandVoice(hit.voice));
-      if (k >= 0) {
-        cell.splice(k, 1);
-        return instant;
-      }
-    }
-    return null;
-  };
-  if (assignHandsRepairing(grid, card.tempo, card.ostinato?.voice, cells, dropFillStroke)) {
+  if (assignHandsRepairing(card, grid, cells)) {
     throw new RuleConflictError('Two hands cannot play these rules at this tempo: slow it down.', [
       'hands',
     ]);

@@ -16,7 +16,7 @@ export {
   SearchExhaustedError,
   type RuleCardIssue,
 } from './errors';
-export { MAX_HAND_NOTES_PER_SECOND } from './hands';
+export { FOOT_LIMITS, HAND_LIMITS, type StrokeLimits } from './hands';
 export {
   VOICE_IDS,
   FOOT_VOICES,

@@ -53,6 +53,9 @@ const OWN_CARDS: readonly GoldenCase[] = [
       subdivision: 2,
       density: 0.2,
       voices: ['kick', 'snare', 'hihat', 'tomFloor'],
+      // Open-handed: the left hand keeps the hi-hat, so the right hand can take the floor tom
+      // (leading with the right, the arms would cross both ways on beat 1).
+      sticking: { lead: 'left' },
       rules: [{ kind: 'polyrhythm', voices: ['tomFloor', 'snare'], against: 2, span: 3 }],
     },
   },

@@ -2,7 +2,7 @@
  * fast-check arbitraries for rule cards, built from the drill contract and docs/engine.md (every
  * rule kind, meter grouping, layers, roles, hand and sticking, swing, measure, landing, phrase).
  * Every card they build is valid by the contract; what they leave out, and why:
- * - the grid never runs faster than 10 notes a second (tempo × slots ≤ 600 a minute), below the
+ * - the grid never runs faster than 5 notes a second (tempo × slots ≤ 300 a minute), below the
  *   single-hand rate a drummer can sustain (common practice), so a rate limit never decides;
  * - the crash only ever plays its colour role (no rule, layer or fill list names it), and fill
  *   lists name no time voice or figure (euclid/polyrhythm) voice: docs/engine.md does not say
@@ -266,9 +266,9 @@ export const cardArb: fc.Arbitrary<Json> = frameArb.chain((f) => {
     })
     .chain((p) =>
       swingArb(p.unit, f.subs).map((swing) => {
-        // tempo × slots ≤ 600 a minute in the fastest beat
+        // tempo × slots ≤ 300 a minute in the fastest beat
         const fastest = Math.max(...f.subs);
-        const top = Math.max(20, Math.min(320, Math.floor(600 / fastest)));
+        const top = Math.max(20, Math.min(320, Math.floor(300 / fastest)));
         const tempo = 20 + Math.floor(((top - 20) * p.tempoShare) / 1000);
         return assemble(f, { ...p, tempo, swing });
       }),

@@ -387,13 +387,67 @@ export function checkDrill(plan: Plan, drill: DrillLike): Violation[] {
           check: 'phrase/fill-played',
           message: `bar ${bar} ends a ${phrase.every}-bar phrase but its last ${phrase.fillBeats} beat(s) hold no fill`,
         });
-      if (!card.doubles)
-        for (let i = 1; i < run.length; i++)
-          if (run[i]!.hand === run[i - 1]!.hand)
-            out.push({
-              check: 'phrase/alternating',
-              message: `bar ${bar}: fill notes at ${at(run[i - 1]!.index)} and ${at(run[i]!.index)} both in hand ${run[i]!.hand} (runs alternate single strokes)`,
-            });
+      // The hands alternate through the fill window, the notes other rules leave in it included
+      // (a backbeat inside the fill is one stroke of the run); instants with both hands are
+      // skipped, and alternation is asked of neighbouring slots only (a gap lets a hand rest).
+      const strokes = [
+        ...groupBy(
+          hits.filter((h) => h.hand !== null && h.bar === bar && plan.fillWindow.has(h.index)),
+          (h) => h.index,
+        ),
+      ]
+        .filter(([, g]) => g.filter((h) => h.hand !== null).length === 1)
+        .map(([index, g]) => {
+          const stroke = g.find((h) => h.hand !== null)!;
+          // A line's note (euclid, polyrhythm) keeps the hand its line needs (docs/engine.md).
+          return {
+            index,
+            hand: stroke.hand,
+            line: ['euclid', 'polyrhythm'].includes(stroke.source),
+          };
+        })
+        .sort((a, b) => a.index - b.index);
+      // Runs are notes at 4 a second or faster (docs/engine.md, "Sticking"); slower notes may
+      // stay on one hand.
+      const runs = (i: number): boolean => grid.notesPerMinuteAt(i, card.tempo) >= 240;
+      // Between two line notes whose hands leave the wrong parity, one repeat is unavoidable:
+      // each stretch of fill strokes may repeat a hand once if lines bound it on both sides.
+      if (!card.doubles) {
+        let repeats: [number, number][] = [];
+        // A line note just before the window bounds the first stretch too.
+        const windowStart = Math.min(...[...plan.fillWindow].filter((i) => grid.barOf(i) === bar));
+        const lineBefore = (byIndex.get(windowStart - 1) ?? []).some(
+          (h) => h.hand !== null && ['euclid', 'polyrhythm'].includes(h.source),
+        );
+        let boundedBefore = false;
+        const close = (boundedAfter: boolean): void => {
+          const allowed = boundedBefore && boundedAfter ? 1 : 0;
+          if (repeats.length > allowed)
+            for (const [a, b] of repeats)
+              out.push({
+                check: 'phrase/alternating',
+                message: `bar ${bar}: fill strokes at ${at(a)} and ${at(b)} both in hand ${strokes.find((x) => x.index === b)!.hand} (runs alternate single strokes)`,
+              });
+          repeats = [];
+        };
+        for (let i = 0; i < strokes.length; i++) {
+          const s1 = strokes[i]!;
+          const s0 = strokes[i - 1];
+          const adjacent = s0 !== undefined && s1.index === s0.index + 1 && runs(s0.index);
+          if (!adjacent) {
+            close(false);
+            boundedBefore = s1.line || (s1.index === windowStart && lineBefore);
+            continue;
+          }
+          if (s1.line) {
+            close(true);
+            boundedBefore = true;
+            continue;
+          }
+          if (!s0.line && s1.hand === s0.hand) repeats.push([s0.index, s1.index]);
+        }
+        close(false);
+      }
     }
   }
 
@@ -533,21 +587,37 @@ export function checkPreset(plan: Plan, drill: DrillLike): Violation[] {
           });
   }
 
-  // No hand crossing: for a right-handed player the left hand does not play ride or floor tom
-  // while the right hand is free; mirrored for a left-handed player (docs/engine.md, "Sticking";
-  // the kit layout is common practice).
+  // No hand crossing: for a right-handed player the left hand does not go to the ride or the
+  // floor tom while the right hand is free, i.e. when the right hand strikes nowhere from the
+  // left hand's stroke before to its stroke after (it could have taken the note); mirrored for a
+  // left-handed player (docs/engine.md, "Sticking"; the kit layout is common practice). Time and
+  // figure notes (ostinato, polyrhythm, euclid lines) keep the hand their line needs.
   const crossing = card.hand === 'right' ? 'L' : 'R';
   const other = card.hand === 'right' ? 'R' : 'L';
+  const strokesOf = (side: string): number[] =>
+    [...byIndex]
+      .filter(([, g]) => g.some((h) => h.hand === side))
+      .map(([i]) => i)
+      .sort((a, b) => a - b);
+  const mine = strokesOf(crossing);
+  const theirs = strokesOf(other);
+  const n = grid.totalSlots;
+  const between = (from: number, to: number): boolean =>
+    theirs.some((t) => (to >= from ? t >= from && t <= to : t >= from || t <= to));
   for (const [index, group] of byIndex)
-    for (const h of group)
-      if (
-        h.hand === crossing &&
-        FAR_SIDE_FOR_LEFT_HAND.has(h.voice) &&
-        !group.some((g) => g.hand === other)
-      )
+    for (const h of group) {
+      if (h.hand !== crossing || !FAR_SIDE_FOR_LEFT_HAND.has(h.voice)) continue;
+      if (['ostinato', 'polyrhythm', 'euclid'].includes(h.source)) continue;
+      if (group.some((g) => g.hand === other)) continue;
+      const k = mine.indexOf(index);
+      const before = mine[(k - 1 + mine.length) % mine.length]!;
+      const after = mine[(k + 1) % mine.length]!;
+      const covered = mine.length > 1 && (between(before, index) || between(index, after));
+      if (!covered || n === 0)
         out.push({
           check: 'preset/no-hand-crossing',
           message: `hand ${crossing} crosses to ${h.voice} at ${grid.describe(index)} while hand ${other} is free`,
         });
+    }
   return out;
 }

@@ -30,7 +30,10 @@
  *    and that pattern puts three notes in a row on a grid at least as fast as sixteenths at
  *    120 BPM, which a single hand should not play without doubles (issue 8, "Tests").
  */
-import { isHand, rulesOf, type Voice } from './card';
+import { FAR_SIDE_FOR_LEFT_HAND, isHand, rulesOf, TIME_CYMBALS, type Voice } from './card';
+
+/** The right hand's far side on a right-handed kit: the hi-hat (common practice). */
+const RIGHT_HAND_FAR: ReadonlySet<string> = new Set(['hihat', 'hihatOpen']);
 import { key, type Plan } from './plan';
 
 export interface Feasibility {
@@ -100,6 +103,34 @@ export function reasonAbout(plan: Plan): Feasibility {
   }
   if (plan.targets && new Set(plan.targets).size > 1 && nothingCanSyncopate(plan))
     reasons.push('no note can sound before a stronger silent position, so every bar measures 0');
+
+  // 5. (policy) The leading hand keeps the time cymbal; where another hand voice must sound with
+  // it on the other hand's far side of the kit, the arms would cross both ways (docs/engine.md,
+  // "Sticking": an open-handed lead is the way out).
+  const timeCymbal = card.timeLayers.find((l) => TIME_CYMBALS.has(l.voice))?.voice;
+  if (timeCymbal && isHand(timeCymbal) && card.lead !== 'alternate') {
+    const otherFar = (v: string): boolean =>
+      (card.lead === 'right') === (card.hand === 'right')
+        ? FAR_SIDE_FOR_LEFT_HAND.has(v)
+        : RIGHT_HAND_FAR.has(v);
+    for (const [index, voices] of byIndex)
+      if (
+        voices.has(timeCymbal) &&
+        [...voices].some((v) => v !== timeCymbal && isHand(v) && otherFar(v))
+      ) {
+        policy.push(`the time cymbal and a far-side voice for the other hand meet at ${at(index)}`);
+        break;
+      }
+  }
+
+  // 6. (policy) Two hand time layers at one instant: the leading hand keeps the time, so one of
+  // them goes to the other hand and may take it across the kit.
+  const handTimes = card.timeLayers.filter((l) => isHand(l.voice)).map((l) => l.voice);
+  for (const [index, voices] of byIndex)
+    if (handTimes.filter((v) => voices.has(v)).length >= 2) {
+      policy.push(`two hand time layers meet at ${at(index)}`);
+      break;
+    }
 
   const lead = card.ostinato;
   if (lead && isHand(lead.voice) && card.lead !== 'alternate' && !card.doubles) {

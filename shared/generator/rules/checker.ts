@@ -18,7 +18,7 @@ import { rankOrderBreaks, tensionTargets } from './tension';
 
 /** One broken rule or invariant in a drill, with where it happened when that applies. */
 export interface Violation {
-  /** What was broken: a rule kind, `ostinato`, `grid`, `order`, `hands`, `tension`, `drill`. */
+  /** What was broken: a rule kind, `ostinato`, `grid`, `order`, `hands`, `feet`, `tension`, `drill`. */
   readonly code: string;
   readonly message: string;
   readonly bar?: number;
