@@ -7,6 +7,7 @@ import {
   parseRuleCard,
   RuleCardError,
   RuleConflictError,
+  SearchExhaustedError,
   VOICE_IDS,
   type Drill,
   type VoiceId,
@@ -183,6 +184,7 @@ describe('engine properties', () => {
   it('every generated drill passes the checker, is well formed and deterministic; only RuleConflictError is thrown', () => {
     let generated = 0;
     let runs = 0;
+    let gaveUp = 0;
     fc.assert(
       fc.property(cardArb, fc.string({ maxLength: 12 }), (raw, seed) => {
         runs++;
@@ -198,6 +200,13 @@ describe('engine properties', () => {
         try {
           drill = generateDrill(card, seed);
         } catch (error) {
+          // A search that spends its budget says so and blames no rule (docs/engine.md); it
+          // may happen on extreme random cards (tempo 300 on 32nds), never on presets.
+          if (error instanceof SearchExhaustedError) {
+            gaveUp++;
+            expect(error.message).toMatch(/try another seed/);
+            return;
+          }
           if (!(error instanceof RuleConflictError)) throw error;
           // A refusal names parts this card has (the oracle in tests/oracle proves each one).
           const parts = new Set<string>([
@@ -219,7 +228,9 @@ describe('engine properties', () => {
       }),
       { numRuns: NUM_RUNS },
     );
-    // The property must not hold vacuously: most valid cards yield a drill.
+    // The property must not hold vacuously: most valid cards yield a drill, and the search
+    // rarely gives up.
     expect(generated / runs).toBeGreaterThan(0.5);
+    expect(gaveUp / runs).toBeLessThan(0.01);
   }, 120_000);
 });

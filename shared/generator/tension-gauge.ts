@@ -30,6 +30,8 @@ export interface TensionGauge {
   unitsOfVoices(voices: readonly (readonly VoiceSound[])[]): number;
   /** The raw (unscaled) syncopation of the same. */
   rawOfVoices(voices: readonly (readonly VoiceSound[])[]): number;
+  /** LHL only: the raw syncopation of a merged onset stream (time layers already left out). */
+  rawOfOnsets(onsets: readonly boolean[]): number;
   /** Same value as `measureTension(bar, measure)`, for a bar on this gauge's grid. */
   ofBar(bar: DrillBar): number;
   /**
@@ -75,6 +77,9 @@ export function createTensionGauge(
       scale: (raw) => unitsOfRaw(raw) / 10_000,
       unitsOfVoices: (voices) => unitsOfRaw(rawOfVoices(voices)),
       rawOfVoices,
+      rawOfOnsets: () => {
+        throw new RangeError('The polyphonic measure reads voices, not merged onsets.');
+      },
       ofBar: (bar) => unitsOfRaw(witekOnWeights(weights, witekStreams(bar, tree))) / 10_000,
       reach: () => ({ least: 0, most }),
     };
@@ -93,6 +98,7 @@ export function createTensionGauge(
         tree,
         voices.map((at) => at.some((v) => !v.time)),
       ),
+    rawOfOnsets: (onsets) => lhlOnGrid(tree, onsets),
     ofBar: (bar) => units(barOnsets(bar, tree)) / 10_000,
     reach: (forced, allowed) => lhlRangeOnGrid(tree, forced, allowed),
   };

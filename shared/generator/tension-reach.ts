@@ -30,10 +30,11 @@ export function assertTensionReachable(
   ctx: FillContext,
   targets: readonly number[],
   gauge: TensionGauge,
+  listed = gauge.measure !== 'lhl',
 ): void {
   const levels = tensionLevels(targets);
   if (levels.length <= 1) return;
-  const reach = barReaches(ctx, gauge);
+  const reach = barReaches(ctx, gauge, listed);
   let floor = Number.NEGATIVE_INFINITY;
   let floorBar = -1;
   for (let k = 0; k < levels.length; k++) {
@@ -74,7 +75,7 @@ export function cardReach(ctx: FillContext, gauge: TensionGauge): BarReach {
 }
 
 /** Per bar, the syncopation range its fills can reach; bars alike in slots are worked out once. */
-function barReaches(ctx: FillContext, gauge: TensionGauge): BarReach[] {
+function barReaches(ctx: FillContext, gauge: TensionGauge, listed = false): BarReach[] {
   const { grid, ob } = ctx;
   const known = new Map<string, BarReach>();
   const out: BarReach[] = [];
@@ -99,11 +100,12 @@ function barReaches(ctx: FillContext, gauge: TensionGauge): BarReach[] {
     }
     let r = known.get(key);
     if (!r || gauge.measure !== 'lhl') {
-      const range = gauge.measure === 'lhl' ? gauge.reach(forced, allowed) : null;
-      const values = listedValues(ctx, gauge, bar, allowed, forced);
+      const values = listed ? listedValues(ctx, gauge, bar, allowed, forced) : null;
       r = values
         ? { least: values[0] ?? 0, most: values[values.length - 1] ?? 0, values }
-        : (range ?? { least: 0, most: gauge.most });
+        : gauge.measure === 'lhl'
+          ? gauge.reach(forced, allowed)
+          : { least: 0, most: gauge.most };
       known.set(key, r);
     }
     out.push(r);
@@ -112,7 +114,7 @@ function barReaches(ctx: FillContext, gauge: TensionGauge): BarReach[] {
 }
 
 /** Bars with at most this many fill patterns have their reachable values listed exactly. */
-const LISTED_PATTERNS = 1024;
+const LISTED_PATTERNS = 256;
 
 /**
  * Every raw value the fills of a bar can reach, when the bar has few enough fill patterns: each
@@ -150,6 +152,23 @@ function listedValues(
     if (patterns > LISTED_PATTERNS) return null;
   }
   const values = new Set<number>();
+  if (gauge.measure === 'lhl') {
+    // Only onsets count: toggle them in place.
+    const onsets = base.map((at) => at.some((v) => !v.time));
+    const walkOnsets = (k: number): void => {
+      const choice = choices[k];
+      if (!choice) {
+        values.add(gauge.rawOfOnsets(onsets));
+        return;
+      }
+      walkOnsets(k + 1);
+      onsets[choice.i] = true;
+      walkOnsets(k + 1);
+      onsets[choice.i] = false;
+    };
+    walkOnsets(0);
+    return [...values].sort((a, b) => a - b);
+  }
   const walk = (k: number): void => {
     const choice = choices[k];
     if (!choice) {
