@@ -139,7 +139,9 @@ const quintupletCard = parseRuleCard({
   meter: { beats: 4, unit: 4 },
   bars: 2,
   subdivision: 5,
-  tempo: 97,
+  // Written at 90 (7.5 notes a second, within one hand's single strokes); played at the
+  // scenarios' own tempi below.
+  tempo: 90,
   voices: ['kick', 'snare', 'hihat'],
   ostinato: { voice: 'hihat', slots: [0, 2, 4] },
   density: 0.4,

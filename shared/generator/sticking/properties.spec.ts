@@ -208,7 +208,8 @@ describe('sticking properties', () => {
           });
         }
       }),
-      { numRuns: NUM_RUNS },
+      // A fixed seed keeps CI repeatable; FC_SEED explores others.
+      { numRuns: NUM_RUNS, seed: Number(process.env['FC_SEED'] ?? 20261202) },
     );
     // The property must not hold vacuously.
     expect(generated / runs).toBeGreaterThan(0.5);
