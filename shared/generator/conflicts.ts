@@ -4,7 +4,7 @@ import { positionOf, slotsIn, type Grid } from './grid';
 import { assignHands, FOOT_LIMITS, HAND_LIMITS } from './hands';
 import type { Obligations } from './obligations';
 import { describePart, partKind } from './rules/describe';
-import { phraseOf } from './rules/phrase';
+import { fillBars, phraseOf } from './rules/phrase';
 import { overlapBudget } from './rules/linear';
 import type { Placement } from './rules/placement';
 import type { RuleCard } from './schema';
@@ -27,7 +27,7 @@ export function assertNoObligationConflicts(card: RuleCard, grid: Grid, ob: Obli
 function assertPhraseHasRoom(card: RuleCard, grid: Grid, ob: Obligations): void {
   const phrase = phraseOf(card);
   if (!phrase) return;
-  for (let bar = phrase.rule.every - 1; bar < grid.bars; bar += phrase.rule.every) {
+  for (const bar of fillBars(phrase.rule, grid.bars)) {
     const from = bar * grid.slotsPerBar;
     const played = ob.placements.some(
       (p) =>

@@ -1,12 +1,12 @@
 import { canonicalCard } from './canonical';
 import { assertNoObligationConflicts } from './conflicts';
 import { type Drill, type DrillBar, type DrillHit } from './drill';
-import { RuleConflictError, SearchExhaustedError } from './errors';
+import { RuleConflictError } from './errors';
 import { createFillContext, type BarFill, type FillContext } from './fill';
 import { beatsOf, createGrid, type Grid } from './grid';
 import { assignHandsRepairing, type WorkHit } from './hands';
 import { createTensionGauge, type TensionGauge } from './tension-gauge';
-import { assertTensionReachable, cardReach } from './tension-reach';
+import { assertTensionReachable, cardReach, giveUp } from './tension-reach';
 import { collectObligations, type Obligations } from './obligations';
 import { createRng, type Rng } from './random';
 import { checkDrillWith } from './rules/checker';
@@ -81,7 +81,7 @@ function fillAndStick(
   // Fresh fills are tried, while the work budget lasts, when removing strokes the hands cannot
   // play breaks the tension order.
   for (;;) {
-    const cells = mergeCells(grid, ob, searchFills(ctx, rng, targets, gauge, budget, goals));
+    const cells = mergeCells(grid, ob, chooseFills(ctx, rng, targets, gauge, budget, goals));
     repairHands(card, grid, cells);
     markEmbellishments(card, cells, rng);
     const bars = buildBars(grid, cells, gauge);
@@ -91,30 +91,7 @@ function fillAndStick(
     if (budget.left <= 0) break;
   }
   // The hands dropped strokes the search had counted on: impossible only if the exact proof says so.
-  if (targets) assertTensionReachable(ctx, targets, gauge, true);
-  throw new SearchExhaustedError();
-}
-
-/**
- * The tension search. The ranges proved up front can miss gaps between the values a bar can
- * reach; when the search gives up, the slower exact proof (every reachable value listed) decides
- * whether the card is impossible (RuleConflictError) or the search simply ran out of work.
- */
-function searchFills(
-  ctx: FillContext,
-  rng: Rng,
-  targets: readonly number[] | null,
-  gauge: TensionGauge,
-  budget: SearchBudget,
-  goals: readonly number[] | null,
-): BarFill[] {
-  try {
-    return chooseFills(ctx, rng, targets, gauge, budget, goals);
-  } catch (error) {
-    if (error instanceof SearchExhaustedError && targets)
-      assertTensionReachable(ctx, targets, gauge, true);
-    throw error;
-  }
+  return giveUp(ctx, targets, gauge);
 }
 
 function mergeCells(grid: Grid, ob: Obligations, fills: readonly BarFill[]): WorkHit[][] {

@@ -5,7 +5,7 @@ import { colourCrashes, placeAnchors } from './rules/anchor';
 import { planAvoidDownbeat } from './rules/avoid-downbeat';
 import { placeBackbeat } from './rules/backbeat';
 import { placeEuclid } from './rules/euclid';
-import { fillWindow, phraseOf, placePhrase } from './rules/phrase';
+import { fillBars, fillWindow, phraseOf, placePhrase } from './rules/phrase';
 import { SOURCE_RANK, type Placement } from './rules/placement';
 import { placePolyrhythm } from './rules/polyrhythm';
 import { placeTimeLayers } from './rules/time-layers';
@@ -87,8 +87,8 @@ function crashInstants(card: RuleCard, grid: Grid): Set<number> {
   const crashes = colourCrashes(card);
   const phrase = phraseOf(card);
   if (phrase?.rule.crash && card.voices.includes('crash')) {
-    for (let bar = phrase.rule.every; bar <= grid.bars; bar += phrase.rule.every)
-      crashes.add((bar % grid.bars) * grid.slotsPerBar);
+    for (const bar of fillBars(phrase.rule, grid.bars))
+      crashes.add(((bar + 1) % grid.bars) * grid.slotsPerBar);
   }
   return crashes;
 }

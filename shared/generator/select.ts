@@ -1,4 +1,4 @@
-import { SearchExhaustedError } from './errors';
+import { giveUp } from './tension-reach';
 import { emptyFill, initialFill, variantOf, type BarFill, type FillContext } from './fill';
 import type { TensionGauge } from './tension-gauge';
 import type { Rng } from './random';
@@ -90,7 +90,7 @@ export function chooseFills(
       keepNew(cands, measure(variantOf(ctx, any.fill, rng, lean(bar))));
     }
   }
-  if (!best) throw new SearchExhaustedError();
+  if (!best) giveUp(ctx, targets, gauge);
   const picks = best.picks;
   return picks.map((k, bar) => (candidates[bar]?.[k] as Candidate).fill);
 }
@@ -156,22 +156,14 @@ function candidateMeter(ctx: FillContext, gauge: TensionGauge): (fill: BarFill) 
   // Thousands of candidates on big cards: mark the fill on the bar's own onsets, measure, and
   // put the obligatory onsets back, rather than copy the bar per candidate.
   const scratch = fixed.map((onsets) => onsets.slice());
-  const lhl = lhlUnits(gauge);
   return (fill) => {
     const base = fixed[fill.bar] ?? [];
     const onsets = scratch[fill.bar] ?? [];
     for (const hit of fill.fills) onsets[hit.i] = true;
-    const units = lhl(onsets);
+    const units = gauge.unitsOfRaw(gauge.rawOfOnsets(onsets));
     for (const hit of fill.fills) onsets[hit.i] = base[hit.i] === true;
     return { fill, units };
   };
-}
-
-/** LHL tension units of a merged onset stream (every onset counts). */
-function lhlUnits(gauge: TensionGauge): (onsets: readonly boolean[]) => number {
-  const sound = [{ voice: 'snare' as const, time: false }];
-  const silent: { voice: 'snare'; time: boolean }[] = [];
-  return (onsets) => gauge.unitsOfVoices(onsets.map((on) => (on ? sound : silent)));
 }
 
 /** Only the rank order counts, so one fill per tension value is enough. */

@@ -1,6 +1,6 @@
 import { isHandVoice, type VoiceId } from './drill';
 import { WITEK_CLASS_OF_VOICE } from './tension/witek';
-import { RuleConflictError } from './errors';
+import { RuleConflictError, SearchExhaustedError } from './errors';
 import { emptyFill, type FillContext } from './fill';
 import { describePart, partKind } from './rules/describe';
 import { tensionLevels } from './rules/tension';
@@ -60,6 +60,21 @@ export function assertTensionReachable(
     floor = top;
     floorBar = topBar;
   }
+}
+
+/**
+ * What a search that spent its work budget ends with. The ranges proved up front can miss gaps
+ * between the values a bar can reach, so the slower exact proof (every reachable value listed)
+ * decides first: a RuleConflictError when the curve truly cannot be kept, else a
+ * SearchExhaustedError, which blames no rule.
+ */
+export function giveUp(
+  ctx: FillContext,
+  targets: readonly number[] | null,
+  gauge: TensionGauge,
+): never {
+  if (targets) assertTensionReachable(ctx, targets, gauge, true);
+  throw new SearchExhaustedError();
 }
 
 /**

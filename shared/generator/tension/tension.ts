@@ -3,8 +3,7 @@ import { lhlOnGrid } from './lhl';
 import { maxLhlOnGrid } from './lhl-max';
 import { type BarGrid, metricalGrid } from './metrical-grid';
 import { barOnsets } from './onsets';
-import { gridWeights, witekOnWeights, witekStreams } from './witek';
-import { mostWitekOnWeights } from './witek-max';
+import { measureWitek } from './witek-meter';
 import { scaled } from './scale';
 
 /** Measures bars of one grid; build it once per grid when measuring many bars. */
@@ -75,11 +74,6 @@ export function measureTension(
   grouping?: readonly number[] | null,
   measure: 'lhl' | 'witek' = 'lhl',
 ): number {
-  if (measure === 'witek') {
-    const weights = gridWeights(metricalGrid(bar.beats, grouping));
-    const most = mostWitekOnWeights(weights).most;
-    const raw = witekOnWeights(weights, witekStreams(bar, metricalGrid(bar.beats, grouping)));
-    return scaled(raw, most);
-  }
+  if (measure === 'witek') return measureWitek(bar, grouping);
   return tensionMeter(bar.beats, grouping).measure(bar);
 }

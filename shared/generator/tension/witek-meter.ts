@@ -20,8 +20,8 @@ export interface WitekMeter {
  * computed once, so each measure afterwards is one pass over the bar. The caller owns the meter;
  * nothing is cached inside the engine. Mirrors `tensionMeter`.
  */
-export function witekMeter(beats: BarGrid): WitekMeter {
-  const grid = metricalGrid(beats);
+export function witekMeter(beats: BarGrid, grouping?: readonly number[] | null): WitekMeter {
+  const grid = metricalGrid(beats, grouping);
   const weights = gridWeights(grid);
   const { most } = mostWitekOnWeights(weights);
   const scale = (value: number): number => scaled(value, most);
@@ -51,6 +51,6 @@ export function witekMeter(beats: BarGrid): WitekMeter {
  * Not wired into the generator: the drill's tension stays `measureTension` unless a card chooses
  * otherwise. Measuring many bars of one grid: use `witekMeter(beats)`, which gives the same values.
  */
-export function measureWitek(bar: DrillBar): number {
-  return witekMeter(bar.beats).measure(bar);
+export function measureWitek(bar: DrillBar, grouping?: readonly number[] | null): number {
+  return witekMeter(bar.beats, grouping).measure(bar);
 }
