@@ -1,6 +1,6 @@
 import { canonicalCard } from './canonical';
 import { assertNoObligationConflicts } from './conflicts';
-import { type Drill, type DrillBar, type DrillHit } from './drill';
+import { compareVoices, type Drill, type DrillBar, type DrillHit } from './drill';
 import { RuleCardError, RuleConflictError } from './errors';
 import { createFillContext, type BarFill, type FillContext } from './fill';
 import { beatsOf, createGrid, positionOf, type Grid } from './grid';
@@ -221,9 +221,6 @@ function markEmbellishments(ctx: FillContext, cells: WorkHit[][], rng: Rng, kept
   });
 }
 
-const byVoice = (a: WorkHit, b: WorkHit): number =>
-  a.voice < b.voice ? -1 : a.voice > b.voice ? 1 : 0;
-
 function buildBars(grid: Grid, cells: readonly WorkHit[][], gauge: TensionGauge): DrillBar[] {
   const bars: DrillBar[] = [];
   for (let bar = 0; bar < grid.bars; bar++) {
@@ -240,7 +237,7 @@ function barOf(grid: Grid, bar: number, cells: readonly WorkHit[][], tension: nu
     const cell = cells[i] ?? [];
     const beat = (grid.beatOf[i] ?? 0) + 1;
     const slot = grid.slotOf[i] ?? 0;
-    for (const hit of cell.length > 1 ? cell.slice().sort(byVoice) : cell) {
+    for (const hit of cell.length > 1 ? cell.slice().sort(compareVoices) : cell) {
       hits.push({
         beat,
         slot,

@@ -25,11 +25,6 @@ export interface SearchBudget {
   left: number;
 }
 
-/** Tension in ten-thousandths: the stored precision, compared as integers. */
-export function tensionUnits(tension: number): number {
-  return Math.round(tension * 10000);
-}
-
 interface Candidate {
   readonly fill: BarFill;
   readonly units: number;
