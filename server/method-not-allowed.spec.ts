@@ -21,6 +21,7 @@ describe('a wrong method on an existing API route', () => {
     ['patch', '/api/students', 'GET, HEAD'],
     ['post', '/api/presets', 'GET, HEAD'],
     ['patch', '/api/presets/backbeat-basics', 'GET, HEAD, PUT'],
+    ['patch', '/api/rule-cards/1', 'DELETE, GET, HEAD, PUT'],
   ] as const)('answers %s %s with 405 and Allow: %s', async (method, path, allow) => {
     const agent = await t.signIn('admin');
     const res = await agent[method](path).send({});
