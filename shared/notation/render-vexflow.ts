@@ -274,6 +274,15 @@ function drawBar(
 ): void {
   const voices = engraved.voices.map((v) => v.voice);
   new Formatter().joinVoices(voices).formatToStave(voices, stave);
+  // Stems reach their beams before anything hangs on them: VexFlow places an accent at the stem's
+  // tip when the note is drawn, and a beam fixed its stems' length when the bar was first
+  // measured (before the notes had a stave), so without this the accent of a beamed note lands
+  // inside the beam.
+  for (const { note } of engraved.notes) note.setStave(stave);
+  for (const { beam } of engraved.beams) {
+    beam.postFormatted = false;
+    beam.postFormat();
+  }
   const group = ctx.openGroup();
   group.setAttribute('class', 'tensile-bar');
   group.setAttribute('data-bar', String(bar.bar));

@@ -81,6 +81,9 @@ function addBeamsAndTuplets(
 ): void {
   for (const { notes, breaks } of layerBar.beams) {
     const beam = new Beam(notes.map((i) => staveNotes[i]!));
+    // Level beams, as drum-set parts beam the cymbal line (common practice): every stem of the
+    // group reaches the outermost one, so an accent at a stem's tip sits clear of the beam.
+    beam.renderOptions.flatBeams = true;
     // VexFlow breaks the sixteenth (and shorter) beams after each listed note.
     if (breaks.length > 0) beam.breakSecondaryAt([...breaks]);
     beams.push({ beam, layer: layerBar.layer });
