@@ -13,8 +13,25 @@ import { createHealthRouter } from './health/health-router';
 import { jsonBody } from './json-body';
 import { answerWrongMethods } from './method-not-allowed';
 import { createLogger, type Logger } from './logger';
-import { builtInPresetViews } from './presets/built-in-presets';
-import { createPresetsRouter, type PresetView } from './presets/presets-router';
+import { ENGINE_VERSION } from '../shared/generator/index';
+import { engineGenerator, type DrillGenerator } from './drills/drill-generator';
+import { DrillsRepository } from './drills/drills-repository';
+import { createDrillsRouter } from './drills/drills-router';
+import { DrillsService } from './drills/drills-service';
+import { PresetsRepository } from './presets/presets-repository';
+import { createPresetsRouter } from './presets/presets-router';
+import {
+  PresetsService,
+  engraveThumbnail,
+  type ThumbnailRenderer,
+} from './presets/presets-service';
+import { importBody } from './rule-cards/import-body';
+import { RuleCardsRepository } from './rule-cards/rule-cards-repository';
+import { createRuleCardsRouter } from './rule-cards/rule-cards-router';
+import { RuleCardsService } from './rule-cards/rule-cards-service';
+import { SeedLinksRepository } from './seed-links/seed-links-repository';
+import { createSeedLinksRouter } from './seed-links/seed-links-router';
+import { SeedLinksService } from './seed-links/seed-links-service';
 import { requestLog } from './request-log';
 import { requireSameOrigin } from './same-origin';
 import { securityHeaders } from './security-headers';
@@ -41,7 +58,12 @@ export interface AppDeps {
   readonly browserDist?: string;
   /** Sign-in attempt limits; defaults to {@link SignInLimiter}'s own, counted in `db`. */
   readonly signInLimiter?: SignInLimiter;
-  readonly presets?: readonly PresetView[];
+  /** The drill engine; tests inject another to stand for a later engine version. */
+  readonly generateDrill?: DrillGenerator;
+  /** The engine version thumbnails are cached under (with `generateDrill`). */
+  readonly engineVersion?: string;
+  /** Engraves preset thumbnails; defaults to the server's VexFlow renderer. */
+  readonly renderThumbnail?: ThumbnailRenderer;
 }
 
 /** Largest JSON body accepted; rule cards and drills are far smaller. */
@@ -70,6 +92,8 @@ export function createApp(deps: AppDeps): Express {
     next();
   });
   app.use('/api', requireSameOrigin(config.publicUrl));
+  // Imported rule card files have a smaller limit of their own, checked before parsing.
+  app.use('/api/rule-cards/import', importBody());
   app.use('/api', jsonBody({ limit: JSON_BODY_LIMIT }));
   // Before the session: a health check must not depend on the session store answering.
   app.use('/api/health', answerWrongMethods(createHealthRouter(db)));
@@ -92,10 +116,34 @@ export function createApp(deps: AppDeps): Express {
   );
   app.use('/api/users', answerWrongMethods(createUsersRouter(users)));
   app.use('/api/students', answerWrongMethods(createStudentsRouter(new StudentsService(users))));
+  const generate = deps.generateDrill ?? engineGenerator;
+  const presets = new PresetsRepository(db);
+  const ruleCards = new RuleCardsRepository(db);
+  const drills = new DrillsRepository(db);
+  const seedLinks = new SeedLinksService(new SeedLinksRepository(db), drills);
   app.use(
     '/api/presets',
-    answerWrongMethods(createPresetsRouter(deps.presets ?? builtInPresetViews())),
+    answerWrongMethods(
+      createPresetsRouter(
+        new PresetsService(presets, ruleCards, generate, deps.renderThumbnail ?? engraveThumbnail),
+        deps.engineVersion ?? ENGINE_VERSION,
+      ),
+    ),
   );
+  app.use(
+    '/api/rule-cards',
+    answerWrongMethods(createRuleCardsRouter(new RuleCardsService(ruleCards, presets))),
+  );
+  const drillsService = new DrillsService(
+    drills,
+    ruleCards,
+    presets,
+    new SeedLinksRepository(db),
+    generate,
+  );
+  app.use('/api/drills', answerWrongMethods(createDrillsRouter(drillsService, seedLinks)));
+  // Anyone may open a share link: its routes state `allowAnyone`, and sessions stay optional.
+  app.use('/api/seed-links', answerWrongMethods(createSeedLinksRouter(seedLinks)));
   app.use('/api', apiNotFound);
 
   app.use(createSpaRouter(deps.browserDist));

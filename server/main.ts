@@ -8,6 +8,7 @@ import { UsersRepository } from './auth/users-repository';
 import { DemoPasswordsError, refuseDemoPasswords } from './demo/demo-passwords';
 import { seedDemo } from './demo/seed-demo';
 import { createLogger, errorFields } from './logger';
+import { syncBuiltInPresets } from './presets/sync-built-ins';
 import { createSessionStore, stopSessionStore } from './session';
 
 /** Open connections get this long to finish after SIGTERM before the process exits anyway. */
@@ -19,6 +20,9 @@ async function main(): Promise<void> {
   const db = createDb(config);
   const ran = await migrateLatest(db);
   if (ran.length > 0) logger.info('Database migrated', { migrations: ran });
+  // Every start: built-in cards missing from the presets table are added, edited ones kept.
+  const presetsAdded = await syncBuiltInPresets(db);
+  if (presetsAdded > 0) logger.info('Built-in presets added', { count: presetsAdded });
   const passwords = new PasswordHasher(config.passwordHashCost);
   if (config.seedDemo) {
     const added = await seedDemo(db, passwords);

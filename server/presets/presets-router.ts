@@ -1,72 +1,106 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { requireSignIn } from '../auth/require-role';
-import { notFound } from '../http-error';
+import { requireRole, requireSignIn } from '../auth/require-role';
+import { queryBoolean } from '../paging';
+import { levelSchema, tagSchema, tagsSchema, titleSchema } from '../rule-cards/card-fields';
+import { meterFilter, subdivisionFilter } from '../rule-cards/rule-cards-router';
 import { validate } from '../validate';
-import { meterText, subdivisionWord, type CardShape } from './preset-summary';
-
-/** A built-in rule card as the engine's preset catalogue lists it. */
-export interface PresetEntry {
-  readonly id: string;
-  readonly title: string;
-  readonly summary: string;
-  readonly card: unknown;
-}
-
-/** A preset as the API sends it: the raw card plus its meter and grid in words. */
-export interface PresetView extends PresetEntry {
-  readonly meter: string;
-  readonly subdivision: string;
-}
-
-/** Normalises a raw card (the engine's `parseRuleCard`), throwing on an invalid one. */
-export type CardParser = (card: unknown) => CardShape;
+import type { PresetsService } from './presets-service';
 
 const presetParams = z.object({
   id: z.string().min(1).max(200, 'A preset id has at most 200 characters.'),
 });
 
-/** Builds the API views once; a preset whose card does not parse stops the server at start. */
-export function presetViews(presets: readonly PresetEntry[], parseCard: CardParser): PresetView[] {
-  return presets.map((preset) => {
-    let card: CardShape;
-    try {
-      card = parseCard(preset.card);
-    } catch (error) {
-      throw new Error(`Built-in preset "${preset.id}" has an invalid rule card: ${String(error)}`, {
-        cause: error,
-      });
-    }
-    const { id, title, summary } = preset;
-    return {
-      id,
-      title,
-      summary,
-      card: preset.card,
-      meter: meterText(card),
-      subdivision: subdivisionWord(card),
-    };
-  });
-}
+const listSchema = z.object({
+  all: queryBoolean.default(false),
+  tag: tagSchema.optional(),
+  level: levelSchema.optional(),
+  meter: meterFilter.optional(),
+  subdivision: subdivisionFilter.optional(),
+});
+
+const updateSchema = z.strictObject({
+  title: titleSchema.optional(),
+  summary: z.string().trim().max(2000, 'A summary has at most 2000 characters.').optional(),
+  level: levelSchema.nullable().optional(),
+  tags: tagsSchema.optional(),
+  position: z
+    .number({ error: 'The position is a number.' })
+    .int('The position is a whole number.')
+    .min(0, 'The position is 0 or more.')
+    .max(100_000, 'The position is at most 100000.')
+    .optional(),
+  published: z.boolean({ error: 'Published is true or false.' }).optional(),
+});
+
+const promoteSchema = z.strictObject({
+  ruleCardId: z
+    .number({ error: 'The rule card id is a number.' })
+    .int('The rule card id is a whole number.')
+    .min(1, 'The rule card id is a positive number.'),
+});
 
 /**
- * `/api/presets` (signed in, any role):
- * - `GET /` → `{ presets: [{ id, title, summary, card, meter, subdivision }] }`;
- * - `GET /:id` → `{ preset }`, or 404 `not_found`.
+ * `/api/presets`: published presets for everyone signed in (the admin also sees withdrawn ones
+ * with `?all=true`), a cached thumbnail each, the admin's edits and promotions, and "start from
+ * this" for teachers. See docs/api-authoring.md.
  */
-export function createPresetsRouter(views: readonly PresetView[]): Router {
-  const byId = new Map(views.map((view) => [view.id, view]));
+export function createPresetsRouter(service: PresetsService, engineVersion: string): Router {
   const router = Router();
 
-  router.get('/', requireSignIn, (_req, res) => {
-    res.json({ presets: views });
+  router.get('/', requireSignIn, validate({ query: listSchema }), async (req, res) => {
+    const filter = req.query as unknown as z.output<typeof listSchema>;
+    res.json({ presets: await service.list(req.user!, filter) });
   });
 
-  router.get('/:id', requireSignIn, validate({ params: presetParams }), (req, res) => {
-    const preset = byId.get(req.params['id'] as string);
-    if (!preset) throw notFound('There is no preset rule card with that id.');
-    res.json({ preset });
+  router.post(
+    '/promote',
+    requireRole('admin'),
+    validate({ body: promoteSchema }),
+    async (req, res) => {
+      const { ruleCardId } = req.body as z.output<typeof promoteSchema>;
+      res.status(201).json({ preset: await service.promote(ruleCardId) });
+    },
+  );
+
+  router.get('/:id', requireSignIn, validate({ params: presetParams }), async (req, res) => {
+    res.json({ preset: await service.get(req.user!, idOf(req.params)) });
   });
+
+  router.get(
+    '/:id/thumbnail.svg',
+    requireSignIn,
+    validate({ params: presetParams }),
+    async (req, res) => {
+      const svg = await service.thumbnail(req.user!, idOf(req.params), engineVersion);
+      // The same for everyone who may see it; the browser may keep it for an hour.
+      res.setHeader('Cache-Control', 'private, max-age=3600');
+      res.type('image/svg+xml').send(svg);
+    },
+  );
+
+  router.put(
+    '/:id',
+    requireRole('admin'),
+    validate({ params: presetParams, body: updateSchema }),
+    async (req, res) => {
+      const changes = req.body as z.output<typeof updateSchema>;
+      res.json({ preset: await service.update(idOf(req.params), changes) });
+    },
+  );
+
+  router.post(
+    '/:id/start',
+    requireRole('teacher', 'admin'),
+    validate({ params: presetParams }),
+    async (req, res) => {
+      res.status(201).json({ ruleCard: await service.start(req.user!, idOf(req.params)) });
+    },
+  );
 
   return router;
+}
+
+function idOf(params: unknown): string {
+  return (params as { id: string }).id;
 }

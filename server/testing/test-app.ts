@@ -15,6 +15,7 @@ import { createDb, migrateLatest } from '../db';
 import { DEMO_ACCOUNTS, type DemoAccount } from '../demo/seed-demo';
 import { seedDemo } from '../demo/seed-demo';
 import { createLogger, type Logger } from '../logger';
+import { syncBuiltInPresets } from '../presets/sync-built-ins';
 import { createSessionStore, stopSessionStore } from '../session';
 
 /** A running app on a fresh temporary database, for supertest. */
@@ -53,8 +54,8 @@ export interface TestAppOptions {
 export const TEST_HASH_COST = '10';
 
 /**
- * Creates a temp data dir, opens a SQLite database in it, migrates, seeds the demo accounts
- * with a low hash cost and builds the app. Call `close()` in `afterAll`/`afterEach`.
+ * Creates a temp data dir, opens a SQLite database in it, migrates, copies in the built-in
+ * presets, seeds the demo accounts with a low hash cost and builds the app. Call `close()` in `afterAll`/`afterEach`.
  */
 export async function createTestApp(options: TestAppOptions = {}): Promise<TestApp> {
   const dataDir = await mkdtemp(path.join(os.tmpdir(), 'tensile-test-'));
@@ -65,6 +66,7 @@ export async function createTestApp(options: TestAppOptions = {}): Promise<TestA
   });
   const db = createDb(config);
   await migrateLatest(db);
+  await syncBuiltInPresets(db);
   if (options.seed ?? true) await seedDemo(db, new PasswordHasher(config.passwordHashCost));
   const logLines: string[] = [];
   const logger: Logger = createLogger('debug', (line) => logLines.push(line));

@@ -38,7 +38,13 @@ export interface BarFill {
   overlaps: number;
 }
 
-export function createFillContext(card: RuleCard, grid: Grid, ob: Obligations): FillContext {
+/** `fixed`: bars (0-based) kept as given, which take no fill. */
+export function createFillContext(
+  card: RuleCard,
+  grid: Grid,
+  ob: Obligations,
+  fixed: ReadonlySet<number> = new Set(),
+): FillContext {
   const embellishing = embellishmentVoices(card);
   const voices = fillVoices(card);
   const busy = handsBusy(card, grid, ob);
@@ -52,7 +58,8 @@ export function createFillContext(card: RuleCard, grid: Grid, ob: Obligations): 
       const instant = bar * grid.slotsPerBar + i;
       const cell = ob.cells[instant] ?? [];
       // A slot another rule has taken is not free; the ostinato alone leaves it free.
-      const free = cell.every((hit) => hit.source === 'ostinato') && !ob.inFill[instant];
+      const free =
+        !fixed.has(bar) && cell.every((hit) => hit.source === 'ostinato') && !ob.inFill[instant];
       const hole = !ostinatoPlaysAt(card, grid, instant);
       perInstant.push(
         !free

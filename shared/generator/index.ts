@@ -7,6 +7,7 @@
  */
 export { parseRuleCard } from './parse';
 export { generateDrill } from './generate';
+export type { GenerateOptions } from './keep';
 export { checkDrill, type Violation } from './rules/checker';
 export { measureTension } from './tension';
 export { ENGINE_VERSION } from './version';

@@ -59,7 +59,7 @@ export function checkDrillWith(
       code: 'drill',
       message: `The drill has ${drill.bars.length} bars, the card ${card.bars}.`,
     });
-  const cells = checkShape(grid, card, drill, out);
+  const cells = checkShape(grid, card, drill.bars, out);
   if (out.length > 0) return out;
   const ob = known?.ob ?? collectObligations(card, grid);
   checkObligations(card, grid, ob, cells, out);
@@ -72,10 +72,35 @@ export function checkDrillWith(
   return out;
 }
 
-function checkShape(grid: Grid, card: RuleCard, drill: Drill, out: Violation[]): Located[][] {
+/**
+ * The rules each bar keeps on its own (shape, obligations, the fill's limits, the linear
+ * budget) on a drill's worth of bars, reported for the bars (0-based) in `only`. The sticking,
+ * the tension order and a fillHoles rule's shares span the drill: `checkDrill` sees to them.
+ */
+export function checkBarsAlone(
+  card: RuleCard,
+  grid: Grid,
+  ob: Obligations,
+  bars: readonly DrillBar[],
+  only: ReadonlySet<number>,
+): Violation[] {
+  const out: Violation[] = [];
+  const cells = checkShape(grid, card, bars, out);
+  checkObligations(card, grid, ob, cells, out);
+  checkFill(card, grid, ob, cells, out);
+  checkLinear(card, grid, cells, out);
+  return out.filter((v) => v.bar !== undefined && only.has(v.bar - 1));
+}
+
+function checkShape(
+  grid: Grid,
+  card: RuleCard,
+  bars: readonly DrillBar[],
+  out: Violation[],
+): Located[][] {
   const cells: Located[][] = Array.from({ length: grid.instants }, () => []);
   const voices = new Set<string>(card.voices);
-  drill.bars.forEach((bar, b) => {
+  bars.forEach((bar, b) => {
     if (bar.bar !== b + 1)
       out.push({ code: 'drill', message: `Bar ${b + 1} is numbered ${bar.bar}.` });
     if (bar.beats.join() !== grid.beats.join())

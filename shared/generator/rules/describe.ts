@@ -11,6 +11,7 @@ export function describePart(card: RuleCard, rule: number): string {
     return layer ? `the ${voiceWord(layer.voice)} layer` : 'a time layer';
   }
   if (rule === -3) return 'the kick on one';
+  if (rule === -4) return 'a pinned bar';
   if (rule < 0)
     return card.ostinato ? `the ${voiceWord(card.ostinato.voice)} ostinato` : 'the ostinato';
   const r = card.rules[rule];
@@ -46,5 +47,6 @@ export function describePart(card: RuleCard, rule: number): string {
 export function partKind(card: RuleCard, rule: number): string {
   if (rule <= -10) return 'layers';
   if (rule === -3) return 'anchor';
+  if (rule === -4) return 'keep';
   return rule < 0 ? 'ostinato' : (card.rules[rule]?.kind ?? 'rule');
 }

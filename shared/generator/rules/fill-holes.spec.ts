@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { generateDrill, parseRuleCard } from '../index';
 import { createRng } from '../random';
 import type { FillHolesRule } from '../schema';
-import { embellishmentDynamics, shareCounts } from './fill-holes';
+import { embellishmentDynamics, freeShares, shareCounts } from './fill-holes';
 
 const rule = (ghost: number, accent: number): FillHolesRule => ({
   kind: 'fillHoles',
@@ -19,10 +19,27 @@ describe('fillHoles', () => {
   });
 
   it('marks exactly those counts, in a seeded order', () => {
-    const dynamics = embellishmentDynamics(rule(0.5, 0.25), 8, createRng('a'));
+    const none = { ghost: 0, accent: 0 };
+    const dynamics = embellishmentDynamics(rule(0.5, 0.25), 8, 8, none, createRng('a')) ?? [];
     expect(dynamics.filter((d) => d === 'ghost')).toHaveLength(4);
     expect(dynamics.filter((d) => d === 'accent')).toHaveLength(2);
-    expect(embellishmentDynamics(rule(0.5, 0.25), 8, createRng('a'))).toEqual(dynamics);
+    expect(embellishmentDynamics(rule(0.5, 0.25), 8, 8, none, createRng('a'))).toEqual(dynamics);
+  });
+
+  it('makes up the shares around kept notes, or says it cannot', () => {
+    // 8 notes at ghost 0.5, accent 0.25: 4 ghost, 2 accent; 3 kept notes already hold 3 ghosts.
+    const rest = embellishmentDynamics(
+      rule(0.5, 0.25),
+      8,
+      5,
+      { ghost: 3, accent: 0 },
+      createRng('b'),
+    );
+    expect(rest?.filter((d) => d === 'ghost')).toHaveLength(1);
+    expect(rest?.filter((d) => d === 'accent')).toHaveLength(2);
+    expect(rest).toHaveLength(5);
+    // Kept notes with 5 ghosts already pass the 4 the shares allow.
+    expect(freeShares(rule(0.5, 0.25), 8, 3, { ghost: 5, accent: 0 })).toBeNull();
   });
 
   // common practice: the quintuplet ostinato masks [0, 2, 4] and [0, 2, 3] leave holes {1, 3}

@@ -53,11 +53,35 @@ export function shareCounts(rule: FillHolesRule, count: number): { ghost: number
   return { ghost, accent };
 }
 
-/** Dynamics for a rule's `count` embellishments in time order, in a seeded arrangement. */
-export function embellishmentDynamics(rule: FillHolesRule, count: number, rng: Rng): Dynamic[] {
-  const { ghost, accent } = shareCounts(rule, count);
+/**
+ * Dynamics for the `free` of a rule's `total` embellishments in time order, in a seeded
+ * arrangement, so that with the `kept` ones (ghost and accent counts of notes that keep theirs)
+ * the rule's shares hold over all of them; null when the kept notes leave no way to.
+ */
+export function embellishmentDynamics(
+  rule: FillHolesRule,
+  total: number,
+  free: number,
+  kept: { ghost: number; accent: number },
+  rng: Rng,
+): Dynamic[] | null {
+  const need = freeShares(rule, total, free, kept);
+  if (!need) return null;
   const dynamics: Dynamic[] = [];
-  for (let i = 0; i < count; i++)
-    dynamics.push(i < ghost ? 'ghost' : i < ghost + accent ? 'accent' : 'normal');
+  for (let i = 0; i < free; i++)
+    dynamics.push(i < need.ghost ? 'ghost' : i < need.ghost + need.accent ? 'accent' : 'normal');
   return rng.shuffle(dynamics);
+}
+
+/** The ghost and accent counts the free notes must carry, or null when none can do. */
+export function freeShares(
+  rule: FillHolesRule,
+  total: number,
+  free: number,
+  kept: { ghost: number; accent: number },
+): { ghost: number; accent: number } | null {
+  const want = shareCounts(rule, total);
+  const ghost = want.ghost - kept.ghost;
+  const accent = want.accent - kept.accent;
+  return ghost < 0 || accent < 0 || ghost + accent > free ? null : { ghost, accent };
 }

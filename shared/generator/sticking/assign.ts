@@ -25,6 +25,8 @@ export interface WorkHit {
   dynamic: Dynamic;
   readonly rule: number;
   hand: Hand | null;
+  /** A note of a kept bar: its hand and dynamic stay as given, and it is never removed. */
+  readonly pinned?: boolean;
 }
 
 /** Why the limbs cannot play the notes, and where the trouble shows. */
@@ -178,7 +180,7 @@ function dropNear(
     const cell = cells[i] ?? [];
     for (let k = cell.length - 1; k >= 0; k--) {
       const hit = cell[k] as WorkHit;
-      if (hit.source !== 'fill') continue;
+      if (hit.source !== 'fill' || hit.pinned) continue;
       const v = VOICE_INDEX[hit.voice];
       if (foot < 0 ? !HAND_VOICE[v] : v !== foot) continue;
       if (near && sounds(cell, hit)) {
@@ -448,6 +450,9 @@ interface Event {
   /** Per note: 0 free, 1 must be R, 2 must be L. */
   readonly forced0: number;
   readonly forced1: number;
+  /** Per note: 0 free, 1 or 2 the hand a kept bar gives it (a constraint only, no exemption). */
+  readonly pin0: number;
+  readonly pin1: number;
   /** 1 or 2: the natural hand of the position (the leading side on even positions). */
   readonly natural: number;
   /** With the previous event (round the loop for the first): a run step; within a beat. */
@@ -500,12 +505,16 @@ function eventAt(
     crowded: count > 2,
     forced0: forcedHand(plan, instant, va),
     forced1: b ? forcedHand(plan, instant, vb) : 0,
+    pin0: pinOf(a),
+    pin1: b ? pinOf(b) : 0,
     natural: slot % 2 === 0 ? ctx.lead : 3 - ctx.lead,
     runStep: !!prev && instant - prev.instant === 1 && step <= frame.run,
     nearStep: !!prev && step <= frame.pace.ticksPerBeat,
     fill: a.source === 'phrase' || prev?.a.source === 'phrase',
   };
 }
+
+const pinOf = (hit: WorkHit): number => (!hit.pinned ? 0 : hit.hand === 'R' ? 1 : 2);
 
 /** Sets the first event's steps as the second lap meets it: one on from the drill's last. */
 function wrap(ctx: Ctx, first: Event, last: Event): void {
@@ -585,7 +594,12 @@ function advance(
       }
       for (let o = 0; o < 2; o++) {
         const firstHand = o === 0 ? lead : 3 - lead; // o = 0: the leading hand takes the first note
-        if ((ev.forced0 && ev.forced0 !== firstHand) || (ev.forced1 && ev.forced1 === firstHand)) {
+        if (
+          (ev.forced0 && ev.forced0 !== firstHand) ||
+          (ev.forced1 && ev.forced1 === firstHand) ||
+          (ev.pin0 && ev.pin0 !== firstHand) ||
+          (ev.pin1 && ev.pin1 === firstHand)
+        ) {
           why.other = true;
           continue;
         }
@@ -622,7 +636,7 @@ function advance(
     const dL = lastL === REST ? 0 : T - lastL + 1;
     for (let o = 0; o < 2; o++) {
       const hand = o === 0 ? lead : 3 - lead;
-      if (ev.forced0 && ev.forced0 !== hand) continue;
+      if ((ev.forced0 && ev.forced0 !== hand) || (ev.pin0 && ev.pin0 !== hand)) continue;
       const right = hand === 1;
       const dbl = right ? dblR : dblL;
       if (dbl < 0) {

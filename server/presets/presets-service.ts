@@ -1,0 +1,174 @@
+import type { Drill } from '../../shared/generator/index';
+import type { PublicUser } from '../auth/roles';
+import { generateOrRefuse, type DrillGenerator } from '../drills/drill-generator';
+import { HttpError, notFound } from '../http-error';
+import { cardFacts, checkCard } from '../rule-cards/card-check';
+import { fileSlug, type Level } from '../rule-cards/card-fields';
+import type { RuleCardDetail, RuleCardsRepository } from '../rule-cards/rule-cards-repository';
+import type { Preset, PresetChanges, PresetsRepository } from './presets-repository';
+
+/** A preset as the API sends it. */
+export interface PresetView {
+  readonly id: string;
+  readonly title: string;
+  readonly summary: string;
+  readonly card: unknown;
+  readonly meter: string;
+  readonly subdivision: string;
+  readonly level: Level | null;
+  readonly tags: readonly string[];
+  readonly position: number;
+  readonly published: boolean;
+  readonly credit: string | null;
+}
+
+export interface PresetListFilter {
+  readonly all: boolean;
+  readonly tag?: string;
+  readonly level?: Level;
+  readonly meter?: string;
+  readonly subdivision?: number;
+}
+
+/** Draws the first bars of a drill as a small SVG. */
+export type ThumbnailRenderer = (drill: Drill) => Promise<string>;
+
+/**
+ * Engraves with the server's VexFlow renderer, loaded on first use: jsdom and the font canvas
+ * are only needed once a thumbnail is missing from the cache.
+ */
+export const engraveThumbnail: ThumbnailRenderer = async (drill) => {
+  const { renderDrillSvg } = await import('../notation/render-svg');
+  return renderDrillSvg(drill, {
+    width: 480,
+    showSticking: false,
+    showCounts: false,
+    showLegend: false,
+    showMarks: false,
+  }).svg;
+};
+
+/** How many bars a thumbnail shows. */
+export const THUMBNAIL_BARS = 2;
+
+const MISSING = 'There is no preset rule card with that id.';
+
+/**
+ * Curated presets: everyone signed in browses the published ones, the admin edits, publishes,
+ * withdraws and promotes, teachers copy one into their own cards.
+ */
+export class PresetsService {
+  constructor(
+    private readonly presets: PresetsRepository,
+    private readonly cards: Pick<RuleCardsRepository, 'findAny' | 'insert' | 'find'>,
+    private readonly generate: DrillGenerator,
+    private readonly render: ThumbnailRenderer,
+  ) {}
+
+  async list(user: PublicUser, filter: PresetListFilter): Promise<PresetView[]> {
+    if (filter.all && user.role !== 'admin') {
+      throw new HttpError(403, 'forbidden', 'Only admins can see withdrawn presets.');
+    }
+    const presets = await this.presets.list({
+      includeWithdrawn: filter.all,
+      tag: filter.tag,
+      level: filter.level,
+      meter: filter.meter,
+      slots: filter.subdivision,
+    });
+    return presets.map(toView);
+  }
+
+  /** A preset the user may see: withdrawn ones only for the admin. */
+  async get(user: PublicUser, id: string): Promise<PresetView> {
+    return toView(await this.visible(user, id));
+  }
+
+  /** The preset's first bars at its default seed (its id), engraved once and kept. */
+  async thumbnail(user: PublicUser, id: string, engineVersion: string): Promise<string> {
+    const preset = await this.visible(user, id);
+    const cached = await this.presets.thumbnail(id);
+    if (cached?.svg && cached.engine === engineVersion) return cached.svg;
+    let drill: Drill;
+    try {
+      drill = generateOrRefuse(this.generate, checkCard(preset.card, 'card'), preset.id);
+    } catch (error) {
+      if (!(error instanceof HttpError)) throw error;
+      throw notFound('This preset has no thumbnail: its card gives no drill at its default seed.');
+    }
+    const svg = await this.render({ ...drill, bars: drill.bars.slice(0, THUMBNAIL_BARS) });
+    await this.presets.storeThumbnail(id, svg, engineVersion);
+    return svg;
+  }
+
+  async update(id: string, changes: PresetChanges): Promise<PresetView> {
+    if (!(await this.presets.update(id, changes))) throw notFound(MISSING);
+    return toView((await this.presets.find(id))!);
+  }
+
+  /** Copies any teacher's card into the presets, credited to the teacher, withdrawn at first. */
+  async promote(ruleCardId: number): Promise<PresetView> {
+    const found = await this.cards.findAny(ruleCardId);
+    if (!found) throw notFound('There is no rule card with that id.');
+    const { card, ownerName } = found;
+    const id = await this.freeId(fileSlug(card.title));
+    await this.presets.insert({
+      id,
+      title: card.title,
+      summary: '',
+      card: card.card,
+      facts: cardFacts(checkCard(card.card, 'card')),
+      level: card.level,
+      tags: card.tags,
+      published: false,
+      credit: ownerName,
+      builtIn: false,
+    });
+    return toView((await this.presets.find(id))!);
+  }
+
+  /** "Start from this": a copy of the preset in the user's own rule cards. */
+  async start(user: PublicUser, id: string): Promise<RuleCardDetail> {
+    const preset = await this.visible(user, id);
+    const cardId = await this.cards.insert({
+      ownerId: user.id,
+      title: preset.title,
+      card: preset.card,
+      facts: cardFacts(checkCard(preset.card, 'card')),
+      tags: preset.tags,
+      level: preset.level,
+      fromPreset: { id: preset.id, title: preset.title },
+    });
+    return (await this.cards.find(user.id, cardId))!;
+  }
+
+  private async visible(user: PublicUser, id: string): Promise<Preset> {
+    const preset = await this.presets.find(id);
+    if (!preset || (!preset.published && user.role !== 'admin')) throw notFound(MISSING);
+    return preset;
+  }
+
+  private async freeId(base: string): Promise<string> {
+    const taken = await this.presets.ids();
+    if (!taken.has(base)) return base;
+    let n = 2;
+    while (taken.has(`${base}-${n}`)) n += 1;
+    return `${base}-${n}`;
+  }
+}
+
+export function toView(preset: Preset): PresetView {
+  return {
+    id: preset.id,
+    title: preset.title,
+    summary: preset.summary,
+    card: preset.card,
+    meter: preset.meter,
+    subdivision: preset.subdivision,
+    level: preset.level,
+    tags: preset.tags,
+    position: preset.position,
+    published: preset.published,
+    credit: preset.credit,
+  };
+}
