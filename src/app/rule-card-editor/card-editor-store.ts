@@ -2,7 +2,7 @@ import { Injectable, computed, linkedSignal, signal } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import type { ErrorStateMatcher } from '@angular/material/core';
 import { debounceTime, distinctUntilChanged, map } from 'rxjs';
-import type { Drill } from '../../../shared/generator/index';
+import type { Drill, DrillBar } from '../../../shared/generator/index';
 import { freshSeed } from '../drills/seed-words';
 import { inputText } from '../rule-cards/input-text';
 import { CardHistory } from './card-history';
@@ -24,16 +24,20 @@ export class CardEditorStore {
 
   readonly card = signal<CardDraft>(blankCard());
   readonly seed = signal(freshSeed());
+  /** Bars the teacher pinned in the preview, kept as drawn while the rest is regenerated. */
+  readonly pinned = signal<readonly DrillBar[]>([]);
   readonly canUndo = computed(() => (this.historyTick(), this.history.canUndo));
   readonly canRedo = computed(() => (this.historyTick(), this.history.canRedo));
   readonly dirty = computed(() => JSON.stringify(this.card()) !== this.savedJson());
 
   /** The engine's answer for the card and seed, recomputed after the teacher pauses. */
   readonly outcome = toSignal(
-    toObservable(computed(() => ({ card: this.card(), seed: this.seed() }))).pipe(
+    toObservable(
+      computed(() => ({ card: this.card(), seed: this.seed(), keep: this.pinned() })),
+    ).pipe(
       debounceTime(PREVIEW_DEBOUNCE_MS),
-      distinctUntilChanged((a, b) => a.card === b.card && a.seed === b.seed),
-      map(({ card, seed }): PreviewOutcome | null => previewOutcome(card, seed)),
+      distinctUntilChanged((a, b) => a.card === b.card && a.seed === b.seed && a.keep === b.keep),
+      map(({ card, seed, keep }): PreviewOutcome | null => previewOutcome(card, seed, keep)),
     ),
     { initialValue: null },
   );
@@ -47,10 +51,26 @@ export class CardEditorStore {
   /** True when the preview shows an older drill than the card now describes. */
   readonly stale = computed(() => this.lastGood() !== null && this.outcome()?.status !== 'ready');
 
+  /** Pin a bar of the drill now shown (or unpin it). */
+  togglePin(bar: number): void {
+    const drill = this.lastGood();
+    if (this.pinned().some((kept) => kept.bar === bar)) {
+      this.pinned.update((kept) => kept.filter((b) => b.bar !== bar));
+      return;
+    }
+    const shown = drill?.bars.find((b) => b.bar === bar);
+    if (shown) this.pinned.update((kept) => [...kept, shown].sort((a, b) => a.bar - b.bar));
+  }
+
+  isPinned(bar: number): boolean {
+    return this.pinned().some((kept) => kept.bar === bar);
+  }
+
   /** Start a session on `card` (as loaded or as saved): history and dirty state begin here. */
   load(card: CardDraft): void {
     this.history = new CardHistory(card);
     this.card.set(card);
+    this.pinned.set([]);
     this.savedJson.set(JSON.stringify(card));
     this.historyTick.update((n) => n + 1);
   }

@@ -5,6 +5,7 @@ import {
   generateDrill,
   parseRuleCard,
   type Drill,
+  type DrillBar,
   type RuleCardIssue,
 } from '../../../shared/generator/index';
 import type { CardDraft } from './card-draft';
@@ -21,10 +22,17 @@ export type PreviewOutcome =
     }
   | { readonly status: 'failed'; readonly message: string };
 
-/** Validate and generate in one go, turning the engine's refusals into data the form can place. */
-export function previewOutcome(card: CardDraft, seed: string): PreviewOutcome {
+/**
+ * Validate and generate in one go (pinned bars kept as they are), turning the engine's refusals
+ * into data the form can place.
+ */
+export function previewOutcome(
+  card: CardDraft,
+  seed: string,
+  keep: readonly DrillBar[] = [],
+): PreviewOutcome {
   try {
-    return { status: 'ready', drill: generateDrill(parseRuleCard(card), seed) };
+    return { status: 'ready', drill: generateDrill(parseRuleCard(card), seed, { keep }) };
   } catch (error) {
     if (error instanceof RuleCardError) return { status: 'invalid', issues: error.issues };
     if (error instanceof RuleConflictError) {

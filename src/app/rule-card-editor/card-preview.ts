@@ -54,6 +54,9 @@ export class CardPreview {
   });
   protected readonly otherIssues = computed(() => unplacedIssues(this.outcome(), PLACED));
 
+  protected readonly barNumbers = computed(() => this.drill()?.bars.map((bar) => bar.bar) ?? []);
+
+  /** A new seed for every bar that is not pinned. */
   protected newSeed(): void {
     this.cursor.set(null);
     this.store.seed.set(freshSeed());

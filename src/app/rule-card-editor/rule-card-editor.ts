@@ -184,6 +184,7 @@ export class RuleCardEditor {
     if (drill === null || this.store.stale()) return;
     const seed = this.store.seed();
     const card = this.store.card();
+    const keep = this.store.pinned();
     this.dialog
       .open<SaveDrillDialog, Partial<SaveDrillFields>, SaveDrillFields>(SaveDrillDialog, {
         data: { title: `${this.title().trim()} · ${seed}` },
@@ -199,6 +200,7 @@ export class RuleCardEditor {
             notes: fields.notes,
             card,
             seed,
+            ...(keep.length ? { keep } : {}),
           });
         }),
       )
