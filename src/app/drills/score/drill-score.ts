@@ -9,6 +9,7 @@ import {
   effect,
   inject,
   input,
+  linkedSignal,
   output,
   signal,
   viewChild,
@@ -81,6 +82,11 @@ export class DrillScore {
   private renderToken = 0;
 
   protected readonly layout = signal<ScoreLayout | null>(null);
+  /**
+   * Where the arrow keys step from: the cursor, or the beat just picked when keys come faster
+   * than the page updates (key repeat), so no press is lost.
+   */
+  private readonly stepFrom = linkedSignal(() => this.cursor());
   /** The engraving's full width and the factor that fits it into the host (1 when it fits). */
   protected readonly fit = signal({ contentWidth: 0, scale: 1 });
   protected readonly failure = signal<string | null>(null);
@@ -237,8 +243,11 @@ export class DrillScore {
     const by = { ArrowRight: 1, ArrowLeft: -1 }[event.key];
     if (by !== undefined) {
       event.preventDefault();
-      this.cursorMoved.emit(stepPosition(layout.bars, this.cursor(), by));
+      const next = stepPosition(layout.bars, this.stepFrom(), by);
+      this.stepFrom.set(next);
+      this.cursorMoved.emit(next);
     } else if (event.key === 'Escape') {
+      this.stepFrom.set(null);
       this.cursorMoved.emit(null);
     }
   }
