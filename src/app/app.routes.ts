@@ -65,6 +65,11 @@ export const routes: Routes = [
         loadChildren: () => import('./practice/practice-routes').then((m) => m.PRACTICE_ROUTES),
       },
       {
+        // Published presets: every signed-in role browses them.
+        path: 'gallery',
+        loadChildren: () => import('./presets/gallery-routes').then((m) => m.GALLERY_ROUTES),
+      },
+      {
         path: 'presets',
         canActivate: [requireRole('admin')],
         loadChildren: () => import('./presets/presets-routes').then((m) => m.PRESET_ROUTES),

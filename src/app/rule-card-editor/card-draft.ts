@@ -59,10 +59,8 @@ export function newRule(kind: RuleKind, card: CardDraft): RuleDraft {
     case 'euclid':
       return { kind, voice: pick('kick'), pulses: 3, steps: 8, rotation: 0 };
     case 'tension':
-      return {
-        kind,
-        curve: Array.from({ length: Math.min(64, bars) }, (_, i) => (i % 2 ? 0.6 : 0.3)),
-      };
+      // Flat to start with: equal targets constrain nothing until the teacher shapes the curve.
+      return { kind, curve: Array.from({ length: Math.min(64, bars) }, () => 0.5) };
   }
 }
 

@@ -195,7 +195,7 @@ export class RuleCardEditor {
           if (!fields) return of(null);
           const id = this.id();
           return this.drills.save({
-            ...(id === undefined ? {} : { ruleCardId: id }),
+            ...(id === undefined ? {} : { ruleCardId: Number(id) }),
             title: fields.title,
             notes: fields.notes,
             card,

@@ -29,7 +29,7 @@ export interface SavedDrill {
   readonly id: number | string;
   readonly title: string;
   readonly notes: string;
-  readonly ruleCardId: number | string | null;
+  readonly ruleCardId: number | null;
   readonly card: unknown;
   readonly seed: string;
   readonly engineVersion: string;
@@ -40,7 +40,7 @@ export interface SavedDrill {
 }
 
 export interface SaveDrillInput {
-  readonly ruleCardId?: number | string;
+  readonly ruleCardId?: number;
   readonly presetId?: string;
   readonly title: string;
   readonly notes?: string;
