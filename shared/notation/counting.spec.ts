@@ -25,12 +25,11 @@ describe('counting syllables', () => {
     expect(countBeat(4, 4)).toBe('4 e & a');
   });
 
-  it('sextuplets as two triplets, "1 la li & la li"', () => {
-    // "la li": the Eastman triplet syllables (McHose & Tibbs, Sight-Singing Manual, 1945; from
-    // memory), listed as a percussionist's triplet count ("one-la-le") by N. Weinberg, Reading
-    // Music with WebRhythms, lesson 11 (Vic Firth). "&" on the half beat: common practice.
-    expect(countBeat(1, 6)).toBe('1 la li & la li');
-    expect(countBeat(3, 6)).toBe('3 la li & la li');
+  it('sextuplets as two triplets, "1 a da & a da"', () => {
+    // T. Bishop, "Counting system overhaul - 02", Cruise Ship Drummer! (cruiseshipdrummer.com),
+    // March 2023: "Sixtuplets / 16th note triplets: 1ada-&ada".
+    expect(countBeat(1, 6)).toBe('1 a da & a da');
+    expect(countBeat(3, 6)).toBe('3 a da & a da');
   });
 
   it('quintuplets and septuplets in Takadimi syllables (Hoffman, Pelto & White, JMTP 10, 1996)', () => {

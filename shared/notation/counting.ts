@@ -7,11 +7,12 @@
  * the sixteenth syllables (from memory).
  *
  * Sextuplets (a beat in six) are heard as two triplets, as the metrical tree hears them, and
- * counted "1 la li & la li": the half-beat is the "&" it always is, and each triplet's inner
- * notes take "la li", the triplet syllables of the Eastman counting system (A. I. McHose and
- * R. N. Tibbs, Sight-Singing Manual, 1945; from memory), which N. Weinberg lists among the ways
- * percussionists count triplets ("one-la-le", Reading Music with WebRhythms, lesson 11, Vic Firth
- * education pages). Joining them with "&" is common practice among drum teachers.
+ * counted "1 a da & a da", the drummer and teacher T. Bishop's count for "sixtuplets / 16th note
+ * triplets" ("Counting system overhaul - 02", Cruise Ship Drummer!, cruiseshipdrummer.com,
+ * March 2023): the half-beat is the "&" it always is and each triplet's inner notes are "a da",
+ * built from the syllables drummers already speak. The Eastman "la li" (McHose & Tibbs, 1945),
+ * used here before, is a singers' count; the same author judges it out of place for drummers
+ * ("Counting system overhaul - 01", November 2022).
  *
  * Quintuplets and septuplets have no count in drummers' common use, so they take the
  * beat-oriented syllables of R. Hoffman, W. Pelto and J. W. White, "Takadimi: A Beat-Oriented
@@ -39,7 +40,7 @@ const AFTER_THE_BEAT: Readonly<Record<number, readonly string[]>> = {
   3: ['&', 'a'],
   4: ['e', '&', 'a'],
   5: ['ka', 'di', 'mi', 'ti'],
-  6: ['la', 'li', '&', 'la', 'li'],
+  6: ['a', 'da', '&', 'a', 'da'],
   7: ['va', 'ki', 'di', 'da', 'mi', 'ti'],
   8: ['ta', 'e', 'ta', '&', 'ta', 'a', 'ta'],
 };

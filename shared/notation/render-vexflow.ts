@@ -137,14 +137,27 @@ function engrave(
   svg.setAttribute('role', 'img');
   svg.classList.add('tensile-notation');
   const showLegend = options.showLegend ?? true;
-  const legend = showLegend ? legendWidth(model) : 0;
   // Engraved once: measured for line breaking, then formatted to their staves and drawn.
   const engravedBars = model.bars.map((bar) => engraveBar(bar, model));
+  const showCounts = options.showCounts ?? false;
+  const barWidths = model.bars.map((bar, i) =>
+    naturalBarWidth(bar, engravedBars[i]!, model, showCounts),
+  );
+  const systemStartWidth = systemStartWidths(model);
+  // The key stands beside the first system where the line still holds a bar beside it; on a
+  // narrow line (a phone) it gets a band of its own above, so the bars keep the whole width.
+  const keyWidth = showLegend ? legendWidth(model) : 0;
+  const keyBeside =
+    showLegend &&
+    options.width - 2 * MARGIN_X - keyWidth >= systemStartWidth(0) + (barWidths[0] ?? 0);
+  const legend = keyBeside ? keyWidth : 0;
+  const keyBand = showLegend && !keyBeside ? KEY_BAND : 0;
   const plans = planSystems({
-    barWidths: model.bars.map((bar, i) =>
-      naturalBarWidth(bar, engravedBars[i]!, model, options.showCounts ?? false),
+    barWidths,
+    minBarWidths: model.bars.map((bar, i) =>
+      leastBarWidth(bar, engravedBars[i]!, model, showCounts),
     ),
-    systemStartWidth: systemStartWidths(model),
+    systemStartWidth,
     lineWidth: (i) => options.width - 2 * MARGIN_X - (i === 0 ? legend : 0),
     maxBarsPerSystem: options.maxBarsPerSystem ?? 4,
   });
@@ -170,15 +183,18 @@ function engrave(
   const title = drawTitle(ctx, options.title ?? null, options.width);
   drawHeaderMarks(ctx, shown, marks, marksX, title);
   const showTension = options.showTension ?? false;
-  const head = title + marks.height + (showTension ? TENSION_LEGEND_HEIGHT : 0);
-  if (showTension) drawTensionLegend(ctx, marksX, head - 8, TENSION_INK);
+  const tensionKey = showTension ? TENSION_LEGEND_HEIGHT : 0;
+  if (showTension)
+    drawTensionLegend(ctx, marksX, title + marks.height + tensionKey - 8, TENSION_INK);
+  const head = title + marks.height + tensionKey + keyBand;
+  if (keyBand > 0) drawLegend(ctx, model, MARGIN_X, head - keyBand + KEY_BAND_STAVE_Y, ink);
   const instants = new Map<string, InstantBox>();
   const bands: SystemBand[] = [];
   plans.forEach((plan, systemIndex) => {
     const systemTop = head + systemIndex * (systemHeight + gap);
     const topLineY = systemTop + sticking + HEADROOM;
     let x = MARGIN_X + (systemIndex === 0 ? legend : 0);
-    if (systemIndex === 0 && showLegend)
+    if (systemIndex === 0 && keyBeside)
       drawLegend(ctx, model, MARGIN_X, topLineY - STAVE_TOP_OFFSET, ink);
     plan.bars.forEach((barIndex, i) => {
       const bar = model.bars[barIndex]!;
@@ -296,6 +312,31 @@ function naturalBarWidth(
   );
 }
 
+/**
+ * The least a bar may be set in when a line holds only it and it would not fit otherwise: its
+ * notes at VexFlow's tightest setting with a little air, and room for every counting syllable at
+ * the smallest size (the text rows shrink their letters to fit, never below 10 px).
+ */
+function leastBarWidth(
+  bar: NotationBar,
+  engraved: EngravedBar,
+  model: NotationModel,
+  showCounts: boolean,
+): number {
+  const counted = showCounts ? bar.beats.reduce((n, beat) => n + beat.subdivision, 0) : 0;
+  return (
+    Math.max(minimumBarWidth(engraved) * 1.1, counted * LEAST_COUNT_ROOM, model.meter.beats * 28) +
+    16
+  );
+}
+
+/** Least room per counted slot: a two-letter syllable at 10 px with a gap. */
+const LEAST_COUNT_ROOM = 14;
+
+/** The key's own band above the first system on a narrow line, and its stave's y in it. */
+const KEY_BAND = 176;
+const KEY_BAND_STAVE_Y = 6;
+
 /** Room for what opens a system: the clef on every system, the time signature on the first. */
 function systemStartWidths(model: NotationModel): (systemIndex: number) => number {
   const plain = new Stave(0, 0, 400).getNoteStartX();
@@ -386,6 +427,7 @@ function drawBar(
       const tupletGroup = ctx.openGroup();
       tupletGroup.setAttribute('class', 'tensile-tuplet');
       tupletGroup.setAttribute('data-tuplet', String(t.numNotes));
+      tupletGroup.setAttribute('data-beat', String(t.beat));
       t.tuplet.setContext(ctx).draw();
       if (t.simile) drawSimile(ctx, t.tuplet, layer);
       ctx.closeGroup();
@@ -419,6 +461,8 @@ function drawNote(ctx: SVGContext, engraved: EngravedNote, stave: Stave): void {
   group.setAttribute('class', event.kind === 'rest' ? 'tensile-rest' : 'tensile-note');
   group.setAttribute('data-beat', String(beat));
   group.setAttribute('data-slot', String(event.slot));
+  // The written value ("16", "8d", "1" for a whole-bar rest), so the spelling can be checked.
+  group.setAttribute('data-duration', `${event.duration.value}${event.duration.dots ? 'd' : ''}`);
   if (event.kind === 'note') {
     group.setAttribute('data-instruments', event.heads.map((h) => h.voice).join(' '));
     group.setAttribute('data-positions', event.heads.map((h) => h.position).join(' '));

@@ -17,6 +17,11 @@ export interface SystemLayoutInput {
   /** Natural width of each bar without the clef and time signature. */
   readonly barWidths: readonly number[];
   /**
+   * The least each bar may be set in (default: its natural width). Only a bar alone on a line
+   * too narrow for it is set below its natural width, never below this.
+   */
+  readonly minBarWidths?: readonly number[];
+  /**
    * Extra width the first bar of each system needs: clef on every system, plus the time
    * signature on the first.
    */
@@ -93,7 +98,13 @@ function stretch(
   const natural = bars.map((bar) => input.barWidths[bar] ?? 0);
   const naturalSum = natural.reduce((a, b) => a + b, 0);
   const start = input.systemStartWidth(systemIndex);
-  const room = Math.max(input.lineWidth(systemIndex) - start, naturalSum);
+  const line = input.lineWidth(systemIndex) - start;
+  if (line < naturalSum && bars.length === 1) {
+    // One bar wider than its line (a phone): set it tighter, down to its least width.
+    const least = input.minBarWidths?.[bars[0]!] ?? naturalSum;
+    return [Math.max(line, Math.min(least, naturalSum)) + start];
+  }
+  const room = Math.max(line, naturalSum);
   const factor = last ? Math.min(room / naturalSum, 1.5) : room / naturalSum;
   return natural.map((w, i) => w * factor + (i === 0 ? start : 0));
 }

@@ -43,6 +43,7 @@ export function drawTensionMarks(
     if (x === undefined) continue;
     const mark = triangle(ctx, x, y, ink);
     mark.setAttribute('class', 'tensile-tension-mark');
+    mark.setAttribute('data-bar', String(bar.bar));
     mark.setAttribute('data-beat', String(beat));
     mark.setAttribute('data-slot', String(slot));
   }
@@ -55,7 +56,7 @@ export function drawTensionLegend(ctx: SVGContext, x: number, y: number, ink: st
   triangle(ctx, x + TRIANGLE / 2, y - 10, ink);
   svgText(
     ctx,
-    'tension: a note just before a stronger beat left silent (a syncopation)',
+    'tension: a note before a silent stronger beat',
     x + TRIANGLE + 6,
     y,
     'tensile-tension-legend-text',

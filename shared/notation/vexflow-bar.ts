@@ -40,6 +40,8 @@ export interface EngravedTuplet {
   readonly tuplet: Tuplet;
   readonly layer: Layer;
   readonly numNotes: number;
+  /** The beat (from 1) the bracket is over. */
+  readonly beat: number;
   /** Printed (see `NotationTuplet.shown`); a hidden tuplet still times its notes. */
   readonly shown: boolean;
   readonly simile: boolean;
@@ -110,7 +112,8 @@ function addBeamsAndTuplets(
         yOffset: accented ? (layerBar.layer === 'hands' ? -ACCENT_ROOM : ACCENT_ROOM) : 0,
       },
     );
-    tuplets.push({ tuplet, layer: layerBar.layer, numNotes: ratio.numNotes, shown, simile });
+    const beat = layerBar.events[events[0]!]?.beat ?? 1;
+    tuplets.push({ tuplet, layer: layerBar.layer, numNotes: ratio.numNotes, beat, shown, simile });
   }
 }
 

@@ -6,15 +6,23 @@
  * every slot. Expected values come from the drill itself, generated here in Node with
  * the same card and seed (the engine is deterministic across Node and browser).
  */
-import type { BrowserContext, Page } from 'playwright-core';
+import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { isHandVoice } from '../../shared/generator/drill';
 import { generateDrill, parseRuleCard, type Drill } from '../../shared/generator/index';
 import { BUILT_IN_PRESETS } from '../../shared/generator/presets/index';
-import { recordForeignRequests, signIn } from '../support/browser';
+import { buildNotation, type NotationSource } from '../../shared/notation/notation-model';
+import type { RenderOptions } from '../../shared/notation/render-vexflow';
+import {
+  bundleForBrowser,
+  launchChromium,
+  recordForeignRequests,
+  signIn,
+} from '../support/browser';
 import { useServerAndBrowser } from '../support/browser-suite';
 import { DEMO_STUDENTS, DEMO_TEACHERS } from '../support/demo-accounts';
 import { STEP_PX, WEINBERG_STEPS } from '../support/drumset-staff';
+import { collisions, overlaps, readScore, type ScoreGeometry } from './notation.geometry';
 
 const SEED = 'lesson-12';
 
@@ -43,6 +51,11 @@ function bracketsDue(drill: Drill, n: number, hands: boolean): number {
       ).length,
     0,
   );
+}
+
+/** Every beat of the drill in three (a shuffle): its brackets give way to "sim.". */
+function inTripletsThroughout(drill: Drill): boolean {
+  return drill.bars.every((bar) => bar.beats.every((slots) => slots === 3));
 }
 
 interface Engraving {
@@ -140,6 +153,8 @@ describe('drill page notation (Chromium)', () => {
           .filter((h) => isHandVoice(h.voice) === (layer === 'hands'));
         expect(engraving.heads[layer], `${layer} noteheads`).toBe(hits.length);
         for (const n of [3, 5, 7]) {
+          // A drill in triplets throughout writes one "3", then "sim." (checked below).
+          if (n === 3 && inTripletsThroughout(drill)) continue;
           const due = bracketsDue(drill, n, layer === 'hands');
           expect(
             engraving.tuplets[layer].filter((t) => t === String(n)).length,
@@ -152,6 +167,11 @@ describe('drill page notation (Chromium)', () => {
       const bracketed = [...engraving.tuplets.hands, ...engraving.tuplets.feet];
       if (tuplet === null) {
         expect(bracketed).toEqual([]);
+      } else if (inTripletsThroughout(drill)) {
+        // E. Gould, "Behind Bars", ch. "Tuplets" (from memory): once the pattern is set, the
+        // brackets give way to "sim.".
+        expect(bracketed).toEqual(['3']);
+        expect(await page.locator('tensile-drill-score svg .tensile-simile').count()).toBe(1);
       } else {
         // One bracket per beat with a voice layer on the tuplet grid, counted from the drill.
         const due = bracketsDue(drill, tuplet, true) + bracketsDue(drill, tuplet, false);
@@ -247,5 +267,282 @@ describe('drill page notation (Chromium)', () => {
     } finally {
       await studentContext.close();
     }
+  });
+});
+
+/** A built-in preset's drill, optionally lengthened. */
+function presetDrill(id: string, seed: string, bars?: number): Drill {
+  const preset = BUILT_IN_PRESETS.find((p) => p.id === id);
+  if (!preset) throw new Error(`no preset ${id}`);
+  const card = bars ? { ...(preset.card as object), bars } : preset.card;
+  return generateDrill(parseRuleCard(card), seed);
+}
+
+/**
+ * Engraving rules as geometry: each drill is engraved in Chromium by the shared renderer (no app
+ * around it), and every rule is checked on the drawn SVG's boxes, never on a picture.
+ */
+describe('engraving rules on the drawn score (Chromium)', () => {
+  let browser: Browser;
+  let page: Page;
+
+  beforeAll(async () => {
+    const code = await bundleForBrowser('tests/e2e/notation.entry.ts');
+    browser = await launchChromium();
+    page = await browser.newPage({ viewport: { width: 1200, height: 900 } });
+    await page.setContent('<!doctype html><title>engraving</title><div id="score"></div>');
+    await page.addScriptTag({ content: code });
+    await page.evaluate(() => (window as unknown as Entry).__bundle.fontsReady());
+  });
+
+  afterAll(async () => {
+    await browser?.close();
+  });
+
+  type Entry = {
+    __bundle: {
+      fontsReady(): Promise<void>;
+      engrave(drill: NotationSource, options: RenderOptions): { height: number };
+    };
+  };
+
+  async function engrave(drill: NotationSource, options: RenderOptions): Promise<ScoreGeometry> {
+    await page.evaluate(
+      ({ drill, options }) => (window as unknown as Entry).__bundle.engrave(drill, options),
+      { drill, options },
+    );
+    return readScore(page, '#score');
+  }
+
+  const FULL: Omit<RenderOptions, 'width'> = { showSticking: true, showCounts: true };
+
+  /**
+   * The rules every engraving keeps, at a page's width and a phone's: accents clear of beams and
+   * stems, sticking letters and counting syllables never overlapping each other.
+   */
+  async function expectClean(drill: Drill, label: string): Promise<void> {
+    for (const width of [1100, 390]) {
+      const score = await engrave(drill, { width, ...FULL });
+      const what = `${label} at ${width} px`;
+      // E. Gould, "Behind Bars", Faber Music 2011, ch. "Articulation" (from memory): an
+      // articulation is never hidden under or inside a beam; on a shared staff it goes at the
+      // stem end, outside the beam.
+      const hidden = score.accents.filter((accent) =>
+        [...score.beamLines, ...score.stems].some((line) => overlaps(accent, line)),
+      );
+      expect(hidden, `${what}: accents touching a beam or stem`).toEqual([]);
+      // Sticking and counts are read letter by letter: no two may overlap (common practice).
+      expect(collisions(score.sticking), `${what}: sticking`).toEqual([]);
+      expect(collisions(score.counts), `${what}: counting syllables`).toEqual([]);
+    }
+  }
+
+  it('draws every accent of a displaced backbeat clear of beams and stems', async () => {
+    const drill = presetDrill('early-backbeat', 'harbor-spark-21');
+    const accented = drill.bars.flatMap((b) => b.hits).filter((h) => h.dynamic === 'accent');
+    expect(accented.length).toBeGreaterThan(0);
+    const score = await engrave(drill, { width: 1100, ...FULL });
+    // One accent per accented instant of a voice layer (a chord carries one).
+    const instants = new Set(
+      drill.bars.flatMap((b) =>
+        b.hits
+          .filter((h) => h.dynamic === 'accent')
+          .map((h) => `${b.bar}:${h.beat}:${h.slot}:${isHandVoice(h.voice)}`),
+      ),
+    );
+    expect(score.accents).toHaveLength(instants.size);
+    await expectClean(drill, 'early-backbeat');
+  });
+
+  for (const [id, seed] of [
+    ['quintuplets-hihat-1-3-4', 'lesson-12'],
+    ['quintuplets-hihat-1-3-5', 'lesson-12'],
+    ['shuffle-kick-upbeats', 'lesson-12'],
+    ['linear-sixteenths', 'lesson-12'],
+    ['four-over-three', 'lesson-12'],
+  ] as const) {
+    it(`keeps ${id} free of collisions at page and phone widths`, async () => {
+      await expectClean(presetDrill(id, seed), id);
+    });
+  }
+
+  it('spells each quintuplet beat in sixteenths under its 5, a rest on every hole', async () => {
+    for (const id of ['quintuplets-hihat-1-3-4', 'quintuplets-hihat-1-3-5']) {
+      const drill = presetDrill(id, 'lesson-12');
+      const score = await engrave(drill, { width: 1100, ...FULL });
+      let checked = 0;
+      for (const bar of score.bars) {
+        const hits = drill.bars.find((b) => b.bar === bar.bar)!.hits;
+        for (const layer of ['hands', 'feet'] as const) {
+          for (const tuplet of bar.layers[layer].tuplets) {
+            // E. Gould, "Behind Bars", ch. "Tuplets" (from memory): a tuplet is written in its
+            // own note value, with rests where the grid is silent.
+            const events = bar.layers[layer].events.filter((e) => e.beat === tuplet.beat);
+            expect(tuplet.n).toBe(5);
+            expect(events.map((e) => e.duration)).toEqual(['16', '16', '16', '16', '16']);
+            const struck = new Set(
+              hits
+                .filter(
+                  (h) => h.beat === tuplet.beat && isHandVoice(h.voice) === (layer === 'hands'),
+                )
+                .map((h) => h.slot),
+            );
+            expect(events.map((e) => (e.kind === 'note' ? 'x' : '-')).join('')).toBe(
+              [0, 1, 2, 3, 4].map((slot) => (struck.has(slot) ? 'x' : '-')).join(''),
+            );
+            // A rest left undrawn is one the other voice draws: same beat, slot and value.
+            const other = bar.layers[layer === 'hands' ? 'feet' : 'hands'].events;
+            for (const rest of events.filter((e) => e.box === null)) {
+              const shared = other.find(
+                (e) => e.beat === rest.beat && e.slot === rest.slot && e.kind === 'rest',
+              );
+              expect(shared?.duration).toBe(rest.duration);
+              expect(shared?.box).not.toBeNull();
+            }
+            // Drawn in time order, left to right.
+            const xs = events.flatMap((e) => (e.box ? [e.box.left] : []));
+            expect([...xs].sort((a, b) => a - b)).toEqual(xs);
+            checked++;
+          }
+        }
+      }
+      expect(checked, `${id}: quintuplet beats`).toBeGreaterThan(0);
+    }
+  });
+
+  it('writes a shuffle\'s "3" once, then "sim."', async () => {
+    const score = await engrave(presetDrill('shuffle-kick-upbeats', 'lesson-12'), {
+      width: 1100,
+      ...FULL,
+    });
+    expect(score.shownTuplets).toBe(1);
+    expect(score.simile).toBe(1);
+  });
+
+  it('shows one whole-bar rest, centred, where a voice is silent for a bar', async () => {
+    for (const [id, beats] of [
+      ['early-backbeat', 4],
+      ['six-eight-groove', 6],
+      ['seven-eight-two-two-three', 7],
+    ] as const) {
+      const drill = presetDrill(id, 'lesson-12');
+      // Bar 2 without its feet: the feet voice is silent for the whole bar.
+      const silent: Drill = {
+        ...drill,
+        bars: drill.bars.map((bar) =>
+          bar.bar === 2 ? { ...bar, hits: bar.hits.filter((h) => isHandVoice(h.voice)) } : bar,
+        ),
+      };
+      const score = await engrave(silent, { width: 1100, ...FULL });
+      const bar = score.bars.find((b) => b.bar === 2)!;
+      // E. Gould, "Behind Bars", ch. "Rests" (from memory): the whole (semibreve) rest fills a
+      // silent bar in any meter, centred in the bar.
+      expect(
+        bar.layers.feet.events.map((e) => [e.kind, e.duration]),
+        `${id}`,
+      ).toEqual([['rest', '1']]);
+      const rest = bar.layers.feet.events[0]!.box!;
+      const centre = (rest.left + rest.right) / 2;
+      const notes = bar.layers.hands.events.flatMap((e) => (e.box ? [e.box] : []));
+      const first = Math.min(...notes.map((b) => b.left));
+      const last = Math.max(...notes.map((b) => b.right));
+      expect(Math.abs(centre - (first + last) / 2), `${id}: centred`).toBeLessThan(
+        (last - first) / 4,
+      );
+      expect(beats).toBe(drill.card.meter.beats);
+    }
+  });
+
+  it("beams by the meter's grouping in 6/8, 12/8 and 7/8 (2+2+3)", async () => {
+    for (const id of ['six-eight-groove', 'twelve-eight-shuffle', 'seven-eight-two-two-three']) {
+      const drill = presetDrill(id, 'lesson-12');
+      const grouping = buildNotation(drill).meter.grouping!;
+      const groupOf = (beat: number) => {
+        let end = 0;
+        return grouping.findIndex((g) => (end += g) >= beat);
+      };
+      const score = await engrave(drill, { width: 1100, ...FULL });
+      let spanning = 0;
+      for (const bar of score.bars) {
+        for (const layer of ['hands', 'feet'] as const) {
+          const { events, beams } = bar.layers[layer];
+          for (const beam of beams) {
+            // The notes under a beam: their heads sit between its first and last stem.
+            const under = events.filter(
+              (e) =>
+                e.kind === 'note' &&
+                e.box !== null &&
+                (e.box.left + e.box.right) / 2 > beam.left - 8 &&
+                (e.box.left + e.box.right) / 2 < beam.right + 8,
+            );
+            expect(under.length, `${id} bar ${bar.bar}: notes under a beam`).toBeGreaterThan(1);
+            // Common practice (E. Gould, "Behind Bars", ch. "Beaming", from memory): a beam
+            // never crosses a group of the meter, and joins the eighths of one group.
+            expect(new Set(under.map((e) => groupOf(e.beat))).size, `${id} bar ${bar.bar}`).toBe(1);
+            if (new Set(under.map((e) => e.beat)).size > 1) spanning++;
+          }
+        }
+      }
+      expect(spanning, `${id}: beams that join the beats of a group`).toBeGreaterThan(0);
+    }
+  });
+
+  it('brackets each 4:3 cycle with "4:3" from its first note to its last', async () => {
+    const drill = presetDrill('four-over-three', 'lesson-12');
+    const score = await engrave(drill, { width: 1100, ...FULL });
+    const cycles = buildNotation(drill).polyrhythms;
+    expect(score.polyrhythms).toHaveLength(cycles.length);
+    expect(cycles.length).toBe(drill.bars.length);
+    for (const [i, bracket] of score.polyrhythms.entries()) {
+      const cycle = cycles[i]!;
+      expect(bracket.ratio).toBe('4:3');
+      // The bracket spans exactly the cycle's notes: its ends sit just outside the first and
+      // last notehead (E. Gould, "Behind Bars", ch. "Tuplets", from memory: a ratio bracket
+      // where the number alone would be ambiguous).
+      const head = (at: { bar: number; beat: number; slot: number }) => {
+        const bar = score.bars.find((b) => b.bar === at.bar)!;
+        return [...bar.layers.hands.events, ...bar.layers.feet.events].find(
+          (e) => e.kind === 'note' && e.beat === at.beat && e.slot === at.slot,
+        )!.box!;
+      };
+      const first = head(cycle.notes[0]!);
+      const last = head(cycle.notes[3]!);
+      expect(bracket.left).toBeLessThanOrEqual(first.left);
+      expect(first.left - bracket.left).toBeLessThan(8);
+      expect(bracket.right).toBeGreaterThanOrEqual(last.right);
+      expect(bracket.right - last.right).toBeLessThan(8);
+    }
+  });
+
+  it('prints the title and the tempo mark above the first system of a 16-bar drill', async () => {
+    const drill = presetDrill('tension-and-release', 'lesson-12', 16);
+    for (const width of [1100, 390]) {
+      const score = await engrave(drill, { width, ...FULL, title: 'Tension and release' });
+      const firstTop = Math.min(...score.bars.map((b) => b.topLineY));
+      expect(score.title?.text).toBe('Tension and release');
+      expect(score.title!.bottom).toBeLessThan(firstTop);
+      expect(score.title!.left).toBeGreaterThanOrEqual(0);
+      expect(score.title!.right).toBeLessThanOrEqual(width);
+      // Common practice: the metronome mark over the first system ("♩ = 92").
+      expect(score.tempo?.text.replace(/\u00a0/g, ' ')).toContain(`= ${drill.card.tempo}`);
+      expect(score.tempo!.bottom).toBeLessThan(firstTop);
+      // Every bar fits its line: nothing runs past the right edge.
+      expect(Math.max(...score.bars.map((b) => b.right))).toBeLessThanOrEqual(width);
+      expect(score.bars).toHaveLength(16);
+    }
+  });
+
+  it('marks the notes that make each bar tense only when asked, with a key', async () => {
+    const drill = presetDrill('early-backbeat', 'harbor-spark-21');
+    const plain = await engrave(drill, { width: 1100, ...FULL });
+    expect(plain.tensionMarks).toEqual([]);
+    expect(plain.tensionLegend).toBe(false);
+    const shown = await engrave(drill, { width: 1100, ...FULL, showTension: true });
+    const expected = buildNotation(drill).bars.flatMap((bar) =>
+      bar.syncopated.map((at) => ({ bar: bar.bar, ...at })),
+    );
+    expect(expected.length).toBeGreaterThan(0);
+    expect(shown.tensionMarks).toEqual(expected);
+    expect(shown.tensionLegend).toBe(true);
   });
 });

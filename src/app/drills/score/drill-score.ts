@@ -10,12 +10,14 @@ import {
   inject,
   input,
   linkedSignal,
+  model,
   output,
   signal,
   viewChild,
   viewChildren,
 } from '@angular/core';
 import { NgTemplateOutlet } from '@angular/common';
+import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import type { Drill } from '../../../../shared/generator/index';
 import {
   buildNotation,
@@ -51,7 +53,7 @@ let scoreIds = 0;
  */
 @Component({
   selector: 'tensile-drill-score',
-  imports: [NgTemplateOutlet, TensionPlot],
+  imports: [MatSlideToggleModule, NgTemplateOutlet, TensionPlot],
   templateUrl: './drill-score.html',
   styleUrl: './drill-score.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -69,6 +71,8 @@ export class DrillScore {
   readonly cursor = input<ScorePosition | null>(null);
   readonly showSticking = input(true);
   readonly showCounts = input(true);
+  /** Mark the notes that make each bar tense (on by default on screen; print leaves it out). */
+  readonly showTension = model(true);
   /** A beat picked on the score with the arrow keys (a reading cursor while not playing). */
   readonly cursorMoved = output<ScorePosition | null>();
 
@@ -168,7 +172,8 @@ export class DrillScore {
       const width = this.width();
       const showSticking = this.showSticking();
       const showCounts = this.showCounts();
-      if (width > 0) void this.render(model, width, showSticking, showCounts);
+      const showTension = this.showTension();
+      if (width > 0) void this.render(model, width, { showSticking, showCounts, showTension });
     });
     afterRenderEffect(() => {
       if (this.cursorSystem() !== null) this.revealCursor();
@@ -255,8 +260,7 @@ export class DrillScore {
   private async render(
     model: NotationModel,
     width: number,
-    showSticking: boolean,
-    showCounts: boolean,
+    shown: { showSticking: boolean; showCounts: boolean; showTension: boolean },
   ): Promise<void> {
     const token = ++this.renderToken;
     try {
@@ -266,8 +270,7 @@ export class DrillScore {
       const engrave = (lineWidth: number) =>
         renderNotation(this.canvas().nativeElement, model, {
           width: lineWidth,
-          showSticking,
-          showCounts,
+          ...shown,
           gapBelowSystem: PLOT_ROOM,
           ink: 'currentColor',
         });
