@@ -1,0 +1,175 @@
+/**
+ * Printing one drill from the browser (Chromium's own print to PDF, as Ctrl+P does), from a
+ * desktop and a phone: the app's frame and the controls stay off the paper, and pages break
+ * between systems, never through one. Each system's strip is outlined in the test (a red rule on
+ * top, a blue one under it); in the rendered pages every red rule must be followed by its blue
+ * rule on the same page.
+ */
+import { execFileSync } from 'node:child_process';
+import {
+  copyFileSync,
+  mkdtempSync,
+  readdirSync,
+  readFileSync,
+  rmSync,
+  writeFileSync,
+} from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import type { Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
+import { signIn } from '../support/browser';
+import { useServerAndBrowser } from '../support/browser-suite';
+import { DEMO_TEACHERS } from '../support/demo-accounts';
+
+const CARD = 'early-backbeat';
+const SEED = 'print-check';
+
+const SIZES = [
+  // Four bars a line: 24 bars need a second page.
+  { name: 'desktop', width: 1280, height: 900, bars: 24 },
+  // One bar a line: 16 bars run over several pages.
+  { name: 'phone', width: 390, height: 844, bars: 16 },
+] as const;
+
+/** Serves the preset with more bars, so the drill runs over more than one page. */
+async function longerCard(page: Page, bars: number): Promise<void> {
+  await page.route(`**/api/presets/${CARD}`, async (route) => {
+    const response = await route.fetch();
+    const body = (await response.json()) as { preset: { card: Record<string, unknown> } };
+    body.preset.card = { ...body.preset.card, bars };
+    await route.fulfill({ response, json: body });
+  });
+}
+
+interface Raster {
+  readonly width: number;
+  readonly height: number;
+  readonly pixels: Buffer;
+}
+
+/** A binary PPM (P6, 8 bits) as pdftoppm writes it. */
+function readPpm(file: string): Raster {
+  const data = readFileSync(file);
+  const header = /^P6\s+(\d+)\s+(\d+)\s+255\s/.exec(data.subarray(0, 64).toString('latin1'));
+  if (!header) throw new Error(`${file} is not an 8-bit binary PPM`);
+  const [whole, width, height] = header;
+  return { width: Number(width), height: Number(height), pixels: data.subarray(whole!.length) };
+}
+
+/**
+ * Rows that are mostly one marker colour, merged into rules, top to bottom ('R' or 'B'), and
+ * the row of the last one.
+ */
+function markerRules(raster: Raster): { rules: string; lastRow: number } {
+  let rules = '';
+  let last = '';
+  let lastRow = -1;
+  for (let y = 0; y < raster.height; y++) {
+    let red = 0;
+    let blue = 0;
+    for (let x = 0; x < raster.width; x++) {
+      const i = (y * raster.width + x) * 3;
+      const [r, g, b] = [raster.pixels[i]!, raster.pixels[i + 1]!, raster.pixels[i + 2]!];
+      if (r > 180 && g < 90 && b < 90) red++;
+      if (b > 180 && r < 90 && g < 90) blue++;
+    }
+    const row = red > raster.width * 0.3 ? 'R' : blue > raster.width * 0.3 ? 'B' : '';
+    if (row !== '' && row !== last) rules += row;
+    if (row !== '') lastRow = y;
+    last = row;
+  }
+  return { rules, lastRow };
+}
+
+/** The top of the first word `word` on a PDF page, in pixels at `dpi`, or null. */
+function wordTop(pdf: string, pageNumber: number, word: string, dpi: number): number | null {
+  const page = String(pageNumber);
+  const html = execFileSync('pdftotext', ['-bbox', '-f', page, '-l', page, pdf, '-'], {
+    encoding: 'utf8',
+  });
+  const found = new RegExp(`<word xMin="[\\d.]+" yMin="([\\d.]+)"[^>]*>${word}</word>`).exec(html);
+  return found ? (Number(found[1]) * dpi) / 72 : null;
+}
+
+describe.each(SIZES)('printing a drill from the $name ($width px)', (size) => {
+  const suite = useServerAndBrowser();
+
+  it(
+    `prints ${size.bars} bars without the app's frame, breaking pages only between systems`,
+    {
+      // Generating and engraving a long drill takes a while on a busy machine.
+      timeout: 150_000,
+    },
+    async () => {
+      const context = await suite.browser.newContext({
+        viewport: { width: size.width, height: size.height },
+      });
+      const dir = mkdtempSync(join(tmpdir(), 'tensile-print-'));
+      try {
+        const page = await context.newPage();
+        const teacher = DEMO_TEACHERS[0]!;
+        await signIn(page, suite.server.url, teacher.email, teacher.password);
+        await longerCard(page, size.bars);
+        await page.goto(`${suite.server.url}/drills/${CARD}?seed=${SEED}`);
+        await page.getByRole('heading', { level: 1, name: 'Early backbeat' }).waitFor();
+        const bars = page.locator('tensile-drill-score svg.tensile-notation .tensile-bar');
+        await expect.poll(() => bars.count(), { timeout: 90_000 }).toBe(size.bars);
+        await page.getByRole('region', { name: 'Playback' }).waitFor();
+        const systems = await page.locator('tensile-drill-score .band').count();
+        expect(systems).toBeGreaterThan(1);
+
+        // Plain text first: what is on paper, and what is not.
+        const plain = join(dir, 'plain.pdf');
+        writeFileSync(plain, await page.pdf({ format: 'A4', preferCSSPageSize: true }));
+        const text = execFileSync('pdftotext', ['-layout', plain, '-'], { encoding: 'utf8' });
+        expect(text).toContain('Early backbeat');
+        expect(text).toContain(`Seed ${SEED}`);
+        expect(text).toMatch(/Difficulty \d/);
+        for (const control of [
+          'Regenerate',
+          'Tempo trainer',
+          'Rule cards',
+          'Shortcuts',
+          'Volume',
+        ]) {
+          expect(text, `"${control}" on paper`).not.toContain(control);
+        }
+
+        // Then with each system's strip outlined, to see where the pages break.
+        await page.addStyleTag({
+          content:
+            'tensile-drill-score .band { border-top: 8px solid #f00; border-bottom: 8px solid #00f; }',
+        });
+        const marked = join(dir, 'marked.pdf');
+        writeFileSync(marked, await page.pdf({ format: 'A4', preferCSSPageSize: true }));
+        // To look at the pages: TENSILE_PRINT_DIR=/some/dir keeps both PDFs there.
+        const keep = process.env['TENSILE_PRINT_DIR'];
+        if (keep) {
+          copyFileSync(plain, join(keep, `drill-print-${size.name}.pdf`));
+          copyFileSync(marked, join(keep, `drill-print-${size.name}-marked.pdf`));
+        }
+        execFileSync('pdftoppm', ['-r', '96', marked, join(dir, 'page')]);
+        const pages = readdirSync(dir)
+          .filter((file) => file.startsWith('page') && file.endsWith('.ppm'))
+          .sort();
+        expect(pages.length).toBeGreaterThan(1);
+        const perPage = pages.map((file) => markerRules(readPpm(join(dir, file))));
+        // Every strip that starts on a page ends on it: "RBRB…", never a lone R or B.
+        for (const [i, page] of perPage.entries()) {
+          expect(page.rules, `page ${i + 1}`).toMatch(/^(RB)*$/);
+        }
+        expect(perPage.map((page) => page.rules).join('').length / 2).toBe(systems);
+        // The text after the score starts below its last strip, never over it.
+        const lastPage = perPage.length;
+        const below = wordTop(marked, lastPage, 'Difficulty', 96);
+        expect(below, 'the difficulty line on the last page').not.toBeNull();
+        const lastRule = perPage[lastPage - 1]!.lastRow;
+        if (lastRule >= 0) expect(below!).toBeGreaterThan(lastRule);
+      } finally {
+        await context.close();
+        rmSync(dir, { recursive: true, force: true });
+      }
+    },
+  );
+});
