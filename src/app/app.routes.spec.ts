@@ -42,12 +42,16 @@ describe('app routes', () => {
     backend = TestBed.inject(HttpTestingController);
   });
 
-  afterEach(() => backend.verify({ ignoreCancelled: true }));
+  afterEach(() => {
+    // The rule cards page asks for the teacher's own cards; card-table.spec covers that request.
+    backend.match((request) => request.url === '/api/rule-cards');
+    backend.verify({ ignoreCancelled: true });
+  });
 
   /** Waits (lazy chunks load before guards run) for the app to make a request to `url`. */
   async function nextRequest(url: string) {
     for (let attempt = 0; attempt < 100; attempt++) {
-      const [request] = backend.match(url);
+      const [request] = backend.match((pending) => pending.url === url);
       if (request) return request;
       await new Promise((resolve) => setTimeout(resolve, 5));
     }
@@ -88,10 +92,11 @@ describe('app routes', () => {
   it('opens / for a teacher on the rule cards, titled "Tensile · Rule cards"', async () => {
     const harness = await open('/', teacher);
     (await nextRequest('/api/presets')).flush({ presets: [] });
+    (await nextRequest('/api/rule-cards')).flush({ items: [], total: 0, page: 0, pageSize: 20 });
     await harness.fixture.whenStable();
     expect(TestBed.inject(Title).getTitle()).toBe('Tensile · Rule cards');
     expect(harness.routeNativeElement?.textContent).toContain('No rule cards yet');
-  });
+  }, 20_000);
 
   it('turns a student away from the rule cards to their assignments', async () => {
     const harness = await open('/rule-cards', student);

@@ -15,6 +15,12 @@ export const routes: Routes = [
     loadComponent: () => import('./auth/sign-in/sign-in').then((m) => m.SignIn),
   },
   {
+    // A shared drill: open to anyone, signed in or not, outside the signed-in shell.
+    path: 's/:code',
+    title: 'Shared drill',
+    loadComponent: () => import('./seed-link/seed-link-page').then((m) => m.SeedLinkPage),
+  },
+  {
     path: '',
     canActivate: [requireSignedIn],
     loadComponent: () => import('./shell/shell').then((m) => m.Shell),
@@ -29,6 +35,12 @@ export const routes: Routes = [
         // Open to every signed-in role: students practise built-in cards read-only.
         path: 'drills',
         loadChildren: () => import('./drills/drill-routes').then((m) => m.DRILL_ROUTES),
+      },
+      {
+        path: 'saved-drills',
+        canActivate: [requireRole('teacher')],
+        loadChildren: () =>
+          import('./saved-drills/saved-drills-routes').then((m) => m.SAVED_DRILL_ROUTES),
       },
       {
         path: 'worksheets',
@@ -51,6 +63,11 @@ export const routes: Routes = [
         path: 'practice',
         canActivate: [requireRole('student')],
         loadChildren: () => import('./practice/practice-routes').then((m) => m.PRACTICE_ROUTES),
+      },
+      {
+        // Published presets: every signed-in role browses them.
+        path: 'gallery',
+        loadChildren: () => import('./presets/gallery-routes').then((m) => m.GALLERY_ROUTES),
       },
       {
         path: 'presets',

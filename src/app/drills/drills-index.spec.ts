@@ -65,6 +65,8 @@ describe('DrillsIndex', () => {
   });
 
   afterEach(() => {
+    // A teacher's saved-drills table asks for its first page; saved-drills-table.spec covers it.
+    backend.match((request) => request.url === '/api/drills');
     backend.verify();
     localStorage.clear();
   });

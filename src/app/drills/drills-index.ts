@@ -21,6 +21,7 @@ import { Router, RouterLink } from '@angular/router';
 import { interval, map, of } from 'rxjs';
 
 import { AuthSession } from '../core/auth-session';
+import { SavedDrillsTable } from '../saved-drills/saved-drills-table';
 import { loadStateSignal } from '../core/load-state';
 import { meterLabel, subdivisionLabel } from '../rule-cards/card-labels';
 import { RuleCardsApi } from '../rule-cards/rule-cards-api';
@@ -48,6 +49,7 @@ const CLOCK_TICK_MS = 60_000;
     MatSelectModule,
     RouterLink,
     EmptyState,
+    SavedDrillsTable,
   ],
   templateUrl: './drills-index.html',
   styleUrl: './drills-index.scss',
@@ -67,6 +69,8 @@ export class DrillsIndex {
     const role = this.session.role();
     return role === 'teacher' || role === 'admin';
   });
+  /** Saved drills belong to teachers. */
+  protected readonly isTeacher = computed(() => this.session.role() === 'teacher');
   // Only people who may pick a card ask for the list; the role cannot change on this page.
   protected readonly cards = loadStateSignal(
     this.canChooseSeed() ? inject(RuleCardsApi).builtInCards() : of([]),

@@ -1,6 +1,10 @@
 import { Routes } from '@angular/router';
 
-/** Lazy routes under /presets. */
+/** Lazy routes under /presets (the admin's curation). */
 export const PRESET_ROUTES: Routes = [
-  { path: '', title: 'Presets', loadComponent: () => import('./presets').then((m) => m.Presets) },
+  {
+    path: '',
+    title: 'Presets',
+    loadComponent: () => import('./curation/preset-curation').then((m) => m.PresetCuration),
+  },
 ];

@@ -4,13 +4,14 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { LoadState, loadStateSignal } from '../core/load-state';
 import { EmptyState } from '../ui/empty-state';
 import { RuleCardList, RuleCardListItem } from '../ui/rule-card-list';
+import { CardTable } from './card-table';
 import { builtInCardItems } from './built-in-card-items';
 import { BuiltInCard, RuleCardsApi } from './rule-cards-api';
 
-/** The teacher's home: the built-in rule cards, each opening a fresh drill. */
+/** The teacher's home: their own rule cards (a table), then the built-in ones, each opening a fresh drill. */
 @Component({
   selector: 'tensile-rule-cards',
-  imports: [MatProgressBarModule, EmptyState, RuleCardList],
+  imports: [MatProgressBarModule, CardTable, EmptyState, RuleCardList],
   templateUrl: './rule-cards.html',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })

@@ -1,0 +1,69 @@
+/**
+ * Curated presets in a real browser against the real server: the admin renames, tags and
+ * publishes a preset; a teacher finds it in the gallery by that tag, starts a card from it and
+ * gets a drill from the copy in the editor.
+ */
+import type { BrowserContext, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { BUILT_IN_PRESETS } from '../../shared/generator/presets/index';
+import { signIn } from '../support/browser';
+import { useServerAndBrowser } from '../support/browser-suite';
+import { DEMO_ADMIN, DEMO_TEACHERS } from '../support/demo-accounts';
+
+const NEW_TITLE = 'Larkspur groove primer';
+
+describe('authoring journey: curated presets', () => {
+  const suite = useServerAndBrowser();
+  let context: BrowserContext;
+  let page: Page;
+
+  beforeAll(async () => {
+    context = await suite.browser.newContext({ viewport: { width: 1400, height: 1000 } });
+    page = await context.newPage();
+  });
+
+  afterAll(async () => {
+    await context?.close();
+  });
+
+  it('the admin edits and publishes a preset; a teacher filters, starts from it, drills', async () => {
+    const preset = BUILT_IN_PRESETS[0]!;
+    await signIn(page, suite.server.url, DEMO_ADMIN.email, DEMO_ADMIN.password);
+    await page.goto(`${suite.server.url}/presets`);
+    await page.getByRole('button', { name: `Edit ${preset.title}` }).click();
+    const dialog = page.getByRole('dialog');
+    await dialog.getByLabel('Title').fill(NEW_TITLE);
+    await dialog.getByLabel('Tags (comma-separated)').fill('primer, backbeat');
+    await dialog.getByLabel('Published in the gallery').uncheck();
+    await dialog.getByRole('button', { name: 'Save preset' }).click();
+    const toggle = page.getByRole('switch', { name: `Publish ${NEW_TITLE}` });
+    await expect.poll(() => toggle.getAttribute('aria-checked')).toBe('false');
+    await toggle.click();
+    await expect.poll(() => toggle.getAttribute('aria-checked')).toBe('true');
+
+    await context.clearCookies();
+    const teacher = DEMO_TEACHERS[1]!;
+    await signIn(page, suite.server.url, teacher.email, teacher.password);
+    await page.goto(`${suite.server.url}/gallery`);
+    await page.getByRole('list', { name: 'Presets' }).getByRole('listitem').first().waitFor();
+    await page.getByLabel('Tag').fill('primer');
+    const cards = page.getByRole('list', { name: 'Presets' }).getByRole('listitem');
+    await expect.poll(() => cards.count()).toBe(1);
+    expect(await cards.first().getByRole('heading').innerText()).toBe(NEW_TITLE);
+    const thumbnail = cards.first().locator('img.thumbnail');
+    await expect
+      .poll(() => thumbnail.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth))
+      .toBeGreaterThan(0);
+
+    await cards
+      .first()
+      .getByRole('button', { name: `Start from ${NEW_TITLE}` })
+      .click();
+    await page.waitForURL((url) => /^\/rule-cards\/\d+$/.test(url.pathname));
+    await page
+      .locator('tensile-card-preview svg .tensile-note')
+      .first()
+      .waitFor({ state: 'visible', timeout: 20_000 });
+    expect(await page.locator('tensile-card-preview .problem').count()).toBe(0);
+  }, 120_000);
+});
