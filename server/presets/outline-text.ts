@@ -12,13 +12,24 @@ export function outlineText(svg: string): string {
   const document = dom.window.document;
   try {
     const root = document.documentElement;
-    const width = Math.ceil(Number.parseFloat(root.getAttribute('width') ?? '')) || 1000;
-    const height = Math.ceil(Number.parseFloat(root.getAttribute('height') ?? '')) || 1000;
+    // A score repeats few glyphs many times: each is outlined once, at the origin, and placed.
+    const outlines = new Map<string, string>();
     for (const text of [...document.getElementsByTagName('text')]) {
-      const d = glyphOutline(text, width, height);
+      const font = fontOf(text);
+      const content = text.textContent ?? '';
+      const key = `${font.css}|${font.align}|${content}`;
+      let d = outlines.get(key);
+      if (d === undefined) {
+        d = glyphOutline(font, content);
+        outlines.set(key, d);
+      }
+      const x = Number.parseFloat(text.getAttribute('x') ?? '0') || 0;
+      const y = Number.parseFloat(text.getAttribute('y') ?? '0') || 0;
       const path = document.createElementNS('http://www.w3.org/2000/svg', 'path');
       if (d) path.setAttribute('d', d);
-      for (const name of ['fill', 'class', 'transform', 'opacity']) {
+      const own = text.getAttribute('transform');
+      path.setAttribute('transform', `${own ? `${own} ` : ''}translate(${x} ${y})`);
+      for (const name of ['fill', 'class', 'opacity']) {
         const value = text.getAttribute(name);
         if (value !== null) path.setAttribute(name, value);
       }
@@ -30,20 +41,32 @@ export function outlineText(svg: string): string {
   }
 }
 
-/** The path data of one text element's glyphs, in the element's own coordinates. */
-function glyphOutline(text: Element, width: number, height: number): string {
-  const canvas = createCanvas(width, height, SvgExportFlag.ConvertTextToPaths);
-  const context = canvas.getContext('2d');
+interface Font {
+  readonly css: string;
+  readonly align: 'start' | 'center' | 'end';
+}
+
+/** The font a text element draws with, from its own or inherited attributes. */
+function fontOf(text: Element): Font {
   const style = inherited(text, 'font-style') ?? 'normal';
   const weight = inherited(text, 'font-weight') ?? 'normal';
   const size = pixels(inherited(text, 'font-size') ?? '10pt');
   const family = inherited(text, 'font-family') ?? 'Bravura,Academico';
-  context.font = `${style} ${weight} ${size}px ${family}`;
   const anchor = inherited(text, 'text-anchor');
-  context.textAlign = anchor === 'middle' ? 'center' : anchor === 'end' ? 'end' : 'start';
-  const x = Number.parseFloat(text.getAttribute('x') ?? '0') || 0;
-  const y = Number.parseFloat(text.getAttribute('y') ?? '0') || 0;
-  context.fillText(text.textContent ?? '', x, y);
+  const align = anchor === 'middle' ? 'center' : anchor === 'end' ? 'end' : 'start';
+  return { css: `${style} ${weight} ${size}px ${family}`, align };
+}
+
+/**
+ * The path data of a text drawn at the origin. The canvas only records paths, so its size does
+ * not clip them; glyph parts above the baseline come out with negative y.
+ */
+function glyphOutline(font: Font, content: string): string {
+  const canvas = createCanvas(1, 1, SvgExportFlag.ConvertTextToPaths);
+  const context = canvas.getContext('2d');
+  context.font = font.css;
+  context.textAlign = font.align;
+  context.fillText(content, 0, 0);
   const drawn = canvas.getContent().toString();
   return [...drawn.matchAll(/<path[^>]*\sd="([^"]*)"/g)].map((m) => m[1]).join(' ');
 }
