@@ -3,6 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { SignInLimiter } from './auth/sign-in-limiter';
 import { loadConfig } from './config';
 import { createDb, migrateLatest, rollbackAll } from './db';
+import { authoringJourney } from './testing/authoring-journey';
 import { createTestApp, findAccount, type TestApp } from './testing/test-app';
 
 // Runs only against a disposable PostgreSQL database named by TEST_POSTGRES_URL, e.g.
@@ -72,9 +73,12 @@ describe.skipIf(!url)('PostgreSQL (DATABASE_URL=postgres://…)', () => {
     expect(await limiter.sweep(Date.now() + 2 * 3_600_000)).toBeGreaterThan(0);
   });
 
+  authoringJourney(() => t);
+
   it('rolls back cleanly', async () => {
     await rollbackAll(t.db);
     expect(await t.db.schema.hasTable('users')).toBe(false);
+    expect(await t.db.schema.hasTable('rule_cards')).toBe(false);
     await migrateLatest(t.db);
   });
 });

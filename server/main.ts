@@ -7,6 +7,7 @@ import { SignInLimiter } from './auth/sign-in-limiter';
 import { UsersRepository } from './auth/users-repository';
 import { DemoPasswordsError, refuseDemoPasswords } from './demo/demo-passwords';
 import { seedDemo } from './demo/seed-demo';
+import { seedDemoAuthoring } from './demo/seed-authoring';
 import { createLogger, errorFields } from './logger';
 import { syncBuiltInPresets } from './presets/sync-built-ins';
 import { createSessionStore, stopSessionStore } from './session';
@@ -27,6 +28,9 @@ async function main(): Promise<void> {
   if (config.seedDemo) {
     const added = await seedDemo(db, passwords);
     if (added > 0) logger.info('Demo accounts added', { count: added });
+    const material = await seedDemoAuthoring(db);
+    if (material.ruleCards > 0)
+      logger.info('Demo rule cards, drills and links added', { ...material });
     if (config.production) {
       logger.warn(
         'SEED_DEMO=true in production: the demo accounts and their published passwords work',

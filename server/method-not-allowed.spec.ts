@@ -20,7 +20,8 @@ describe('a wrong method on an existing API route', () => {
     ['delete', '/api/users', 'GET, HEAD'],
     ['patch', '/api/students', 'GET, HEAD'],
     ['post', '/api/presets', 'GET, HEAD'],
-    ['put', '/api/presets/backbeat-basics', 'GET, HEAD'],
+    ['patch', '/api/presets/backbeat-basics', 'GET, HEAD, PUT'],
+    ['patch', '/api/rule-cards/1', 'DELETE, GET, HEAD, PUT'],
   ] as const)('answers %s %s with 405 and Allow: %s', async (method, path, allow) => {
     const agent = await t.signIn('admin');
     const res = await agent[method](path).send({});

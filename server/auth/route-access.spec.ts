@@ -52,10 +52,23 @@ describe('every API route states who may use it', () => {
         '/api/users',
         '/api/students',
         '/api/presets/:id',
+        '/api/rule-cards/:id',
+        '/api/drills/:id/share',
+        '/api/seed-links/:code',
       ]),
     );
     const unguarded = apiRoutes.filter((r) => r.access === undefined);
     expect(unguarded).toEqual([]);
+  });
+
+  it('opens shared drills to anyone and keeps authoring to teachers and admins', () => {
+    const router = (t.app as Express & { router: { stack: Layer[] } }).router;
+    const routes = collectRoutes(router.stack, '', []);
+    const access = (path: string) => routes.find((r) => r.path === path)?.access;
+    expect(access('/api/seed-links/:code')).toBe('anyone');
+    expect(access('/api/rule-cards/:id')).toEqual(['teacher', 'admin']);
+    expect(access('/api/drills/:id')).toEqual(['teacher', 'admin']);
+    expect(access('/api/presets/promote')).toEqual(['admin']);
   });
 
   it('keeps the student list to teachers and admins', () => {

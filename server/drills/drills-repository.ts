@@ -155,6 +155,10 @@ export class DrillsRepository {
   async delete(ownerId: number, id: number): Promise<void> {
     await this.db('saved_drills').where({ id, owner_id: ownerId }).delete();
   }
+
+  async countAll(): Promise<number> {
+    return countRows(this.db('saved_drills'));
+  }
 }
 
 function toSummary(row: SavedDrillRow): SavedDrillSummary {

@@ -108,14 +108,40 @@ describe('saved drills', () => {
     expect(conflict.body.error.details[0].path).toBe('body.card.rules');
   });
 
-  it('refuses pinned bars until the engine can keep them', async () => {
+  it('keeps pinned bars as given and regenerates the rest with the new seed', async () => {
     const teacher = await t.signIn('teacher');
-    const drill = await save(teacher);
+    const first = await save(teacher, { seed: 'take-1' });
+    const pinned = first.snapshot.bars[1]!;
     const res = await teacher
       .post('/api/drills')
-      .send({ title: 't', card: card(), seed: 'new', keep: [drill.snapshot.bars[0]] });
+      .send({ title: 'Take 2', card: card(), seed: 'take-2', keep: [pinned] });
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    const snapshot = res.body.drill.snapshot as Drill;
+    expect(snapshot.bars[1]).toEqual(pinned);
+    expect(snapshot.seed).toBe('take-2');
+    // Without the pin, this seed draws another second bar: the pin is what kept it.
+    const unpinned = generateDrill(parseRuleCard(card()), 'take-2');
+    expect(unpinned.bars[1]).not.toEqual(pinned);
+    // The server's drill is the engine's for the same card, seed and pinned bar.
+    const expected = generateDrill(parseRuleCard(card()), 'take-2', { keep: [pinned] });
+    expect(JSON.stringify(snapshot)).toBe(JSON.stringify(expected));
+  });
+
+  it('refuses pinned bars that do not fit, naming the bar', async () => {
+    const teacher = await t.signIn('teacher');
+    const drill = await save(teacher);
+    const stray = { ...drill.snapshot.bars[0]!, bar: 9 };
+    const res = await teacher
+      .post('/api/drills')
+      .send({ title: 't', card: card(), seed: 'new', keep: [stray] });
     expect(res.status).toBe(400);
-    expect(res.body.error.message).toBe('Pinning bars is not available yet.');
+    expect(res.body.error.code).toBe('invalid_keep');
+    expect(res.body.error.details).toEqual([
+      {
+        path: 'body.keep[0].bar',
+        message: 'Pinned bar 9 is not a bar of this card: it has bars 1 to 4.',
+      },
+    ]);
     const malformed = await teacher
       .post('/api/drills')
       .send({ title: 't', card: card(), seed: 'new', keep: [{ bar: 0 }] });

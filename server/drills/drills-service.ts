@@ -31,7 +31,8 @@ export interface SaveDrillInput {
 const MISSING = 'There is no saved drill with that id among yours.';
 
 /**
- * Saved drills. The server regenerates the drill from the card and seed and keeps the result;
+ * Saved drills. The server regenerates the drill from the card, the seed and the pinned bars
+ * (`keep`, which the engine places as given) and keeps the result;
  * afterwards the drill is always served from that snapshot, never regenerated, so it stays
  * exactly as saved when the engine changes.
  */
@@ -56,10 +57,6 @@ export class DrillsService {
 
   async save(ownerId: number, input: SaveDrillInput): Promise<SavedDrill> {
     const card = checkCard(input.card);
-    if (input.keep && input.keep.length > 0) {
-      const message = 'Pinning bars is not available yet.';
-      throw new HttpError(400, 'keep_unavailable', message, [{ path: 'body.keep', message }]);
-    }
     if (input.ruleCardId !== undefined && !(await this.cards.find(ownerId, input.ruleCardId))) {
       throw notFound('There is no rule card with that id among yours.');
     }
@@ -67,7 +64,7 @@ export class DrillsService {
       const message = 'There is no preset with that id.';
       throw new HttpError(400, 'validation_failed', message, [{ path: 'body.presetId', message }]);
     }
-    const snapshot = generateOrRefuse(this.generate, card, input.seed);
+    const snapshot = generateOrRefuse(this.generate, card, input.seed, { keep: input.keep ?? [] });
     const id = await this.drills.insert({
       ownerId,
       ruleCardId: input.ruleCardId ?? null,

@@ -34,18 +34,24 @@ export interface PresetListFilter {
 export type ThumbnailRenderer = (drill: Drill) => Promise<string>;
 
 /**
- * Engraves with the server's VexFlow renderer, loaded on first use: jsdom and the font canvas
- * are only needed once a thumbnail is missing from the cache.
+ * Engraves with the server's VexFlow renderer, loaded on first use (jsdom and the font canvas
+ * are only needed once a thumbnail is missing from the cache), then outlines the glyphs so the
+ * SVG shows as an `<img>` without the music font.
  */
 export const engraveThumbnail: ThumbnailRenderer = async (drill) => {
-  const { renderDrillSvg } = await import('../notation/render-svg');
-  return renderDrillSvg(drill, {
-    width: 480,
+  const [{ renderDrillSvg }, { outlineText }] = await Promise.all([
+    import('../notation/render-svg'),
+    import('./outline-text'),
+  ]);
+  const { svg } = renderDrillSvg(drill, {
+    width: 800,
     showSticking: false,
     showCounts: false,
     showLegend: false,
     showMarks: false,
-  }).svg;
+    maxBarsPerSystem: THUMBNAIL_BARS,
+  });
+  return outlineText(svg);
 };
 
 /** How many bars a thumbnail shows. */

@@ -55,7 +55,7 @@ describe('serving the built app', () => {
   });
 
   it('never answers /api paths with the app shell', async () => {
-    const res = await request(t.app).get('/api/drills/x').set('Accept', 'text/html');
+    const res = await request(t.app).get('/api/no-such-area/x').set('Accept', 'text/html');
     expect(res.status).toBe(404);
     expect(res.body.error.code).toBe('not_found');
   });

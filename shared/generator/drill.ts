@@ -34,6 +34,16 @@ export function isHandVoice(voice: VoiceId): boolean {
   return !FOOT_VOICES.has(voice);
 }
 
+/** Hits at one instant are ordered by voice id, as plain strings. */
+export function compareVoices(a: { voice: VoiceId }, b: { voice: VoiceId }): number {
+  return a.voice < b.voice ? -1 : a.voice > b.voice ? 1 : 0;
+}
+
+/** A bar's hit order: by beat, slot, then voice id. */
+export function compareHits(a: DrillHit, b: DrillHit): number {
+  return a.beat - b.beat || a.slot - b.slot || compareVoices(a, b);
+}
+
 export type Dynamic = 'ghost' | 'normal' | 'accent';
 export type Hand = 'R' | 'L';
 

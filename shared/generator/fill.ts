@@ -1,6 +1,6 @@
 import { isHandVoice, VOICE_IDS, type VoiceId } from './drill';
 import { ticksOf, type Grid } from './grid';
-import { HAND_LIMITS, handRested } from './hands';
+import { Gap, gapOf, HAND_LIMITS, paceOf, thresholdsOf } from './sticking/limits';
 import type { Obligations } from './obligations';
 import type { Rng } from './random';
 import { embellishmentVoices, fillVoices } from './rules/fill-holes';
@@ -101,10 +101,9 @@ function handsBusy(card: RuleCard, grid: Grid, ob: Obligations): boolean[] {
   // Three laps, so the window of an instant near either end sees the strokes round the loop.
   const laps = [...ticks.map((t) => t - loop), ...ticks, ...ticks.map((t) => t + loop)];
   // The fastest a hand may go: doubles where the card allows them.
-  const perSecond = card.sticking.doubles
-    ? HAND_LIMITS.doublesPerSecond
-    : HAND_LIMITS.singlesPerSecond;
-  const tooClose = (d: number): boolean => !handRested(grid, card.tempo, d, perSecond);
+  const hand = thresholdsOf(paceOf(grid, card.tempo), HAND_LIMITS);
+  const fastest = card.sticking.doubles ? Gap.Double : Gap.Single;
+  const tooClose = (d: number): boolean => gapOf(hand, d) > fastest;
   let from = 0;
   for (let instant = 0; instant < grid.instants; instant++) {
     const now = ticksOf(grid, instant);

@@ -12,18 +12,4 @@ export {
   type HandFailure,
   type WorkHit,
 } from './sticking/assign';
-import { HAND_LIMITS } from './sticking/limits';
 export { FOOT_LIMITS, HAND_LIMITS, type StrokeLimits } from './sticking/limits';
-
-/**
- * True when `ticks` between two strokes of one hand leave it time to play both at `perSecond`
- * notes a second (single strokes by default).
- */
-export function handRested(
-  grid: { readonly ticksPerBeat: number },
-  tempo: number,
-  ticks: number,
-  perSecond: number = HAND_LIMITS.singlesPerSecond,
-): boolean {
-  return ticks * 60 * perSecond >= tempo * grid.ticksPerBeat;
-}

@@ -1,4 +1,5 @@
 import {
+  compareHits,
   HIT_SOURCES,
   isHandVoice,
   VOICE_IDS,
@@ -147,10 +148,6 @@ function instantProblem(hits: readonly DrillHit[], grid: Grid, bar: number): str
       return `Pinned bar ${bar} gives the ${voiceWord(hands[0]?.voice ?? '')} and the ${voiceWord(hands[1]?.voice ?? '')} to one hand at once at ${at}.`;
   }
   return null;
-}
-
-export function compareHits(a: DrillHit, b: DrillHit): number {
-  return a.beat - b.beat || a.slot - b.slot || (a.voice < b.voice ? -1 : a.voice > b.voice ? 1 : 0);
 }
 
 /**

@@ -25,26 +25,33 @@ export interface SearchBudget {
   left: number;
 }
 
-/** Tension in ten-thousandths: the stored precision, compared as integers. */
-export function tensionUnits(tension: number): number {
-  return Math.round(tension * 10000);
-}
-
 interface Candidate {
   readonly fill: BarFill;
   readonly units: number;
 }
 
-/**
- * Fills every bar, then (with a tension rule) searches neighbouring fills (moves, additions,
- * removals) for one fill per bar that keeps the curve's rank order and comes as close as it can
- * to each bar's goal (the target placed on the card's reachable range, in measure units).
- * Bounded by its work budget only; when the budget runs out before any order was found it
- * throws a SearchExhaustedError, which says the search gave up, never that the card is wrong
- * (impossible cards are refused earlier, by proof).
- */
-export function chooseFills(
+/** The first fill of every bar: `density` of its free slots, by seeded weighted draws. */
+export function drawFills(
   ctx: FillContext,
+  rng: Rng,
+  targets: readonly number[] | null,
+): BarFill[] {
+  return Array.from({ length: ctx.grid.bars }, (_, bar) =>
+    initialFill(ctx, bar, rng, targets ? (targets[bar] ?? 0.5) : 0.5),
+  );
+}
+
+/**
+ * With a tension rule, searches neighbouring fills of `base` (moves, additions, removals) for
+ * one fill per bar that keeps the curve's rank order and comes as close as it can to each bar's
+ * goal (the target placed on the card's reachable range, in measure units); without one, the
+ * base fills stand. Bounded by its work budget only; when the budget runs out before any order
+ * was found it throws a SearchExhaustedError, which says the search gave up, never that the
+ * card is wrong (impossible cards are refused earlier, by proof).
+ */
+export function shapeTension(
+  ctx: FillContext,
+  base: BarFill[],
   rng: Rng,
   targets: readonly number[] | null,
   gauge: TensionGauge,
@@ -52,9 +59,6 @@ export function chooseFills(
   goals: readonly number[] | null,
 ): BarFill[] {
   const lean = (bar: number): number => (targets ? (targets[bar] ?? 0.5) : 0.5);
-  const base = Array.from({ length: ctx.grid.bars }, (_, bar) =>
-    initialFill(ctx, bar, rng, lean(bar)),
-  );
   if (!targets || !goals) return base;
   const levels = tensionLevels(targets);
   const meter = candidateMeter(ctx, gauge);

@@ -9,7 +9,7 @@ import {
   type WitekStreams,
 } from './tension/witek';
 import { mostWitekOnWeights } from './tension/witek-max';
-import { unitsOf } from './tension/scale';
+import { fromUnits, unitsOf } from './tension/scale';
 
 /** Which published measure a card's tension uses. */
 export type TensionMeasure = 'lhl' | 'witek';
@@ -74,13 +74,13 @@ export function createTensionGauge(
       measure,
       most,
       unitsOfRaw,
-      scale: (raw) => unitsOfRaw(raw) / 10_000,
+      scale: (raw) => fromUnits(unitsOfRaw(raw)),
       unitsOfVoices: (voices) => unitsOfRaw(rawOfVoices(voices)),
       rawOfVoices,
       rawOfOnsets: () => {
         throw new RangeError('The polyphonic measure reads voices, not merged onsets.');
       },
-      ofBar: (bar) => unitsOfRaw(witekOnWeights(weights, witekStreams(bar, tree))) / 10_000,
+      ofBar: (bar) => fromUnits(unitsOfRaw(witekOnWeights(weights, witekStreams(bar, tree)))),
       reach: () => ({ least: 0, most }),
     };
   }
@@ -91,7 +91,7 @@ export function createTensionGauge(
     measure,
     most,
     unitsOfRaw,
-    scale: (raw) => unitsOfRaw(raw) / 10_000,
+    scale: (raw) => fromUnits(unitsOfRaw(raw)),
     unitsOfVoices: (voices) => units(voices.map((at) => at.some((v) => !v.time))),
     rawOfVoices: (voices) =>
       lhlOnGrid(
@@ -99,7 +99,7 @@ export function createTensionGauge(
         voices.map((at) => at.some((v) => !v.time)),
       ),
     rawOfOnsets: (onsets) => lhlOnGrid(tree, onsets),
-    ofBar: (bar) => units(barOnsets(bar, tree)) / 10_000,
+    ofBar: (bar) => fromUnits(units(barOnsets(bar, tree))),
     reach: (forced, allowed) => lhlRangeOnGrid(tree, forced, allowed),
   };
 }

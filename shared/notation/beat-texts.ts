@@ -1,5 +1,5 @@
 /**
- * The text rows of a bar: sticking (R, L, R+L) over the struck instants and the counting
+ * The text rows of a bar: sticking (R, L, or R over L stacked) over the struck instants and the counting
  * syllables under every slot of every beat.
  */
 import type { Stave, SVGContext } from 'vexflow/bravura';
@@ -38,17 +38,56 @@ export function drawBeatTexts(
 ): void {
   const xs = instantX(engraved);
   const { stickingY, countsY } = rows;
-  for (const beat of bar.beats) {
-    if (stickingY !== null) {
-      for (const { slot, hands } of beat.sticking) {
-        const x = xs.get(`${beat.beat}:${slot}`);
-        if (x === undefined) continue;
-        const label = hands.length > 1 ? hands.join('+') : (hands[0] ?? '');
-        svgText(ctx, label, x, stickingY, 'tensile-sticking', { size: 15, weight: 'bold' });
-      }
-    }
-  }
+  if (stickingY !== null) drawSticking(ctx, bar, xs, stickingY);
   if (countsY !== null) drawCounts(ctx, bar, xs, stave, countsY);
+}
+
+/** Sticking letters' size where they have room, and the smallest they shrink to. */
+const STICKING_SIZE = 15;
+const SMALLEST_STICKING = 10;
+/** Width of a bold capital R or L as a share of the font size (Academico; a safe over-estimate). */
+const LETTER_WIDTH = 0.72;
+/** Space kept between neighbouring letters, in pixels. */
+const LETTER_GAP = 2;
+/** Baseline distance between the two letters of a stack. */
+export const STICKING_LINE = 14;
+
+/**
+ * One letter per hand over each struck instant. Two hands at once are stacked, the hand of the
+ * voice higher on the staff on top (R over L), so an instant never takes more than one letter's
+ * width and neighbours never run into each other ("R+L" written inline collides in dense bars).
+ * Where instants sit closer than a letter's width, the bar's letters are set smaller (down to
+ * 10 px). Stacked sticking for simultaneous hands is common practice in drum-set parts.
+ */
+function drawSticking(
+  ctx: SVGContext,
+  bar: NotationBar,
+  xs: ReadonlyMap<string, number>,
+  y: number,
+): void {
+  const placed = bar.beats.flatMap((beat) =>
+    beat.sticking.flatMap(({ slot, hands }) => {
+      const x = xs.get(`${beat.beat}:${slot}`);
+      return x === undefined ? [] : [{ x, hands, beat: beat.beat, slot }];
+    }),
+  );
+  const sorted = placed.map((p) => p.x).sort((a, b) => a - b);
+  let tightest = Infinity;
+  for (let i = 1; i < sorted.length; i++)
+    tightest = Math.min(tightest, sorted[i]! - sorted[i - 1]!);
+  const fits = Math.floor((tightest - LETTER_GAP) / LETTER_WIDTH);
+  const size = Math.max(SMALLEST_STICKING, Math.min(STICKING_SIZE, fits));
+  for (const { x, hands, beat, slot } of placed) {
+    hands.forEach((hand, i) => {
+      const row = hands.length - 1 - i;
+      const label = svgText(ctx, hand, x, y - row * STICKING_LINE, 'tensile-sticking', {
+        size,
+        weight: 'bold',
+      });
+      label.setAttribute('data-beat', String(beat));
+      label.setAttribute('data-slot', String(slot));
+    });
+  }
 }
 
 /** Every syllable of every beat, under its slot; lighter where nothing sounds. */

@@ -1,13 +1,8 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import type { DrillBar, DrillHit, VoiceId } from '../generator/drill';
-import {
-  buildNotation,
-  type LayerBar,
-  type NotationEvent,
-  type NotationSource,
-} from './notation-model';
-import { soundingLength, type TupletRatio } from './rhythm';
+import { buildNotation, type LayerBar, type NotationSource } from './notation-model';
+import { soundingLength } from './rhythm';
 
 const HANDS: VoiceId[] = ['hihat', 'snare', 'tomFloor'];
 const FEET: VoiceId[] = ['kick', 'hihatFoot'];
@@ -46,27 +41,25 @@ function beatOf(layer: LayerBar, beat: number) {
   );
 }
 
-/** Exact sounding length of some events, as `num/den` of a whole note. */
-function lengthOf(events: readonly { event: NotationEvent; tuplet: TupletRatio | null }[]): string {
-  let num = 0;
-  let den = 1;
-  for (const { event, tuplet } of events) {
-    const part = soundingLength(event.duration, tuplet);
-    num = num * part.den + part.num * den;
-    den *= part.den;
-    const g = gcd(num, den);
-    [num, den] = [num / g, den / g];
-  }
-  return `${num}/${den}`;
-}
+/** Ticks of a whole note: every written value under any tuplet of the model is a whole number. */
+const WHOLE = 26880;
 
-/** Exact sounding length of one voice's beat. */
-function layerLength(layer: LayerBar, beat: number): string {
-  return lengthOf(beatOf(layer, beat));
-}
-
-function gcd(a: number, b: number): number {
-  return b === 0 ? a : gcd(b, a % b);
+/**
+ * Every event of the layer starts exactly where its beat and slot say, and the layer fills the
+ * bar exactly (a whole-bar rest counts as the bar, whatever the meter).
+ */
+function expectTimed(layer: LayerBar, beats: readonly number[], unit: number): void {
+  const barTicks = (beats.length * WHOLE) / unit;
+  let t = 0;
+  layer.events.forEach((event, i) => {
+    const slots = beats[event.beat - 1]!;
+    const start = ((event.beat - 1) * slots + event.slot) * (WHOLE / unit / slots);
+    expect(t, `start of event ${i}`).toBe(start);
+    const tuplet = layer.tuplets.find((x) => x.events.includes(i))?.ratio ?? null;
+    const { num, den } = soundingLength(event.duration, tuplet);
+    t += event.barRest ? barTicks : (WHOLE * num) / den;
+  });
+  expect(t).toBe(barTicks);
 }
 
 describe('buildNotation', () => {
@@ -78,7 +71,7 @@ describe('buildNotation', () => {
         const bar = model.bars[0]!;
         for (const beat of bar.beats) {
           for (const layer of bar.layers) {
-            expect(layerLength(layer, beat.beat)).toBe('1/4');
+            expectTimed(layer, [4, 4, 5, 5], 4);
             const offBeat = hits.some(
               (h) =>
                 h.beat === beat.beat &&
@@ -99,9 +92,7 @@ describe('buildNotation', () => {
       fc.assert(
         fc.property(hitsFor([n, n]), (hits) => {
           const bar = buildNotation(drillOf([n, n], hits)).bars[0]!;
-          for (const beat of bar.beats) {
-            for (const layer of bar.layers) expect(layerLength(layer, beat.beat)).toBe('1/4');
-          }
+          for (const layer of bar.layers) expectTimed(layer, [n, n], 4);
         }),
         { numRuns: 60 },
       );
@@ -163,7 +154,10 @@ describe('buildNotation', () => {
     ]);
     expect(hands.events[0]!.heads.map((h) => h.key)).toEqual(['c/5', 'g/5/x2']);
     const feet = model.bars[0]!.layers[1]!;
-    expect(feet.events.map((e) => [e.kind, e.duration.value])).toEqual([['rest', 4]]);
+    // Silent for the whole bar: one whole-bar rest (see the rests tests below).
+    expect(feet.events.map((e) => [e.kind, e.duration.value, e.barRest])).toEqual([
+      ['rest', 1, true],
+    ]);
   });
 
   it('accents mark the chord, ghosts mark their own head', () => {
@@ -270,7 +264,8 @@ describe('buildNotation in grouped eighth meters', () => {
   // dotted-quarter rest, the first two eighths of a beat may share a quarter rest, the last two
   // may not, and notes show the dotted-quarter beat (quarter-eighth, eighth-quarter).
   it.each([
-    [[], 'r4d | r4d'],
+    // A silent bar: one whole-bar rest (see the rests tests).
+    [[], 'r1'],
     [[1], '4d | r4d'],
     [[1, 4], '4d | 4d'],
     [[1, 2, 3, 4, 5, 6], '8 8 8 | 8 8 8'],
@@ -390,8 +385,7 @@ describe('buildNotation in grouped eighth meters', () => {
         const model = buildNotation(drillOf(beats, hits, unit, grouping));
         const bar = model.bars[0]!;
         for (const layer of bar.layers) {
-          const all = layer.events.map((event) => ({ event, tuplet: null }));
-          expect(lengthOf(all)).toBe(`${n / gcd(n, unit)}/${unit / gcd(n, unit)}`);
+          expectTimed(layer, beats, unit);
           // Beams stay inside one group.
           const groupOf = (beat: number) => {
             let end = 0;

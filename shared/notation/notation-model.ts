@@ -21,6 +21,8 @@ import {
   type WrittenDuration,
 } from './rhythm';
 import { STAFF_PLACEMENTS, vexKeyOf, type Layer } from './staff-placement';
+import { syncopatedInstants, type Instant } from './syncopation';
+import { polyrhythmGroups, type PolyrhythmGroup, type PolyrhythmSource } from './polyrhythm';
 
 /** The meter as notation reads it. */
 export interface NotationMeter {
@@ -35,6 +37,7 @@ export interface NotationSource {
   readonly card: MarkedCard & {
     readonly meter: NotationMeter;
     readonly voices?: readonly VoiceId[];
+    readonly rules?: readonly PolyrhythmSource[];
   };
   readonly bars: readonly DrillBar[];
 }
@@ -49,6 +52,8 @@ export interface NotationHead {
   readonly accent: boolean;
   /** Open hi-hat: a small circle above. */
   readonly open: boolean;
+  /** Placed by the ostinato: it keeps time, and the tension is read without it. */
+  readonly keepsTime: boolean;
 }
 
 export interface NotationEvent {
@@ -62,6 +67,8 @@ export interface NotationEvent {
   readonly heads: readonly NotationHead[];
   /** Any head accented: the accent is written once for the chord. */
   readonly accent: boolean;
+  /** A whole-bar rest: the layer is silent for the whole bar (drawn centred, in any meter). */
+  readonly barRest?: boolean;
 }
 
 /** Notes of one voice joined by a beam. */
@@ -80,6 +87,14 @@ export interface NotationTuplet {
   readonly ratio: TupletRatio;
   /** Indices into the layer's `events`, in time order. */
   readonly events: readonly number[];
+  /**
+   * Whether the bracket and its number are printed. In a drill in triplets throughout (a
+   * shuffle) only the first is, followed by "sim." (see `simile`); the others still time their
+   * notes.
+   */
+  readonly shown: boolean;
+  /** "sim." follows this bracket: the ones after it are understood. */
+  readonly simile: boolean;
 }
 
 /** One voice layer of one bar. */
@@ -119,6 +134,8 @@ export interface NotationBar {
   readonly beats: readonly NotationBeat[];
   /** One entry per voice layer of the model, in the model's order. */
   readonly layers: readonly LayerBar[];
+  /** The instants whose notes make the bar tense (see `syncopatedInstants`), in time order. */
+  readonly syncopated: readonly Instant[];
 }
 
 export interface NotationModel {
@@ -135,6 +152,8 @@ export interface NotationModel {
   readonly bars: readonly NotationBar[];
   /** The metronome mark and swing marking above the first system. */
   readonly marks: HeaderMarks;
+  /** Each cycle of a polyrhythm rule, bracketed with its ratio. */
+  readonly polyrhythms: readonly PolyrhythmGroup[];
 }
 
 /** Build the notation model of a drill. */
@@ -148,7 +167,41 @@ export function buildNotation(drill: NotationSource): NotationModel {
   const grouping = given && given.length > 0 ? given.slice() : defaultGrouping({ beats, unit });
   const meter = { beats, unit, grouping };
   const bars = drill.bars.map((bar) => notateBar(bar, layers, meter));
-  return { meter, layers, voices, bars, marks: headerMarks(drill.card) };
+  return {
+    meter,
+    layers,
+    voices,
+    bars: simileTriplets(bars),
+    marks: headerMarks(drill.card),
+    polyrhythms: polyrhythmGroups(drill.card.rules ?? [], drill.bars, beats),
+  };
+}
+
+/**
+ * A drill in triplets throughout (every beat in three: a shuffle or triplet feel) writes its
+ * "3" once, on the first bracketed beat (the hands' where they have one in that bar), then
+ * "sim.", rather than a bracket on every beat of both voices (E. Gould, "Behind Bars", Faber
+ * Music 2011, ch. "Tuplets": once a tuplet pattern is established the brackets may be dropped,
+ * with "sim." after the first ones; from memory). Other drills keep every bracket.
+ */
+function simileTriplets(bars: NotationBar[]): NotationBar[] {
+  const allTriplets = bars.every((bar) => bar.beats.every((beat) => beat.subdivision === 3));
+  if (!allTriplets) return bars;
+  let done = false;
+  return bars.map((bar) => {
+    const first = done ? null : bar.layers.find((layer) => layer.tuplets.length > 0);
+    if (first) done = true;
+    return {
+      ...bar,
+      layers: bar.layers.map((layer) => ({
+        ...layer,
+        tuplets: layer.tuplets.map((tuplet, i) => {
+          const lead = layer === first && i === 0;
+          return { ...tuplet, shown: lead, simile: lead };
+        }),
+      })),
+    };
+  });
 }
 
 /** "2+2+3" for an uneven grouping; null where the meter says it (even groups, or none). */
@@ -195,7 +248,13 @@ function notateBar(
       bar.hits.filter((h) => STAFF_PLACEMENTS[h.voice].layer === layer),
     ),
   );
-  return { bar: bar.bar, tension: bar.tension, beats, layers: layerBars };
+  return {
+    bar: bar.bar,
+    tension: bar.tension,
+    beats,
+    layers: layerBars,
+    syncopated: syncopatedInstants(bar, meter.grouping),
+  };
 }
 
 /** A run of beats spelled and beamed together: one group of a grouped eighth meter, or a beat. */
@@ -239,8 +298,33 @@ function notateLayer(
   const events: NotationEvent[] = [];
   const beams: NotationBeam[] = [];
   const tuplets: NotationTuplet[] = [];
-  for (const span of spans) {
+  if (hits.length === 0) {
+    // A voice silent for a whole bar gets one whole-bar rest, whatever the meter (E. Gould,
+    // "Behind Bars", Faber Music 2011, ch. "Rests": the semibreve rest fills any empty bar; from
+    // memory).
+    const rest = { value: 1, dots: 0 } as const;
+    events.push({ kind: 'rest', beat: 1, slot: 0, duration: rest, heads: [], accent: false });
+    return { layer, events: [{ ...events[0]!, barRest: true }], beams, tuplets };
+  }
+  const silent = (beat: number) => !hits.some((hit) => hit.beat === beat);
+  for (let s = 0; s < spans.length; s++) {
+    const span = spans[s]!;
     const from = events.length;
+    if (halfBarRest(span, bar.beats, unit, silent)) {
+      // Two silent beats making a half of a 4/4 bar (beats 1–2 or 3–4) take one half rest; never
+      // across the middle of the bar (E. Gould, "Behind Bars", ch. "Rests", from memory; common
+      // practice).
+      events.push({
+        kind: 'rest',
+        beat: span.first + 1,
+        slot: 0,
+        duration: { value: 2, dots: 0 },
+        heads: [],
+        accent: false,
+      });
+      s++;
+      continue;
+    }
     if (span.together) {
       const slots = bar.beats[span.first] ?? 1;
       const inSpan = hits.filter(
@@ -272,12 +356,23 @@ function notateLayer(
         events.push(eventOf(event, beat, event.gridSlot * toSlot, inBeat));
       if (rhythm.tuplet) {
         const indices = Array.from({ length: events.length - from }, (_, i) => from + i);
-        tuplets.push({ ratio: rhythm.tuplet, events: indices });
+        tuplets.push({ ratio: rhythm.tuplet, events: indices, shown: true, simile: false });
       }
     }
     beams.push(...beamsOf(events, from, span.count === 3 || span.count === 4));
   }
   return { layer, events, beams, tuplets };
+}
+
+/** Whether `span` opens a silent half of a 4/4 bar (beats 1–2 or 3–4, quarter-note beats). */
+function halfBarRest(
+  span: Span,
+  beats: readonly number[],
+  unit: number,
+  silent: (beat: number) => boolean,
+): boolean {
+  if (unit !== 4 || beats.length !== 4 || span.together || span.first % 2 !== 0) return false;
+  return silent(span.first + 1) && silent(span.first + 2);
 }
 
 function eventOf(
@@ -352,6 +447,7 @@ function headsAt(hits: readonly DrillHit[], slot: number): NotationHead[] {
         ghost: hit.dynamic === 'ghost',
         accent: hit.dynamic === 'accent',
         open: placement.mark === 'open',
+        keepsTime: hit.source === 'ostinato',
       };
     })
     .sort((a, b) => a.position - b.position);

@@ -13,13 +13,22 @@ import {
   StaveModifierPosition,
   TimeSignature,
   type SVGContext,
+  type Tuplet,
 } from 'vexflow/bravura';
-import { drawBeatTexts } from './beat-texts';
+import { drawBeatTexts, STICKING_LINE } from './beat-texts';
 import { countPositions } from './count-positions';
 import { EngravingContext, withFastEngraving } from './engraving-context';
 import { drawHeaderMarks, layoutHeaderMarks } from './header-marks';
 import { drawLegend, legendWidth } from './legend';
 import { svgText } from './svg-text';
+import { drawPolyrhythmBrackets, type InstantBox, type SystemBand } from './polyrhythm-brackets';
+import {
+  colourSyncopations,
+  drawTensionLegend,
+  drawTensionMarks,
+  TENSION_INK,
+  TENSION_LEGEND_HEIGHT,
+} from './tension-marks';
 import { groupingLabel, type NotationBar, type NotationModel } from './notation-model';
 import { planSystems } from './system-layout';
 import { engraveBar, minimumBarWidth, type EngravedBar, type EngravedNote } from './vexflow-bar';
@@ -41,6 +50,13 @@ export interface RenderOptions {
    * system, in a band of its own (default true).
    */
   readonly showMarks?: boolean;
+  /** The drill's title, above the first system (default none: a page shows its own heading). */
+  readonly title?: string | null;
+  /**
+   * Mark the notes that make each bar tense, in colour and with a small triangle, with a key
+   * above the first system (default false, as for print; the drill page turns it on).
+   */
+  readonly showTension?: boolean;
   /**
    * Write an uneven grouping ("2+2+3" in 7/8) over the time signature (default true). Even
    * groupings (6/8, 12/8) go without: the meter says them.
@@ -88,7 +104,7 @@ export const STAVE_SPACE = 10;
 const MARGIN_X = 12;
 const STICKING_ROW = 20;
 /** Room above the top line for hi-hat and crash stems, accents and tuplet brackets. */
-const HEADROOM = 86;
+const HEADROOM = 96;
 /** Room under the bottom line for feet stems, their brackets and accents. */
 const FOOTROOM = 78;
 const COUNTS_ROW = 22;
@@ -132,7 +148,11 @@ function engrave(
     lineWidth: (i) => options.width - 2 * MARGIN_X - (i === 0 ? legend : 0),
     maxBarsPerSystem: options.maxBarsPerSystem ?? 4,
   });
-  const sticking = options.showSticking ? STICKING_ROW : 0;
+  // Two hands at once stack their letters: a second line of sticking where the drill has them.
+  const stacked = model.bars.some((bar) =>
+    bar.beats.some((beat) => beat.sticking.some((s) => s.hands.length > 1)),
+  );
+  const sticking = options.showSticking ? STICKING_ROW + (stacked ? STICKING_LINE : 0) : 0;
   const counts = options.showCounts ? COUNTS_ROW : 0;
   const systemHeight = sticking + HEADROOM + 4 * STAVE_SPACE + FOOTROOM + counts;
   const gap = options.gapBelowSystem ?? 0;
@@ -147,9 +167,15 @@ function engrave(
     marks = layoutHeaderMarks(shown, options.width - 2 * MARGIN_X);
   }
   const boxes: BarBox[] = [];
-  drawHeaderMarks(ctx, shown, marks, marksX, 0);
+  const title = drawTitle(ctx, options.title ?? null, options.width);
+  drawHeaderMarks(ctx, shown, marks, marksX, title);
+  const showTension = options.showTension ?? false;
+  const head = title + marks.height + (showTension ? TENSION_LEGEND_HEIGHT : 0);
+  if (showTension) drawTensionLegend(ctx, marksX, head - 8, TENSION_INK);
+  const instants = new Map<string, InstantBox>();
+  const bands: SystemBand[] = [];
   plans.forEach((plan, systemIndex) => {
-    const systemTop = marks.height + systemIndex * (systemHeight + gap);
+    const systemTop = head + systemIndex * (systemHeight + gap);
     const topLineY = systemTop + sticking + HEADROOM;
     let x = MARGIN_X + (systemIndex === 0 ? legend : 0);
     if (systemIndex === 0 && showLegend)
@@ -162,7 +188,16 @@ function engrave(
       stave.setStyle({ strokeStyle: ink, fillStyle: ink });
       stave.setDefaultLedgerLineStyle({ strokeStyle: ink, lineWidth: 2 });
       const engraved = engravedBars[barIndex]!;
+      if (showTension) colourSyncopations(bar, engraved, TENSION_INK);
       drawBar(ctx, bar, engraved, stave, options, topLineY);
+      if (showTension)
+        drawTensionMarks(
+          ctx,
+          bar,
+          engraved,
+          topLineY + 4 * STAVE_SPACE + FOOTROOM - 10,
+          TENSION_INK,
+        );
       if (barIndex === 0 && (options.showGrouping ?? true))
         drawGrouping(ctx, model, stave, topLineY);
       boxes.push({
@@ -176,10 +211,19 @@ function engrave(
         systemBottom: systemTop + systemHeight,
         beats: beatBoxes(bar, engraved, stave),
       });
+      recordInstants(instants, bar.bar, engraved, systemIndex);
       x += width;
     });
+    const bandLeft = boxes.find((b) => b.system === systemIndex)!;
+    bands.push({
+      left: bandLeft.x,
+      right: x,
+      aboveY: topLineY - POLYRHYTHM_ABOVE,
+      belowY: topLineY + 4 * STAVE_SPACE + POLYRHYTHM_BELOW,
+    });
   });
-  const height = marks.height + plans.length * (systemHeight + gap);
+  drawPolyrhythmBrackets(ctx, model.polyrhythms, instants, bands);
+  const height = head + plans.length * (systemHeight + gap);
   ctx.resize(options.width, height);
   svg.setAttribute('viewBox', `0 0 ${options.width} ${height}`);
   // VexFlow's invisible hit areas: nothing here is clicked, and a ghost note's parenthesis gives
@@ -187,6 +231,48 @@ function engrave(
   for (const rect of [...svg.querySelectorAll('rect[opacity="0"]')]) rect.remove();
   container.replaceChildren(svg);
   return { width: options.width, height, bars: boxes, svg };
+}
+
+/** The polyrhythm brackets' lines: over the hands' stems and accents, under the feet's stems. */
+const POLYRHYTHM_ABOVE = 66;
+const POLYRHYTHM_BELOW = 52;
+
+/** The horizontal extent of the notes at each instant of a drawn bar. */
+function recordInstants(
+  into: Map<string, InstantBox>,
+  bar: number,
+  engraved: EngravedBar,
+  system: number,
+): void {
+  for (const { note, beat, event } of engraved.notes) {
+    if (event.kind !== 'note') continue;
+    const key = `${bar}:${beat}:${event.slot}`;
+    const left = note.getAbsoluteX();
+    const right = left + note.getGlyphWidth();
+    const known = into.get(key);
+    into.set(key, {
+      left: Math.min(left, known?.left ?? left),
+      right: Math.max(right, known?.right ?? right),
+      system,
+    });
+  }
+}
+
+/** Height of the title's band. */
+const TITLE_HEIGHT = 36;
+const TITLE_SIZE = 20;
+
+/**
+ * The title centred over the score, set smaller (down to 13 px) when it would not fit the line;
+ * returns the height it takes (0 without a title).
+ */
+function drawTitle(ctx: SVGContext, title: string | null, width: number): number {
+  if (!title) return 0;
+  const room = width - 2 * MARGIN_X;
+  // Bold Academico averages under 0.6 of its size per character (a safe over-estimate).
+  const size = Math.max(13, Math.min(TITLE_SIZE, Math.floor(room / (title.length * 0.6))));
+  svgText(ctx, title, width / 2, TITLE_HEIGHT - 10, 'tensile-title', { size, weight: 'bold' });
+  return TITLE_HEIGHT;
 }
 
 function naturalBarWidth(
@@ -274,6 +360,15 @@ function drawBar(
 ): void {
   const voices = engraved.voices.map((v) => v.voice);
   new Formatter().joinVoices(voices).formatToStave(voices, stave);
+  // Stems reach their beams before anything hangs on them: VexFlow places an accent at the stem's
+  // tip when the note is drawn, and a beam fixed its stems' length when the bar was first
+  // measured (before the notes had a stave), so without this the accent of a beamed note lands
+  // inside the beam.
+  for (const { note } of engraved.notes) note.setStave(stave);
+  for (const { beam } of engraved.beams) {
+    beam.postFormatted = false;
+    beam.postFormat();
+  }
   const group = ctx.openGroup();
   group.setAttribute('class', 'tensile-bar');
   group.setAttribute('data-bar', String(bar.bar));
@@ -287,11 +382,12 @@ function drawBar(
     }
     for (const { beam } of engraved.beams.filter((b) => b.layer === layer))
       beam.setContext(ctx).draw();
-    for (const t of engraved.tuplets.filter((t) => t.layer === layer)) {
+    for (const t of engraved.tuplets.filter((t) => t.layer === layer && t.shown)) {
       const tupletGroup = ctx.openGroup();
       tupletGroup.setAttribute('class', 'tensile-tuplet');
       tupletGroup.setAttribute('data-tuplet', String(t.numNotes));
       t.tuplet.setContext(ctx).draw();
+      if (t.simile) drawSimile(ctx, t.tuplet, layer);
       ctx.closeGroup();
     }
     ctx.closeGroup();
@@ -301,6 +397,20 @@ function drawBar(
     countsY: options.showCounts ? topLineY + 4 * STAVE_SPACE + FOOTROOM + 16 : null,
   });
   ctx.closeGroup();
+}
+
+/** "sim." after a tuplet bracket, on the bracket's line, italic as performance words are. */
+function drawSimile(ctx: SVGContext, tuplet: Tuplet, layer: string): void {
+  const notes = tuplet.getNotes();
+  const last = notes[notes.length - 1];
+  if (!last) return;
+  // Above the hands' bracket (below the feet's), clear of the next beat's accent.
+  const y = tuplet.getYPosition() + (layer === 'hands' ? -12 : 16);
+  const label = svgText(ctx, 'sim.', last.getTieRightX() + 6, y, 'tensile-simile', {
+    size: 13,
+    anchor: 'start',
+  });
+  label.setAttribute('font-style', 'italic');
 }
 
 function drawNote(ctx: SVGContext, engraved: EngravedNote, stave: Stave): void {

@@ -56,7 +56,25 @@ export function spellBeat(
   const base = binaryFloor(grid);
   const tuplet = grid === base ? null : { numNotes: grid, notesOccupied: base };
   const events: RhythmEvent[] = [];
+  // Quintuplets, sextuplets and septuplets are written in their grid value throughout, a rest
+  // on every silent slot, so the holes of the grid can be seen and counted (E. Gould, "Behind
+  // Bars", Faber Music 2011, ch. "Tuplets": a tuplet is written in its own note value, rests
+  // included; from memory). Triplets keep the long-short spelling (a quarter and an eighth under
+  // a 3) every reader knows.
+  const spelledOut = tuplet !== null && grid !== 3;
   const first = slots[0];
+  if (spelledOut) {
+    for (let slot = 0; slot < grid; slot++) {
+      const struck = slots.includes(slot);
+      events.push({
+        kind: struck ? 'note' : 'rest',
+        gridSlot: slot,
+        length: 1,
+        duration: writtenDuration(1, base, beatUnit),
+      });
+    }
+    return { grid, tuplet, events };
+  }
   pushRests(events, 0, first ?? grid, base, beatUnit);
   slots.forEach((slot, i) => {
     const next = slots[i + 1] ?? grid;

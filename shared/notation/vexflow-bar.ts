@@ -24,6 +24,10 @@ import type { Layer } from './staff-placement';
 
 /** Where rests of each layer sit: hands' rests high, feet's rests low, out of each other's way. */
 const REST_KEY: Readonly<Record<Layer, string>> = { hands: 'e/5', feet: 'e/4' };
+/** Room an accent takes beyond a stem's tip, in pixels. */
+const ACCENT_ROOM = 8;
+/** A whole rest hangs from the line above its key: the hands' from the top line, the feet's low. */
+const BAR_REST_KEY: Readonly<Record<Layer, string>> = { hands: 'd/5', feet: 'f/4' };
 
 export interface EngravedNote {
   readonly note: StaveNote;
@@ -36,6 +40,9 @@ export interface EngravedTuplet {
   readonly tuplet: Tuplet;
   readonly layer: Layer;
   readonly numNotes: number;
+  /** Printed (see `NotationTuplet.shown`); a hidden tuplet still times its notes. */
+  readonly shown: boolean;
+  readonly simile: boolean;
 }
 
 export interface EngravedBar {
@@ -81,11 +88,15 @@ function addBeamsAndTuplets(
 ): void {
   for (const { notes, breaks } of layerBar.beams) {
     const beam = new Beam(notes.map((i) => staveNotes[i]!));
+    // Level beams, as drum-set parts beam the cymbal line (common practice): every stem of the
+    // group reaches the outermost one, so an accent at a stem's tip sits clear of the beam.
+    beam.renderOptions.flatBeams = true;
     // VexFlow breaks the sixteenth (and shorter) beams after each listed note.
     if (breaks.length > 0) beam.breakSecondaryAt([...breaks]);
     beams.push({ beam, layer: layerBar.layer });
   }
-  for (const { ratio, events } of layerBar.tuplets) {
+  for (const { ratio, events, shown, simile } of layerBar.tuplets) {
+    const accented = events.some((i) => layerBar.events[i]?.accent);
     const tuplet = new Tuplet(
       events.map((i) => staveNotes[i]!),
       {
@@ -94,20 +105,27 @@ function addBeamsAndTuplets(
         ratioed: false,
         bracketed: true,
         location: layerBar.layer === 'hands' ? Tuplet.LOCATION_TOP : Tuplet.LOCATION_BOTTOM,
+        // Outside the accents (VexFlow sets the bracket just past the stems, where an accent
+        // at a stem's tip already is).
+        yOffset: accented ? (layerBar.layer === 'hands' ? -ACCENT_ROOM : ACCENT_ROOM) : 0,
       },
     );
-    tuplets.push({ tuplet, layer: layerBar.layer, numNotes: ratio.numNotes });
+    tuplets.push({ tuplet, layer: layerBar.layer, numNotes: ratio.numNotes, shown, simile });
   }
 }
 
 function staveNoteOf(event: NotationEvent, layer: Layer): StaveNote {
   const rest = event.kind === 'rest';
   const note = new StaveNote({
-    keys: rest ? [REST_KEY[layer]] : event.heads.map((head) => head.key),
+    keys: rest
+      ? [event.barRest ? BAR_REST_KEY[layer] : REST_KEY[layer]]
+      : event.heads.map((head) => head.key),
     duration: `${event.duration.value}${rest ? 'r' : ''}`,
     dots: event.duration.dots,
     clef: 'percussion',
     stemDirection: layer === 'hands' ? Stem.UP : Stem.DOWN,
+    // A whole-bar rest stands in the middle of its bar (common practice).
+    alignCenter: event.barRest === true,
   });
   if (event.duration.dots) Dot.buildAndAttach([note], { all: true });
   if (rest) return note;

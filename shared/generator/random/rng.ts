@@ -9,8 +9,6 @@ export interface Rng {
   next(): number;
   /** An integer in [0, n). */
   int(n: number): number;
-  /** True with probability `p`. */
-  chance(p: number): boolean;
   /** An index chosen with probability proportional to its (non-negative) weight; -1 if all 0. */
   weighted(weights: ArrayLike<number>): number;
   /** A new array with the items in a seeded order (Fisher–Yates). */
@@ -25,7 +23,6 @@ export function createRng(seed: string): Rng {
   return {
     next,
     int,
-    chance: (p) => next() < p,
     weighted(weights) {
       // Hot in the fill search: plain indexed loops, summed and spent in index order (the
       // float results, hence the draws, depend on that order).

@@ -2,7 +2,7 @@ import { isHandVoice, type VoiceId } from '../drill';
 import type { Grid } from '../grid';
 import type { WorkHit } from '../hands';
 import type { RuleCard } from '../schema';
-import { overlapBudget } from './linear';
+import { countOverlaps, overlapBudget } from './linear';
 import { phraseOf } from './phrase';
 import type { Placement } from './placement';
 
@@ -40,9 +40,11 @@ export function placeAnchors(
   const out: Placement[] = [];
   for (let bar = 0; bar < grid.bars; bar++) {
     const downbeat = bar * grid.slotsPerBar;
-    let overlaps = 0;
-    for (let i = 0; i < grid.slotsPerBar; i++)
-      if ((cells[downbeat + i]?.length ?? 0) >= 2) overlaps++;
+    let overlaps = countOverlaps(
+      downbeat,
+      downbeat + grid.slotsPerBar,
+      (i) => cells[i]?.length ?? 0,
+    );
     const cell = cells[downbeat] ?? [];
     let count = cell.length;
     let hands = cell.filter((hit) => isHandVoice(hit.voice)).length;

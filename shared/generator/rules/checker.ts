@@ -1,4 +1,11 @@
-import { HIT_SOURCES, type Drill, type DrillBar, type DrillHit, type VoiceId } from '../drill';
+import {
+  compareHits,
+  HIT_SOURCES,
+  type Drill,
+  type DrillBar,
+  type DrillHit,
+  type VoiceId,
+} from '../drill';
 import { beatsOf, createGrid, instantOf, type Grid } from '../grid';
 import { checkHands } from './check-hands';
 import { where, type Located } from './located';
@@ -6,13 +13,13 @@ import { measureTension } from '../tension';
 import { createTensionGauge } from '../tension-gauge';
 import { collectObligations, type Obligations } from '../obligations';
 import type { RuleCard } from '../schema';
-import { tensionUnits } from '../select';
+import { fromUnits, tensionUnits } from '../tension/scale';
 import { ENGINE_VERSION } from '../version';
 import { drillDifficulty } from '../difficulty';
 import { voiceWord } from '../words';
 import { describePart } from './describe';
 import { embellishmentVoices, fillHolesOwners, fillVoices, shareCounts } from './fill-holes';
-import { overlapBudget } from './linear';
+import { countOverlaps, overlapBudget } from './linear';
 import { ostinatoPlaysAt } from './ostinato';
 import { rankOrderBreaks, tensionTargets } from './tension';
 
@@ -141,10 +148,6 @@ function checkShape(
     }
   });
   return cells;
-}
-
-function compareHits(a: DrillHit, b: DrillHit): number {
-  return a.beat - b.beat || a.slot - b.slot || (a.voice < b.voice ? -1 : a.voice > b.voice ? 1 : 0);
 }
 
 function checkObligations(
@@ -287,9 +290,8 @@ function checkLinear(
   const budget = overlapBudget(card);
   if (!Number.isFinite(budget)) return;
   for (let bar = 0; bar < grid.bars; bar++) {
-    let overlaps = 0;
-    for (let i = 0; i < grid.slotsPerBar; i++)
-      if ((cells[bar * grid.slotsPerBar + i] ?? []).length >= 2) overlaps++;
+    const from = bar * grid.slotsPerBar;
+    const overlaps = countOverlaps(from, from + grid.slotsPerBar, (i) => cells[i]?.length ?? 0);
     if (overlaps > budget)
       out.push({
         code: 'linear',
@@ -306,7 +308,7 @@ function checkTension(
   out: Violation[],
 ): void {
   for (const bar of drill.bars) {
-    const measured = tensionUnits(measure(bar)) / 10000;
+    const measured = fromUnits(tensionUnits(measure(bar)));
     if (measured !== bar.tension) {
       out.push({
         code: 'tension',

@@ -15,7 +15,9 @@ describe('linear', () => {
       ),
     ).toBe(1);
     expect(overlapBudget(parseRuleCard({}))).toBe(Number.POSITIVE_INFINITY);
-    expect(countOverlaps([1, 2, 0, 3, 1])).toBe(2);
+    const sizes = [1, 2, 0, 3, 1];
+    expect(countOverlaps(0, sizes.length, (i) => sizes[i] ?? 0)).toBe(2);
+    expect(countOverlaps(2, 4, (i) => sizes[i] ?? 0)).toBe(1);
   });
 
   it('keeps every bar within its overlap budget, the ostinato counted', () => {
@@ -31,7 +33,8 @@ describe('linear', () => {
         const perInstant = new Map<string, number>();
         for (const h of bar.hits)
           perInstant.set(`${h.beat}.${h.slot}`, (perInstant.get(`${h.beat}.${h.slot}`) ?? 0) + 1);
-        expect(countOverlaps([...perInstant.values()])).toBeLessThanOrEqual(1);
+        // Counted here, not with the engine's own helper.
+        expect([...perInstant.values()].filter((n) => n >= 2).length).toBeLessThanOrEqual(1);
       }
     }
   });

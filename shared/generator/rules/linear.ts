@@ -11,9 +11,16 @@ export function overlapBudget(card: RuleCard): number {
   return budget;
 }
 
-/** Counts the overlaps (instants with two or more hits) given hits-per-instant of one bar. */
-export function countOverlaps(hitsPerInstant: readonly number[]): number {
+/**
+ * The overlaps (instants where two or more hits sound) among instants `from` to `to` (not
+ * included), given how many hits sound at an instant.
+ */
+export function countOverlaps(
+  from: number,
+  to: number,
+  hitsAt: (instant: number) => number,
+): number {
   let overlaps = 0;
-  for (const count of hitsPerInstant) if (count >= 2) overlaps++;
+  for (let i = from; i < to; i++) if (hitsAt(i) >= 2) overlaps++;
   return overlaps;
 }

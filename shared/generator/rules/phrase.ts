@@ -1,8 +1,8 @@
 import type { VoiceId } from '../drill';
-import { handRested } from '../hands';
+import { Gap, gapOf, HAND_LIMITS, paceOf, thresholdsOf } from '../sticking/limits';
 import { slotsIn, type Grid } from '../grid';
 import type { PhraseRule, RuleCard } from '../schema';
-import { overlapBudget } from './linear';
+import { countOverlaps, overlapBudget } from './linear';
 import type { Placement } from './placement';
 
 /** The card's phrase rule and its index, if it has one. */
@@ -40,10 +40,11 @@ export function fillWindow(card: RuleCard, grid: Grid): boolean[] {
  * alternating hands can play them at the tempo, else every second, third… (whole divisors).
  */
 function fillStep(grid: Grid, tempo: number, slots: number): number {
+  const hand = thresholdsOf(paceOf(grid, tempo), HAND_LIMITS);
   for (let step = 1; step <= slots; step++) {
     if (slots % step !== 0) continue;
-    // Alternating hands: each hand plays every second note of the run.
-    if (handRested(grid, tempo, (2 * step * grid.ticksPerBeat) / slots)) return step;
+    // Alternating hands: each hand plays every second note of the run, as single strokes.
+    if (gapOf(hand, (2 * step * grid.ticksPerBeat) / slots) === Gap.Single) return step;
   }
   return slots;
 }
@@ -74,9 +75,7 @@ export function placePhrase(
         run.push(bar * grid.slotsPerBar + (grid.beatStart[b] ?? 0) + s);
     }
     // Where a foot keeps time the fill joins it only while the linear budget lasts.
-    let overlaps = 0;
-    for (let i = bar * grid.slotsPerBar; i < (bar + 1) * grid.slotsPerBar; i++)
-      if (voicesAt(i) >= 2) overlaps++;
+    let overlaps = countOverlaps(bar * grid.slotsPerBar, (bar + 1) * grid.slotsPerBar, voicesAt);
     const budget = overlapBudget(card);
     const playable = run.filter((instant) => {
       if (taken(instant)) return false;

@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest';
 import type { DrillBar, DrillHit } from '../drill';
 import { defaultGrouping } from '../meter';
 import { lhlOnGrid, lhlSyncopation } from './lhl';
-import { maxLhlSyncopation } from './lhl-max';
+import { maxLhlSyncopation } from './lhl-range';
 import { metricalGrid } from './metrical-grid';
 import { measureTension, tensionMeter } from './tension';
 

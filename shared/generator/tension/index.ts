@@ -5,8 +5,7 @@
  */
 export { measureTension, tensionMeter, type TensionMeter } from './tension';
 export { lhlSyncopation, lhlOnGrid } from './lhl';
-export { maxLhlSyncopation, maxLhlOnGrid } from './lhl-max';
-export { lhlRangeOnGrid, type LhlRange } from './lhl-range';
+export { lhlRangeOnGrid, maxLhlOnGrid, maxLhlSyncopation, type LhlRange } from './lhl-range';
 export { weightedNoteToBeatDistance } from './wnbd';
 export { barOnsets } from './onsets';
 export {

@@ -1,5 +1,5 @@
 import { pushNote, restGain } from './lhl';
-import type { MetricalGrid } from './metrical-grid';
+import { type BarGrid, type MetricalGrid, metricalGrid } from './metrical-grid';
 
 /** The least and the greatest Longuet-Higgins & Lee syncopation a set of onset patterns reaches. */
 export interface LhlRange {
@@ -13,8 +13,8 @@ export interface LhlRange {
  * `undefined` = no pulse forced / every pulse allowed). The generator uses it to prove, without
  * searching, that a tension curve is out of reach of the slots a fill may use.
  *
- * Dynamic programming over the terminal nodes of the parse in time order, as `maxLhlOnGrid`
- * explains: the state is the pairable notes (a level mask) and the earliest pending deadline by
+ * Dynamic programming over the terminal nodes of the parse in time order (why it is exact: see
+ * `maxLhlSyncopation`): the state is the pairable notes (a level mask) and the earliest pending deadline by
  * which some onset must sound; min and max ride along the same transitions. The constraints only
  * prune transitions: a rest may not cover a forced pulse, a note must start on an allowed pulse
  * and may not hold over a forced one. Every pattern has exactly one parse, so the walks that
@@ -95,4 +95,40 @@ export function lhlRangeOnGrid(
   }
   // Unreachable for forced ⊆ allowed (the forced pulses alone are a pattern); kept total anyway.
   return Number.isFinite(most) ? { least, most } : { least: 0, most: 0 };
+}
+
+/**
+ * The greatest Longuet-Higgins & Lee syncopation any onset pattern reaches on a bar's grid, found
+ * exactly by the dynamic programme of `lhlRangeOnGrid` (no search over patterns).
+ *
+ * Why this is exact. Each terminal node is the shallowest tree node at its start pulse that is
+ * silent or note-shaped, so a parse is a walk over start pulses choosing, at each, one node of the
+ * chain of nodes starting there and its kind (N or R). Such a walk is a real parse exactly when
+ * every chosen node that is not the top of its chain has a parent (the next node up the chain)
+ * that is neither silent nor note-shaped, i.e. some onset falls after the chosen node and before
+ * the parent's end; nodes starting earlier that contain the pulse are already held open by the
+ * same condition at their own start. Those pending conditions are all met by the next onset, so
+ * only the earliest deadline matters. The state is therefore (pairable notes as a level mask,
+ * earliest deadline) and the value is the best sum so far; the answer is the best state at the
+ * bar's end with no deadline open.
+ *
+ * The walk reads only the flattened tree (each pulse's chain of nodes, its level, the ends of its
+ * ancestors), so it is exact on every tree `metricalGrid` builds, the grouped ones (bar → groups →
+ * beats → slots) included, because two things hold there: every child lies one level below its
+ * parent (so a pulse's chain runs through consecutive depths and chain index c is depth k + c),
+ * and no node has a single child of its own span (a group of one beat is that beat, not a group
+ * node over it), so the parent of a chosen node always ends later than the node. The spec checks
+ * the maximum against every onset pattern on plain, tuplet, mixed and grouped grids.
+ *
+ * Cost: O(pulses × depth × states) with 2^(depth+1) note masks and depth + 2 deadline codes:
+ * the depth of a bar is at most 7 levels, so this is linear in pulses (about 2k steps for 16
+ * sixteenths).
+ */
+export function maxLhlSyncopation(beats: BarGrid, grouping?: readonly number[] | null): number {
+  return maxLhlOnGrid(metricalGrid(beats, grouping));
+}
+
+/** `maxLhlSyncopation` on a grid already built. */
+export function maxLhlOnGrid(grid: MetricalGrid): number {
+  return lhlRangeOnGrid(grid).most;
 }

@@ -2,7 +2,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { type DrillBar, type DrillHit, HIT_SOURCES, VOICE_IDS } from '../drill';
 import { lhlSyncopation } from './lhl';
-import { maxLhlSyncopation } from './lhl-max';
+import { maxLhlSyncopation } from './lhl-range';
 import { measureTension, tensionMeter } from './tension';
 
 const GRIDS = [

@@ -1,6 +1,6 @@
 import type { DrillBar } from '../drill';
 import { lhlOnGrid } from './lhl';
-import { maxLhlOnGrid } from './lhl-max';
+import { maxLhlOnGrid } from './lhl-range';
 import { type BarGrid, metricalGrid } from './metrical-grid';
 import { barOnsets } from './onsets';
 import { measureWitek } from './witek-meter';

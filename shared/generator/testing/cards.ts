@@ -1,5 +1,6 @@
 import fc from 'fast-check';
 import { VOICE_IDS, type VoiceId } from '../drill';
+import { gcd } from '../grid';
 
 /**
  * Random valid rule cards for the engine's property tests: varied meters, tuplet and mixed
@@ -8,7 +9,6 @@ import { VOICE_IDS, type VoiceId } from '../drill';
 
 const divisors = (n: number): number[] =>
   Array.from({ length: n }, (_, i) => i + 1).filter((d) => n % d === 0);
-const gcd = (a: number, b: number): number => (b === 0 ? a : gcd(b, a % b));
 
 /** Counts of even points over `span` beats that land on slots of every beat (`common` = gcd of subdivisions). */
 function landingCounts(span: number, common: number): number[] {

@@ -4,6 +4,7 @@ import {
   computed,
   effect,
   inject,
+  Injector,
   input,
   linkedSignal,
   signal,
@@ -23,11 +24,16 @@ import type { Drill } from '../../../shared/generator/index';
 import { generateFromCard } from './drill-result';
 import { DrillsApi, type PresetDetail } from './drills-api';
 import { PlaybackPanel } from './playback/playback-panel';
+import { isTypingTarget } from './playback/playback-keys';
 import { RecentDrills } from './recent-drills';
 import { DrillScore } from './score/drill-score';
 import type { ScorePosition } from './score/score-layout';
 import { MAX_SEED_LENGTH, seedErrorState, seedProblem } from './seed-problem';
 import { freshSeed } from './seed-words';
+import { asksForShortcuts } from './shortcuts/shortcut-list';
+import { tensionScaleText } from './tension-words';
+
+const SHORTCUTS_DIALOG = 'tensile-drill-shortcuts';
 
 /**
  * `/drills/:cardId?seed=SEED`: one preset card's drill, generated in the browser, in notation with
@@ -48,6 +54,7 @@ import { freshSeed } from './seed-words';
   templateUrl: './drill-page.html',
   styleUrl: './drill-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
+  host: { '(document:keydown)': 'openShortcutsByKey($event)' },
 })
 export class DrillPage {
   /** Route parameter. */
@@ -59,6 +66,8 @@ export class DrillPage {
   private readonly router = inject(Router);
   private readonly session = inject(AuthSession);
   private readonly recentDrills = inject(RecentDrills);
+  private readonly injector = inject(Injector);
+  private shortcutsOpening = false;
 
   protected readonly preset = toSignal(
     toObservable(this.cardId).pipe(switchMap((id) => toLoadState(this.api.preset(id)))),
@@ -85,7 +94,15 @@ export class DrillPage {
     const result = this.result();
     return result?.status === 'ready' ? result.drill : null;
   });
-  protected readonly cursor = signal<ScorePosition | null>(null);
+  /** The beat picked on the score (click, tap or arrow keys): Play starts there. */
+  protected readonly picked = signal<ScorePosition | null>(null);
+  /** The beat being heard while playing. */
+  protected readonly heard = signal<ScorePosition | null>(null);
+  /** The score's highlight: what is heard while playing, else the picked beat. */
+  protected readonly cursor = computed(() => this.heard() ?? this.picked());
+  /** The tempo heard now, or that Play would start at, as the playback panel reports it. */
+  protected readonly tempoInUse = signal<number | null>(null);
+  protected readonly tensionScale = tensionScaleText();
   protected readonly showSticking = signal(true);
   protected readonly showCounts = signal(true);
 
@@ -121,8 +138,31 @@ export class DrillPage {
     this.useSeed(freshSeed());
   }
 
+  /** The dialog code loads on first use: the score's path does not need it. */
+  protected async openShortcuts(): Promise<void> {
+    if (this.shortcutsOpening) return;
+    this.shortcutsOpening = true;
+    try {
+      const [{ MatDialog }, { ShortcutHelp }] = await Promise.all([
+        import('@angular/material/dialog'),
+        import('./shortcuts/shortcut-help'),
+      ]);
+      const dialog = this.injector.get(MatDialog);
+      if (dialog.getDialogById(SHORTCUTS_DIALOG)) return;
+      dialog.open(ShortcutHelp, { id: SHORTCUTS_DIALOG, autoFocus: 'dialog', maxWidth: '36rem' });
+    } finally {
+      this.shortcutsOpening = false;
+    }
+  }
+
+  protected openShortcutsByKey(event: KeyboardEvent): void {
+    if (!asksForShortcuts(event) || isTypingTarget(event.target)) return;
+    event.preventDefault();
+    void this.openShortcuts();
+  }
+
   private useSeed(seed: string, replaceUrl = false): void {
-    this.cursor.set(null);
+    this.picked.set(null);
     void this.router.navigate([], {
       queryParams: { seed },
       queryParamsHandling: 'merge',

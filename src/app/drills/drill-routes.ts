@@ -14,6 +14,12 @@ export const DRILL_ROUTES: Routes = [
   {
     path: ':cardId',
     title: 'Drill',
-    loadComponent: () => import('./drill-page').then((m) => m.DrillPage),
+    loadComponent: () => {
+      // The engraver is the page's largest piece and is needed as soon as the drill exists:
+      // fetch it alongside the page instead of after the drill is generated (a failure here is
+      // reported by the score, which imports it again).
+      void import('../../../shared/notation/render-vexflow').catch(() => undefined);
+      return import('./drill-page').then((m) => m.DrillPage);
+    },
   },
 ];

@@ -1,10 +1,11 @@
 import { DestroyRef, Injectable, inject, signal } from '@angular/core';
 import type * as ToneModule from 'tone';
 import type { CursorPosition, PlayableDrill, TrainerStep } from '../../../../shared/playback/index';
-import { DrumKit } from './drum-kit';
-import { PlaybackScheduler, type LiveMix, type RunSettings } from './playback-scheduler';
+import type { DrumKit } from './drum-kit';
+import type { LiveMix, PlaybackScheduler, RunSettings } from './playback-scheduler';
 
 type Tone = typeof ToneModule;
+type AudioRuntime = typeof import('./audio-runtime');
 
 export type PlaybackStatus = 'idle' | 'loading' | 'playing' | 'blocked' | 'error';
 
@@ -36,7 +37,7 @@ export class PlaybackEngine {
   readonly tempo = signal<number | null>(null);
 
   private tone: Tone | null = null;
-  private loading: Promise<Tone> | null = null;
+  private loading: Promise<AudioRuntime> | null = null;
   private kit: DrumKit | null = null;
   private bus: ToneModule.Gain | null = null;
   private master: ToneModule.Gain | null = null;
@@ -50,9 +51,12 @@ export class PlaybackEngine {
     inject(DestroyRef).onDestroy(() => this.dispose());
   }
 
-  /** Fetches the audio library ahead of the first Play, without starting audio. */
-  preload(): Promise<Tone> {
-    this.loading ??= import('tone').then((tone) => (this.tone = tone));
+  /** Fetches the audio code (Tone.js, kit, scheduler) ahead of the first Play, silently. */
+  preload(): Promise<AudioRuntime> {
+    this.loading ??= import('./audio-runtime').then((runtime) => {
+      this.tone = runtime.Tone;
+      return runtime;
+    });
     return this.loading;
   }
 
@@ -63,23 +67,23 @@ export class PlaybackEngine {
   async play(drill: PlayableDrill, settings: RunSettings): Promise<void> {
     this.stopScheduling();
     if (this.status() !== 'playing') this.status.set('loading');
-    let tone: Tone;
+    let runtime: AudioRuntime;
     try {
-      tone = await this.preload();
-      await Promise.race([tone.start(), delay(RESUME_TIMEOUT_MS)]);
+      runtime = await this.preload();
+      await Promise.race([runtime.Tone.start(), delay(RESUME_TIMEOUT_MS)]);
     } catch {
       this.status.set('error');
       return;
     }
-    const context = tone.getContext();
+    const context = runtime.Tone.getContext();
     if (context.state !== 'running') {
       this.status.set('blocked');
       return;
     }
-    const kit = this.ensureKit(tone);
+    const kit = this.ensureKit(runtime);
     const start = context.currentTime + START_DELAY_SECONDS;
     this.openBus(start);
-    this.scheduler = new PlaybackScheduler(
+    this.scheduler = new runtime.PlaybackScheduler(
       drill,
       settings,
       start,
@@ -154,14 +158,15 @@ export class PlaybackEngine {
     this.frame = requestAnimationFrame(step);
   }
 
-  private ensureKit(tone: Tone): DrumKit {
+  private ensureKit(runtime: AudioRuntime): DrumKit {
     if (this.kit !== null) return this.kit;
+    const tone = runtime.Tone;
     const master = new tone.Gain(this.volume ** 2);
     // A limiter keeps loud unisons (kick + crash + accents) from clipping.
     master.chain(new tone.Limiter(-1), tone.getDestination());
     this.master = master;
     this.bus = new tone.Gain(0).connect(master);
-    this.kit = new DrumKit(tone, this.bus);
+    this.kit = new runtime.DrumKit(tone, this.bus);
     return this.kit;
   }
 

@@ -12,6 +12,7 @@ import {
   type WritableSignal,
 } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
+import type { ErrorStateMatcher } from '@angular/material/core';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -19,6 +20,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import { MatSliderModule } from '@angular/material/slider';
 import { MatTooltipModule } from '@angular/material/tooltip';
+import { FormsModule } from '@angular/forms';
 import { VOICE_IDS, type VoiceId } from '../../../../shared/generator/drill';
 import type { Drill } from '../../../../shared/generator/index';
 import {
@@ -29,8 +31,20 @@ import {
   type TempoTrainer,
 } from '../../../../shared/playback/index';
 import { PlaybackEngine } from './playback-engine';
+import {
+  allClear,
+  errorWhen,
+  loopBarProblems,
+  rangeText,
+  TRAINER_EVERY_RANGE,
+  TRAINER_STEP_RANGE,
+  trainerProblems,
+  wholeNumberProblem,
+  type TrainerDirection,
+} from './playback-fields';
 import { playbackKeyAction } from './playback-keys';
-import type { RunSettings } from './playback-scheduler';
+import type { RunSettings, StartBeat } from './playback-scheduler';
+import { loopShape } from '../../../../shared/playback/index';
 
 export type LoopMode = 'once' | 'drill' | 'bars';
 
@@ -58,13 +72,18 @@ const SLIDER_ARROWS: Readonly<Record<string, 1 | -1>> = {
   ArrowLeft: -1,
 };
 
+type TrainerKey = 'start' | 'step' | 'every' | 'target';
+
 /** One whole-number setting of the tempo trainer, as its number field offers it. */
 interface TrainerField {
+  readonly key: TrainerKey;
   readonly label: string;
-  readonly value: WritableSignal<number>;
-  readonly min: number;
-  readonly max: number;
+  /** The value typed (null when empty or not a number). */
+  readonly draft: WritableSignal<number | null>;
+  readonly hint: string;
 }
+
+const TEMPO_RANGE = { min: MIN_TEMPO, max: MAX_TEMPO };
 
 /** Above this master volume the hearing caution is shown prominently. */
 export const LOUD_VOLUME = 80;
@@ -76,6 +95,7 @@ export const LOUD_VOLUME = 80;
 @Component({
   selector: 'tensile-playback-panel',
   imports: [
+    FormsModule,
     MatButtonModule,
     MatButtonToggleModule,
     MatCheckboxModule,
@@ -99,6 +119,10 @@ export class PlaybackPanel {
   readonly drill = input.required<Drill>();
   /** The bar and beat being heard, or `null` when stopped or counting in. */
   readonly position = output<{ bar: number; beat: number } | null>();
+  /** A beat picked on the score: Play starts there (the first pass; later ones loop whole). */
+  readonly startFrom = input<StartBeat | null>(null);
+  /** The tempo heard now, or that Play would start at (the trainer's start when it is on). */
+  readonly tempoInUse = output<number>();
 
   protected readonly engine = inject(PlaybackEngine);
   protected readonly minTempo = MIN_TEMPO;
@@ -106,6 +130,13 @@ export class PlaybackPanel {
   protected readonly labels = VOICE_LABELS;
 
   protected readonly tempo = linkedSignal(() => this.drill().card.tempo);
+  protected readonly tempoRange = rangeText(TEMPO_RANGE);
+  /** What the tempo field holds; it becomes the tempo only when it is valid. */
+  protected readonly tempoDraft = linkedSignal<number | null>(() => this.tempo());
+  protected readonly tempoProblem = computed(() =>
+    wholeNumberProblem(this.tempoDraft(), TEMPO_RANGE, 'Tempo', ' BPM'),
+  );
+  protected readonly tempoErrors = errorWhen(this.tempoProblem);
   protected readonly loopMode = signal<LoopMode>('drill');
   protected readonly barCount = computed(() => this.drill().bars.length);
   protected readonly rangeFrom = linkedSignal({ source: this.barCount, computation: () => 1 });
@@ -113,6 +144,13 @@ export class PlaybackPanel {
     source: this.barCount,
     computation: (count) => count,
   });
+  protected readonly fromDraft = linkedSignal<number | null>(() => this.rangeFrom());
+  protected readonly toDraft = linkedSignal<number | null>(() => this.rangeTo());
+  protected readonly barProblems = computed(() =>
+    loopBarProblems(this.fromDraft(), this.toDraft(), this.barCount()),
+  );
+  protected readonly fromErrors = errorWhen(() => this.barProblems().from);
+  protected readonly toErrors = errorWhen(() => this.barProblems().to);
   protected readonly countIn = signal(true);
   protected readonly metronome = signal(true);
   protected readonly accentFirstBeat = signal(true);
@@ -127,13 +165,67 @@ export class PlaybackPanel {
   protected readonly trainerStep = signal(4);
   protected readonly trainerEvery = signal(2);
   protected readonly trainerTarget = linkedSignal(() => this.drill().card.tempo);
-  /** The trainer's settings in the order a teacher sets them, each kept to its whole range. */
+  /** Speed up to the target, or (on purpose) come down to it from a faster tempo. */
+  protected readonly trainerDirection = linkedSignal<TrainerDirection>(() =>
+    this.trainerStart() > this.trainerTarget() ? 'down' : 'up',
+  );
+  protected readonly directionDraft = linkedSignal(() => this.trainerDirection());
+  /** The trainer's settings in the order a teacher sets them; applied only when all are valid. */
   protected readonly trainerFields: readonly TrainerField[] = [
-    { label: 'Start BPM', value: this.trainerStart, min: MIN_TEMPO, max: MAX_TEMPO },
-    { label: 'Step BPM', value: this.trainerStep, min: 1, max: 100 },
-    { label: 'Every (loops)', value: this.trainerEvery, min: 1, max: 64 },
-    { label: 'Target BPM', value: this.trainerTarget, min: MIN_TEMPO, max: MAX_TEMPO },
+    {
+      key: 'start',
+      label: 'Start BPM',
+      draft: linkedSignal<number | null>(() => this.trainerStart()),
+      hint: rangeText(TEMPO_RANGE),
+    },
+    {
+      key: 'step',
+      label: 'Step BPM',
+      draft: linkedSignal<number | null>(() => this.trainerStep()),
+      hint: rangeText(TRAINER_STEP_RANGE),
+    },
+    {
+      key: 'every',
+      label: 'Every (loops)',
+      draft: linkedSignal<number | null>(() => this.trainerEvery()),
+      hint: rangeText(TRAINER_EVERY_RANGE),
+    },
+    {
+      key: 'target',
+      label: 'Target BPM',
+      draft: linkedSignal<number | null>(() => this.trainerTarget()),
+      hint: rangeText(TEMPO_RANGE),
+    },
   ];
+  protected readonly trainerProblems = computed(() =>
+    trainerProblems(
+      {
+        start: this.trainerDraft('start'),
+        step: this.trainerDraft('step'),
+        every: this.trainerDraft('every'),
+        target: this.trainerDraft('target'),
+        direction: this.directionDraft(),
+      },
+      TEMPO_RANGE,
+    ),
+  );
+  protected readonly trainerOk = computed(() => allClear(this.trainerProblems()));
+  protected readonly trainerErrors: Readonly<Record<TrainerKey, ErrorStateMatcher>> = {
+    start: errorWhen(() => this.trainerProblems().start),
+    step: errorWhen(() => this.trainerProblems().step),
+    every: errorWhen(() => this.trainerProblems().every),
+    target: errorWhen(() => this.trainerProblems().target),
+  };
+  /** Where Play starts, in words, when a beat is picked on the score. */
+  protected readonly startText = computed(() => {
+    const at = this.startFrom();
+    if (at === null) return null;
+    const shape = loopShape(this.drill(), this.runShape().range, false);
+    if (shape.bars.some((bar) => bar.bar === at.bar)) {
+      return `Play starts at bar ${at.bar}, beat ${at.beat} (picked on the score).`;
+    }
+    return `Bar ${at.bar}, beat ${at.beat} is outside the looped bars: Play starts at bar ${shape.bars[0]?.bar ?? 1}.`;
+  });
 
   protected readonly voices = computed<readonly VoiceId[]>(() => {
     const used = new Set<VoiceId>(this.drill().card.voices);
@@ -153,7 +245,13 @@ export class PlaybackPanel {
   );
   protected readonly trainerPlan = computed(() => {
     const trainer = this.trainer();
-    return trainer === null ? null : { steps: trainerSteps(trainer), ...trainer };
+    return trainer === null
+      ? null
+      : {
+          steps: trainerSteps(trainer),
+          down: trainer.startTempo > trainer.targetTempo,
+          ...trainer,
+        };
   });
   protected readonly playing = computed(() => this.engine.status() === 'playing');
 
@@ -199,6 +297,10 @@ export class PlaybackPanel {
       if (untracked(this.playing)) void this.engine.play(drill, this.settings(shape));
     });
     effect(() => {
+      const playing = this.playing() ? this.engine.tempo() : null;
+      this.tempoInUse.emit(playing ?? this.trainer()?.startTempo ?? this.tempo());
+    });
+    effect(() => {
       const position = this.engine.position();
       this.position.emit(
         position?.phase === 'drill' ? { bar: position.bar, beat: position.beat } : null,
@@ -216,11 +318,19 @@ export class PlaybackPanel {
       this.engine.stop();
       return;
     }
-    void this.engine.play(this.drill(), this.settings(this.runShape()));
+    const startAt = this.startFrom();
+    void this.engine.play(this.drill(), { ...this.settings(this.runShape()), startAt });
   }
 
+  /** Tempo from the slider or a key: always inside the range. */
   protected setTempo(value: number): void {
     if (Number.isFinite(value)) this.tempo.set(clampTempo(value));
+  }
+
+  /** A typed tempo is used once it is committed (Enter, leaving the field, the spin arrows). */
+  protected commitTempo(): void {
+    const value = this.tempoDraft();
+    if (this.tempoProblem() === null && value !== null) this.tempo.set(value);
   }
 
   protected nudgeTempo(event: KeyboardEvent): void {
@@ -243,16 +353,36 @@ export class PlaybackPanel {
     this.setTempo(this.tempo() + direction * (event.shiftKey ? 5 : 1));
   }
 
-  protected setBar(which: 'from' | 'to', value: number): void {
-    if (!Number.isFinite(value)) return;
-    const bar = Math.min(this.barCount(), Math.max(1, Math.round(value)));
-    (which === 'from' ? this.rangeFrom : this.rangeTo).set(bar);
+  /** The typed loop bars are used together, once both are valid and in order. */
+  protected commitBars(): void {
+    const from = this.fromDraft();
+    const to = this.toDraft();
+    if (!allClear(this.barProblems()) || from === null || to === null) return;
+    this.rangeFrom.set(from);
+    this.rangeTo.set(to);
   }
 
-  protected setWhole(field: TrainerField, value: number): void {
-    if (Number.isFinite(value)) {
-      field.value.set(Math.min(field.max, Math.max(field.min, Math.round(value))));
+  protected trainerDraft(key: TrainerKey): number | null {
+    return this.trainerFields.find((field) => field.key === key)?.draft() ?? null;
+  }
+
+  /** The trainer's typed settings are used together, once all of them are valid. */
+  protected commitTrainer(): void {
+    const [start, step, every, target] = (['start', 'step', 'every', 'target'] as const).map(
+      (key) => this.trainerDraft(key),
+    );
+    if (!this.trainerOk() || start == null || step == null || every == null || target == null) {
+      return;
     }
+    this.trainerStart.set(start);
+    this.trainerStep.set(step);
+    this.trainerEvery.set(every);
+    this.trainerTarget.set(target);
+  }
+
+  protected chooseDirection(direction: TrainerDirection): void {
+    this.directionDraft.set(direction);
+    this.commitTrainer();
   }
 
   protected toggleVoice(kind: 'mute' | 'solo', voice: VoiceId): void {

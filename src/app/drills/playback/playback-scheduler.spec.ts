@@ -95,4 +95,74 @@ describe('PlaybackScheduler', () => {
     expect(log.filter((l) => l.startsWith('kick'))).toHaveLength(2);
     expect(scheduler.positionAt(2.5)).toBeNull();
   });
+
+  it('starts the first pass at a picked beat, after a full count-in, then loops whole', () => {
+    const { sink } = recorder();
+    const startAt = { bar: 2, beat: 2 };
+    const scheduler = new PlaybackScheduler(drill, { ...settings, startAt }, 0, sink, () => mix);
+    const sent = scheduler.pump(4.01);
+    // Count-in: 2 beats at 0.5 s. Bar 2 beat 2 is heard at 1 s; loop 1 (bar 1) starts at 1.5 s.
+    expect(sent.map((d) => `${d.event.bar}.${d.event.beat}.${d.event.slot}@${d.time}`)).toEqual([
+      '0.1.0@0',
+      '0.2.0@0.5',
+      '2.2.0@1',
+      '2.2.2@1.25',
+      '1.1.0@1.5',
+      '1.1.0@1.5',
+      '1.2.0@2',
+      '1.2.2@2.25',
+      '2.1.0@2.5',
+      '2.1.0@2.5',
+      '2.2.0@3',
+      '2.2.2@3.25',
+      '1.1.0@3.5',
+      '1.1.0@3.5',
+      '1.2.0@4',
+    ]);
+    expect(scheduler.positionAt(0.6)).toEqual({ phase: 'countIn', beat: 2 });
+    expect(scheduler.positionAt(1.1)).toEqual({ phase: 'drill', loop: 0, bar: 2, beat: 2 });
+    expect(scheduler.positionAt(1.6)).toEqual({ phase: 'drill', loop: 1, bar: 1, beat: 1 });
+  });
+
+  it('starts at the picked beat without a count-in, and at the top when it lies outside the loop', () => {
+    const { sink } = recorder();
+    const picked = new PlaybackScheduler(
+      drill,
+      { ...settings, countIn: false, startAt: { bar: 1, beat: 2 } },
+      5,
+      sink,
+      () => mix,
+    );
+    const first = picked.pump(5.01)[0];
+    expect(first?.event.bar).toBe(1);
+    expect(first?.event.beat).toBe(2);
+    expect(first?.time).toBe(5);
+    const outside = new PlaybackScheduler(
+      drill,
+      { ...settings, range: { from: 1, to: 1 }, startAt: { bar: 2, beat: 1 } },
+      0,
+      sink,
+      () => mix,
+    );
+    expect(outside.skippedBeats).toBe(0);
+  });
+
+  it('keeps the trainer on its loops when the first pass starts at a picked beat', () => {
+    const { sink } = recorder();
+    const trainer = { startTempo: 60, stepBpm: 60, everyLoops: 1, targetTempo: 120 };
+    const scheduler = new PlaybackScheduler(
+      drill,
+      { ...settings, trainer, startAt: { bar: 2, beat: 1 } },
+      0,
+      sink,
+      () => mix,
+    );
+    const kicks = scheduler
+      .pump(20)
+      .filter((d) => d.event.kind === 'hit' && d.event.voice === 'kick')
+      .map((d) => d.time);
+    // Count-in 2 s, then bar 2 alone at 60 BPM (2 s); loop 1 at 120 BPM from 4 s.
+    expect(kicks.slice(0, 3)).toEqual([2, 4, 5]);
+    expect(scheduler.trainerStepAt(4.5)).toEqual({ step: 2, steps: 2, tempo: 120 });
+  });
 });

@@ -22,6 +22,7 @@ import {
   trainerLoopStartSeconds,
   trainerStepForLoop,
   clickVelocity,
+  compareRational,
   type BarRange,
   type ClickSound,
   type CursorPosition,
@@ -50,6 +51,26 @@ export interface RunSettings {
   readonly playOnce: boolean;
   /** Drives the tempo loop by loop when set (then `tempo` is ignored). */
   readonly trainer: TempoTrainer | null;
+  /**
+   * Where the first pass starts (a beat picked on the score); later passes play the whole loop.
+   * A beat outside the looped bars, or none, starts at the loop's first beat.
+   */
+  readonly startAt?: StartBeat | null;
+}
+
+/** A bar and beat as written, counted from 1. */
+export interface StartBeat {
+  readonly bar: number;
+  readonly beat: number;
+}
+
+/** Beats from the start of a pass to `at`, or 0 when `at` is not among the looped bars. */
+export function startOffset(shape: LoopShape, at: StartBeat | null | undefined): number {
+  if (!at) return 0;
+  const index = shape.bars.findIndex((bar) => bar.bar === at.bar);
+  const bar = shape.bars[index];
+  if (bar === undefined || at.beat < 1 || at.beat > bar.beats.length) return 0;
+  return (shape.barOffsets[index] ?? 0) + at.beat - 1;
 }
 
 /** Settings read at the moment each event is handed over, so changes are heard at once. */
@@ -72,6 +93,8 @@ export class PlaybackScheduler {
   private nextLoop = 0;
   private horizon: number;
   private finished = false;
+  /** Beats of the first pass skipped to start at the picked beat. */
+  readonly skippedBeats: number;
 
   /**
    * @param startTime audio-clock time of the first beat (of the count-in, if any)
@@ -85,7 +108,18 @@ export class PlaybackScheduler {
   ) {
     this.shape = loopShape(drill, settings.range, settings.countIn);
     const tempo = settings.trainer ? trainerStepForLoop(settings.trainer, 0).tempo : settings.tempo;
+    this.skippedBeats = startOffset(this.shape, settings.startAt);
     this.segmentList = [{ originTime: startTime, originBeat: rational(0), tempo }];
+    if (this.skippedBeats > 0) {
+      // After the count-in the music jumps to the picked beat: one more segment, same tempo.
+      const countIn = this.shape.countInBeats;
+      this.segmentList.push({
+        originTime: startTime + (countIn * 60) / tempo,
+        originBeat: rational(countIn + this.skippedBeats),
+        tempo,
+      });
+      if (countIn === 0) this.segmentList.shift();
+    }
     this.pending = countInEvents(this.shape, tempo);
     this.horizon = startTime;
   }
@@ -168,6 +202,10 @@ export class PlaybackScheduler {
     const trainer = this.settings.trainer;
     if (trainer !== null) this.addTrainerSegment(trainer, loop);
     this.pending = loopEvents(this.shape, this.tempo, loop);
+    if (loop === 0 && this.skippedBeats > 0) {
+      const from = rational(this.shape.countInBeats + this.skippedBeats);
+      this.pending = this.pending.filter((event) => compareRational(event.at, from) >= 0);
+    }
     this.nextLoop += 1;
     return this.pending.length > 0;
   }
@@ -182,8 +220,10 @@ export class PlaybackScheduler {
       this.shape.countInBeats,
       loop,
     );
+    // The first pass was shortened by the beats skipped, all at the start tempo.
+    const skipped = (this.skippedBeats * 60) / trainerStepForLoop(trainer, 0).tempo;
     this.segmentList.push({
-      originTime: this.startTime + seconds,
+      originTime: this.startTime + seconds - skipped,
       originBeat: rational(loopStartBeat(this.shape, loop)),
       tempo,
     });

@@ -9,10 +9,13 @@ import {
   effect,
   inject,
   input,
+  linkedSignal,
   output,
   signal,
   viewChild,
+  viewChildren,
 } from '@angular/core';
+import { NgTemplateOutlet } from '@angular/common';
 import type { Drill } from '../../../../shared/generator/index';
 import {
   buildNotation,
@@ -24,14 +27,23 @@ import { TensionPlot } from '../tension-plot/tension-plot';
 import {
   cursorBox,
   fitToWidth,
+  positionAtPoint,
   stepPosition,
+  systemBands,
   type ScoreLayout,
   type ScorePosition,
+  type SystemBand,
 } from './score-layout';
 
 /** Room under each system for the tension plots, in pixels. */
 const PLOT_ROOM = 52;
 const RESIZE_DEBOUNCE_MS = 150;
+/**
+ * The printable width, in CSS pixels, of A4 or US Letter inside 12 mm margins (the narrower, A4:
+ * 186 mm at 96 px to the inch): the score is zoomed to it in print.
+ */
+export const PRINT_WIDTH = 700;
+let scoreIds = 0;
 
 /**
  * The drill in drum-set notation. VexFlow is loaded on first use (dynamic import), so it stays out
@@ -39,7 +51,7 @@ const RESIZE_DEBOUNCE_MS = 150;
  */
 @Component({
   selector: 'tensile-drill-score',
-  imports: [TensionPlot],
+  imports: [NgTemplateOutlet, TensionPlot],
   templateUrl: './drill-score.html',
   styleUrl: './drill-score.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -48,6 +60,8 @@ const RESIZE_DEBOUNCE_MS = 150;
     role: 'group',
     '[attr.aria-label]': 'label()',
     '(keydown)': 'moveCursor($event)',
+    // The keyboard way to pick a beat is the arrow keys above; a click or tap picks it directly.
+    '(click)': 'pickAt($event)',
   },
 })
 export class DrillScore {
@@ -60,17 +74,46 @@ export class DrillScore {
 
   private readonly host = inject<ElementRef<HTMLElement>>(ElementRef);
   private readonly canvas = viewChild.required<ElementRef<HTMLDivElement>>('canvas');
+  private readonly sheet = viewChild.required<ElementRef<HTMLDivElement>>('sheet');
+  private readonly echoes = viewChildren<ElementRef<HTMLDivElement>>('echo');
+  /** The drawing's id, which the later systems' strips point at. */
+  private readonly svgId = `tensile-score-${++scoreIds}`;
   private readonly width = signal(0);
   private renderToken = 0;
 
   protected readonly layout = signal<ScoreLayout | null>(null);
+  /**
+   * Where the arrow keys step from: the cursor, or the beat just picked when keys come faster
+   * than the page updates (key repeat), so no press is lost.
+   */
+  private readonly stepFrom = linkedSignal(() => this.cursor());
   /** The engraving's full width and the factor that fits it into the host (1 when it fits). */
   protected readonly fit = signal({ contentWidth: 0, scale: 1 });
   protected readonly failure = signal<string | null>(null);
   protected readonly model = computed(() => buildNotation(this.drill()));
   protected readonly highlight = computed(() => {
     const layout = this.layout();
-    return layout ? cursorBox(layout, this.cursor()) : null;
+    const at = this.cursor();
+    const box = layout ? cursorBox(layout, at) : null;
+    const system = layout?.bars.find((b) => b.bar === at?.bar)?.system;
+    return box && system !== undefined ? { ...box, system } : null;
+  });
+  /** One strip per system, so print breaks between systems and never through one. */
+  protected readonly bands = computed(() => {
+    const layout = this.layout();
+    return layout ? systemBands(layout) : [];
+  });
+  /** Whether even the smallest readable scale leaves the score wider than its box (phones). */
+  protected readonly overflowing = computed(() => {
+    const { contentWidth, scale } = this.fit();
+    return this.layout() !== null && contentWidth * scale > this.width() + 1;
+  });
+  protected readonly firstBand = computed<SystemBand | null>(() => this.bands()[0] ?? null);
+  protected readonly laterBands = computed(() => this.bands().slice(1));
+  /** The zoom that fits the sheet into the printed page's width (never enlarged). */
+  protected readonly printZoom = computed(() => {
+    const width = this.fit().contentWidth;
+    return width > PRINT_WIDTH ? PRINT_WIDTH / width : 1;
   });
   protected readonly plots = computed(() => {
     const layout = this.layout();
@@ -78,6 +121,7 @@ export class DrillScore {
     const drill = this.drill();
     return layout.bars.map((box) => ({
       bar: box.bar,
+      system: box.system,
       x: box.x,
       y: box.systemBottom,
       width: box.width,
@@ -129,15 +173,67 @@ export class DrillScore {
     afterRenderEffect(() => {
       if (this.cursorSystem() !== null) this.revealCursor();
     });
+    afterRenderEffect(() => this.drawEchoes(this.laterBands(), this.fit().contentWidth));
+  }
+
+  /** A click or tap on a beat picks it (Play starts there) and keeps the keys on the score. */
+  protected pickAt(event: MouseEvent): void {
+    const layout = this.layout();
+    if (!layout) return;
+    const rect = this.sheet().nativeElement.getBoundingClientRect();
+    const scale = this.fit().scale;
+    const at = positionAtPoint(
+      layout,
+      (event.clientX - rect.left) / scale,
+      (event.clientY - rect.top) / scale,
+    );
+    if (at === null) return;
+    this.cursorMoved.emit(at);
+    this.host.nativeElement.focus({ preventScroll: true });
+  }
+
+  /**
+   * Each later system's strip shows its slice of the one drawing through `<use>`, so the notes
+   * exist once in the page (for assistive technology, tests and memory) yet print breaks
+   * between systems.
+   */
+  private drawEchoes(bands: readonly SystemBand[], width: number): void {
+    const slots = this.echoes();
+    const ns = 'http://www.w3.org/2000/svg';
+    bands.forEach((band, i) => {
+      const slot = slots[i]?.nativeElement;
+      if (!slot) return;
+      const svg = document.createElementNS(ns, 'svg');
+      svg.setAttribute('width', String(width));
+      svg.setAttribute('height', String(band.height));
+      svg.setAttribute('viewBox', `0 ${band.top} ${width} ${band.height}`);
+      svg.setAttribute('aria-hidden', 'true');
+      const use = document.createElementNS(ns, 'use');
+      use.setAttribute('href', `#${this.svgId}`);
+      svg.append(use);
+      slot.replaceChildren(svg);
+    });
   }
 
   /** Bring the cursor's line on screen when it is off it, smoothly unless motion is reduced. */
   private revealCursor(): void {
     const box = this.host.nativeElement.querySelector<HTMLElement>('.cursor');
     const rect = box?.getBoundingClientRect();
-    if (!box || !rect || (rect.top >= 0 && rect.bottom <= window.innerHeight)) return;
+    const frame = this.host.nativeElement.getBoundingClientRect();
+    const inView =
+      rect !== undefined &&
+      rect.top >= 0 &&
+      rect.bottom <= window.innerHeight &&
+      rect.left >= frame.left &&
+      rect.right <= frame.right;
+    if (!box || inView) return;
     const still = window.matchMedia?.('(prefers-reduced-motion: reduce)').matches ?? false;
-    box.scrollIntoView?.({ block: 'center', behavior: still ? 'auto' : 'smooth' });
+    // Sideways too: on a phone the score scrolls inside its box.
+    box.scrollIntoView?.({
+      block: 'center',
+      inline: 'nearest',
+      behavior: still ? 'auto' : 'smooth',
+    });
   }
 
   /** Arrow keys step the highlighted beat; Escape clears it. */
@@ -147,8 +243,11 @@ export class DrillScore {
     const by = { ArrowRight: 1, ArrowLeft: -1 }[event.key];
     if (by !== undefined) {
       event.preventDefault();
-      this.cursorMoved.emit(stepPosition(layout.bars, this.cursor(), by));
+      const next = stepPosition(layout.bars, this.stepFrom(), by);
+      this.stepFrom.set(next);
+      this.cursorMoved.emit(next);
     } else if (event.key === 'Escape') {
+      this.stepFrom.set(null);
       this.cursorMoved.emit(null);
     }
   }
@@ -180,6 +279,7 @@ export class DrillScore {
         ({ svg, ...layout } = engrave(fit.contentWidth));
       }
       svg.setAttribute('aria-hidden', 'true');
+      svg.id = this.svgId;
       this.fit.set(fit);
       this.layout.set(layout);
       this.failure.set(null);

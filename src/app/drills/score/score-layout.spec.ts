@@ -1,4 +1,11 @@
-import { cursorBox, fitToWidth, stepPosition, type ScoreLayout } from './score-layout';
+import {
+  cursorBox,
+  fitToWidth,
+  positionAtPoint,
+  stepPosition,
+  systemBands,
+  type ScoreLayout,
+} from './score-layout';
 
 const bars = [
   {
@@ -81,5 +88,55 @@ describe('fitToWidth', () => {
 
   it('never shrinks below the readable floor (the score scrolls instead)', () => {
     expect(fitToWidth({ bars: barsEndingAt(988) }, 360).scale).toBe(0.75);
+  });
+});
+
+describe('positionAtPoint', () => {
+  const layout = {
+    bars: [
+      { ...bars[0]!, x: 60, width: 240, systemTop: 20, systemBottom: 220 },
+      { ...bars[1]!, x: 300, width: 100, systemTop: 20, systemBottom: 220 },
+    ],
+  };
+
+  it('finds the beat under a click, bar by bar', () => {
+    expect(positionAtPoint(layout, 120, 100)).toEqual({ bar: 1, beat: 1 });
+    expect(positionAtPoint(layout, 205, 100)).toEqual({ bar: 1, beat: 2 });
+    expect(positionAtPoint(layout, 345, 30)).toEqual({ bar: 2, beat: 2 });
+  });
+
+  it("gives the clef area to the bar's first beat and the room after the last beat to it", () => {
+    expect(positionAtPoint(layout, 70, 100)).toEqual({ bar: 1, beat: 1 });
+    expect(positionAtPoint(layout, 250, 100)).toEqual({ bar: 1, beat: 2 });
+  });
+
+  it('is null outside the staves (margins, the tension plots under a system)', () => {
+    expect(positionAtPoint(layout, 30, 100)).toBeNull();
+    expect(positionAtPoint(layout, 120, 230)).toBeNull();
+    expect(positionAtPoint(layout, 120, 10)).toBeNull();
+  });
+});
+
+describe('systemBands', () => {
+  it('cuts the drawing into one strip per system that stack back without gaps', () => {
+    const bands = systemBands({
+      height: 700,
+      bars: [
+        { system: 0, systemTop: 40 },
+        { system: 0, systemTop: 40 },
+        { system: 1, systemTop: 340 },
+        { system: 2, systemTop: 600 },
+      ],
+    });
+    expect(bands).toEqual([
+      { system: 0, top: 0, height: 340 },
+      { system: 1, top: 340, height: 260 },
+      { system: 2, top: 600, height: 100 },
+    ]);
+    expect(bands.reduce((sum, band) => sum + band.height, 0)).toBe(700);
+  });
+
+  it('is empty before anything is drawn', () => {
+    expect(systemBands({ height: 0, bars: [] })).toEqual([]);
   });
 });

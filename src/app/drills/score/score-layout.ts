@@ -53,3 +53,56 @@ export function fitToWidth(
   const contentWidth = Math.max(width, Math.ceil(right));
   return { contentWidth, scale: Math.max(minScale, width / contentWidth) };
 }
+
+/**
+ * The beat under a point of the engraving (a click or tap), or null outside every bar. The clef
+ * and time signature at a system's start belong to its first beat.
+ */
+export function positionAtPoint(
+  layout: {
+    readonly bars: readonly Pick<
+      BarBox,
+      'bar' | 'beats' | 'x' | 'width' | 'systemTop' | 'systemBottom'
+    >[];
+  },
+  x: number,
+  y: number,
+): ScorePosition | null {
+  const bar = layout.bars.find(
+    (b) => y >= b.systemTop && y < b.systemBottom && x >= b.x && x < b.x + b.width,
+  );
+  const beats = bar?.beats ?? [];
+  if (!bar || beats.length === 0) return null;
+  const hit = beats.find((beat) => x >= beat.x && x < beat.x + beat.width);
+  const beat = hit ?? (x < (beats[0]?.x ?? 0) ? beats[0] : beats[beats.length - 1]);
+  return beat ? { bar: bar.bar, beat: beat.beat } : null;
+}
+
+/** One system's horizontal strip of the engraving, with the room under it. */
+export interface SystemBand {
+  readonly system: number;
+  readonly top: number;
+  readonly height: number;
+}
+
+/**
+ * The engraving cut into one strip per system, top to bottom without gaps (the first strip
+ * starts at 0 with the marks above the first system, the last ends at the drawing's foot), so
+ * stacked they rebuild the page, and print can break between strips but never through one.
+ */
+export function systemBands(layout: {
+  readonly height: number;
+  readonly bars: readonly Pick<BarBox, 'system' | 'systemTop'>[];
+}): SystemBand[] {
+  const tops = new Map<number, number>();
+  for (const bar of layout.bars) {
+    tops.set(bar.system, Math.min(tops.get(bar.system) ?? Infinity, bar.systemTop));
+  }
+  const systems = [...tops.keys()].sort((a, b) => a - b);
+  return systems.map((system, i) => {
+    const top = i === 0 ? 0 : (tops.get(system) ?? 0);
+    const next = systems[i + 1];
+    const bottom = next === undefined ? layout.height : (tops.get(next) ?? layout.height);
+    return { system, top, height: Math.max(0, bottom - top) };
+  });
+}

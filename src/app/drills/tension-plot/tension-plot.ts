@@ -1,4 +1,5 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
+import { tensionWord } from '../tension-words';
 
 /**
  * A bar's tension under its stave: a meter filled from the left in proportion to the bar's
@@ -39,6 +40,7 @@ export class TensionPlot {
     return target === null ? null : Math.min(99.5, Math.max(0.5, clamp(target) * 100));
   });
   protected readonly tensionText = computed(() => this.tension().toFixed(2));
+  protected readonly word = computed(() => tensionWord(this.tension()));
   protected readonly targetText = computed(() => {
     const target = this.target();
     return target === null ? null : target.toFixed(2);
@@ -46,7 +48,7 @@ export class TensionPlot {
   protected readonly description = computed(() => {
     const target = this.targetText();
     const scale = this.scaleText();
-    const base = `Bar ${this.bar()}: tension ${this.tensionText()}${scale === null ? '' : `, ${scale} on this card's scale`}`;
+    const base = `Bar ${this.bar()}: tension ${this.tensionText()} (${this.word()})${scale === null ? '' : `, ${scale} on this card's scale`}`;
     return target === null ? base : `${base}, target ${target}`;
   });
 }

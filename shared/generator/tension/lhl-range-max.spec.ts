@@ -1,7 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { lhlSyncopation } from './lhl';
-import { maxLhlSyncopation } from './lhl-max';
+import { maxLhlSyncopation } from './lhl-range';
 
 /** Every onset pattern of the grid, tried one by one: the slow truth the fast maximum must meet. */
 function exhaustiveMax(beats: readonly number[], grouping?: readonly number[]): number {

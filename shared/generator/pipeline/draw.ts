@@ -1,0 +1,10 @@
+import { drawFills } from '../select';
+import type { Attempt, Drawn, Proven } from './stages';
+
+/**
+ * Stage 4: the fills. Each bar takes `density` of its free slots by seeded weighted draws,
+ * leaning on strong positions for calm targets and off them for tense ones.
+ */
+export function draw(proven: Proven, attempt: Attempt): Drawn {
+  return { ...proven, drawn: drawFills(proven.free, attempt.rng, proven.targets) };
+}

@@ -1,0 +1,94 @@
+import { RuleConflictError } from '../errors';
+import type { FillContext } from '../fill';
+import { positionOf, type Grid } from '../grid';
+import { assignHandsRepairing, type WorkHit } from '../hands';
+import type { KeptBars } from '../keep';
+import { fitShares, keptShares, sharesConflict } from '../kept-shares';
+import type { Rng } from '../random';
+import { embellishmentDynamics, embellishmentVoices, fillHolesOwners } from '../rules/fill-holes';
+import type { RuleCard } from '../schema';
+import { voiceWord } from '../words';
+import type { Attempt, Shaped, Stuck } from './stages';
+
+/**
+ * Stage 6: the sticking. The fills join the obligations; every hand note gets R or L as a
+ * teacher would write it (fill strokes the limbs cannot play are removed); then the dynamics of
+ * the embellishments (ghost notes, a fillHoles rule's shares).
+ */
+export function stick(shaped: Shaped, attempt: Attempt): Stuck {
+  const { fills, ...proven } = shaped;
+  const { card, grid, free, kept } = proven;
+  // The obligations with the kept bars in place.
+  const cells = free.ob.cells.map((cell) => cell.map((hit) => ({ ...hit })));
+  for (const f of fills)
+    for (const hit of f.fills)
+      cells[f.bar * grid.slotsPerBar + hit.i]?.push({
+        voice: hit.voice,
+        source: 'fill',
+        dynamic: 'normal',
+        rule: -2,
+        hand: null,
+      });
+  repairHands(card, grid, cells, kept);
+  // Around kept notes, a fillHoles rule's shares may need fewer (or more) free notes.
+  for (let k = 0; k < 2 && fitShares(free, cells, kept, attempt.rng); k++)
+    repairHands(card, grid, cells, kept);
+  markEmbellishments(free, cells, attempt.rng, kept);
+  return { ...proven, cells };
+}
+
+/**
+ * Assigns hands; where the limbs cannot keep up, the sticking stage removes fill strokes (see
+ * `assignHandsRepairing`). Obligations alone are known to be playable, so without kept bars
+ * this ends; what still fails with them is the kept bars' doing (only their notes and the
+ * card's obligations are left where it fails).
+ */
+function repairHands(card: RuleCard, grid: Grid, cells: WorkHit[][], kept: KeptBars): void {
+  const failure = assignHandsRepairing(card, grid, cells);
+  if (!failure) return;
+  if (kept.size === 0)
+    throw new RuleConflictError('Two hands cannot play these rules at this tempo: slow it down.', [
+      'hands',
+    ]);
+  const at = positionOf(grid, failure.instant);
+  const limbs =
+    failure.reason === 'feet' ? `the ${voiceWord(failure.voice ?? 'kick')}` : 'the hands';
+  throw new RuleConflictError(
+    `The pinned bars cannot be kept as they are: around bar ${at.bar}, beat ${at.beat}, ${limbs} cannot play their notes together with what the card asks of the bars around them (${failure.reason === 'tooFast' || failure.reason === 'feet' ? 'too fast for one limb' : 'no sticking a teacher would write'}). Unpin a bar next to it, or change its sticking.`,
+    ['keep', failure.reason === 'feet' ? 'feet' : 'hands'],
+  );
+}
+
+/**
+ * Marks each fillHoles rule's share of its embellishments ghost or accent, in time order; other
+ * embellishment voices play ghost notes, anchors at normal strength. Kept notes keep their
+ * dynamics: the free ones make up the rule's shares over the whole drill.
+ */
+function markEmbellishments(ctx: FillContext, cells: WorkHit[][], rng: Rng, kept: KeptBars): void {
+  const { card } = ctx;
+  const owners = fillHolesOwners(card);
+  const embellishing = embellishmentVoices(card);
+  for (const cell of cells)
+    for (const hit of cell)
+      if (
+        hit.source === 'fill' &&
+        !hit.pinned &&
+        embellishing.has(hit.voice) &&
+        !owners.has(hit.voice)
+      )
+        hit.dynamic = 'ghost';
+  card.rules.forEach((rule, index) => {
+    if (rule.kind !== 'fillHoles') return;
+    const mine = cells.flatMap((cell) =>
+      cell.filter((hit) => hit.source === 'fill' && owners.get(hit.voice) === index),
+    );
+    const free = mine.filter((hit) => !hit.pinned);
+    const shares = keptShares(mine);
+    const dynamics = embellishmentDynamics(rule, mine.length, free.length, shares, rng);
+    if (!dynamics)
+      throw sharesConflict(ctx, index, kept, { ...shares, total: mine.length - free.length });
+    free.forEach((hit, k) => {
+      hit.dynamic = dynamics[k] ?? 'normal';
+    });
+  });
+}

@@ -1,0 +1,194 @@
+/**
+ * The engraving rules of the notation model (the browser test checks the same rules on the drawn
+ * SVG): whole-bar and half-bar rests, tuplets in their grid value, one "3" then "sim." in a
+ * shuffle, the polyrhythm's own grouping, and the notes that make a bar tense.
+ */
+import { describe, expect, it } from 'vitest';
+import type { DrillBar, DrillHit, VoiceId } from '../generator/drill';
+import { generateDrill, parseRuleCard } from '../generator/index';
+import { BUILT_IN_PRESETS } from '../generator/presets/index';
+import { buildNotation, type NotationSource } from './notation-model';
+import { polyrhythmGroups } from './polyrhythm';
+import { syncopatedInstants } from './syncopation';
+
+const FEET: VoiceId[] = ['kick', 'hihatFoot'];
+
+function hit(beat: number, slot: number, voice: VoiceId, extra: Partial<DrillHit> = {}): DrillHit {
+  const hand = FEET.includes(voice) ? null : 'R';
+  return { beat, slot, voice, dynamic: 'normal', hand, source: 'fill', ...extra };
+}
+
+function barOf(beats: number[], hits: DrillHit[]): DrillBar {
+  return { bar: 1, beats, tension: 0, hits };
+}
+
+function drillOf(beats: number[], hits: DrillHit[], unit = 4, grouping?: number[]): NotationSource {
+  return {
+    card: {
+      meter: { beats: beats.length, unit, ...(grouping ? { grouping } : {}) },
+      voices: ['hihat', 'snare', 'kick'],
+    },
+    bars: [barOf(beats, hits)],
+  };
+}
+
+const preset = (id: string) => {
+  const found = BUILT_IN_PRESETS.find((p) => p.id === id);
+  if (!found) throw new Error(`no preset ${id}`);
+  return found;
+};
+
+/** The feet's events of bar 1 as `r2 4 …` (r: rest, d: dotted, R: whole-bar rest). */
+function feet(source: NotationSource): string {
+  const layer = buildNotation(source).bars[0]!.layers.find((l) => l.layer === 'feet')!;
+  return layer.events
+    .map((e) =>
+      e.barRest
+        ? 'R'
+        : `${e.kind === 'rest' ? 'r' : ''}${e.duration.value}${e.duration.dots ? 'd' : ''}`,
+    )
+    .join(' ');
+}
+
+const hats = (beats: number) => Array.from({ length: beats }, (_, b) => hit(b + 1, 0, 'hihat'));
+
+describe('rests', () => {
+  // E. Gould, "Behind Bars", Faber Music 2011, ch. "Rests" (from memory): a whole rest fills any
+  // silent bar whatever the meter; in 4/4 a half rest covers beats 1–2 or 3–4, never 2–3.
+  it('a voice silent for a whole bar gets one whole-bar rest, in 4/4, 3/4, 6/8 and 7/8', () => {
+    expect(feet(drillOf([4, 4, 4, 4], hats(4)))).toBe('R');
+    expect(feet(drillOf([4, 4, 4], hats(3)))).toBe('R');
+    expect(feet(drillOf([1, 1, 1, 1, 1, 1], hats(6), 8, [3, 3]))).toBe('R');
+    expect(feet(drillOf([1, 1, 1, 1, 1, 1, 1], hats(7), 8, [2, 2, 3]))).toBe('R');
+  });
+
+  it('a silent half of a 4/4 bar is one half rest; beats 2 and 3 keep two quarter rests', () => {
+    expect(feet(drillOf([4, 4, 4, 4], [hit(1, 0, 'kick')]))).toBe('4 r4 r2');
+    expect(feet(drillOf([4, 4, 4, 4], [hit(4, 0, 'kick')]))).toBe('r2 r4 4');
+    expect(feet(drillOf([4, 4, 4, 4], [hit(1, 0, 'kick'), hit(4, 0, 'kick')]))).toBe('4 r4 r4 4');
+    // 3/4 has no half-bar: two quarter rests (common practice).
+    expect(feet(drillOf([4, 4, 4], [hit(3, 0, 'kick')]))).toBe('r4 r4 4');
+  });
+
+  it('rests inside a beat start on a multiple of their own length (consolidated by beat)', () => {
+    expect(feet(drillOf([4, 4, 4, 4], [hit(1, 3, 'kick'), hit(3, 0, 'kick')]))).toBe(
+      'r8 r16 16 r4 4 r4',
+    );
+  });
+});
+
+describe('tuplets', () => {
+  it('spells every quintuplet and septuplet beat in its grid value, a rest on every hole', () => {
+    for (const id of ['quintuplets-hihat-1-3-4', 'quintuplets-hihat-1-3-5']) {
+      const drill = generateDrill(parseRuleCard(preset(id).card), 'lesson-12');
+      const model = buildNotation(drill);
+      for (const bar of model.bars) {
+        for (const layer of bar.layers) {
+          for (const tuplet of layer.tuplets) {
+            const events = tuplet.events.map((i) => layer.events[i]!);
+            expect(events).toHaveLength(tuplet.ratio.numNotes);
+            expect(events.every((e) => e.duration.value === 16 && !e.duration.dots)).toBe(true);
+            expect(events.map((e) => e.slot)).toEqual(events.map((_, slot) => slot));
+          }
+        }
+      }
+    }
+  });
+
+  it('writes a shuffle\'s "3" once, then "sim.", on one voice only', () => {
+    const drill = generateDrill(parseRuleCard(preset('shuffle-kick-upbeats').card), 'lesson-12');
+    const tuplets = buildNotation(drill).bars.flatMap((bar) =>
+      bar.layers.flatMap((layer) => layer.tuplets),
+    );
+    expect(tuplets.length).toBeGreaterThan(4);
+    expect(tuplets.filter((t) => t.shown)).toHaveLength(1);
+    expect(tuplets[0]).toMatchObject({ shown: true, simile: true });
+  });
+
+  it('keeps every bracket where tuplets come and go (a drill not in triplets throughout)', () => {
+    const model = buildNotation(drillOf([3, 4, 3, 4], [hit(1, 1, 'snare'), hit(3, 2, 'snare')]));
+    const tuplets = model.bars[0]!.layers[0]!.tuplets;
+    expect(tuplets).toHaveLength(2);
+    expect(tuplets.every((t) => t.shown && !t.simile)).toBe(true);
+  });
+});
+
+describe('polyrhythm grouping', () => {
+  it('brackets each 4:3 cycle over exactly its four notes, in the feet for a kick stream', () => {
+    const drill = generateDrill(parseRuleCard(preset('four-over-three').card), 'lesson-12');
+    const groups = buildNotation(drill).polyrhythms;
+    expect(groups).toHaveLength(drill.bars.length);
+    groups.forEach((group, i) => {
+      expect(group.label).toBe('4:3');
+      expect(group.below).toBe(true);
+      // Hit k of a cycle at k·3/4 beats: beat 1, the "a" of 1, the "&" of 2, the "e" of 3.
+      expect(group.notes).toEqual([
+        { bar: i + 1, beat: 1, slot: 0 },
+        { bar: i + 1, beat: 1, slot: 3 },
+        { bar: i + 1, beat: 2, slot: 2 },
+        { bar: i + 1, beat: 3, slot: 1 },
+      ]);
+    });
+  });
+
+  it('runs a cycle across the bar line when its span does not divide the bar (polymeter)', () => {
+    const bars = [1, 2].map((bar) => ({
+      bar,
+      beats: [4, 4, 4, 4],
+      hits: [0, 1, 2, 3].flatMap((b) => [0, 1, 2, 3].map((s) => hit(b + 1, s, 'snare'))),
+    }));
+    const groups = polyrhythmGroups(
+      [{ kind: 'polyrhythm', voices: ['snare'], against: 4, span: 3 }],
+      bars,
+      4,
+    );
+    // Cycles at beats 0 and 3 (crossing into bar 2) of 8 beats; the one at 6 would run past.
+    expect(groups.map((g) => g.notes)).toEqual([
+      [
+        { bar: 1, beat: 1, slot: 0 },
+        { bar: 1, beat: 1, slot: 3 },
+        { bar: 1, beat: 2, slot: 2 },
+        { bar: 1, beat: 3, slot: 1 },
+      ],
+      [
+        { bar: 1, beat: 4, slot: 0 },
+        { bar: 1, beat: 4, slot: 3 },
+        { bar: 2, beat: 1, slot: 2 },
+        { bar: 2, beat: 2, slot: 1 },
+      ],
+    ]);
+    expect(groups.every((g) => !g.below)).toBe(true);
+  });
+});
+
+describe('the notes that make a bar tense', () => {
+  it('marks a note whose next stronger position is silent (the early backbeat on the "a")', () => {
+    const bar = barOf([4, 4, 4, 4], [hit(1, 0, 'kick'), hit(1, 3, 'snare'), hit(3, 0, 'kick')]);
+    expect(syncopatedInstants(bar)).toEqual([{ beat: 1, slot: 3 }]);
+  });
+
+  it('reads the ostinato as silence, as the tension does', () => {
+    const bar = barOf(
+      [4, 4, 4, 4],
+      [hit(1, 3, 'snare'), hit(2, 0, 'hihat', { source: 'ostinato' }), hit(3, 0, 'kick')],
+    );
+    expect(syncopatedInstants(bar)).toEqual([{ beat: 1, slot: 3 }]);
+  });
+
+  it('reads the grouping: in 7/8 as 2+2+3 the 2nd eighth leads to the silent 3rd', () => {
+    const bar = barOf([1, 1, 1, 1, 1, 1, 1], [hit(1, 0, 'kick'), hit(2, 0, 'snare')]);
+    expect(syncopatedInstants(bar, [2, 2, 3])).toEqual([{ beat: 2, slot: 0 }]);
+  });
+
+  it('marks notes only in tense bars: every built-in preset, 10 seeds', () => {
+    for (const p of BUILT_IN_PRESETS) {
+      for (let seed = 0; seed < 10; seed++) {
+        const drill = generateDrill(parseRuleCard(p.card), `tension-${seed}`);
+        for (const bar of buildNotation(drill).bars) {
+          if (bar.syncopated.length > 0)
+            expect(bar.tension, `${p.id} bar ${bar.bar}`).toBeGreaterThan(0);
+        }
+      }
+    }
+  });
+});

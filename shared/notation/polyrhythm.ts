@@ -1,0 +1,92 @@
+/**
+ * The polyrhythm's own grouping on the page: each cycle of a `polyrhythm` rule (4 even notes
+ * over 3 beats) gets a bracket with its ratio ("4:3") spanning exactly the cycle's notes, so the
+ * four can be seen among the grid's notes (E. Gould, "Behind Bars", Faber Music 2011, ch.
+ * "Tuplets": a ratio where the number alone would be ambiguous; from memory).
+ */
+import { FOOT_VOICES, type DrillBar, type VoiceId } from '../generator/drill';
+
+const isFoot = (voice: VoiceId) => FOOT_VOICES.has(voice);
+
+/** A struck instant of the drill. */
+export interface DrillInstant {
+  readonly bar: number;
+  readonly beat: number;
+  readonly slot: number;
+}
+
+/** One cycle of a polyrhythm: its ratio and its notes in time order. */
+export interface PolyrhythmGroup {
+  /** "4:3": `against` notes in the time of `span` beats. */
+  readonly label: string;
+  readonly notes: readonly DrillInstant[];
+  /** The bracket goes under the staff for a stream of feet alone, else over it. */
+  readonly below: boolean;
+}
+
+/** The part of a polyrhythm rule notation reads. */
+export interface PolyrhythmSource {
+  readonly kind: string;
+  readonly voices?: readonly VoiceId[];
+  readonly against?: number;
+  readonly span?: number;
+}
+
+/**
+ * Every whole cycle of every polyrhythm rule whose notes are all in the drill (hit i of a cycle
+ * at i·span/against beats from the cycle's start, in the voice `voices[i % n]`, as the engine
+ * places them). A cycle cut by the drill's end, or one whose notes landed off the grid, gets no
+ * bracket.
+ */
+export function polyrhythmGroups(
+  rules: readonly PolyrhythmSource[],
+  bars: readonly Pick<DrillBar, 'bar' | 'beats' | 'hits'>[],
+  beatsPerBar: number,
+): PolyrhythmGroup[] {
+  const groups: PolyrhythmGroup[] = [];
+  const total = bars.length * beatsPerBar;
+  for (const rule of rules) {
+    const voices = rule.voices ?? [];
+    const against = rule.against ?? 0;
+    const span = rule.span ?? beatsPerBar;
+    if (rule.kind !== 'polyrhythm' || against < 2 || voices.length === 0) continue;
+    for (let start = 0; start + span <= total; start += span) {
+      const notes: DrillInstant[] = [];
+      for (let i = 0; i < against; i++) {
+        const voice = voices[i % voices.length]!;
+        const at = instantAt(bars, beatsPerBar, start, i * span, against);
+        if (!at || !struck(bars, at, voice)) break;
+        notes.push(at);
+      }
+      if (notes.length === against)
+        groups.push({ label: `${against}:${span}`, notes, below: voices.every(isFoot) });
+    }
+  }
+  return groups;
+}
+
+/** The instant `num / den` beats after beat `start` of the drill, or null off the grid. */
+function instantAt(
+  bars: readonly Pick<DrillBar, 'bar' | 'beats'>[],
+  beatsPerBar: number,
+  start: number,
+  num: number,
+  den: number,
+): DrillInstant | null {
+  const whole = start + Math.floor(num / den);
+  const bar = bars[Math.floor(whole / beatsPerBar)];
+  const beat = (whole % beatsPerBar) + 1;
+  const slots = bar?.beats[beat - 1];
+  if (!bar || slots === undefined) return null;
+  const slot = ((num % den) * slots) / den;
+  return Number.isInteger(slot) ? { bar: bar.bar, beat, slot } : null;
+}
+
+function struck(
+  bars: readonly Pick<DrillBar, 'bar' | 'hits'>[],
+  at: DrillInstant,
+  voice: VoiceId,
+): boolean {
+  const bar = bars.find((b) => b.bar === at.bar);
+  return !!bar?.hits.some((h) => h.beat === at.beat && h.slot === at.slot && h.voice === voice);
+}
