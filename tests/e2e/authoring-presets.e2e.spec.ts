@@ -10,6 +10,9 @@ import { signIn } from '../support/browser';
 import { useServerAndBrowser } from '../support/browser-suite';
 import { DEMO_ADMIN, DEMO_TEACHERS } from '../support/demo-accounts';
 
+/** The first engraving of a thumbnail may take seconds on a busy machine. */
+const POLL = { timeout: 30_000 };
+
 const NEW_TITLE = 'Larkspur groove primer';
 
 describe('authoring journey: curated presets', () => {
@@ -37,22 +40,25 @@ describe('authoring journey: curated presets', () => {
     await dialog.getByLabel('Published in the gallery').uncheck();
     await dialog.getByRole('button', { name: 'Save preset' }).click();
     const toggle = page.getByRole('switch', { name: `Publish ${NEW_TITLE}` });
-    await expect.poll(() => toggle.getAttribute('aria-checked')).toBe('false');
+    await expect.poll(() => toggle.getAttribute('aria-checked'), POLL).toBe('false');
     await toggle.click();
-    await expect.poll(() => toggle.getAttribute('aria-checked')).toBe('true');
+    await expect.poll(() => toggle.getAttribute('aria-checked'), POLL).toBe('true');
 
     await context.clearCookies();
     const teacher = DEMO_TEACHERS[1]!;
     await signIn(page, suite.server.url, teacher.email, teacher.password);
     await page.goto(`${suite.server.url}/gallery`);
     await page.getByRole('list', { name: 'Presets' }).getByRole('listitem').first().waitFor();
-    await page.getByLabel('Tag').fill('primer');
+    await page.getByLabel('Tag', { exact: true }).fill('primer');
     const cards = page.getByRole('list', { name: 'Presets' }).getByRole('listitem');
-    await expect.poll(() => cards.count()).toBe(1);
+    await expect.poll(() => cards.count(), POLL).toBe(1);
     expect(await cards.first().getByRole('heading').innerText()).toBe(NEW_TITLE);
     const thumbnail = cards.first().locator('img.thumbnail');
     await expect
-      .poll(() => thumbnail.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth))
+      .poll(
+        () => thumbnail.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth),
+        POLL,
+      )
       .toBeGreaterThan(0);
 
     await cards

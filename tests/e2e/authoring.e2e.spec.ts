@@ -10,6 +10,9 @@ import { signIn } from '../support/browser';
 import { useServerAndBrowser } from '../support/browser-suite';
 import { DEMO_TEACHERS } from '../support/demo-accounts';
 
+/** The first engraving of a thumbnail or a preview may take seconds on a busy machine. */
+const POLL = { timeout: 30_000 };
+
 const NOTE = 'tensile-drill-score svg .tensile-note';
 
 /**
@@ -129,7 +132,7 @@ describe('authoring journey: card, conflict, pinned bar, saved drill, seed link'
     const conflict = linear.getByRole('alert');
     await conflict.first().waitFor({ state: 'visible', timeout: 15_000 });
     expect(await conflict.first().innerText()).toMatch(/\S/);
-    await expect.poll(() => page.locator('tensile-card-preview .stale-note').count()).toBe(1);
+    await expect.poll(() => page.locator('tensile-card-preview .stale-note').count(), POLL).toBe(1);
     const linearName = (await linear.getAttribute('aria-label'))!;
     const linearNumber = /Rule (\d+)/.exec(linearName)![1];
     await page.getByRole('button', { name: `Remove rule ${linearNumber}` }).click();
@@ -142,7 +145,9 @@ describe('authoring journey: card, conflict, pinned bar, saved drill, seed link'
     expect(barOne.length).toBeGreaterThan(0);
     await page.getByRole('button', { name: 'Pin bar 1' }).click();
     await page.getByRole('button', { name: 'Regenerate the other bars' }).click();
-    await expect.poll(() => page.getByTestId('preview-seed').innerText()).not.toBe(seedBefore);
+    await expect
+      .poll(() => page.getByTestId('preview-seed').innerText(), POLL)
+      .not.toBe(seedBefore);
     await previewSettled(page);
     expect(await barNotes(page, 1)).toEqual(barOne);
 
