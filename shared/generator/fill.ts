@@ -1,5 +1,6 @@
 import { isHandVoice, VOICE_IDS, type VoiceId } from './drill';
 import { ticksOf, type Grid } from './grid';
+import { limbsAllow, limbWindows, type LimbWindows } from './fill-limbs';
 import { Gap, gapOf, HAND_LIMITS, paceOf, thresholdsOf } from './sticking/limits';
 import type { Obligations } from './obligations';
 import type { Rng } from './random';
@@ -16,13 +17,15 @@ export interface FillContext {
   readonly budget: number;
   /** Per bar-local instant: the voices a fill may add there (before limb and linear limits). */
   readonly options: readonly (readonly VoiceId[])[][];
-  /** Metrical strength of each bar-local instant: 0 downbeat, 1 beat, 2 half beat, 3 other. */
+  /** Metrical strength of each bar-local instant (see `metricalStrength`). */
   readonly strength: readonly number[];
   /**
    * Per bar, its instants' pick weights by lean, worked out on first use: the search asks for
    * the same few leans (the bar's target, 0 and 1) thousands of times on big cards.
    */
   readonly weightsByLean: Map<number, readonly number[]>[];
+  /** The limbs' rates round each instant (see `limbsAllow`). */
+  readonly limbs: LimbWindows;
 }
 
 /** One bar's fill hits, with the counts the limits need; cheap to copy for variants. */
@@ -75,13 +78,32 @@ export function createFillContext(
     }
     options.push(perInstant);
   }
-  const strength = grid.beatOf.map((b, i) => {
-    const slot = grid.slotOf[i] ?? 0;
-    const slots = grid.beats[b] ?? 1;
-    return slot === 0 ? (b === 0 ? 0 : 1) : slot * 2 === slots ? 2 : 3;
-  });
+  const strength = metricalStrength(grid, card.meter.grouping);
   const weightsByLean = Array.from({ length: grid.bars }, () => new Map<number, number[]>());
-  return { card, grid, ob, budget: overlapBudget(card), options, strength, weightsByLean };
+  const limbs = limbWindows(card, grid, ob);
+  return { card, grid, ob, budget: overlapBudget(card), options, strength, weightsByLean, limbs };
+}
+
+/**
+ * Metrical strength of each bar-local instant, strongest 0: the downbeat 0; then, without a
+ * grouping, each beat 1, half beats 2, the rest 3; with one (6/8 as 3+3, 7/8 as 2+2+3), the
+ * first beat of each group 1, the other beats 2, the rest 3, so a compound or odd bar leans on
+ * its group beats as it is felt.
+ */
+export function metricalStrength(grid: Grid, grouping?: readonly number[] | null): number[] {
+  const groupStarts = new Set<number>();
+  let at = 0;
+  for (const beats of grouping ?? []) {
+    groupStarts.add(at);
+    at += beats;
+  }
+  return grid.beatOf.map((b, i) => {
+    const slot = grid.slotOf[i] ?? 0;
+    if (slot === 0 && b === 0) return 0;
+    if (groupStarts.size > 0) return slot !== 0 ? 3 : groupStarts.has(b) ? 1 : 2;
+    const slots = grid.beats[b] ?? 1;
+    return slot === 0 ? 1 : slot * 2 === slots ? 2 : 3;
+  });
 }
 
 /**
@@ -157,7 +179,8 @@ export function copyFill(f: BarFill): BarFill {
 function canAdd(ctx: FillContext, f: BarFill, i: number, voice: VoiceId): boolean {
   if ((f.mask[i] ?? 0) !== 0) return false;
   if (isHandVoice(voice) && (f.hands[i] ?? 0) >= 2) return false;
-  return !((f.size[i] ?? 0) === 1 && f.overlaps >= ctx.budget);
+  if ((f.size[i] ?? 0) === 1 && f.overlaps >= ctx.budget) return false;
+  return limbsAllow(ctx.limbs, f, i, voice);
 }
 
 const bit = (voice: VoiceId): number => 1 << VOICE_IDS.indexOf(voice);
@@ -214,8 +237,9 @@ function instantWeights(ctx: FillContext, bar: number, lean: number): readonly n
 /** True when one of `voices` may be added at bar-local instant `i` of an unoccupied slot. */
 function anyAddable(ctx: FillContext, f: BarFill, i: number, voices: readonly VoiceId[]): boolean {
   if ((f.size[i] ?? 0) === 1 && f.overlaps >= ctx.budget) return false;
-  if ((f.hands[i] ?? 0) < 2) return true;
-  return voices.some((v) => !isHandVoice(v));
+  return voices.some(
+    (v) => (!isHandVoice(v) || (f.hands[i] ?? 0) < 2) && limbsAllow(ctx.limbs, f, i, v),
+  );
 }
 
 /** The weights of the instants where a fill hit may go now (0 elsewhere). */
@@ -230,7 +254,10 @@ function liveWeights(ctx: FillContext, f: BarFill, weightsAt: readonly number[])
   return weights;
 }
 
-/** Adds one seeded fill hit at an instant drawn by `weights`; its instant, or -1 if none fits. */
+/**
+ * Adds one seeded fill hit at an instant drawn by `weights`: its instant; -1 when nothing can
+ * be drawn; -2 - the instant when the one drawn holds no voice the limbs can play now.
+ */
 function addDrawn(ctx: FillContext, f: BarFill, rng: Rng, weights: readonly number[]): number {
   const i = rng.weighted(weights);
   if (i < 0) return -1;
@@ -245,7 +272,7 @@ function addDrawn(ctx: FillContext, f: BarFill, rng: Rng, weights: readonly numb
     add(f, i, v);
     return i;
   }
-  return -1;
+  return -2 - i;
 }
 
 /** Adds one seeded, weighted fill hit; false when nothing more fits. */
@@ -276,10 +303,16 @@ export function initialFill(ctx: FillContext, bar: number, rng: Rng, lean: numbe
   // Additions only close instants: the one just taken, and every lone hit once the linear
   // budget is spent. So the live weights are kept up to date instead of rebuilt per hit.
   const weights = liveWeights(ctx, f, instantWeights(ctx, bar, lean));
-  for (let n = 0; n < count; n++) {
+  for (let n = 0; n < count;) {
     const overlaps = f.overlaps;
     const i = addDrawn(ctx, f, rng, weights);
-    if (i < 0) break;
+    if (i === -1) break;
+    // A fill hit just added can close its neighbours to a limb: skip those when drawn.
+    if (i < -1) {
+      weights[-2 - i] = 0;
+      continue;
+    }
+    n++;
     weights[i] = 0;
     if (f.overlaps !== overlaps && f.overlaps >= ctx.budget)
       for (let j = 0; j < weights.length; j++) if ((f.size[j] ?? 0) === 1) weights[j] = 0;

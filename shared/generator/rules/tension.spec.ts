@@ -19,7 +19,7 @@ describe('tension', () => {
     expect(rankOrderBreaks([0.5, 0.5], [0.9, 0.1])).toEqual([]);
   });
 
-  it('keeps the rank order of [0.1, 0.9, 0.4, 0.7] for at least 90 of 100 seeds', () => {
+  it('keeps the rank order of [0.1, 0.9, 0.4, 0.7] at every one of 100 seeds', () => {
     const card = parseRuleCard({
       bars: 4,
       subdivision: 4,
@@ -31,16 +31,14 @@ describe('tension', () => {
         { kind: 'tension', curve: [0.1, 0.9, 0.4, 0.7] },
       ],
     });
-    let kept = 0;
     for (let s = 0; s < 100; s++) {
-      try {
-        const t = generateDrill(card, `rank-${s}`).bars.map((bar) => measureTension(bar));
-        if (t[0]! < t[2]! && t[2]! < t[3]! && t[3]! < t[1]!) kept++;
-      } catch (error) {
-        if (!(error instanceof RuleConflictError)) throw error;
-      }
+      // The card is feasible: a refusal or a give-up at any seed fails the test.
+      const t = generateDrill(card, `rank-${s}`).bars.map((bar) => measureTension(bar));
+      expect(
+        t[0]! < t[2]! && t[2]! < t[3]! && t[3]! < t[1]!,
+        `seed rank-${s}: ${t.join(', ')}`,
+      ).toBe(true);
     }
-    expect(kept).toBeGreaterThanOrEqual(90);
   });
 
   it('refuses a curve the fill cannot reach, naming the tension rule', () => {

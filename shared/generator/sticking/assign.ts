@@ -278,6 +278,8 @@ interface Plan {
   /** Per instant, a bit per VOICE_IDS index of the notes that must take the right (left) hand. */
   readonly right: Uint16Array;
   readonly left: Uint16Array;
+  /** 1 or 2 when a hand keeps the time (R or L), else 0. */
+  readonly timeHand: number;
 }
 
 /** Every way to give the time and the figures one hand each, best first; or why none works. */
@@ -287,8 +289,13 @@ function planSticking(ctx: Ctx, table: NoteTable): Plan[] | HandFailure {
   const figures = ruleStreams(card, frame, table, time);
   const none = new Uint16Array(n);
   const timeMask = time ? voicesAt(n, time) : none;
+  const timeHand = time ? ctx.lead : 0;
   if (figures.length === 0)
-    return [ctx.lead === 1 ? { right: timeMask, left: none } : { right: none, left: timeMask }];
+    return [
+      ctx.lead === 1
+        ? { right: timeMask, left: none, timeHand }
+        : { right: none, left: timeMask, timeHand },
+    ];
   // Preferred: the first figure on the hand the time leaves free, the next on the other, …
   const first = time ? 3 - ctx.lead : ctx.lead;
   const preferred = figures.map((_, i) => (i % 2 === 0 ? first : 3 - first));
@@ -306,7 +313,7 @@ function planSticking(ctx: Ctx, table: NoteTable): Plan[] | HandFailure {
     const right = lines(1);
     const left = lines(2);
     if (fits(frame, right) && fits(frame, left))
-      plans.push({ right: voicesAt(n, ...right), left: voicesAt(n, ...left) });
+      plans.push({ right: voicesAt(n, ...right), left: voicesAt(n, ...left), timeHand });
   }
   if (plans.length > 0) return plans;
   return {
@@ -495,6 +502,7 @@ function eventAt(
   const vb = b ? index[b.voice] : -1;
   const slot = frame.grid.slotOf[instant % frame.grid.slotsPerBar] ?? 0;
   const step = prev ? tick - prev.tick : 0;
+  const runStep = !!prev && instant - prev.instant === 1 && step <= frame.run;
   return {
     instant,
     tick,
@@ -507,8 +515,11 @@ function eventAt(
     forced1: b ? forcedHand(plan, instant, vb) : 0,
     pin0: pinOf(a),
     pin1: b ? pinOf(b) : 0,
-    natural: slot % 2 === 0 ? ctx.lead : 3 - ctx.lead,
-    runStep: !!prev && instant - prev.instant === 1 && step <= frame.run,
+    // A lone note beside the time goes to the hand the time leaves free (the snare hand of a
+    // groove); in runs the leading side takes the strong positions.
+    natural:
+      plan.timeHand && !runStep ? 3 - plan.timeHand : slot % 2 === 0 ? ctx.lead : 3 - ctx.lead,
+    runStep,
     nearStep: !!prev && step <= frame.pace.ticksPerBeat,
     fill: a.source === 'phrase' || prev?.a.source === 'phrase',
   };
