@@ -307,7 +307,7 @@ function naturalBarWidth(
   const counted = showCounts ? bar.beats.reduce((n, beat) => n + beat.subdivision, 0) : 0;
   // Room to breathe beyond the tightest setting, never under ~22 px a note, and room for the count.
   return (
-    Math.max(measured * 1.3, notes * 22, counted * COUNT_SLOT_ROOM, model.meter.beats * 40) + 20
+    Math.max(measured * 1.2, notes * 22, counted * COUNT_SLOT_ROOM, model.meter.beats * 40) + 20
   );
 }
 
