@@ -140,8 +140,10 @@ function engrave(
   // Engraved once: measured for line breaking, then formatted to their staves and drawn.
   const engravedBars = model.bars.map((bar) => engraveBar(bar, model));
   const showCounts = options.showCounts ?? false;
+  // Each bar's tightest setting, measured once (VexFlow formats the bar to measure it).
+  const tightest = engravedBars.map(minimumBarWidth);
   const barWidths = model.bars.map((bar, i) =>
-    naturalBarWidth(bar, engravedBars[i]!, model, showCounts),
+    naturalBarWidth(bar, tightest[i]!, model, showCounts),
   );
   const systemStartWidth = systemStartWidths(model);
   // The key stands beside the first system where the line still holds a bar beside it; on a
@@ -154,9 +156,7 @@ function engrave(
   const keyBand = showLegend && !keyBeside ? KEY_BAND : 0;
   const plans = planSystems({
     barWidths,
-    minBarWidths: model.bars.map((bar, i) =>
-      leastBarWidth(bar, engravedBars[i]!, model, showCounts),
-    ),
+    minBarWidths: model.bars.map((bar, i) => leastBarWidth(bar, tightest[i]!, model, showCounts)),
     systemStartWidth,
     lineWidth: (i) => options.width - 2 * MARGIN_X - (i === 0 ? legend : 0),
     maxBarsPerSystem: options.maxBarsPerSystem ?? 4,
@@ -293,7 +293,7 @@ function drawTitle(ctx: SVGContext, title: string | null, width: number): number
 
 function naturalBarWidth(
   bar: NotationBar,
-  engraved: EngravedBar,
+  measured: number,
   model: NotationModel,
   showCounts: boolean,
 ): number {
@@ -305,10 +305,9 @@ function naturalBarWidth(
     0,
   );
   const counted = showCounts ? bar.beats.reduce((n, beat) => n + beat.subdivision, 0) : 0;
-  const measured = minimumBarWidth(engraved);
   // Room to breathe beyond the tightest setting, never under ~22 px a note, and room for the count.
   return (
-    Math.max(measured * 1.3, notes * 22, counted * COUNT_SLOT_ROOM, model.meter.beats * 40) + 20
+    Math.max(measured * 1.2, notes * 22, counted * COUNT_SLOT_ROOM, model.meter.beats * 40) + 20
   );
 }
 
@@ -319,15 +318,12 @@ function naturalBarWidth(
  */
 function leastBarWidth(
   bar: NotationBar,
-  engraved: EngravedBar,
+  measured: number,
   model: NotationModel,
   showCounts: boolean,
 ): number {
   const counted = showCounts ? bar.beats.reduce((n, beat) => n + beat.subdivision, 0) : 0;
-  return (
-    Math.max(minimumBarWidth(engraved) * 1.1, counted * LEAST_COUNT_ROOM, model.meter.beats * 28) +
-    16
-  );
+  return Math.max(measured * 1.1, counted * LEAST_COUNT_ROOM, model.meter.beats * 28) + 16;
 }
 
 /** Least room per counted slot: a two-letter syllable at 10 px with a gap. */

@@ -57,4 +57,20 @@ describe('planSystems', () => {
       expect(plan.widths.reduce((a, b) => a + b, 0)).toBeCloseTo(1000, 6);
     }
   });
+
+  it('sets a bar alone on a narrow line tighter, down to its least width, never below', () => {
+    const plan = (line: number) =>
+      planSystems({
+        barWidths: [400, 300],
+        minBarWidths: [320, 250],
+        systemStartWidth: () => 40,
+        lineWidth: () => line,
+        maxBarsPerSystem: 4,
+      });
+    // A phone line: one bar a line; the wide one set to the line (below its natural 400).
+    expect(plan(366).map((p) => p.widths)).toEqual([[366], [366]]);
+    // Narrower than the first bar's least width: it keeps that width (the host scrolls or
+    // scales); the second fits its line at 260, above its least width of 250.
+    expect(plan(300).map((p) => p.widths)).toEqual([[360], [300]]);
+  });
 });
