@@ -71,6 +71,7 @@ export const RULE_CARD_SORTS = [
   'title',
   'level',
   'meter',
+  'subdivision',
   'bars',
   'tempo',
   'drillCount',
@@ -96,10 +97,14 @@ const SORT_COLUMNS: Record<RuleCardSort, string> = {
   title: 'title',
   level: 'level',
   meter: 'meter',
+  subdivision: 'slots',
   bars: 'bars',
   tempo: 'tempo',
   drillCount: 'drill_count',
 };
+
+const LEVEL_RANK =
+  "case level when 'beginner' then 1 when 'intermediate' then 2 when 'advanced' then 3 else 0 end";
 
 /** Reads and writes `rule_cards`. Every read is scoped to the owner. */
 export class RuleCardsRepository {
@@ -126,6 +131,10 @@ export class RuleCardsRepository {
     const total = await countRows(rows);
     const column = SORT_COLUMNS[query.sort];
     if (column === 'title') rows.orderByRaw(`lower(title) ${query.direction}`);
+    // A mixed grid (no single slot count) ranks above every even one, in SQLite and PostgreSQL.
+    else if (column === 'slots') rows.orderByRaw(`coalesce(slots, 1000) ${query.direction}`);
+    // Levels rank by difficulty, not alphabetically; a card without one ranks lowest.
+    else if (column === 'level') rows.orderByRaw(`${LEVEL_RANK} ${query.direction}`);
     else rows.orderBy(column, query.direction);
     const page = (await rows
       .orderBy('id', query.direction)

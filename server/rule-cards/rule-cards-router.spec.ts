@@ -238,6 +238,16 @@ describe('rule cards: list paging, sorting and filters on the server', () => {
     ]);
     const desc = await hana.get('/api/rule-cards?sort=title&direction=desc&pageSize=1');
     expect(desc.body.items[0].title).toBe('Gamma 4/4');
+    const bySlots = await hana.get('/api/rule-cards?sort=subdivision&direction=asc');
+    expect(bySlots.status).toBe(200);
+    expect(bySlots.body.items[0].title).toBe('Beta 7/8');
+    const byLevel = await hana.get('/api/rule-cards?sort=level&direction=asc');
+    expect(byLevel.body.items.map((c: { level: string | null }) => c.level)).toEqual([
+      null,
+      'beginner',
+      'advanced',
+      'advanced',
+    ]);
 
     const titles = async (query: string) =>
       ((await hana.get(`/api/rule-cards?${query}`)).body.items as { title: string }[])

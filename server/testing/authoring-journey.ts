@@ -46,6 +46,9 @@ export function authoringJourney(app: () => TestApp): void {
     expect(page.body.total).toBe(3);
     expect(page.body.items.map((c: { title: string }) => c.title)).toEqual(['A Seven', 'b Poly']);
     expect((await hana.get('/api/rule-cards?tag=polyrhythm')).body.total).toBe(1);
+    for (const sort of ['level', 'subdivision', 'meter', 'drillCount', 'createdAt']) {
+      expect((await hana.get(`/api/rule-cards?sort=${sort}`)).body.total).toBe(3);
+    }
     expect((await hana.get('/api/rule-cards?q=%25')).body.total).toBe(1);
     expect((await hana.get('/api/rule-cards?meter=7%2F8&subdivision=2')).body.total).toBe(1);
     expect((await tomasz.get(`/api/rule-cards/${ids[0]}`)).status).toBe(404);
