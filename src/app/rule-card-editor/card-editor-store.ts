@@ -6,11 +6,9 @@ import type { Drill, DrillBar } from '../../../shared/generator/index';
 import { freshSeed } from '../drills/seed-words';
 import { inputText } from '../rule-cards/input-text';
 import { CardHistory } from './card-history';
+import { PREVIEW_DEBOUNCE_MS } from './preview-timing';
 import { blankCard, type CardDraft } from './card-draft';
 import { issuesAt, previewOutcome, type PreviewOutcome } from './card-preview-outcome';
-
-/** How long the preview waits after the last edit, so typing "120" generates once, not thrice. */
-export const PREVIEW_DEBOUNCE_MS = 120;
 
 /**
  * The state of one editing session, shared by the editor's parts: the card being written, its
