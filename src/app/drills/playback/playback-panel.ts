@@ -11,6 +11,7 @@ import {
   untracked,
   type WritableSignal,
 } from '@angular/core';
+import { FormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import type { ErrorStateMatcher } from '@angular/material/core';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
@@ -20,11 +21,11 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import { MatSliderModule } from '@angular/material/slider';
 import { MatTooltipModule } from '@angular/material/tooltip';
-import { FormsModule } from '@angular/forms';
 import { VOICE_IDS, type VoiceId } from '../../../../shared/generator/drill';
 import type { Drill } from '../../../../shared/generator/index';
 import {
   clampTempo,
+  loopShape,
   MAX_TEMPO,
   MIN_TEMPO,
   trainerSteps,
@@ -44,7 +45,6 @@ import {
 } from './playback-fields';
 import { playbackKeyAction } from './playback-keys';
 import type { RunSettings, StartBeat } from './playback-scheduler';
-import { loopShape } from '../../../../shared/playback/index';
 
 export type LoopMode = 'once' | 'drill' | 'bars';
 
