@@ -1,14 +1,15 @@
-import { Injectable, computed, linkedSignal, signal } from '@angular/core';
+import { DestroyRef, Injectable, computed, inject, linkedSignal, signal } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import type { ErrorStateMatcher } from '@angular/material/core';
-import { debounceTime, distinctUntilChanged, map } from 'rxjs';
+import { debounceTime, distinctUntilChanged, switchMap } from 'rxjs';
 import type { Drill, DrillBar } from '../../../shared/generator/index';
 import { freshSeed } from '../drills/seed-words';
 import { inputText } from '../rule-cards/input-text';
 import { CardHistory } from './card-history';
 import { PREVIEW_DEBOUNCE_MS } from './preview-timing';
 import { blankCard, type CardDraft } from './card-draft';
-import { issuesAt, previewOutcome, type PreviewOutcome } from './card-preview-outcome';
+import { issuesAt, type PreviewOutcome } from './card-preview-outcome';
+import { previewRunner } from './preview-runner';
 
 /**
  * The state of one editing session, shared by the editor's parts: the card being written, its
@@ -16,6 +17,7 @@ import { issuesAt, previewOutcome, type PreviewOutcome } from './card-preview-ou
  */
 @Injectable()
 export class CardEditorStore {
+  private readonly runner = previewRunner();
   private history = new CardHistory<CardDraft>(blankCard());
   private readonly historyTick = signal(0);
   private readonly savedJson = signal(JSON.stringify(blankCard()));
@@ -29,13 +31,13 @@ export class CardEditorStore {
   readonly dirty = computed(() => JSON.stringify(this.card()) !== this.savedJson());
 
   /** The engine's answer for the card and seed, recomputed after the teacher pauses. */
-  readonly outcome = toSignal(
+  readonly outcome = toSignal<PreviewOutcome | null, null>(
     toObservable(
       computed(() => ({ card: this.card(), seed: this.seed(), keep: this.pinned() })),
     ).pipe(
       debounceTime(PREVIEW_DEBOUNCE_MS),
       distinctUntilChanged((a, b) => a.card === b.card && a.seed === b.seed && a.keep === b.keep),
-      map(({ card, seed, keep }): PreviewOutcome | null => previewOutcome(card, seed, keep)),
+      switchMap((input) => this.runner.run(input)),
     ),
     { initialValue: null },
   );
@@ -62,6 +64,10 @@ export class CardEditorStore {
 
   isPinned(bar: number): boolean {
     return this.pinned().some((kept) => kept.bar === bar);
+  }
+
+  constructor() {
+    inject(DestroyRef).onDestroy(() => this.runner.dispose());
   }
 
   /** Start a session on `card` (as loaded or as saved): history and dirty state begin here. */
