@@ -23,15 +23,23 @@ import {
  */
 export interface LimbWindows {
   readonly grid: Grid;
-  readonly ob: Obligations;
-  readonly ticks: Float64Array;
-  readonly loop: number;
+  /** Per drill instant: the card's hand strokes there, and its voices as bits. */
+  readonly obHands: Uint8Array;
+  readonly obVoices: Uint16Array;
   readonly foot: Thresholds;
   readonly hand: Thresholds;
-  /** Per bar-local instant: instant offsets (ascending) whose strokes a foot stroke there meets. */
-  readonly footNear: readonly (readonly number[])[];
-  /** The same for hand strokes; empty lists when the card allows doubles (not modelled here). */
-  readonly handNear: readonly (readonly number[])[];
+  /**
+   * Per bar-local instant: the instant offsets (ascending) whose strokes a foot stroke there
+   * meets, with their signed distances in ticks (the same in every bar).
+   */
+  readonly footNear: readonly Near[];
+  /** The same for hand strokes; empty when the card allows doubles (not modelled here). */
+  readonly handNear: readonly Near[];
+}
+
+interface Near {
+  readonly offsets: readonly number[];
+  readonly ticks: readonly number[];
 }
 
 /** What a fill's bar holds so far: per bar-local instant, fill voices (bits) and hand strokes. */
@@ -46,28 +54,39 @@ export function limbWindows(card: RuleCard, grid: Grid, ob: Obligations): LimbWi
   const foot = thresholdsOf(pace, FOOT_LIMITS);
   const hand = thresholdsOf(pace, HAND_LIMITS);
   const ticks = instantTicks(grid);
-  const near = (reach: number): number[][] =>
+  const barTicks = pace.ticksPerBeat * grid.beatsPerBar;
+  const near = (reach: number): Near[] =>
     Array.from({ length: grid.slotsPerBar }, (_, i) => {
-      const out: number[] = [];
+      const offsets: number[] = [];
+      const gaps: number[] = [];
       for (let d = -grid.slotsPerBar; d <= grid.slotsPerBar; d++) {
         if (d === 0) continue;
         const j = i + d;
         const bars = Math.floor(j / grid.slotsPerBar);
-        const at =
-          (ticks[j - bars * grid.slotsPerBar] ?? 0) + bars * pace.ticksPerBeat * grid.beatsPerBar;
-        if (Math.abs(at - (ticks[i] ?? 0)) <= reach) out.push(d);
+        const gap = (ticks[j - bars * grid.slotsPerBar] ?? 0) + bars * barTicks - (ticks[i] ?? 0);
+        if (Math.abs(gap) > reach) continue;
+        offsets.push(d);
+        gaps.push(gap);
       }
-      return out;
+      return { offsets, ticks: gaps };
     });
+  const obHands = new Uint8Array(grid.instants);
+  const obVoices = new Uint16Array(grid.instants);
+  ob.cells.forEach((cell, instant) => {
+    for (const hit of cell) {
+      if (isHandVoice(hit.voice)) obHands[instant] = (obHands[instant] ?? 0) + 1;
+      obVoices[instant] = (obVoices[instant] ?? 0) | bitOf(hit.voice);
+    }
+  });
+  const none: Near = { offsets: [], ticks: [] };
   return {
     grid,
-    ob,
-    ticks,
-    loop: pace.loop,
+    obHands,
+    obVoices,
     foot,
     hand,
     footNear: near(2 * foot.single),
-    handNear: card.sticking.doubles ? grid.beatOf.map(() => []) : near(hand.single),
+    handNear: card.sticking.doubles ? grid.beatOf.map(() => none) : near(hand.single),
   };
 }
 
@@ -75,49 +94,37 @@ const bitOf = (voice: VoiceId): number => 1 << VOICE_IDS.indexOf(voice);
 
 /** True when the limb that plays `voice` can add a stroke at bar-local instant `i` of `f`. */
 export function limbsAllow(w: LimbWindows, f: BarStrokes, i: number, voice: VoiceId): boolean {
-  const near = isHandVoice(voice) ? w.handNear[i] : w.footNear[i];
-  if (!near || near.length === 0) return true;
+  const handed = isHandVoice(voice);
+  const near = handed ? w.handNear[i] : w.footNear[i];
+  if (!near || near.offsets.length === 0) return true;
   const { grid } = w;
+  const n = grid.instants;
   const start = f.bar * grid.slotsPerBar;
-  const here = start + i;
+  const bit = bitOf(voice);
   const times: number[] = [];
   let mine = -1;
-  const bit = bitOf(voice);
   // Strokes already at this instant (hands only: a foot plays one voice), then the new one.
-  const already = isHandVoice(voice) ? (f.hands[i] ?? 0) : 0;
-  let pastHere = false;
   const putHere = (): void => {
+    const already = handed ? (f.hands[i] ?? 0) : 0;
     for (let k = 0; k < already; k++) times.push(0);
     mine = times.length;
     times.push(0);
-    pastHere = true;
   };
-  for (const d of near) {
-    if (d > 0 && !pastHere) putHere();
-    const j = here + d;
-    const inBar = j >= start && j < start + grid.slotsPerBar;
-    const cell = w.ob.cells[((j % grid.instants) + grid.instants) % grid.instants] ?? [];
-    const gap = tickDistance(w, here, j) * Math.sign(d);
-    let count = 0;
-    if (isHandVoice(voice)) {
-      count = inBar ? (f.hands[j - start] ?? 0) : cell.filter((h) => isHandVoice(h.voice)).length;
-    } else {
-      const filled = inBar && ((f.mask[j - start] ?? 0) & bit) !== 0;
-      count = filled || cell.some((h) => h.voice === voice) ? 1 : 0;
-    }
-    for (let k = 0; k < count; k++) times.push(gap);
-  }
-  if (!pastHere) putHere();
-  return isHandVoice(voice) ? handsCan(w.hand, times, mine) : footCan(w.foot, times, mine);
-}
-
-/** Ticks from instant `a` to `b` (either way round the loop, the nearer). */
-function tickDistance(w: LimbWindows, a: number, b: number): number {
-  const n = w.grid.instants;
-  const ta = w.ticks[((a % n) + n) % n] ?? 0;
-  const tb = w.ticks[((b % n) + n) % n] ?? 0;
-  const d = Math.abs(tb - ta);
-  return Math.min(d, w.loop - d);
+  near.offsets.forEach((d, k) => {
+    if (d > 0 && mine < 0) putHere();
+    const local = i + d;
+    const inBar = local >= 0 && local < grid.slotsPerBar;
+    const j = (((start + local) % n) + n) % n;
+    let count: number;
+    if (handed) count = inBar ? (f.hands[local] ?? 0) : (w.obHands[j] ?? 0);
+    else
+      count =
+        (inBar && ((f.mask[local] ?? 0) & bit) !== 0) || ((w.obVoices[j] ?? 0) & bit) !== 0 ? 1 : 0;
+    const gap = near.ticks[k] ?? 0;
+    for (let c = 0; c < count; c++) times.push(gap);
+  });
+  if (mine < 0) putHere();
+  return handed ? handsCan(w.hand, times, mine) : footCan(w.foot, times, mine);
 }
 
 /** No three hand strokes in a row within one hand's single-stroke time. */

@@ -24,10 +24,20 @@ const preset = (id: string): RuleCard => parseRuleCard(findBuiltInPreset(id)?.ca
 const pick = (drill: Drill, mask: number): DrillBar[] =>
   drill.bars.filter((_, b) => ((mask >> b) & 1) === 1);
 
-/** A drill of the card at the seed, or null when the card is refused (other specs cover that). */
-function drillOrNull(card: RuleCard, seed: string): Drill | null {
+/**
+ * A random card and its drill at the seed, or null when the card is invalid or refused (the
+ * engine's other properties cover those).
+ */
+function drillOf(raw: unknown, seed: string): { card: RuleCard; drill: Drill } | null {
+  let card: RuleCard;
   try {
-    return generateDrill(card, seed);
+    card = parseRuleCard(raw);
+  } catch (error) {
+    if (error instanceof RuleCardError) return null;
+    throw error;
+  }
+  try {
+    return { card, drill: generateDrill(card, seed) };
   } catch (error) {
     if (error instanceof RuleConflictError || error instanceof SearchExhaustedError) return null;
     throw error;
@@ -54,14 +64,9 @@ describe('pinned bars (generateDrill with keep)', () => {
         fc.string({ maxLength: 8 }),
         fc.integer({ min: 1, max: 15 }),
         (raw, seed, next, mask) => {
-          let card: RuleCard;
-          try {
-            card = parseRuleCard(raw);
-          } catch {
-            return;
-          }
-          const drill = drillOrNull(card, seed);
-          if (!drill) return;
+          const made = drillOf(raw, seed);
+          if (!made) return;
+          const { card, drill } = made;
           const keep = pick(drill, mask);
           if (keep.length === 0) return;
           try {
@@ -90,14 +95,9 @@ describe('pinned bars (generateDrill with keep)', () => {
         fc.string({ maxLength: 8 }),
         fc.string({ maxLength: 8 }),
         (raw, seed, next) => {
-          let card: RuleCard;
-          try {
-            card = parseRuleCard(raw);
-          } catch {
-            return;
-          }
-          const drill = drillOrNull(card, seed);
-          if (!drill) return;
+          const made = drillOf(raw, seed);
+          if (!made) return;
+          const { card, drill } = made;
           const again = generateDrill(card, next, { keep: drill.bars });
           expect(again).toEqual({ ...drill, seed: next });
         },
@@ -109,14 +109,9 @@ describe('pinned bars (generateDrill with keep)', () => {
   it('keeping no bars equals the two-argument call', () => {
     fc.assert(
       fc.property(cardArb, fc.string({ maxLength: 8 }), (raw, seed) => {
-        let card: RuleCard;
-        try {
-          card = parseRuleCard(raw);
-        } catch {
-          return;
-        }
-        const drill = drillOrNull(card, seed);
-        if (!drill) return;
+        const made = drillOf(raw, seed);
+        if (!made) return;
+        const { card, drill } = made;
         expect(JSON.stringify(generateDrill(card, seed, { keep: [] }))).toBe(JSON.stringify(drill));
         expect(JSON.stringify(generateDrill(card, seed, {}))).toBe(JSON.stringify(drill));
       }),

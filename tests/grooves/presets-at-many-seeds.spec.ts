@@ -30,7 +30,18 @@ const CARDS: [string, unknown][] = [
   ['eight-eight-linear-tension', EIGHT_EIGHT_CARD],
 ];
 
-/** A bar's tension on the card's reachable scale, 0 = its calmest bar, 1 = its tensest. */
+/**
+ * A bar's tension on the card's reachable scale, 0 = its calmest bar, 1 = its tensest.
+ *
+ * Not independent of the engine, and why: the scale is the drill's own `tensionReach` and the
+ * bar's own `tension`. An independent check needs an independent syncopation measure (the
+ * metrical tree with tuplets and groupings, docs/tension.md) and an independent reach (the
+ * least and greatest tension over every fill the card allows, which depends on the roles, the
+ * holes, the limbs and the linear budget as the engine reads them). The oracle has neither
+ * yet; it checks the rank order from the stored values. What is independent: the checker
+ * re-measures every stored tension, and tension/*.spec.ts checks the measure's maximum and
+ * range against every onset pattern of small grids.
+ */
 function relative(drill: Drill, tension: number): number {
   const { least, most } = drill.tensionReach;
   return most > least ? (tension - least) / (most - least) : 0;
