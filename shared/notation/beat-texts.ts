@@ -3,7 +3,7 @@
  * syllables under every slot of every beat.
  */
 import type { Stave, SVGContext } from 'vexflow/bravura';
-import { countPositions, syllableSize } from './count-positions';
+import { COUNT_ROOM, countPositions, spreadPositions, syllableSize } from './count-positions';
 import type { NotationBar } from './notation-model';
 import { svgText } from './svg-text';
 import type { EngravedBar } from './vexflow-bar';
@@ -90,7 +90,11 @@ function drawSticking(
   }
 }
 
-/** Every syllable of every beat, under its slot; lighter where nothing sounds. */
+/**
+ * Every syllable of every beat, under its slot; lighter where nothing sounds. All syllables of
+ * a bar share one size and each gets its slot's room, moved apart from a tightly set neighbour
+ * where needed, so a silent syllable reads as clearly as a sounding one.
+ */
 function drawCounts(
   ctx: SVGContext,
   bar: NotationBar,
@@ -106,16 +110,25 @@ function drawCounts(
     }
     return { subdivision: beat.subdivision, written };
   });
-  const positions = countPositions(anchors, stave.getNoteStartX(), stave.getNoteEndX());
+  const endX = stave.getNoteEndX();
+  const positions = countPositions(anchors, stave.getNoteStartX(), endX);
+  const flat = spreadPositions(
+    positions.flat(),
+    Math.min(stave.getNoteStartX(), positions[0]?.[0] ?? Infinity),
+    endX,
+    COUNT_ROOM,
+  );
+  const size = syllableSize([...flat, endX + COUNT_ROOM]);
+  let next = 0;
   bar.beats.forEach((beat, index) => {
-    const xs = positions[index] ?? [];
-    const size = syllableSize([...xs, positions[index + 1]?.[0] ?? stave.getNoteEndX()]);
+    const slots = flat.slice(next, next + (positions[index]?.length ?? 0));
+    next += slots.length;
     for (const { slot, text, strong, sounding } of beat.counts) {
-      const x = xs[slot];
+      const x = slots[slot];
       if (x === undefined) continue;
       const className = sounding ? 'tensile-count' : 'tensile-count tensile-count-silent';
       const label = svgText(ctx, text, x, y, className, {
-        size: strong ? 15 : size,
+        size,
         weight: strong ? 'bold' : 'normal',
         ...(sounding ? {} : { opacity: SILENT_COUNT_OPACITY }),
       });

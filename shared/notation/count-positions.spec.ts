@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { countPositions, syllableSize, SYLLABLE_SIZE } from './count-positions';
+import { countPositions, spreadPositions, syllableSize, SYLLABLE_SIZE } from './count-positions';
 
 const beat = (subdivision: number, written: Record<number, number>) => ({
   subdivision,
@@ -86,5 +86,38 @@ describe('syllableSize', () => {
     expect(tight).toBeLessThan(SYLLABLE_SIZE);
     expect(tight).toBeGreaterThanOrEqual(10);
     expect(syllableSize([0, 2, 4])).toBe(10);
+  });
+});
+
+describe('spreadPositions', () => {
+  it('moves tightly set syllables apart by the least amount, keeping the others', () => {
+    // Slots at 100, 104, 108 ("e & a" jammed under a dotted eighth beside a sixteenth).
+    expect(spreadPositions([80, 100, 104, 108, 160], 70, 200, 17)).toEqual([
+      80, 100, 117, 134, 160,
+    ]);
+  });
+
+  it('pulls syllables back from the bar end, keeping the gap', () => {
+    expect(spreadPositions([100, 190, 195], 90, 200, 17)).toEqual([100, 183, 200]);
+  });
+
+  it('spreads evenly when the bar is too short for the gap everywhere', () => {
+    expect(spreadPositions([0, 1, 2, 3, 4], 0, 40, 17)).toEqual([0, 10, 20, 30, 40]);
+  });
+
+  it('always leaves at least the gap (or the even share) between neighbours, in order', () => {
+    fc.assert(
+      fc.property(
+        fc.array(fc.integer({ min: 0, max: 400 }), { minLength: 1, maxLength: 24 }),
+        (raw) => {
+          const xs = [...raw].sort((a, b) => a - b);
+          const out = spreadPositions(xs, 0, 400, 17);
+          const need = Math.min(17, 400 / Math.max(xs.length - 1, 1));
+          for (let i = 1; i < out.length; i++)
+            expect(out[i]! - out[i - 1]!).toBeGreaterThanOrEqual(need - 1e-9);
+          expect(Math.max(...out)).toBeLessThanOrEqual(400);
+        },
+      ),
+    );
   });
 });

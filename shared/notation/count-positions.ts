@@ -67,6 +67,8 @@ export const SYLLABLE_SIZE = 13;
 const SMALLEST_SYLLABLE = 10;
 /** Centre-to-centre room a two-letter syllable needs at `SYLLABLE_SIZE` (from its set width). */
 const ROOM_AT_FULL_SIZE = 17;
+/** The room every syllable is given from its neighbour where the bar has it. */
+export const COUNT_ROOM = ROOM_AT_FULL_SIZE;
 
 /**
  * Font size for the syllables of one beat whose slots sit at `xs` (in order, followed by the next
@@ -79,4 +81,27 @@ export function syllableSize(xs: readonly number[]): number {
   if (tightest >= ROOM_AT_FULL_SIZE) return SYLLABLE_SIZE;
   const scaled = Math.floor(((SYLLABLE_SIZE * tightest) / ROOM_AT_FULL_SIZE) * 2) / 2;
   return Math.max(SMALLEST_SYLLABLE, scaled);
+}
+
+/**
+ * Moves the syllables of a bar (all its slots, in time order) apart where they sit closer than
+ * `gap`, as little as possible and within `startX`..`endX`: a slot whose notes the formatter set
+ * tightly (a sixteenth beside a dotted eighth in another voice) still gets room for its syllable,
+ * so silent syllables never run into their neighbours ("&a3"). Where the bar is too short for
+ * `gap` everywhere, the syllables are spread evenly over it.
+ */
+export function spreadPositions(
+  xs: readonly number[],
+  startX: number,
+  endX: number,
+  gap: number,
+): number[] {
+  if (xs.length === 0) return [];
+  if ((xs.length - 1) * gap > endX - startX)
+    return xs.map((_, i) => startX + ((endX - startX) * i) / Math.max(xs.length - 1, 1));
+  const out = [...xs];
+  for (let i = 1; i < out.length; i++) out[i] = Math.max(out[i]!, out[i - 1]! + gap);
+  out[out.length - 1] = Math.min(out[out.length - 1]!, endX);
+  for (let i = out.length - 2; i >= 0; i--) out[i] = Math.min(out[i]!, out[i + 1]! - gap);
+  return out;
 }

@@ -1,8 +1,9 @@
 /**
- * Draws the polyrhythm brackets (see `polyrhythmGroups`): a line over (or under) the cycle's
- * notes with short hooks at its ends and the ratio in a gap at its middle. A cycle that runs
- * onto the next system is drawn in two pieces, the ratio on the first, the open ends without
- * hooks.
+ * Draws the polyrhythm grouping marks (see `polyrhythmGroups`): a dashed line over (or under)
+ * the cycle's notes with short hooks at its ends and its label ("4 vs 3") in a gap at its middle.
+ * Dashed and without a ratio, so it is not read as a tuplet bracket (the notes under it are
+ * written at their real values). A cycle that runs onto the next system is drawn in two pieces,
+ * the label on the first, the open ends without hooks.
  */
 import type { SVGContext } from 'vexflow/bravura';
 import type { PolyrhythmGroup } from './polyrhythm';
@@ -40,7 +41,7 @@ export function drawPolyrhythmBrackets(
     if (!first || !last) continue;
     const element = ctx.openGroup();
     element.setAttribute('class', 'tensile-polyrhythm');
-    element.setAttribute('data-ratio', group.label);
+    element.setAttribute('data-label', group.label);
     element.setAttribute('data-notes', group.notes.map(key).join(' '));
     for (let system = first.system; system <= last.system; system++) {
       const band = systems[system];
@@ -68,8 +69,8 @@ function piece(
   ends: { open: boolean; close: boolean; label: string | null },
 ): void {
   const mid = (from + to) / 2;
-  // The ratio's gap: about 0.6 of the size a character, with air.
-  const half = ends.label ? (ends.label.length * LABEL_SIZE * 0.6) / 2 + 4 : 0;
+  // The label's gap: about 0.55 of the size a character, with air.
+  const half = ends.label ? (ends.label.length * LABEL_SIZE * 0.55) / 2 + 4 : 0;
   const segments: [number, number][] = ends.label
     ? [
         [from, mid - half],
@@ -84,13 +85,13 @@ function piece(
   path.setAttribute('d', d);
   path.setAttribute('fill', 'none');
   path.setAttribute('stroke-width', '1');
+  path.setAttribute('stroke-dasharray', '4 3');
   ctx.add(path);
   if (ends.label) {
-    const text = svgText(ctx, ends.label, mid, y + LABEL_SIZE * 0.35, 'tensile-polyrhythm-label', {
+    svgText(ctx, ends.label, mid, y + LABEL_SIZE * 0.35, 'tensile-polyrhythm-label', {
       size: LABEL_SIZE,
       weight: 'bold',
     });
-    text.setAttribute('font-style', 'italic');
   }
 }
 

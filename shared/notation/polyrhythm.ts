@@ -1,8 +1,10 @@
 /**
  * The polyrhythm's own grouping on the page: each cycle of a `polyrhythm` rule (4 even notes
- * over 3 beats) gets a bracket with its ratio ("4:3") spanning exactly the cycle's notes, so the
- * four can be seen among the grid's notes (E. Gould, "Behind Bars", Faber Music 2011, ch.
- * "Tuplets": a ratio where the number alone would be ambiguous; from memory).
+ * over 3 beats) gets a grouping line labelled "4 vs 3" spanning exactly the cycle's notes, so the
+ * four can be seen among the grid's notes. The notes are already written at their real values,
+ * so the mark carries no ratio: a "4:3" bracket tells a reader to play its notes as a tuplet
+ * (E. Gould, "Behind Bars", Faber Music 2011, ch. "Tuplets"; from memory), which would double the
+ * speed-up. "4 vs 3" as a text label is common practice.
  */
 import { FOOT_VOICES, type DrillBar, type VoiceId } from '../generator/drill';
 
@@ -17,7 +19,7 @@ export interface DrillInstant {
 
 /** One cycle of a polyrhythm: its ratio and its notes in time order. */
 export interface PolyrhythmGroup {
-  /** "4:3": `against` notes in the time of `span` beats. */
+  /** "4 vs 3": `against` notes in the time of `span` beats (a label, never a tuplet ratio). */
   readonly label: string;
   readonly notes: readonly DrillInstant[];
   /** The bracket goes under the staff for a stream of feet alone, else over it. */
@@ -59,7 +61,7 @@ export function polyrhythmGroups(
         notes.push(at);
       }
       if (notes.length === against)
-        groups.push({ label: `${against}:${span}`, notes, below: voices.every(isFoot) });
+        groups.push({ label: `${against} vs ${span}`, notes, below: voices.every(isFoot) });
     }
   }
   return groups;

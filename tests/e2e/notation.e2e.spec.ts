@@ -22,7 +22,7 @@ import {
 import { useServerAndBrowser } from '../support/browser-suite';
 import { DEMO_STUDENTS, DEMO_TEACHERS } from '../support/demo-accounts';
 import { STEP_PX, WEINBERG_STEPS } from '../support/drumset-staff';
-import { collisions, overlaps, readScore, type ScoreGeometry } from './notation.geometry';
+import { collisions, crowded, overlaps, readScore, type ScoreGeometry } from './notation.geometry';
 
 const SEED = 'lesson-12';
 
@@ -334,6 +334,17 @@ describe('engraving rules on the drawn score (Chromium)', () => {
       // Sticking and counts are read letter by letter: no two may overlap (common practice).
       expect(collisions(score.sticking), `${what}: sticking`).toEqual([]);
       expect(collisions(score.counts), `${what}: counting syllables`).toEqual([]);
+      // Silent syllables too get their slot's room and the same type as the sounding ones
+      // (common practice: the count is read as one line of even syllables).
+      expect(crowded(score.counts, 2), `${what}: counting syllables touching`).toEqual([]);
+      expect(
+        score.counts.some((c) => c.silent),
+        `${what}: silent syllables drawn`,
+      ).toBe(true);
+      // A phone's tight bar may set its whole count smaller, never one syllable alone.
+      const sizes = new Set(score.counts.map((c) => c.size));
+      if (width > 390) expect([...sizes], `${what}: one type size`).toHaveLength(1);
+      expect(Math.min(...sizes), `${what}: smallest syllable`).toBeGreaterThanOrEqual(10);
     }
   }
 
@@ -487,7 +498,7 @@ describe('engraving rules on the drawn score (Chromium)', () => {
     }
   });
 
-  it('brackets each 4:3 cycle with "4:3" from its first note to its last', async () => {
+  it('groups each 4:3 cycle under "4 vs 3", no ratio, from its first note to its last', async () => {
     const drill = presetDrill('four-over-three', 'lesson-12');
     const score = await engrave(drill, { width: 1100, ...FULL });
     const cycles = buildNotation(drill).polyrhythms;
@@ -495,10 +506,13 @@ describe('engraving rules on the drawn score (Chromium)', () => {
     expect(cycles.length).toBe(drill.bars.length);
     for (const [i, bracket] of score.polyrhythms.entries()) {
       const cycle = cycles[i]!;
-      expect(bracket.ratio).toBe('4:3');
-      // The bracket spans exactly the cycle's notes: its ends sit just outside the first and
-      // last notehead (E. Gould, "Behind Bars", ch. "Tuplets", from memory: a ratio bracket
-      // where the number alone would be ambiguous).
+      // The notes are spelled at their real values, so the mark carries no ratio: a "4:3"
+      // bracket would tell the reader to play them as a tuplet (E. Gould, "Behind Bars", Faber
+      // Music 2011, ch. "Tuplets", from memory). "4 vs 3" as a label: common practice.
+      expect(bracket.label).toBe('4 vs 3');
+      expect(bracket.label).not.toMatch(/\d\s*:\s*\d/);
+      // The mark spans exactly the cycle's notes: its ends sit just outside the first and last
+      // notehead.
       const head = (at: { bar: number; beat: number; slot: number }) => {
         const bar = score.bars.find((b) => b.bar === at.bar)!;
         return [...bar.layers.hands.events, ...bar.layers.feet.events].find(

@@ -48,9 +48,14 @@ export interface ScoreGeometry {
   readonly stems: readonly Box[];
   readonly beamLines: readonly Box[];
   readonly sticking: readonly (Box & { readonly text: string })[];
-  readonly counts: readonly (Box & { readonly text: string })[];
+  /** Every counting syllable, sounding or silent, with its font size in pixels. */
+  readonly counts: readonly (Box & {
+    readonly text: string;
+    readonly size: number;
+    readonly silent: boolean;
+  })[];
   readonly bars: readonly BarGeometry[];
-  readonly polyrhythms: readonly (Box & { readonly ratio: string; readonly notes: string })[];
+  readonly polyrhythms: readonly (Box & { readonly label: string; readonly notes: string })[];
   readonly title: (Box & { readonly text: string }) | null;
   readonly tempo: (Box & { readonly text: string }) | null;
   readonly tensionMarks: readonly {
@@ -148,7 +153,7 @@ export async function readScore(page: Page, scope = 'body'): Promise<ScoreGeomet
       });
       const polyrhythms = [...svg.querySelectorAll('.tensile-polyrhythm')].map((g) => ({
         ...bbox(g.querySelector('path')!),
-        ratio: g.getAttribute('data-ratio') ?? '',
+        label: g.getAttribute('data-label') ?? '',
         notes: g.getAttribute('data-notes') ?? '',
       }));
       const title = texts('.tensile-title')[0] ?? null;
@@ -164,7 +169,12 @@ export async function readScore(page: Page, scope = 'body'): Promise<ScoreGeomet
         stems,
         beamLines,
         sticking: texts('.tensile-sticking'),
-        counts: texts('.tensile-count'),
+        counts: [...svg.querySelectorAll('.tensile-count')].map((t) => ({
+          ...ink(t),
+          text: t.textContent ?? '',
+          size: parseFloat(getComputedStyle(t).fontSize),
+          silent: t.classList.contains('tensile-count-silent'),
+        })),
         bars,
         polyrhythms,
         title,
@@ -193,6 +203,31 @@ export function collisions(boxes: readonly (Box & { readonly text: string })[]):
         found.push(
           `${a.text}@${Math.round(a.left)},${Math.round(a.top)} / ${b.text}@${Math.round(b.left)},${Math.round(b.top)}`,
         );
+    }
+  }
+  return found;
+}
+
+/**
+ * Neighbours on one text row (same baseline) closer than `gap` pixels, as "a|b@x" for a readable
+ * failure: touching ink ("&a3") is as hard to read as overlapping ink.
+ */
+export function crowded(
+  boxes: readonly (Box & { readonly text: string })[],
+  gap: number,
+): string[] {
+  const rows = new Map<number, (Box & { readonly text: string })[]>();
+  for (const box of boxes) {
+    const key = Math.round(box.bottom / 8);
+    rows.set(key, [...(rows.get(key) ?? []), box]);
+  }
+  const found: string[] = [];
+  for (const row of rows.values()) {
+    const sorted = [...row].sort((a, b) => a.left - b.left);
+    for (let i = 1; i < sorted.length; i++) {
+      const a = sorted[i - 1]!;
+      const b = sorted[i]!;
+      if (b.left - a.right < gap) found.push(`${a.text}|${b.text}@${Math.round(a.right)}`);
     }
   }
   return found;
