@@ -30,7 +30,8 @@ const GOOD = {
   rules: [{ kind: 'backbeat', voice: 'snare', beats: [2, 4], shift: 0 }],
 };
 
-describe('npm run generate (generate-drill.ts)', () => {
+// Each case starts one or two `tsx` processes; on a busy 2-core machine that takes seconds each.
+describe('npm run generate (generate-drill.ts)', { timeout: 120_000 }, () => {
   it('prints the drill of a good card as JSON, the same for the same seed', () => {
     const path = cardFile('good.json', GOOD);
     const first = run('--card', path, '--seed', 'lesson-12');
