@@ -459,6 +459,11 @@ function staveFor(
 function formatBar(engraved: EngravedBar, stave: Stave): void {
   const voices = engraved.voices.map((v) => v.voice);
   new Formatter().joinVoices(voices).formatToStave(voices, stave);
+  // Every voice keeps its own rests (hands' high, feet's low, as two-voice parts are written), so
+  // each voice's values add up to its beat; VexFlow would draw one rest for two voices resting
+  // together, leaving the feet's tuplet a value short.
+  for (const { note, event } of engraved.notes)
+    if (event.kind === 'rest') note.renderOptions.draw = true;
   // Stems reach their beams before anything hangs on them: VexFlow places an accent at the stem's
   // tip when the note is drawn, and a beam fixed its stems' length when the bar was first
   // measured (before the notes had a stave), so without this the accent of a beamed note lands
