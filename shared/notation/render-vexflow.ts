@@ -289,6 +289,8 @@ const STICKING_CLEARANCE = 8;
 /** Height of a tuplet number over its bracket line, and of an accent over a stem's tip. */
 const TUPLET_NUMBER = 12;
 const ACCENT_HEIGHT = 14;
+/** "sim." stands this much higher than its bracket's number (see `drawSimile`). */
+const SIMILE = 14;
 
 /**
  * Every shown tuplet bracket of a system on one line: the hands' at the highest, the feet's at
@@ -316,7 +318,7 @@ function highestMark(bars: readonly EngravedBar[], topLineY: number): number {
     }
     for (const t of bar.tuplets)
       if (t.shown && t.layer === 'hands')
-        top = Math.min(top, t.tuplet.getYPosition() - TUPLET_NUMBER);
+        top = Math.min(top, t.tuplet.getYPosition() - TUPLET_NUMBER - (t.simile ? SIMILE : 0));
   }
   return top;
 }

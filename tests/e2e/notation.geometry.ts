@@ -73,6 +73,8 @@ export interface ScoreGeometry {
   }[];
   readonly tensionLegend: boolean;
   readonly simile: number;
+  /** Ink of each "sim.". */
+  readonly simileBoxes: readonly (Box & { readonly text: string })[];
   readonly shownTuplets: number;
 }
 
@@ -193,6 +195,7 @@ export async function readScore(page: Page, scope = 'body'): Promise<ScoreGeomet
         tensionMarks,
         tensionLegend: svg.querySelector('.tensile-tension-legend') !== null,
         simile: svg.querySelectorAll('.tensile-simile').length,
+        simileBoxes: texts('.tensile-simile'),
         shownTuplets: svg.querySelectorAll('[data-tuplet]').length,
       };
     });
