@@ -67,8 +67,8 @@ export const SYLLABLE_SIZE = 13;
 const SMALLEST_SYLLABLE = 10;
 /** Centre-to-centre room a two-letter syllable needs at `SYLLABLE_SIZE` (from its set width). */
 const ROOM_AT_FULL_SIZE = 17;
-/** The room every syllable is given from its neighbour where the bar has it. */
-export const COUNT_ROOM = ROOM_AT_FULL_SIZE;
+/** The room every syllable is given from its neighbour where the bar has it (clear air between two syllables at full size). */
+export const COUNT_ROOM = 22;
 
 /**
  * Font size for the syllables of one beat whose slots sit at `xs` (in order, followed by the next

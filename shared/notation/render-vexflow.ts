@@ -169,6 +169,8 @@ function engrave(
   const counts = options.showCounts ? COUNTS_ROW : 0;
   const systemHeight = sticking + HEADROOM + 4 * STAVE_SPACE + FOOTROOM + counts;
   const gap = options.gapBelowSystem ?? 0;
+  // Air between one system's counting and the next one's sticking, so each reads with its own.
+  const separation = options.showSticking ? SYSTEM_SEPARATION : 0;
   // The marks start over the first bar (the key, if drawn, stays to their left); a line too
   // narrow for them all puts the swing marking on a line of its own.
   const shown = (options.showMarks ?? true) ? model.marks : { tempo: null, swing: null };
@@ -190,22 +192,49 @@ function engrave(
   if (keyBand > 0) drawLegend(ctx, model, MARGIN_X, head - keyBand + KEY_BAND_STAVE_Y, ink);
   const instants = new Map<string, InstantBox>();
   const bands: SystemBand[] = [];
+  const hasPolyrhythmAbove = model.polyrhythms.some((g) => !g.below);
   plans.forEach((plan, systemIndex) => {
-    const systemTop = head + systemIndex * (systemHeight + gap);
+    const systemTop = head + systemIndex * (systemHeight + gap + separation);
     const topLineY = systemTop + sticking + HEADROOM;
     let x = MARGIN_X + (systemIndex === 0 ? legend : 0);
     if (systemIndex === 0 && keyBeside)
       drawLegend(ctx, model, MARGIN_X, topLineY - STAVE_TOP_OFFSET, ink);
-    plan.bars.forEach((barIndex, i) => {
+    // The system's bars are formatted first, so its tuplet brackets can share one line and its
+    // sticking can sit just over its highest mark, close to its own staff.
+    let staveX = x;
+    const staves = plan.bars.map((barIndex, i) => {
       const bar = model.bars[barIndex]!;
       const width = plan.widths[i]!;
-      const stave = staveFor(bar, model, x, topLineY - STAVE_TOP_OFFSET, width, i === 0, barIndex);
+      const stave = staveFor(
+        bar,
+        model,
+        staveX,
+        topLineY - STAVE_TOP_OFFSET,
+        width,
+        i === 0,
+        barIndex,
+      );
+      staveX += width;
       // Full-strength lines (VexFlow's default is grey) so the staff reads from a music stand.
       stave.setStyle({ strokeStyle: ink, fillStyle: ink });
       stave.setDefaultLedgerLineStyle({ strokeStyle: ink, lineWidth: 2 });
+      formatBar(engravedBars[barIndex]!, stave);
+      return stave;
+    });
+    const systemBars = plan.bars.map((barIndex) => engravedBars[barIndex]!);
+    levelTuplets(systemBars);
+    const ceiling = Math.min(
+      highestMark(systemBars, topLineY),
+      hasPolyrhythmAbove ? topLineY - POLYRHYTHM_ABOVE - POLYRHYTHM_LABEL : Infinity,
+    );
+    const stickingY = Math.max(topLineY - HEADROOM - 2, ceiling - STICKING_CLEARANCE);
+    plan.bars.forEach((barIndex, i) => {
+      const bar = model.bars[barIndex]!;
+      const width = plan.widths[i]!;
+      const stave = staves[i]!;
       const engraved = engravedBars[barIndex]!;
       if (showTension) colourSyncopations(bar, engraved, TENSION_INK);
-      drawBar(ctx, bar, engraved, stave, options, topLineY);
+      drawBar(ctx, bar, engraved, stave, options, topLineY, stickingY);
       if (showTension)
         drawTensionMarks(
           ctx,
@@ -239,7 +268,7 @@ function engrave(
     });
   });
   drawPolyrhythmBrackets(ctx, model.polyrhythms, instants, bands);
-  const height = head + plans.length * (systemHeight + gap);
+  const height = head + plans.length * (systemHeight + gap + separation) - separation;
   ctx.resize(options.width, height);
   svg.setAttribute('viewBox', `0 0 ${options.width} ${height}`);
   // VexFlow's invisible hit areas: nothing here is clicked, and a ghost note's parenthesis gives
@@ -251,6 +280,48 @@ function engrave(
 
 /** The polyrhythm brackets' lines: over the hands' stems and accents, under the feet's stems. */
 const POLYRHYTHM_ABOVE = 66;
+/** Height of a polyrhythm label over its line. */
+const POLYRHYTHM_LABEL = 10;
+/** Space between systems when sticking is shown. */
+const SYSTEM_SEPARATION = 24;
+/** Gap between the sticking's baseline and the highest mark of its system. */
+const STICKING_CLEARANCE = 8;
+/** Height of a tuplet number over its bracket line, and of an accent over a stem's tip. */
+const TUPLET_NUMBER = 12;
+const ACCENT_HEIGHT = 14;
+/** "sim." stands this much higher than its bracket's number (see `drawSimile`). */
+const SIMILE = 14;
+
+/**
+ * Every shown tuplet bracket of a system on one line: the hands' at the highest, the feet's at
+ * the lowest, so the brackets do not step up and down with the accents (common practice).
+ */
+function levelTuplets(bars: readonly EngravedBar[]): void {
+  for (const layer of ['hands', 'feet'] as const) {
+    const shown = bars.flatMap((b) => b.tuplets.filter((t) => t.shown && t.layer === layer));
+    if (shown.length === 0) continue;
+    const ys = shown.map((t) => t.tuplet.getYPosition());
+    const line = layer === 'hands' ? Math.min(...ys) : Math.max(...ys);
+    for (const t of shown) t.tuplet.moveTo(line);
+  }
+}
+
+/** The highest y any mark of the system's bars reaches over the staff (stems, accents, "5"s). */
+function highestMark(bars: readonly EngravedBar[], topLineY: number): number {
+  let top = topLineY;
+  for (const bar of bars) {
+    for (const { note, layer } of bar.notes) {
+      if (layer !== 'hands') continue;
+      const accented = note.getModifiers().some((m) => m.getCategory() === 'Articulation');
+      const tip = note.hasStem() ? note.getStemExtents().topY : note.getYs()[0]! - STAVE_SPACE;
+      top = Math.min(top, tip - (accented ? ACCENT_HEIGHT : 0));
+    }
+    for (const t of bar.tuplets)
+      if (t.shown && t.layer === 'hands')
+        top = Math.min(top, t.tuplet.getYPosition() - TUPLET_NUMBER - (t.simile ? SIMILE : 0));
+  }
+  return top;
+}
 const POLYRHYTHM_BELOW = 52;
 
 /** The horizontal extent of the notes at each instant of a drawn bar. */
@@ -387,16 +458,14 @@ function staveFor(
   return stave;
 }
 
-function drawBar(
-  ctx: SVGContext,
-  bar: NotationBar,
-  engraved: EngravedBar,
-  stave: Stave,
-  options: RenderOptions,
-  topLineY: number,
-): void {
+function formatBar(engraved: EngravedBar, stave: Stave): void {
   const voices = engraved.voices.map((v) => v.voice);
   new Formatter().joinVoices(voices).formatToStave(voices, stave);
+  // Every voice keeps its own rests (hands' high, feet's low, as two-voice parts are written), so
+  // each voice's values add up to its beat; VexFlow would draw one rest for two voices resting
+  // together, leaving the feet's tuplet a value short.
+  for (const { note, event } of engraved.notes)
+    if (event.kind === 'rest') note.renderOptions.draw = true;
   // Stems reach their beams before anything hangs on them: VexFlow places an accent at the stem's
   // tip when the note is drawn, and a beam fixed its stems' length when the bar was first
   // measured (before the notes had a stave), so without this the accent of a beamed note lands
@@ -406,6 +475,17 @@ function drawBar(
     beam.postFormatted = false;
     beam.postFormat();
   }
+}
+
+function drawBar(
+  ctx: SVGContext,
+  bar: NotationBar,
+  engraved: EngravedBar,
+  stave: Stave,
+  options: RenderOptions,
+  topLineY: number,
+  stickingY: number,
+): void {
   const group = ctx.openGroup();
   group.setAttribute('class', 'tensile-bar');
   group.setAttribute('data-bar', String(bar.bar));
@@ -431,7 +511,7 @@ function drawBar(
     ctx.closeGroup();
   }
   drawBeatTexts(ctx, bar, engraved, stave, {
-    stickingY: options.showSticking ? topLineY - HEADROOM - 2 : null,
+    stickingY: options.showSticking ? stickingY : null,
     countsY: options.showCounts ? topLineY + 4 * STAVE_SPACE + FOOTROOM + 16 : null,
   });
   ctx.closeGroup();

@@ -73,4 +73,17 @@ describe('planSystems', () => {
     // scales); the second fits its line at 260, above its least width of 250.
     expect(plan(300).map((p) => p.widths)).toEqual([[360], [300]]);
   });
+
+  it('justifies a last line holding at least half the bars of the fullest other line', () => {
+    // Common practice: systems run the full width; only a nearly empty last line stays short.
+    const sum = (widths: readonly number[]) => widths.reduce((a, b) => a + b, 0);
+    const two = planSystems(input([200, 200]));
+    expect(two).toHaveLength(1);
+    expect(sum(two[0]!.widths)).toBeCloseTo(1000, 6);
+    const five = planSystems(input([200, 200, 200, 200, 300]));
+    expect(five.map((p) => p.bars.length)).toEqual([3, 2]);
+    expect(sum(five[1]!.widths)).toBeCloseTo(1000, 6);
+    // A lone bar keeps its natural width, stretched at most 1.5×.
+    expect(planSystems(input([200]))[0]!.widths).toEqual([200 * 1.5 + 60]);
+  });
 });

@@ -41,9 +41,23 @@ export function planSystems(input: SystemLayoutInput): SystemPlan[] {
   sizes.forEach((size, index) => {
     const bars = Array.from({ length: size }, (_, i) => next + i);
     next += size;
-    plans.push({ bars, widths: stretch(input, bars, index, index === sizes.length - 1) });
+    plans.push({ bars, widths: stretch(input, bars, index, short(sizes, index)) });
   });
   return plans;
+}
+
+/**
+ * Whether system `index` is a short last line, left at its natural widths rather than justified:
+ * only a last line holding under half the bars of the fullest other line (or a lone bar alone).
+ * A last line that stops at two thirds of the width looks unfinished (common practice: systems
+ * are justified, only a last line with little in it is left short).
+ */
+function short(sizes: readonly number[], index: number): boolean {
+  if (index !== sizes.length - 1) return false;
+  const others = sizes.slice(0, -1);
+  const size = sizes[index]!;
+  if (others.length === 0) return size < 2;
+  return size * 2 < Math.max(...others);
 }
 
 function needed(input: SystemLayoutInput, bars: readonly number[], systemIndex: number): number {
@@ -93,7 +107,7 @@ function stretch(
   input: SystemLayoutInput,
   bars: readonly number[],
   systemIndex: number,
-  last: boolean,
+  shortLast: boolean,
 ): number[] {
   const natural = bars.map((bar) => input.barWidths[bar] ?? 0);
   const naturalSum = natural.reduce((a, b) => a + b, 0);
@@ -105,7 +119,7 @@ function stretch(
     return [Math.max(line, Math.min(least, naturalSum)) + start];
   }
   const room = Math.max(line, naturalSum);
-  const factor = last ? Math.min(room / naturalSum, 1.5) : room / naturalSum;
+  const factor = shortLast ? Math.min(room / naturalSum, 1.5) : room / naturalSum;
   return natural.map((w, i) => w * factor + (i === 0 ? start : 0));
 }
 

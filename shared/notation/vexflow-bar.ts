@@ -36,8 +36,16 @@ export interface EngravedNote {
   readonly event: NotationEvent;
 }
 
+/** A tuplet whose bracket can be moved to a line shared with the other brackets of its system. */
+export class LevelTuplet extends Tuplet {
+  /** Set the bracket at `y` (its line, as `getYPosition` gives it). */
+  moveTo(y: number): void {
+    this.options.yOffset += y - this.getYPosition();
+  }
+}
+
 export interface EngravedTuplet {
-  readonly tuplet: Tuplet;
+  readonly tuplet: LevelTuplet;
   readonly layer: Layer;
   readonly numNotes: number;
   /** The beat (from 1) the bracket is over. */
@@ -99,7 +107,7 @@ function addBeamsAndTuplets(
   }
   for (const { ratio, events, shown, simile } of layerBar.tuplets) {
     const accented = events.some((i) => layerBar.events[i]?.accent);
-    const tuplet = new Tuplet(
+    const tuplet = new LevelTuplet(
       events.map((i) => staveNotes[i]!),
       {
         numNotes: ratio.numNotes,

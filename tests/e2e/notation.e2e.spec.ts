@@ -316,6 +316,35 @@ describe('engraving rules on the drawn score (Chromium)', () => {
 
   const FULL: Omit<RenderOptions, 'width'> = { showSticking: true, showCounts: true };
 
+  /** Sticking letters closer to the counting row above them than to their own staff's marks. */
+  function strayStickings(score: ScoreGeometry): string[] {
+    const stray: string[] = [];
+    for (const letter of score.sticking) {
+      // A stack (R over L) reads as one: its lowest letter is the one nearest the staff.
+      const stacked = score.sticking.some(
+        (o) =>
+          o !== letter &&
+          Math.abs(o.left - letter.left) < 3 &&
+          o.top > letter.bottom &&
+          o.top - letter.bottom < 20,
+      );
+      if (stacked) continue;
+      const above = score.counts.filter((c) => c.bottom <= letter.top);
+      if (above.length === 0) continue;
+      const countsBottom = Math.max(...above.map((c) => c.bottom));
+      const ownTop = Math.min(
+        ...score.bars.map((b) => b.topLineY).filter((y) => y > letter.bottom),
+      );
+      const marks = [...score.stems, ...score.tupletBoxes, ...score.accents]
+        .filter((m) => m.top >= letter.bottom - 1 && m.top < ownTop)
+        .map((m) => m.top);
+      const nearest = Math.min(ownTop, ...marks) - letter.bottom;
+      if (letter.top - countsBottom <= nearest)
+        stray.push(`${letter.text}@${Math.round(letter.left)},${Math.round(letter.top)}`);
+    }
+    return stray;
+  }
+
   /**
    * The rules every engraving keeps, at a page's width and a phone's: accents clear of beams and
    * stems, sticking letters and counting syllables never overlapping each other.
@@ -332,7 +361,13 @@ describe('engraving rules on the drawn score (Chromium)', () => {
       );
       expect(hidden, `${what}: accents touching a beam or stem`).toEqual([]);
       // Sticking and counts are read letter by letter: no two may overlap (common practice).
-      expect(collisions(score.sticking), `${what}: sticking`).toEqual([]);
+      // "sim." counts as one more word on the sticking's level: neither may cover the other.
+      expect(collisions([...score.sticking, ...score.simileBoxes]), `${what}: sticking`).toEqual(
+        [],
+      );
+      // Each sticking row reads with its own system: nearer the marks of its staff than the
+      // counting row of the system above (common practice: text belongs to the nearest staff).
+      expect(strayStickings(score), `${what}: sticking nearer the system above`).toEqual([]);
       expect(collisions(score.counts), `${what}: counting syllables`).toEqual([]);
       // Silent syllables too get their slot's room and the same type as the sounding ones
       // (common practice: the count is read as one line of even syllables).
@@ -401,15 +436,12 @@ describe('engraving rules on the drawn score (Chromium)', () => {
             expect(events.map((e) => (e.kind === 'note' ? 'x' : '-')).join('')).toBe(
               [0, 1, 2, 3, 4].map((slot) => (struck.has(slot) ? 'x' : '-')).join(''),
             );
-            // A rest left undrawn is one the other voice draws: same beat, slot and value.
-            const other = bar.layers[layer === 'hands' ? 'feet' : 'hands'].events;
-            for (const rest of events.filter((e) => e.box === null)) {
-              const shared = other.find(
-                (e) => e.beat === rest.beat && e.slot === rest.slot && e.kind === 'rest',
-              );
-              expect(shared?.duration).toBe(rest.duration);
-              expect(shared?.box).not.toBeNull();
-            }
+            // Every value of each voice is drawn, its own rests too, so each voice under its "5"
+            // adds up to the beat (common practice in two-voice parts: each voice complete).
+            expect(
+              events.filter((e) => e.box === null),
+              `${id} bar ${bar.bar} ${layer}`,
+            ).toEqual([]);
             // Drawn in time order, left to right.
             const xs = events.flatMap((e) => (e.box ? [e.box.left] : []));
             expect([...xs].sort((a, b) => a - b)).toEqual(xs);
@@ -418,6 +450,18 @@ describe('engraving rules on the drawn score (Chromium)', () => {
         }
       }
       expect(checked, `${id}: quintuplet beats`).toBeGreaterThan(0);
+      // The brackets of a system sit on one line per voice, not stepping up over accented
+      // beats (common practice: a level row of brackets reads as one grid).
+      for (const layer of ['hands', 'feet'] as const) {
+        for (const line of new Set(score.bars.map((b) => b.topLineY))) {
+          const edges = score.bars
+            .filter((b) => b.topLineY === line)
+            .flatMap((b) => b.layers[layer].tuplets)
+            .map((t) => (layer === 'hands' ? t.top : t.bottom));
+          if (edges.length > 1)
+            expect(Math.max(...edges) - Math.min(...edges), `${id} ${layer}`).toBeLessThan(1);
+        }
+      }
     }
   });
 

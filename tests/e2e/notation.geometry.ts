@@ -31,7 +31,13 @@ export interface LayerGeometry {
   readonly events: readonly WrittenEvent[];
   /** Horizontal extent of each beam group (its stems and lines). */
   readonly beams: readonly { readonly left: number; readonly right: number }[];
-  readonly tuplets: readonly { readonly n: number; readonly beat: number }[];
+  /** Shown tuplet brackets, with the top and bottom of their ink (bracket and number). */
+  readonly tuplets: readonly {
+    readonly n: number;
+    readonly beat: number;
+    readonly top: number;
+    readonly bottom: number;
+  }[];
 }
 
 export interface BarGeometry {
@@ -47,6 +53,8 @@ export interface ScoreGeometry {
   /** Stems (in notes and in beams) and beam lines. */
   readonly stems: readonly Box[];
   readonly beamLines: readonly Box[];
+  /** Tuplet brackets with their numbers. */
+  readonly tupletBoxes: readonly Box[];
   readonly sticking: readonly (Box & { readonly text: string })[];
   /** Every counting syllable, sounding or silent, with its font size in pixels. */
   readonly counts: readonly (Box & {
@@ -65,6 +73,8 @@ export interface ScoreGeometry {
   }[];
   readonly tensionLegend: boolean;
   readonly simile: number;
+  /** Ink of each "sim.". */
+  readonly simileBoxes: readonly (Box & { readonly text: string })[];
   readonly shownTuplets: number;
 }
 
@@ -138,6 +148,8 @@ export async function readScore(page: Page, scope = 'body'): Promise<ScoreGeomet
             ? [...group.querySelectorAll('[data-tuplet]')].map((t) => ({
                 n: Number(t.getAttribute('data-tuplet')),
                 beat: Number(t.getAttribute('data-beat')),
+                top: bbox(t).top,
+                bottom: bbox(t).bottom,
               }))
             : [];
           return { events, beams, tuplets };
@@ -168,6 +180,7 @@ export async function readScore(page: Page, scope = 'body'): Promise<ScoreGeomet
         accents,
         stems,
         beamLines,
+        tupletBoxes: [...svg.querySelectorAll('[data-tuplet]')].map(bbox),
         sticking: texts('.tensile-sticking'),
         counts: [...svg.querySelectorAll('.tensile-count')].map((t) => ({
           ...ink(t),
@@ -182,6 +195,7 @@ export async function readScore(page: Page, scope = 'body'): Promise<ScoreGeomet
         tensionMarks,
         tensionLegend: svg.querySelector('.tensile-tension-legend') !== null,
         simile: svg.querySelectorAll('.tensile-simile').length,
+        simileBoxes: texts('.tensile-simile'),
         shownTuplets: svg.querySelectorAll('[data-tuplet]').length,
       };
     });
