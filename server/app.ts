@@ -45,6 +45,9 @@ import {
 import { StudentsService } from './students/students-service';
 import { createStudentsRouter } from './students/students-router';
 import { createUsersRouter } from './users/users-router';
+import { WorksheetsRepository } from './worksheets/worksheets-repository';
+import { createWorksheetsRouter } from './worksheets/worksheets-router';
+import { WorksheetsService } from './worksheets/worksheets-service';
 import { createSpaRouter } from './web/spa';
 
 /** What {@link createApp} needs; everything but `config` and `db` has a default. */
@@ -144,6 +147,8 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/drills', answerWrongMethods(createDrillsRouter(drillsService, seedLinks)));
   // Anyone may open a share link: its routes state `allowAnyone`, and sessions stay optional.
   app.use('/api/seed-links', answerWrongMethods(createSeedLinksRouter(seedLinks)));
+  const worksheets = new WorksheetsService(new WorksheetsRepository(db), drills, presets);
+  app.use('/api/worksheets', answerWrongMethods(createWorksheetsRouter(worksheets)));
   app.use('/api', apiNotFound);
 
   app.use(createSpaRouter(deps.browserDist));
