@@ -53,7 +53,8 @@ describe('drillToMidi read back with @tonejs/midi', () => {
       expect(midi.header.timeSignatures.map((t) => t.timeSignature)).toEqual([[beats, unit]]);
       expect(midi.header.tempos).toHaveLength(1);
       // The card counts beats of its unit a minute; the file, microseconds a quarter note.
-      const exact = 60_000_000 / ((drill.card.tempo * unit) / 4);
+      // A beat of the unit lasts 60 000 000 / tempo µs, a quarter note unit / 4 beats.
+      const exact = (60_000_000 / drill.card.tempo) * (unit / 4);
       expect(Math.abs(60_000_000 / midi.header.tempos[0]!.bpm - exact)).toBeLessThanOrEqual(0.5);
       expect(midi.header.name).toBe(`Drill: ${name}`);
     });

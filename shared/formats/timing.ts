@@ -61,7 +61,7 @@ export function compoundMeter(meter: {
   return isCompound({ unit: meter.unit as 2 | 4 | 8 | 16, grouping });
 }
 
-/** Quarter notes a minute for a tempo counted in beats of the meter's unit. */
+/** Quarter notes a minute for a tempo counted in beats of the meter's unit (132 eighths: 66). */
 export function quarterBpm(tempo: number, unit: number): number {
-  return (tempo * unit) / 4;
+  return (tempo * 4) / unit;
 }

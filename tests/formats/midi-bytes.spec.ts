@@ -108,9 +108,9 @@ describe('exported files, byte by byte', () => {
 
       const [conductor, drums] = file.trackEvents as [SmfEvent[], SmfEvent[]];
       // SMF §3 Set Tempo: FF 51 03 and microseconds a quarter note in 24 bits. The card counts
-      // beats of its unit a minute.
+      // beats of its unit a minute: a beat lasts 60 000 000 / tempo µs, a quarter unit / 4 beats.
       const [tempo] = metas(conductor, 0x51);
-      const micro = Math.round(60_000_000 / ((drill.card.tempo * unit) / 4));
+      const micro = Math.round((60_000_000 / drill.card.tempo) * (unit / 4));
       expect(tempo?.tick).toBe(0);
       expect(hex(tempo!.data)).toBe(hex([micro >> 16, (micro >> 8) & 0xff, micro & 0xff]));
       // SMF §3 Time Signature: FF 58 04 nn dd cc bb: numerator, the denominator as a power of
@@ -151,6 +151,8 @@ describe('exported files, byte by byte', () => {
     // FF 51 03 07 A1 20.
     const sixEight = readSmf(drillToMidi(drillOf('6/8'), 'x')).trackEvents[0]!;
     expect(hex([0xff, 0x58, 4, ...metas(sixEight, 0x58)[0]!.data])).toBe('FF 58 04 06 03 24 08');
+    // The preset's 132 eighths a minute are 66 quarters: 909 091 µs a quarter (computed).
+    expect(hex(metas(sixEight, 0x51)[0]!.data)).toBe('0D DF 23');
     const fourFour = readSmf(drillToMidi(drillOf('quintuplets', { tempo: 120 }), 'x'))
       .trackEvents[0]!;
     expect(hex([0xff, 0x58, 4, ...metas(fourFour, 0x58)[0]!.data])).toBe('FF 58 04 04 02 18 08');
