@@ -17,6 +17,8 @@ import { ENGINE_VERSION } from '../shared/generator/index';
 import { engineGenerator, type DrillGenerator } from './drills/drill-generator';
 import { DrillsRepository } from './drills/drills-repository';
 import { createDrillsRouter } from './drills/drills-router';
+import { createExportsRouter } from './exports/exports-router';
+import { ExportsService } from './exports/exports-service';
 import { DrillsService } from './drills/drills-service';
 import { PresetsRepository } from './presets/presets-repository';
 import { createPresetsRouter } from './presets/presets-router';
@@ -144,6 +146,8 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/drills', answerWrongMethods(createDrillsRouter(drillsService, seedLinks)));
   // Anyone may open a share link: its routes state `allowAnyone`, and sessions stay optional.
   app.use('/api/seed-links', answerWrongMethods(createSeedLinksRouter(seedLinks)));
+  const exportsService = new ExportsService({ presets, drills, generate });
+  app.use('/api/exports', answerWrongMethods(createExportsRouter(exportsService)));
   app.use('/api', apiNotFound);
 
   app.use(createSpaRouter(deps.browserDist));
