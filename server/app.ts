@@ -19,6 +19,8 @@ import { ENGINE_VERSION } from '../shared/generator/index';
 import { engineGenerator, type DrillGenerator } from './drills/drill-generator';
 import { DrillsRepository } from './drills/drills-repository';
 import { createDrillsRouter } from './drills/drills-router';
+import { createExportsRouter } from './exports/exports-router';
+import { ExportsService } from './exports/exports-service';
 import { DrillsService } from './drills/drills-service';
 import { PresetsRepository } from './presets/presets-repository';
 import { createPresetsRouter } from './presets/presets-router';
@@ -190,6 +192,8 @@ export function createApp(deps: AppDeps): Express {
   const worksheets = new WorksheetsService(new WorksheetsRepository(db), drills, presets);
   app.use('/api/worksheets', answerWrongMethods(createWorksheetsRouter(worksheets)));
   app.use('/api/outbox', answerWrongMethods(createOutboxRouter(outbox)));
+  const exportsService = new ExportsService({ presets, drills, generate });
+  app.use('/api/exports', answerWrongMethods(createExportsRouter(exportsService)));
   app.use('/api', apiNotFound);
 
   app.use(createSpaRouter(deps.browserDist));
