@@ -45,8 +45,10 @@ import {
 import { StudentsService } from './students/students-service';
 import { createStudentsRouter } from './students/students-router';
 import { createUsersRouter } from './users/users-router';
+import { renderWorksheetPdf } from './pdf/render-worksheet';
+import { worksheetPrint, type WorksheetPdfDeps } from './worksheets/worksheet-pdf';
 import { WorksheetsRepository } from './worksheets/worksheets-repository';
-import { createWorksheetsRouter } from './worksheets/worksheets-router';
+import { createWorksheetsRouter, type WorksheetPdfRoute } from './worksheets/worksheets-router';
 import { WorksheetsService } from './worksheets/worksheets-service';
 import { createSpaRouter } from './web/spa';
 
@@ -67,6 +69,8 @@ export interface AppDeps {
   readonly engineVersion?: string;
   /** Engraves preset thumbnails; defaults to the server's VexFlow renderer. */
   readonly renderThumbnail?: ThumbnailRenderer;
+  /** Lays out worksheet PDFs; tests inject a slow one to cancel a download midway. */
+  readonly renderWorksheetPdf?: WorksheetPdfRoute['render'];
 }
 
 /** Largest JSON body accepted; rule cards and drills are far smaller. */
@@ -147,8 +151,23 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/drills', answerWrongMethods(createDrillsRouter(drillsService, seedLinks)));
   // Anyone may open a share link: its routes state `allowAnyone`, and sessions stay optional.
   app.use('/api/seed-links', answerWrongMethods(createSeedLinksRouter(seedLinks)));
-  const worksheets = new WorksheetsService(new WorksheetsRepository(db), drills, presets);
-  app.use('/api/worksheets', answerWrongMethods(createWorksheetsRouter(worksheets)));
+  const worksheetRows = new WorksheetsRepository(db);
+  const worksheets = new WorksheetsService(worksheetRows, drills, presets);
+  const worksheetPdf: WorksheetPdfDeps = {
+    worksheets: worksheetRows,
+    sources: { presets, drills, generate },
+    links: new SeedLinksRepository(db),
+    publicUrl: config.publicUrl,
+  };
+  app.use(
+    '/api/worksheets',
+    answerWrongMethods(
+      createWorksheetsRouter(worksheets, {
+        print: (user, id, paper) => worksheetPrint(worksheetPdf, user, id, paper),
+        render: deps.renderWorksheetPdf ?? renderWorksheetPdf,
+      }),
+    ),
+  );
   app.use('/api', apiNotFound);
 
   app.use(createSpaRouter(deps.browserDist));
