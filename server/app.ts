@@ -49,8 +49,10 @@ import {
 import { StudentsService } from './students/students-service';
 import { createStudentsRouter } from './students/students-router';
 import { createUsersRouter } from './users/users-router';
+import { renderWorksheetPdf } from './pdf/render-worksheet';
+import { worksheetPrint, type WorksheetPdfDeps } from './worksheets/worksheet-pdf';
 import { WorksheetsRepository } from './worksheets/worksheets-repository';
-import { createWorksheetsRouter } from './worksheets/worksheets-router';
+import { createWorksheetsRouter, type WorksheetPdfRoute } from './worksheets/worksheets-router';
 import { WorksheetsService } from './worksheets/worksheets-service';
 import { createSpaRouter } from './web/spa';
 import { MailService, type Mailer } from './mail/mail-service';
@@ -86,6 +88,8 @@ export interface AppDeps {
   readonly renderThumbnail?: ThumbnailRenderer;
   /** Outgoing mail; defaults to SMTP_URL, or the outbox table without it. */
   readonly mailer?: Mailer;
+  /** Lays out worksheet PDFs; tests inject a slow one to cancel a download midway. */
+  readonly renderWorksheetPdf?: WorksheetPdfRoute['render'];
 }
 
 /** Largest JSON body accepted; rule cards and drills are far smaller. */
@@ -189,8 +193,23 @@ export function createApp(deps: AppDeps): Express {
   );
   // Anyone may open a share link: its routes state `allowAnyone`, and sessions stay optional.
   app.use('/api/seed-links', answerWrongMethods(createSeedLinksRouter(seedLinks)));
-  const worksheets = new WorksheetsService(new WorksheetsRepository(db), drills, presets);
-  app.use('/api/worksheets', answerWrongMethods(createWorksheetsRouter(worksheets)));
+  const worksheetRows = new WorksheetsRepository(db);
+  const worksheets = new WorksheetsService(worksheetRows, drills, presets);
+  const worksheetPdf: WorksheetPdfDeps = {
+    worksheets: worksheetRows,
+    sources: { presets, drills, generate },
+    links: new SeedLinksRepository(db),
+    publicUrl: config.publicUrl,
+  };
+  app.use(
+    '/api/worksheets',
+    answerWrongMethods(
+      createWorksheetsRouter(worksheets, {
+        print: (user, id, paper) => worksheetPrint(worksheetPdf, user, id, paper),
+        render: deps.renderWorksheetPdf ?? renderWorksheetPdf,
+      }),
+    ),
+  );
   app.use('/api/outbox', answerWrongMethods(createOutboxRouter(outbox)));
   const exportsService = new ExportsService({ presets, drills, generate });
   app.use('/api/exports', answerWrongMethods(createExportsRouter(exportsService)));

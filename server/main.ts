@@ -9,6 +9,7 @@ import { DemoPasswordsError, refuseDemoPasswords } from './demo/demo-passwords';
 import { seedDemo } from './demo/seed-demo';
 import { seedDemoAuthoring } from './demo/seed-authoring';
 import { seedDemoStudio } from './demo/seed-studio';
+import { seedDemoWorksheets } from './demo/seed-worksheets';
 import { createLogger, errorFields } from './logger';
 import { syncBuiltInPresets } from './presets/sync-built-ins';
 import { createSessionStore, stopSessionStore } from './session';
@@ -34,6 +35,8 @@ async function main(): Promise<void> {
       logger.info('Demo rule cards, drills and links added', { ...material });
     const studio = await seedDemoStudio(db);
     if (studio.links > 0) logger.info('Demo studio added', { ...studio });
+    const worksheets = await seedDemoWorksheets(db);
+    if (worksheets > 0) logger.info('Demo worksheets added', { count: worksheets });
     if (config.production) {
       logger.warn(
         'SEED_DEMO=true in production: the demo accounts and their published passwords work',

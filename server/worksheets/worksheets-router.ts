@@ -1,17 +1,32 @@
-import { Router } from 'express';
+import { pipeline } from 'node:stream/promises';
+import { Router, type Response } from 'express';
 import type { z } from 'zod';
+import type { PublicUser } from '../auth/roles';
 import { requireRole } from '../auth/require-role';
+import type { WorksheetPrint } from '../pdf/worksheet-print';
+import { fileSlug } from '../rule-cards/card-fields';
 import { idOf, idParams } from '../rule-cards/rule-cards-router';
 import { validate } from '../validate';
 import {
   createWorksheetSchema,
+  pdfQuerySchema,
+  type Paper,
   updateWorksheetSchema,
   worksheetListSchema,
 } from './worksheet-schemas';
 import type { WorksheetsService } from './worksheets-service';
 
+/** What the PDF route needs: the print of a stored worksheet, and the renderer. */
+export interface WorksheetPdfRoute {
+  readonly print: (user: PublicUser, id: number, paper?: Paper) => Promise<WorksheetPrint>;
+  readonly render: (
+    print: WorksheetPrint,
+    signal?: AbortSignal,
+  ) => Promise<NodeJS.ReadableStream | Buffer>;
+}
+
 /** `/api/worksheets` (teachers only, each on their own); see docs/api-worksheets.md. */
-export function createWorksheetsRouter(service: WorksheetsService): Router {
+export function createWorksheetsRouter(service: WorksheetsService, pdf: WorksheetPdfRoute): Router {
   const router = Router();
   const teacher = requireRole('teacher');
 
@@ -54,5 +69,38 @@ export function createWorksheetsRouter(service: WorksheetsService): Router {
     res.status(204).end();
   });
 
+  router.get(
+    '/:id/pdf',
+    teacher,
+    validate({ params: idParams, query: pdfQuerySchema }),
+    async (req, res) => {
+      const { paper } = req.query as z.output<typeof pdfQuerySchema>;
+      // A teacher who cancels the download closes the connection: stop engraving then.
+      const gone = new AbortController();
+      res.on('close', () => {
+        if (!res.writableFinished) gone.abort();
+      });
+      const print = await pdf.print(req.user!, idOf(req.params), paper);
+      try {
+        const file = await pdf.render(print, gone.signal);
+        res.type('application/pdf');
+        res.attachment(`${fileSlug(print.title)}.pdf`);
+        await send(res, file);
+      } catch (error) {
+        // Nobody is left to answer once the client has gone; anything else is a real failure.
+        if (gone.signal.aborted) return;
+        throw error;
+      }
+    },
+  );
+
   return router;
+}
+
+async function send(res: Response, file: NodeJS.ReadableStream | Buffer): Promise<void> {
+  if (Buffer.isBuffer(file)) {
+    res.send(file);
+    return;
+  }
+  await pipeline(file, res);
 }

@@ -15,6 +15,11 @@ export const WORKSHEET_ROUTES: Routes = [
     loadComponent: () => import('./worksheet-editor').then((m) => m.WorksheetEditor),
   },
   {
+    path: ':id/print',
+    title: 'Print preview',
+    loadComponent: () => import('./print-preview').then((m) => m.PrintPreview),
+  },
+  {
     path: ':id',
     title: 'Worksheet',
     canDeactivate: [leaveSafely],
