@@ -10,6 +10,8 @@ import { UsersRepository } from './auth/users-repository';
 import type { Config } from './config';
 import { apiNotFound, errorHandler } from './error-handler';
 import { createHealthRouter } from './health/health-router';
+import { createImportsRouter } from './imports/imports-router';
+import { ImportsService } from './imports/imports-service';
 import { jsonBody } from './json-body';
 import { answerWrongMethods } from './method-not-allowed';
 import { createLogger, type Logger } from './logger';
@@ -45,6 +47,9 @@ import {
 import { StudentsService } from './students/students-service';
 import { createStudentsRouter } from './students/students-router';
 import { createUsersRouter } from './users/users-router';
+import { WorksheetsRepository } from './worksheets/worksheets-repository';
+import { createWorksheetsRouter } from './worksheets/worksheets-router';
+import { WorksheetsService } from './worksheets/worksheets-service';
 import { createSpaRouter } from './web/spa';
 
 /** What {@link createApp} needs; everything but `config` and `db` has a default. */
@@ -142,8 +147,14 @@ export function createApp(deps: AppDeps): Express {
     generate,
   );
   app.use('/api/drills', answerWrongMethods(createDrillsRouter(drillsService, seedLinks)));
+  app.use(
+    '/api/imports',
+    answerWrongMethods(createImportsRouter(new ImportsService(drills, drillsService))),
+  );
   // Anyone may open a share link: its routes state `allowAnyone`, and sessions stay optional.
   app.use('/api/seed-links', answerWrongMethods(createSeedLinksRouter(seedLinks)));
+  const worksheets = new WorksheetsService(new WorksheetsRepository(db), drills, presets);
+  app.use('/api/worksheets', answerWrongMethods(createWorksheetsRouter(worksheets)));
   app.use('/api', apiNotFound);
 
   app.use(createSpaRouter(deps.browserDist));
