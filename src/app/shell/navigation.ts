@@ -14,6 +14,7 @@ export const NAVIGATION: Readonly<Record<Role, readonly NavItem[]>> = {
     { label: 'Rule cards', path: '/rule-cards', icon: 'style' },
     { label: 'Drills', path: '/drills', icon: 'queue_music' },
     { label: 'Worksheets', path: '/worksheets', icon: 'description' },
+    { label: 'Import groove', path: '/imports', icon: 'upload_file' },
     { label: 'Studio', path: '/studio', icon: 'groups' },
   ],
   student: [

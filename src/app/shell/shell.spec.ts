@@ -62,10 +62,22 @@ describe('Shell', () => {
   const navTargets = (page: HTMLElement) =>
     [...page.querySelectorAll('nav[aria-label="Main"] a')].map((a) => a.getAttribute('href'));
 
-  it('gives a teacher rule cards, drills, worksheets and the studio', async () => {
+  it('gives a teacher rule cards, drills, worksheets, groove import and the studio', async () => {
     const page = await renderAs(people.teacher);
-    expect(navLabels(page)).toEqual(['Rule cards', 'Drills', 'Worksheets', 'Studio']);
-    expect(navTargets(page)).toEqual(['/rule-cards', '/drills', '/worksheets', '/studio']);
+    expect(navLabels(page)).toEqual([
+      'Rule cards',
+      'Drills',
+      'Worksheets',
+      'Import groove',
+      'Studio',
+    ]);
+    expect(navTargets(page)).toEqual([
+      '/rule-cards',
+      '/drills',
+      '/worksheets',
+      '/imports',
+      '/studio',
+    ]);
   });
 
   it('gives a student assignments and practice only', async () => {
