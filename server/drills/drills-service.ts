@@ -90,6 +90,8 @@ export class DrillsService {
 
   async remove(ownerId: number, id: number): Promise<void> {
     await this.get(ownerId, id);
+    // Codes first: should the delete fail, the links are still there and still answer.
+    await this.links.keepAsWithdrawn(id);
     await this.drills.delete(ownerId, id);
   }
 }

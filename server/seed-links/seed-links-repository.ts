@@ -64,6 +64,27 @@ export class SeedLinksRepository {
       .update({ revoked_at: new Date() });
   }
 
+  /**
+   * Keeps the codes of the drill's links as withdrawn before the drill (and, by cascade, its
+   * links) is deleted, so an old link answers 410 afterwards.
+   */
+  async keepAsWithdrawn(drillId: number): Promise<void> {
+    const codes = await this.db<SeedLinkRow>('seed_links')
+      .where({ drill_id: drillId })
+      .pluck('code');
+    if (codes.length === 0) return;
+    const now = new Date();
+    await this.db('withdrawn_seed_links')
+      .insert(codes.map((code: string) => ({ code, withdrawn_at: now })))
+      .onConflict('code')
+      .ignore();
+  }
+
+  /** True when the code belonged to a link of a drill since deleted. */
+  async wasWithdrawn(code: string): Promise<boolean> {
+    return (await this.db('withdrawn_seed_links').where({ code }).first()) !== undefined;
+  }
+
   async findByCode(code: string): Promise<StoredSeedLink | undefined> {
     const row = await this.db<SeedLinkRow>('seed_links').where({ code }).first();
     return row ? { ...toLink(row), drillId: Number(row.drill_id) } : undefined;

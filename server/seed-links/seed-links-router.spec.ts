@@ -109,12 +109,27 @@ describe('seed links', () => {
     expect((await request(t.app).get('/api/seed-links/has%20space%20in%20it-xx')).status).toBe(400);
   });
 
-  it('stops answering once the drill is deleted', async () => {
+  it('answers 410 withdrawn for every link of a deleted drill, live or revoked before', async () => {
     const teacher = await t.signIn('teacher');
     const drill = await savedDrill(teacher);
-    const code = (await teacher.post(`/api/drills/${drill.id}/share`)).body.link.code as string;
+    const first = (await teacher.post(`/api/drills/${drill.id}/share`)).body.link.code as string;
+    expect((await teacher.delete(`/api/drills/${drill.id}/share`)).status).toBe(204);
+    const live = (await teacher.post(`/api/drills/${drill.id}/share`)).body.link.code as string;
+    const other = await savedDrill(teacher);
+    const kept = (await teacher.post(`/api/drills/${other.id}/share`)).body.link.code as string;
+
     expect((await teacher.delete(`/api/drills/${drill.id}`)).status).toBe(204);
-    expect((await request(t.app).get(`/api/seed-links/${code}`)).status).toBe(404);
+    for (const code of [first, live]) {
+      const gone = await request(t.app).get(`/api/seed-links/${code}`);
+      expect(gone.status).toBe(410);
+      expect(gone.body.error).toEqual({
+        code: 'withdrawn',
+        message: 'The teacher has withdrawn this drill.',
+      });
+    }
+    // Only that drill's links: another drill's link still opens, an unknown code is still 404.
+    expect((await request(t.app).get(`/api/seed-links/${kept}`)).status).toBe(200);
+    expect((await request(t.app).get('/api/seed-links/BBBBBBBBBBBBBBBBBBBBBB')).status).toBe(404);
   });
 
   it('serves the app shell for the /s/<code> page, signed out', async () => {

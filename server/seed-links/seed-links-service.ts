@@ -22,6 +22,10 @@ export interface SharedDrill {
 
 const MISSING_DRILL = 'There is no saved drill with that id among yours.';
 
+function withdrawn(): HttpError {
+  return new HttpError(410, 'withdrawn', 'The teacher has withdrawn this drill.');
+}
+
 /** Share links: create (one live link per drill), revoke, and open by code. */
 export class SeedLinksService {
   constructor(
@@ -47,10 +51,11 @@ export class SeedLinksService {
   /** Opens a link: counts the view and returns the drill as saved. 410 once revoked. */
   async open(code: string): Promise<SharedDrill> {
     const link = await this.links.findByCode(code);
-    if (!link) throw notFound('There is no shared drill at this address.');
-    if (link.revokedAt !== null) {
-      throw new HttpError(410, 'withdrawn', 'The teacher has withdrawn this drill.');
+    if (!link) {
+      if (await this.links.wasWithdrawn(code)) throw withdrawn();
+      throw notFound('There is no shared drill at this address.');
     }
+    if (link.revokedAt !== null) throw withdrawn();
     const drill = await this.drills.findShared(link.drillId);
     if (!drill) throw notFound('There is no shared drill at this address.');
     await this.links.countView(code);

@@ -114,11 +114,13 @@ describe('app routes', () => {
     expect(TestBed.inject(Title).getTitle()).toBe('Tensile · Page not found');
   });
 
-  it('shows an honest coming-soon page for areas not built yet', async () => {
+  it('opens the teacher’s worksheets, listed by the server', async () => {
     const harness = await open('/worksheets', teacher);
     expect(TestBed.inject(Title).getTitle()).toBe('Tensile · Worksheets');
+    (await nextRequest('/api/worksheets')).flush({ items: [], total: 0, page: 0, pageSize: 20 });
+    await harness.fixture.whenStable();
     const text = harness.routeNativeElement?.textContent ?? '';
-    expect(text).toContain('Coming soon');
+    expect(text).toContain('No worksheets yet');
     expect(text).toContain('tempo ladder');
   });
 });

@@ -26,6 +26,7 @@ import { DrillsApi, type PresetDetail } from './drills-api';
 import { PlaybackPanel } from './playback/playback-panel';
 import { isTypingTarget } from './playback/playback-keys';
 import { RecentDrills } from './recent-drills';
+import { SaveDrillButton } from '../saved-drills/save-drill-button';
 import { DrillScore } from './score/drill-score';
 import type { ScorePosition } from './score/score-layout';
 import { MAX_SEED_LENGTH, seedErrorState, seedProblem } from './seed-problem';
@@ -50,6 +51,7 @@ const SHORTCUTS_DIALOG = 'tensile-drill-shortcuts';
     MatSlideToggleModule,
     DrillScore,
     PlaybackPanel,
+    SaveDrillButton,
   ],
   templateUrl: './drill-page.html',
   styleUrl: './drill-page.scss',

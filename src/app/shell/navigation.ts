@@ -12,6 +12,7 @@ export interface NavItem {
 export const NAVIGATION: Readonly<Record<Role, readonly NavItem[]>> = {
   teacher: [
     { label: 'Rule cards', path: '/rule-cards', icon: 'style' },
+    { label: 'Gallery', path: '/gallery', icon: 'collections_bookmark' },
     { label: 'Drills', path: '/drills', icon: 'queue_music' },
     { label: 'Worksheets', path: '/worksheets', icon: 'description' },
     { label: 'Import groove', path: '/imports', icon: 'upload_file' },
@@ -20,6 +21,7 @@ export const NAVIGATION: Readonly<Record<Role, readonly NavItem[]>> = {
   student: [
     { label: 'Assignments', path: '/assignments', icon: 'assignment' },
     { label: 'Practice', path: '/practice', icon: 'timer' },
+    { label: 'Gallery', path: '/gallery', icon: 'collections_bookmark' },
   ],
   admin: [
     { label: 'Presets', path: '/presets', icon: 'library_music' },

@@ -62,10 +62,11 @@ describe('Shell', () => {
   const navTargets = (page: HTMLElement) =>
     [...page.querySelectorAll('nav[aria-label="Main"] a')].map((a) => a.getAttribute('href'));
 
-  it('gives a teacher rule cards, drills, worksheets, groove import and the studio', async () => {
+  it('gives a teacher rule cards, the preset gallery, drills, worksheets, groove import and the studio', async () => {
     const page = await renderAs(people.teacher);
     expect(navLabels(page)).toEqual([
       'Rule cards',
+      'Gallery',
       'Drills',
       'Worksheets',
       'Import groove',
@@ -73,6 +74,7 @@ describe('Shell', () => {
     ]);
     expect(navTargets(page)).toEqual([
       '/rule-cards',
+      '/gallery',
       '/drills',
       '/worksheets',
       '/imports',
@@ -80,10 +82,10 @@ describe('Shell', () => {
     ]);
   });
 
-  it('gives a student assignments and practice only', async () => {
+  it('gives a student assignments, practice and the preset gallery only', async () => {
     const page = await renderAs(people.student);
-    expect(navLabels(page)).toEqual(['Assignments', 'Practice']);
-    expect(navTargets(page)).toEqual(['/assignments', '/practice']);
+    expect(navLabels(page)).toEqual(['Assignments', 'Practice', 'Gallery']);
+    expect(navTargets(page)).toEqual(['/assignments', '/practice', '/gallery']);
   });
 
   it('gives an admin presets and users', async () => {
