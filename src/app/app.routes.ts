@@ -49,6 +49,11 @@ export const routes: Routes = [
           import('./worksheets/worksheets-routes').then((m) => m.WORKSHEET_ROUTES),
       },
       {
+        path: 'imports',
+        canActivate: [requireRole('teacher')],
+        loadChildren: () => import('./imports/import-routes').then((m) => m.IMPORT_ROUTES),
+      },
+      {
         path: 'studio',
         canActivate: [requireRole('teacher')],
         loadChildren: () => import('./studio/studio-routes').then((m) => m.STUDIO_ROUTES),

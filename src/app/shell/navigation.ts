@@ -15,6 +15,7 @@ export const NAVIGATION: Readonly<Record<Role, readonly NavItem[]>> = {
     { label: 'Gallery', path: '/gallery', icon: 'collections_bookmark' },
     { label: 'Drills', path: '/drills', icon: 'queue_music' },
     { label: 'Worksheets', path: '/worksheets', icon: 'description' },
+    { label: 'Import groove', path: '/imports', icon: 'upload_file' },
     { label: 'Studio', path: '/studio', icon: 'groups' },
   ],
   student: [

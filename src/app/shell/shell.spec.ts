@@ -62,14 +62,22 @@ describe('Shell', () => {
   const navTargets = (page: HTMLElement) =>
     [...page.querySelectorAll('nav[aria-label="Main"] a')].map((a) => a.getAttribute('href'));
 
-  it('gives a teacher rule cards, the preset gallery, drills, worksheets and the studio', async () => {
+  it('gives a teacher rule cards, the preset gallery, drills, worksheets, groove import and the studio', async () => {
     const page = await renderAs(people.teacher);
-    expect(navLabels(page)).toEqual(['Rule cards', 'Gallery', 'Drills', 'Worksheets', 'Studio']);
+    expect(navLabels(page)).toEqual([
+      'Rule cards',
+      'Gallery',
+      'Drills',
+      'Worksheets',
+      'Import groove',
+      'Studio',
+    ]);
     expect(navTargets(page)).toEqual([
       '/rule-cards',
       '/gallery',
       '/drills',
       '/worksheets',
+      '/imports',
       '/studio',
     ]);
   });
