@@ -57,9 +57,10 @@ export class StudioPage {
     toObservable(this.version).pipe(switchMap(() => toLoadState(this.api.assignments()))),
     { initialValue: { status: 'loading' } as LoadState<readonly TeacherAssignment[]> },
   );
+  /** Students who can sign in: only they can be given assignments. */
   protected readonly current = computed(() => {
     const state = this.roster();
-    return state.status === 'ready' ? state.value.filter((s) => s.status !== 'removed') : [];
+    return state.status === 'ready' ? state.value.filter((s) => s.status === 'active') : [];
   });
 
   protected readonly inviteForm = inject(FormBuilder).nonNullable.group({
