@@ -8,6 +8,10 @@ import type { PrintAids } from './worksheet-print';
  * sizes used for printed parts (common practice).
  */
 export const PRINT_ENGRAVING_WIDTH = 1100;
+/** The widest engraving: beyond it the staff would print too small to read from a stand. */
+const WIDEST_ENGRAVING = 2000;
+/** Bars a system holds at most (the browser's setting). */
+const BARS_PER_SYSTEM = 4;
 
 export interface NotationArt {
   readonly svg: string;
@@ -16,15 +20,42 @@ export interface NotationArt {
   readonly height: number;
 }
 
-/** The drill engraved as for the browser, with the aids the teacher chose, in black. */
-export function notationArt(drill: Drill, aids: PrintAids): NotationArt {
+/**
+ * The drill engraved as for the browser, with the aids the teacher chose, in black. `maxAspect`
+ * is the tallest height-to-width ratio the page has room for: a drill taller than that (wide
+ * tuplet bars, one to a line) is engraved once more on a wider line, so more bars share a system
+ * and the page shrinks it less.
+ */
+export function notationArt(drill: Drill, aids: PrintAids, maxAspect = Infinity): NotationArt {
+  const first = engrave(drill, aids, PRINT_ENGRAVING_WIDTH);
+  const aspect = first.height / first.width;
+  const perSystem = drill.bars.length / first.systems;
+  if (aspect <= maxAspect || perSystem >= Math.min(BARS_PER_SYSTEM, drill.bars.length))
+    return first;
+  const width = Math.min(WIDEST_ENGRAVING, PRINT_ENGRAVING_WIDTH * Math.sqrt(aspect / maxAspect));
+  const wider = engrave(drill, aids, Math.round(width));
+  // Keep whichever prints larger once fitted into the page's room.
+  return printedScale(wider, maxAspect) > printedScale(first, maxAspect) ? wider : first;
+}
+
+/** How large a drawing prints, fitted to a unit width and to `maxAspect` of height. */
+function printedScale(art: NotationArt, maxAspect: number): number {
+  return Math.min(1 / art.width, maxAspect / art.height);
+}
+
+function engrave(
+  drill: Drill,
+  aids: PrintAids,
+  width: number,
+): NotationArt & { readonly systems: number } {
   const { svg, layout } = renderDrillSvg(drill, {
-    width: PRINT_ENGRAVING_WIDTH,
+    width,
     showSticking: aids.sticking,
     showCounts: aids.counts,
     showLegend: true,
     showMarks: true,
     ink: 'black',
   });
-  return { svg, width: layout.width, height: layout.height };
+  const systems = new Set(layout.bars.map((b) => b.system)).size;
+  return { svg, width: layout.width, height: layout.height, systems };
 }

@@ -4,7 +4,13 @@ import { notationArt } from './notation-art';
 import { preparedPdfmake } from './pdf-fonts';
 import { qrSvg } from './qr-code';
 import { tensionPlotSvg } from './tension-plot';
-import { worksheetDocument, type DocumentOptions, type DrillArt } from './worksheet-document';
+import {
+  notationRoom,
+  textArea,
+  worksheetDocument,
+  type DocumentOptions,
+  type DrillArt,
+} from './worksheet-document';
 import type { WorksheetPrint } from './worksheet-print';
 
 /**
@@ -22,10 +28,12 @@ export async function renderWorksheetPdf(
 /** Each drill's notation, QR code and tension plot. */
 export async function drawArt(print: WorksheetPrint, signal?: AbortSignal): Promise<DrillArt[]> {
   const art: DrillArt[] = [];
+  const text = textArea(print.paper);
   for (const drill of print.drills) {
     signal?.throwIfAborted();
+    const room = notationRoom(text.width, text.height, drill.aids.tension);
     art.push({
-      notation: notationArt(drill.drill, drill.aids),
+      notation: notationArt(drill.drill, drill.aids, room / text.width),
       qr: await qrSvg(drill.seedLink),
       tension: drill.aids.tension ? tensionPlotSvg(drill.drill) : null,
     });

@@ -2,7 +2,7 @@ import type { Drill } from '../../shared/generator/index';
 
 /** Drawing units of the plot (pdfmake scales the SVG to the width it is given). */
 export const PLOT_WIDTH = 500;
-export const PLOT_HEIGHT = 64;
+export const PLOT_HEIGHT = 48;
 const LEFT = 58;
 const TOP = 6;
 const BOTTOM = 14;

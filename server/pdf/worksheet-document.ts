@@ -45,8 +45,7 @@ export function worksheetDocument(
   options: DocumentOptions = {},
 ): Record<string, unknown> {
   const page = PAGE_SIZES[print.paper];
-  const textWidth = page.width - MARGINS[0] - MARGINS[2];
-  const textHeight = page.height - MARGINS[1] - MARGINS[3];
+  const { width: textWidth, height: textHeight } = textArea(print.paper);
   return {
     pageSize: page.name,
     pageMargins: [...MARGINS],
@@ -66,6 +65,20 @@ export function worksheetDocument(
       ],
     }),
   };
+}
+
+/** Width and height of the page's text area, in points. */
+export function textArea(paper: WorksheetPrint['paper']): { width: number; height: number } {
+  const page = PAGE_SIZES[paper];
+  return {
+    width: page.width - MARGINS[0] - MARGINS[2],
+    height: page.height - MARGINS[1] - MARGINS[3],
+  };
+}
+
+/** The most height a drill's notation may take so the whole drill fits on one page. */
+export function notationRoom(textWidth: number, textHeight: number, tension: boolean): number {
+  return textHeight - DRILL_EXTRAS - (tension ? (textWidth * PLOT_HEIGHT) / PLOT_WIDTH : 0);
 }
 
 function header(print: WorksheetPrint, textWidth: number): Content {
@@ -104,8 +117,7 @@ function drillBlock(
 ): Content {
   const { notation } = art;
   // The whole drill must fit one page: a tall drill is printed narrower rather than split.
-  const room =
-    textHeight - DRILL_EXTRAS - (art.tension ? (textWidth * PLOT_HEIGHT) / PLOT_WIDTH : 0);
+  const room = notationRoom(textWidth, textHeight, art.tension !== null);
   const width = Math.min(textWidth, (room * notation.width) / notation.height);
   const height = (width * notation.height) / notation.width;
   const meter = drill.card.meter;

@@ -15,6 +15,26 @@ export const routes: Routes = [
     loadComponent: () => import('./auth/sign-in/sign-in').then((m) => m.SignIn),
   },
   {
+    path: 'invitations/:token',
+    title: 'Accept invitation',
+    data: { kind: 'invitation' },
+    loadComponent: () =>
+      import('./auth/choose-password/choose-password').then((m) => m.ChoosePassword),
+  },
+  {
+    path: 'reset-password/:token',
+    title: 'Reset password',
+    data: { kind: 'reset' },
+    loadComponent: () =>
+      import('./auth/choose-password/choose-password').then((m) => m.ChoosePassword),
+  },
+  {
+    path: 'forgot-password',
+    title: 'Forgot password',
+    loadComponent: () =>
+      import('./auth/forgot-password/forgot-password').then((m) => m.ForgotPassword),
+  },
+  {
     // A shared drill: open to anyone, signed in or not, outside the signed-in shell.
     path: 's/:code',
     title: 'Shared drill',
@@ -47,6 +67,11 @@ export const routes: Routes = [
         canActivate: [requireRole('teacher')],
         loadChildren: () =>
           import('./worksheets/worksheets-routes').then((m) => m.WORKSHEET_ROUTES),
+      },
+      {
+        path: 'imports',
+        canActivate: [requireRole('teacher')],
+        loadChildren: () => import('./imports/import-routes').then((m) => m.IMPORT_ROUTES),
       },
       {
         path: 'studio',

@@ -7,11 +7,15 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { useServerAndBrowser } from '../support/browser-suite';
 import { DEMO_TEACHERS } from '../support/demo-accounts';
 
-/** What the focused element is, as a person hears it: its label, field label or text. */
+/**
+ * What the focused element is, as a person hears it: its label, field label or text. Nothing is
+ * focused when the document itself holds focus: the page's whole text (every label on it) must
+ * not pass for the name of a control, or keys typed "into" it would go nowhere.
+ */
 function focusedName(page: Page): Promise<string> {
   return page.evaluate(() => {
     const active = document.activeElement as HTMLElement | null;
-    if (!active) return '';
+    if (!active || active === document.body || active === document.documentElement) return '';
     const field = active.closest('mat-form-field')?.querySelector('mat-label')?.textContent;
     return (active.getAttribute('aria-label') ?? field ?? active.textContent ?? '')
       .replace(/\s+/g, ' ')
@@ -45,16 +49,25 @@ describe('authoring journey: keyboard only', () => {
   it('creates and saves a rule card without the mouse', async () => {
     const teacher = DEMO_TEACHERS[0]!;
     await page.goto(`${suite.server.url}/sign-in`);
+    // The route is lazy and guarded: the form appears after the session check, not at "load".
+    const email = page.getByLabel(/e-?mail/i);
+    const password = page.getByLabel(/password/i);
+    await email.waitFor();
     await tabTo(page, /e-?mail/i);
     await page.keyboard.type(teacher.email);
     await tabTo(page, /password/i);
     await page.keyboard.type(teacher.password);
+    // What the keys typed landed where they should before the form is sent.
+    expect(await email.inputValue()).toBe(teacher.email);
+    expect(await password.inputValue()).toBe(teacher.password);
     await page.keyboard.press('Enter');
     await page.waitForURL((url) => url.pathname === '/rule-cards');
 
+    await page.getByRole('link', { name: /New rule card/ }).waitFor();
     await tabTo(page, /New rule card/);
     await page.keyboard.press('Enter');
     await page.waitForURL((url) => url.pathname === '/rule-cards/new');
+    await page.getByLabel(/^Card title$/).waitFor();
 
     await tabTo(page, /^Card title$/);
     await page.keyboard.press('ControlOrMeta+A');

@@ -35,13 +35,13 @@ const HOMES: readonly RoleHome[] = [
     account: DEMO_TEACHERS[0]!,
     path: '/rule-cards',
     heading: /rule cards/i,
-    navigation: ['Rule cards', 'Drills', 'Worksheets', 'Studio'],
+    navigation: ['Rule cards', 'Gallery', 'Drills', 'Worksheets', 'Studio'],
   },
   {
     account: DEMO_STUDENTS[0]!,
     path: '/assignments',
     heading: /assignments/i,
-    navigation: ['Assignments', 'Practice'],
+    navigation: ['Assignments', 'Practice', 'Gallery'],
   },
 ];
 
@@ -105,7 +105,7 @@ describe('role journeys in the browser', () => {
     await page.goto(`${suite.server.url}/rule-cards`);
     await page.waitForURL((url) => url.pathname === '/assignments');
     await page.getByText('That page is for teachers.').waitFor({ state: 'visible' });
-    expect(await navigationLabels(page)).toEqual(['Assignments', 'Practice']);
+    expect(await navigationLabels(page)).toEqual(['Assignments', 'Practice', 'Gallery']);
   });
 
   it('a signed-out visitor opening a private page goes to sign-in and then back there', async () => {

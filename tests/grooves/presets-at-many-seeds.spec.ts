@@ -1,6 +1,9 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { generateDrill, parseRuleCard, type Drill } from '../../shared/generator/index';
 import { BUILT_IN_PRESETS } from '../../shared/generator/presets/index';
+import { readCard } from '../oracle/card';
+import { planOf } from '../oracle/plan';
+import { cardReach, measuredTension } from '../oracle/tension';
 
 /**
  * What a teacher handing out presets needs: every preset generates at any seed (no refusal in
@@ -31,27 +34,33 @@ const CARDS: [string, unknown][] = [
 ];
 
 /**
- * A bar's tension on the card's reachable scale, 0 = its calmest bar, 1 = its tensest.
- *
- * Not independent of the engine, and why: the scale is the drill's own `tensionReach` and the
- * bar's own `tension`. An independent check needs an independent syncopation measure (the
- * metrical tree with tuplets and groupings, docs/tension.md) and an independent reach (the
- * least and greatest tension over every fill the card allows, which depends on the roles, the
- * holes, the limbs and the linear budget as the engine reads them). The oracle has neither
- * yet; it checks the rank order from the stored values. What is independent: the checker
- * re-measures every stored tension, and tension/*.spec.ts checks the measure's maximum and
- * range against every onset pattern of small grids.
+ * Targets are read on the card's reach as the independent oracle works it out (tests/oracle:
+ * its own Longuet-Higgins & Lee measure, H. C. Longuet-Higgins and C. S. Lee, "The rhythmic
+ * interpretation of monophonic music", Music Perception 1(4), 1984; its own reading of the slots
+ * a card leaves open to fills; the exact range by its own dynamic programme, checked against
+ * trying every pattern): each bar re-measured by the oracle, placed on that reach, 0 = the
+ * calmest bar the card allows, 1 = the tensest.
  */
-function relative(drill: Drill, tension: number): number {
-  const { least, most } = drill.tensionReach;
-  return most > least ? (tension - least) / (most - least) : 0;
+function relative(reach: { least: number; most: number }, tension: number): number {
+  return reach.most > reach.least ? (tension - reach.least) / (reach.most - reach.least) : 0;
 }
 
-describe.each(CARDS)('%s', (_id, raw) => {
-  const card = parseRuleCard(raw);
+/** Each card's drills at SEEDS seeds, made once and shared by the describes below. */
+const made = new Map<string, Drill[]>();
+function drillsOf(id: string, raw: unknown): Drill[] {
+  let drills = made.get(id);
+  if (!drills) {
+    const card = parseRuleCard(raw);
+    drills = Array.from({ length: SEEDS }, (_, i) => generateDrill(card, `groove-${i}`));
+    made.set(id, drills);
+  }
+  return drills;
+}
+
+describe.each(CARDS)('%s', (id, raw) => {
   let drills: Drill[] = [];
   beforeAll(() => {
-    drills = Array.from({ length: SEEDS }, (_, i) => generateDrill(card, `groove-${i}`));
+    drills = drillsOf(id, raw);
   }, 120_000);
 
   it(`generates at every one of ${SEEDS} seeds and varies between them`, () => {
@@ -60,19 +69,42 @@ describe.each(CARDS)('%s', (_id, raw) => {
     expect(distinct.size).toBeGreaterThan(1);
     expect(drills[0]?.variety).toBe('many');
   });
+});
 
-  const curve = card.rules.find((r) => r.kind === 'tension');
-  it.runIf(curve !== undefined)('keeps the mean distance from the tension targets ≤ 0.1', () => {
-    if (curve?.kind !== 'tension') return;
+const TENSION_CARDS = CARDS.filter(([, raw]) =>
+  parseRuleCard(raw).rules.some((r) => r.kind === 'tension'),
+);
+
+describe.each(TENSION_CARDS)('%s, tension', (id, raw) => {
+  const card = parseRuleCard(raw);
+  const plan = planOf(readCard(raw, card));
+  const curve = card.rules.flatMap((r) => (r.kind === 'tension' ? [r.curve] : []))[0] ?? [];
+  const targetOf = (bar: number): number => curve[(bar - 1) % curve.length] ?? 0;
+  let drills: Drill[] = [];
+  beforeAll(() => {
+    drills = drillsOf(id, raw);
+  }, 120_000);
+
+  it('reports the reach the oracle works out on its own', () => {
+    const reach = cardReach(plan);
+    expect(drills.length).toBe(SEEDS);
+    for (const drill of drills) expect(drill.tensionReach).toEqual(reach);
+  });
+
+  it('keeps the mean distance from the tension targets ≤ 0.1, measured by the oracle', () => {
+    const reach = cardReach(plan);
+    expect(reach.most).toBeGreaterThan(reach.least);
     let total = 0;
     let count = 0;
     for (const drill of drills) {
       for (const bar of drill.bars) {
-        const target = curve.curve[(bar.bar - 1) % curve.curve.length] ?? 0;
-        total += Math.abs(relative(drill, bar.tension) - target);
+        const measured = measuredTension(plan, bar);
+        expect(bar.tension, `seed ${drill.seed} bar ${bar.bar}`).toBe(measured);
+        total += Math.abs(relative(reach, measured) - targetOf(bar.bar));
         count++;
       }
     }
+    expect(count).toBe(SEEDS * card.bars);
     expect(total / count).toBeLessThanOrEqual(0.1);
   });
 });

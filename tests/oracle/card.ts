@@ -137,7 +137,9 @@ export function readCard(written: unknown, normalised: unknown): OracleCard {
 
   const meter = obj(pick('meter'));
   const beatsPerBar = num(meter['beats'], 4);
-  const grouping = (obj(n['meter'])['grouping'] as number[] | undefined) ?? null;
+  const unit = num(meter['unit'], 4);
+  const grouping =
+    (meter['grouping'] as number[] | undefined) ?? defaultGrouping(beatsPerBar, unit);
   const measure = pick('measure') === 'witek' ? 'witek' : 'lhl';
   const sub = pick('subdivision');
   const subs = Array.isArray(sub)
@@ -263,6 +265,24 @@ export function readCard(written: unknown, normalised: unknown): OracleCard {
     grouping,
     measure,
   };
+}
+
+/**
+ * The meter's grouping when the card gives none (docs/engine.md, "Meter grouping"; common
+ * practice): x/8 and x/16 meters of four beats or more group in threes when the beats divide by
+ * three (compound time), 5 as 3+2, 7 as 2+2+3, 11 as 3+3+3+2, 13 as 3+3+3+2+2, other even counts
+ * in twos; quarter- and half-note meters and bars of one to three beats stand ungrouped.
+ */
+export function defaultGrouping(beats: number, unit: number): number[] | null {
+  if (unit < 8 || beats < 4) return null;
+  if (beats % 3 === 0) return Array<number>(beats / 3).fill(3);
+  const odd: Record<number, number[]> = {
+    5: [3, 2],
+    7: [2, 2, 3],
+    11: [3, 3, 3, 2],
+    13: [3, 3, 3, 2, 2],
+  };
+  return odd[beats] ?? Array<number>(beats / 2).fill(2);
 }
 
 export function rulesOf<K extends OracleRule['kind']>(

@@ -7,6 +7,7 @@
  */
 import { isHand, rulesOf, FAR_SIDE_FOR_LEFT_HAND, type OracleCard, type Voice } from './card';
 import { key, PRECEDENCE, type Plan, type Source } from './plan';
+import { measuredTension } from './tension';
 
 export interface HitLike {
   readonly beat: number;
@@ -70,6 +71,7 @@ export const DRILL_CHECKS = [
   'phrase/landing-kick',
   'phrase/landing-crash',
   'tension/rank-order',
+  'tension/measured',
 ] as const;
 
 /** The issue's checks for built-in presets, on top of the drill checks. */
@@ -451,6 +453,17 @@ export function checkDrill(plan: Plan, drill: DrillLike): Violation[] {
     }
   }
 
+  // ---- each bar's stored tension against the oracle's own measure (LHL cards) ----
+  if (card.measure === 'lhl')
+    for (const bar of drill.bars) {
+      const mine = measuredTension(plan, bar);
+      if (mine !== bar.tension)
+        out.push({
+          check: 'tension/measured',
+          message: `bar ${bar.bar} stores tension ${bar.tension}; the oracle's Longuet-Higgins & Lee measure gives ${mine}`,
+        });
+    }
+
   // ---- tension rank order (the drill's own stored values) ----
   if (plan.targets)
     for (let i = 0; i < drill.bars.length; i++)
@@ -513,7 +526,16 @@ function checkAnchors(
 /** The normalised card lists every voice's role and fills the documented rule defaults. */
 function checkNormalised(card: OracleCard, echoed: unknown): Violation[] {
   const out: Violation[] = [];
-  const e = (echoed ?? {}) as { roles?: Record<string, string>; rules?: Record<string, unknown>[] };
+  const e = (echoed ?? {}) as {
+    roles?: Record<string, string>;
+    rules?: Record<string, unknown>[];
+    meter?: { grouping?: number[] };
+  };
+  if (JSON.stringify(e.meter?.grouping ?? null) !== JSON.stringify(card.grouping))
+    out.push({
+      check: 'card/normalised',
+      message: `the normalised meter is grouped ${JSON.stringify(e.meter?.grouping ?? null)}; docs/engine.md gives ${JSON.stringify(card.grouping)}`,
+    });
   for (const voice of card.voices) {
     const got = e.roles?.[voice];
     if (got !== card.roles.get(voice))

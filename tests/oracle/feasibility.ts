@@ -155,7 +155,7 @@ export function reasonAbout(plan: Plan): Feasibility {
 const TOMS = new Set<Voice>(['tomHigh', 'tomMid', 'tomFloor']);
 
 /** Slots where some fill voice may sound (docs/engine.md, "Voice roles"). */
-function fillableSlots(plan: Plan): Set<number> {
+export function fillableSlots(plan: Plan): Set<number> {
   const { card, grid } = plan;
   const open = new Set<number>();
   const named = new Set(rulesOf(card, 'fillHoles').flatMap((r) => r.voices));

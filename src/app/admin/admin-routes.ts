@@ -8,4 +8,9 @@ export const ADMIN_ROUTES: Routes = [
     title: 'Users',
     loadComponent: () => import('./users/users').then((m) => m.Users),
   },
+  {
+    path: 'outbox',
+    title: 'Outbox',
+    loadComponent: () => import('./outbox/outbox').then((m) => m.Outbox),
+  },
 ];

@@ -7,4 +7,9 @@ export const ASSIGNMENT_ROUTES: Routes = [
     title: 'Assignments',
     loadComponent: () => import('./assignments').then((m) => m.Assignments),
   },
+  {
+    path: ':id',
+    title: 'Assignment',
+    loadComponent: () => import('./assignment-page').then((m) => m.AssignmentPage),
+  },
 ];

@@ -23,9 +23,11 @@ import { toLoadState, type LoadState } from '../core/load-state';
 import type { Drill } from '../../../shared/generator/index';
 import { generateFromCard } from './drill-result';
 import { DrillsApi, type PresetDetail } from './drills-api';
+import { ExportMenu } from '../exports/export-menu';
 import { PlaybackPanel } from './playback/playback-panel';
 import { isTypingTarget } from './playback/playback-keys';
 import { RecentDrills } from './recent-drills';
+import { SaveDrillButton } from '../saved-drills/save-drill-button';
 import { DrillScore } from './score/drill-score';
 import type { ScorePosition } from './score/score-layout';
 import { MAX_SEED_LENGTH, seedErrorState, seedProblem } from './seed-problem';
@@ -50,6 +52,8 @@ const SHORTCUTS_DIALOG = 'tensile-drill-shortcuts';
     MatSlideToggleModule,
     DrillScore,
     PlaybackPanel,
+    SaveDrillButton,
+    ExportMenu,
   ],
   templateUrl: './drill-page.html',
   styleUrl: './drill-page.scss',

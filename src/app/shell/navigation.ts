@@ -12,13 +12,16 @@ export interface NavItem {
 export const NAVIGATION: Readonly<Record<Role, readonly NavItem[]>> = {
   teacher: [
     { label: 'Rule cards', path: '/rule-cards', icon: 'style' },
+    { label: 'Gallery', path: '/gallery', icon: 'collections_bookmark' },
     { label: 'Drills', path: '/drills', icon: 'queue_music' },
     { label: 'Worksheets', path: '/worksheets', icon: 'description' },
+    { label: 'Import groove', path: '/imports', icon: 'upload_file' },
     { label: 'Studio', path: '/studio', icon: 'groups' },
   ],
   student: [
     { label: 'Assignments', path: '/assignments', icon: 'assignment' },
     { label: 'Practice', path: '/practice', icon: 'timer' },
+    { label: 'Gallery', path: '/gallery', icon: 'collections_bookmark' },
   ],
   admin: [
     { label: 'Presets', path: '/presets', icon: 'library_music' },

@@ -62,16 +62,30 @@ describe('Shell', () => {
   const navTargets = (page: HTMLElement) =>
     [...page.querySelectorAll('nav[aria-label="Main"] a')].map((a) => a.getAttribute('href'));
 
-  it('gives a teacher rule cards, drills, worksheets and the studio', async () => {
+  it('gives a teacher rule cards, the preset gallery, drills, worksheets, groove import and the studio', async () => {
     const page = await renderAs(people.teacher);
-    expect(navLabels(page)).toEqual(['Rule cards', 'Drills', 'Worksheets', 'Studio']);
-    expect(navTargets(page)).toEqual(['/rule-cards', '/drills', '/worksheets', '/studio']);
+    expect(navLabels(page)).toEqual([
+      'Rule cards',
+      'Gallery',
+      'Drills',
+      'Worksheets',
+      'Import groove',
+      'Studio',
+    ]);
+    expect(navTargets(page)).toEqual([
+      '/rule-cards',
+      '/gallery',
+      '/drills',
+      '/worksheets',
+      '/imports',
+      '/studio',
+    ]);
   });
 
-  it('gives a student assignments and practice only', async () => {
+  it('gives a student assignments, practice and the preset gallery only', async () => {
     const page = await renderAs(people.student);
-    expect(navLabels(page)).toEqual(['Assignments', 'Practice']);
-    expect(navTargets(page)).toEqual(['/assignments', '/practice']);
+    expect(navLabels(page)).toEqual(['Assignments', 'Practice', 'Gallery']);
+    expect(navTargets(page)).toEqual(['/assignments', '/practice', '/gallery']);
   });
 
   it('gives an admin presets and users', async () => {

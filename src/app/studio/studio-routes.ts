@@ -5,12 +5,16 @@ export const STUDIO_ROUTES: Routes = [
   {
     path: '',
     title: 'Studio',
-    loadComponent: () => import('../ui/coming-soon').then((m) => m.ComingSoon),
-    data: {
-      heading: 'Studio',
-      icon: 'groups',
-      purpose:
-        'The studio will show your students and what is assigned to them, with due dates and target tempos.',
-    },
+    loadComponent: () => import('./studio-page').then((m) => m.StudioPage),
+  },
+  {
+    path: 'students/:id',
+    title: 'Student',
+    loadComponent: () => import('./student-progress').then((m) => m.StudentProgress),
+  },
+  {
+    path: 'assignments/:id',
+    title: 'Assignment',
+    loadComponent: () => import('./assignment-detail').then((m) => m.AssignmentDetail),
   },
 ];

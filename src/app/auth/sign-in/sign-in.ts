@@ -5,7 +5,7 @@ import { MatCardModule } from '@angular/material/card';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { Router } from '@angular/router';
+import { Router, RouterLink } from '@angular/router';
 
 import { apiErrorMessage } from '../../core/api-error-message';
 import { AuthSession } from '../../core/auth-session';
@@ -21,6 +21,7 @@ import { ROLE_HOME, Role } from '../../core/user';
     MatFormFieldModule,
     MatInputModule,
     MatProgressBarModule,
+    RouterLink,
   ],
   templateUrl: './sign-in.html',
   styleUrl: './sign-in.scss',
