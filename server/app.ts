@@ -205,6 +205,8 @@ export function createApp(deps: AppDeps): Express {
     sources: { presets, drills, generate },
     links: new SeedLinksRepository(db),
     publicUrl: config.publicUrl,
+    branding: (user) =>
+      new BrandingService(new BrandingRepository(db)).forPrint(user.id, user.name),
   };
   app.use(
     '/api/worksheets',

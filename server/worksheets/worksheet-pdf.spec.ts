@@ -95,9 +95,11 @@ describe('worksheet PDF', () => {
     expect(bytes.toString('latin1')).toMatch(/\/MediaBox \[0 0 595\.2\d* 841\.8\d*\]/);
   });
 
-  it('prints on US Letter when asked', async () => {
+  it('prints on US Letter when asked, under the studio’s own name once it has one', async () => {
     const tomasz = await t.signIn(TOMASZ);
     const id = await sheetOfTwo(tomasz);
+    const named = await tomasz.put('/api/branding').send({ studioName: 'Larkspur Rhythm School' });
+    expect(named.status).toBe(200);
     const res = await tomasz
       .get(`/api/worksheets/${id}/pdf?paper=letter`)
       .buffer(true)
@@ -105,6 +107,9 @@ describe('worksheet PDF', () => {
     expect(res.status).toBe(200);
     // US Letter is 8.5 × 11 in = 612 × 792 points (common practice).
     expect((res.body as Buffer).toString('latin1')).toMatch(/\/MediaBox \[0 0 612 792\]/);
+    const text = (await pdfText(res.body as Buffer)).replace(/\s+/g, ' ');
+    expect(text).toContain('Larkspur Rhythm School');
+    expect(text).not.toContain('Tomasz Reyes');
   });
 
   it('answers 400, 403, 404 and 409 before drawing anything', async () => {

@@ -42,6 +42,9 @@ type PrintState =
   templateUrl: './print-preview.html',
   styles: `
     :host {
+      display: block;
+    }
+    section {
       display: grid;
       gap: 12px;
     }
@@ -55,6 +58,7 @@ type PrintState =
       flex: 1;
     }
     .pages {
+      box-sizing: border-box;
       width: 100%;
       height: 80vh;
       border: 1px solid var(--tensile-rule);
