@@ -1,4 +1,5 @@
 /** Browser side of `bench/notation.ts`: engraves a drill into the page and times it. */
+// The entry that embeds Bravura and Academico: the notation code itself imports VexFlow's core.
 import { Formatter, Stave } from 'vexflow/bravura';
 import { EngravingContext, withFastEngraving } from '../shared/notation/engraving-context';
 import type { NotationSource } from '../shared/notation/notation-model';

@@ -24,6 +24,8 @@ import { ENGINE_VERSION } from '../shared/generator/index';
 import { engineGenerator, type DrillGenerator } from './drills/drill-generator';
 import { DrillsRepository } from './drills/drills-repository';
 import { createDrillsRouter } from './drills/drills-router';
+import { createExportsRouter } from './exports/exports-router';
+import { ExportsService } from './exports/exports-service';
 import { DrillsService } from './drills/drills-service';
 import { PresetsRepository } from './presets/presets-repository';
 import { createPresetsRouter } from './presets/presets-router';
@@ -56,6 +58,19 @@ import { WorksheetsRepository } from './worksheets/worksheets-repository';
 import { createWorksheetsRouter } from './worksheets/worksheets-router';
 import { WorksheetsService } from './worksheets/worksheets-service';
 import { createSpaRouter } from './web/spa';
+import { MailService, type Mailer } from './mail/mail-service';
+import { OutboxRepository } from './mail/outbox-repository';
+import { AccountLinksService } from './auth/account-links-service';
+import { createInvitationsRouter, createPasswordResetsRouter } from './auth/account-links-router';
+import { AssignmentsService } from './assignments/assignments-service';
+import { createAssignmentsRouter } from './assignments/assignments-router';
+import { PracticeService } from './practice/practice-service';
+import { createPracticeRouter } from './practice/practice-router';
+import { StudioRepository } from './studio/studio-repository';
+import { StudioService } from './studio/studio-service';
+import { createStudioRouter } from './studio/studio-router';
+import { UsersService } from './users/users-service';
+import { createOutboxRouter } from './mail/outbox-router';
 
 /** What {@link createApp} needs; everything but `config` and `db` has a default. */
 export interface AppDeps {
@@ -74,6 +89,8 @@ export interface AppDeps {
   readonly engineVersion?: string;
   /** Engraves preset thumbnails; defaults to the server's VexFlow renderer. */
   readonly renderThumbnail?: ThumbnailRenderer;
+  /** Outgoing mail; defaults to SMTP_URL, or the outbox table without it. */
+  readonly mailer?: Mailer;
 }
 
 /** Largest JSON body accepted; rule cards and drills are far smaller. */
@@ -86,9 +103,14 @@ export function createApp(deps: AppDeps): Express {
   const { config, db } = deps;
   const logger = deps.logger ?? createLogger(config.logLevel);
   const users = new UsersRepository(db);
-  const auth = new AuthService(users, new PasswordHasher(config.passwordHashCost), logger);
+  const passwords = new PasswordHasher(config.passwordHashCost);
+  const auth = new AuthService(users, passwords, logger);
   const passport = createPassport(auth);
   const store = deps.sessionStore ?? createSessionStore(db, logger);
+  const outbox = new OutboxRepository(db);
+  const mailer =
+    deps.mailer ??
+    new MailService({ smtpUrl: config.smtpUrl, publicUrl: config.publicUrl, outbox }, logger);
 
   const app = express();
   app.disable('x-powered-by');
@@ -124,8 +146,22 @@ export function createApp(deps: AppDeps): Express {
       }),
     ),
   );
-  app.use('/api/users', answerWrongMethods(createUsersRouter(users)));
-  app.use('/api/students', answerWrongMethods(createStudentsRouter(new StudentsService(users))));
+  const links = new AccountLinksService(db, passwords, mailer, config.publicUrl);
+  app.use('/api/users', answerWrongMethods(createUsersRouter(new UsersService(db, links))));
+  app.use(
+    '/api/students',
+    answerWrongMethods(createStudentsRouter(new StudentsService(users, new StudioRepository(db)))),
+  );
+  app.use('/api/invitations', answerWrongMethods(createInvitationsRouter(links)));
+  app.use('/api/password-resets', answerWrongMethods(createPasswordResetsRouter(links)));
+  app.use('/api/studio', answerWrongMethods(createStudioRouter(new StudioService(db, links))));
+  app.use(
+    '/api/assignments',
+    answerWrongMethods(
+      createAssignmentsRouter(new AssignmentsService(db, mailer, config.publicUrl)),
+    ),
+  );
+  app.use('/api/practice', answerWrongMethods(createPracticeRouter(new PracticeService(db))));
   const generate = deps.generateDrill ?? engineGenerator;
   const presets = new PresetsRepository(db);
   const ruleCards = new RuleCardsRepository(db);
@@ -160,6 +196,9 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/seed-links', answerWrongMethods(createSeedLinksRouter(seedLinks)));
   const worksheets = new WorksheetsService(new WorksheetsRepository(db), drills, presets);
   app.use('/api/worksheets', answerWrongMethods(createWorksheetsRouter(worksheets)));
+  app.use('/api/outbox', answerWrongMethods(createOutboxRouter(outbox)));
+  const exportsService = new ExportsService({ presets, drills, generate });
+  app.use('/api/exports', answerWrongMethods(createExportsRouter(exportsService)));
   const branding = new BrandingService(new BrandingRepository(db));
   app.use('/api/branding', answerWrongMethods(createBrandingRouter(branding)));
   const pdf = new PdfService({ presets, drills, generate }, branding, config.publicUrl);

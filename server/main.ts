@@ -8,6 +8,7 @@ import { UsersRepository } from './auth/users-repository';
 import { DemoPasswordsError, refuseDemoPasswords } from './demo/demo-passwords';
 import { seedDemo } from './demo/seed-demo';
 import { seedDemoAuthoring } from './demo/seed-authoring';
+import { seedDemoStudio } from './demo/seed-studio';
 import { createLogger, errorFields } from './logger';
 import { syncBuiltInPresets } from './presets/sync-built-ins';
 import { createSessionStore, stopSessionStore } from './session';
@@ -31,6 +32,8 @@ async function main(): Promise<void> {
     const material = await seedDemoAuthoring(db);
     if (material.ruleCards > 0)
       logger.info('Demo rule cards, drills and links added', { ...material });
+    const studio = await seedDemoStudio(db);
+    if (studio.links > 0) logger.info('Demo studio added', { ...studio });
     if (config.production) {
       logger.warn(
         'SEED_DEMO=true in production: the demo accounts and their published passwords work',

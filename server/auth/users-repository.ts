@@ -78,6 +78,48 @@ export class UsersRepository {
     await this.db('users').where({ id }).update({ password_hash: passwordHash });
   }
 
+  /** Any account with this id, disabled or not. */
+  async findById(id: number): Promise<UserRow | undefined> {
+    return this.db<UserRow>('users').where({ id }).first();
+  }
+
+  /**
+   * Adds one account and returns its id; `disabled` accounts cannot sign in (an invited person
+   * until they choose a password).
+   */
+  async insertOne(user: NewUser & { disabled: boolean }): Promise<number> {
+    const [row] = (await this.db('users')
+      .insert({
+        email: normaliseEmail(user.email),
+        name: user.name,
+        role: user.role,
+        password_hash: user.passwordHash,
+        disabled_at: user.disabled ? new Date() : null,
+      })
+      .returning('id')) as ({ id: number } | number)[];
+    return typeof row === 'object' ? Number(row.id) : Number(row);
+  }
+
+  /** Disables (sign-in refused, sessions dropped on their next request) or enables an account. */
+  async setDisabled(id: number, disabled: boolean): Promise<void> {
+    await this.db('users')
+      .where({ id })
+      .update({ disabled_at: disabled ? new Date() : null });
+  }
+
+  async setRole(id: number, role: Role): Promise<void> {
+    await this.db('users').where({ id }).update({ role });
+  }
+
+  /** How many active admins there are. */
+  async countActiveAdmins(): Promise<number> {
+    const result = await this.db('users')
+      .where({ role: 'admin' })
+      .whereNull('disabled_at')
+      .count<{ count: number | string }[]>({ count: '*' });
+    return Number(result[0]?.count ?? 0);
+  }
+
   async count(): Promise<number> {
     const result = await this.db('users').count<{ count: number | string }[]>({ count: '*' });
     return Number(result[0]?.count ?? 0);

@@ -103,13 +103,11 @@ describe('resolveDrillSource', () => {
 
   it('serves a saved drill from its snapshot to its owner only', async () => {
     const hana = await t.signIn('hana.lindqvist@larkspur.test');
-    const saved = await hana
-      .post('/api/drills')
-      .send({
-        title: 'Quintuplets for Juno',
-        card: presetCard('quintuplets-hihat-1-3-4'),
-        seed: 'q',
-      });
+    const saved = await hana.post('/api/drills').send({
+      title: 'Quintuplets for Juno',
+      card: presetCard('quintuplets-hihat-1-3-4'),
+      seed: 'q',
+    });
     expect(saved.status).toBe(201);
     const id = saved.body.drill.id as number;
     const resolved = await resolveDrillSource(deps, await user('hana.lindqvist@larkspur.test'), {

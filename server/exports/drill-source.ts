@@ -1,5 +1,6 @@
 import { z } from 'zod';
-import type { Drill, DrillBar, RuleCard } from '../../shared/generator/index';
+import type { DrillSource } from '../../shared/formats/drill-source';
+import type { Drill, RuleCard } from '../../shared/generator/index';
 import type { PublicUser } from '../auth/roles';
 import { generateOrRefuse, type DrillGenerator } from '../drills/drill-generator';
 import { drillBarSchema, seedSchema } from '../drills/drill-schemas';
@@ -40,15 +41,7 @@ export const drillSourceSchema = z.discriminatedUnion(
   { error: 'The drill source needs a kind: "preset", "saved" or "card".' },
 );
 
-export type DrillSource =
-  | { readonly kind: 'preset'; readonly presetId: string; readonly seed: string }
-  | { readonly kind: 'saved'; readonly drillId: number }
-  | {
-      readonly kind: 'card';
-      readonly card: unknown;
-      readonly seed: string;
-      readonly keep?: readonly DrillBar[];
-    };
+export type { DrillSource };
 
 /** A drill ready to print or export, with where the app shows it. */
 export interface ResolvedDrill {

@@ -2,11 +2,13 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { PublicUser } from '../auth/roles';
 import { createTestApp, type TestApp } from '../testing/test-app';
+import { seedDemoStudio } from '../demo/seed-studio';
 import { StudentsService } from './students-service';
 
 let t: TestApp;
 beforeAll(async () => {
   t = await createTestApp();
+  await seedDemoStudio(t.db);
 });
 afterAll(async () => {
   await t.close();
@@ -20,15 +22,25 @@ const DEMO_STUDENTS = [
   { name: 'Wren Okoye', email: 'wren.okoye@larkspur.test' },
 ];
 
+/** The demo studios: Tomasz teaches three of them, Hana one. */
+const STUDIO_OF: Record<string, string[]> = {
+  'tomasz.reyes@larkspur.test': ['Felix Abara', 'Juno Marsh', 'Noor Castellan'],
+  'hana.lindqvist@larkspur.test': ['Wren Okoye'],
+  'imogen.vale@larkspur.test': DEMO_STUDENTS.map((s) => s.name),
+};
+
 describe('GET /api/students (teachers and admins)', () => {
-  it.each(['teacher', 'hana.lindqvist@larkspur.test', 'admin'])(
-    'lists the active students by name, id/name/email only, for %s',
+  it.each(Object.keys(STUDIO_OF))(
+    'lists %s their own active students (an admin: all), by name, id/name/email only',
     async (who) => {
       const agent = await t.signIn(who);
       const res = await agent.get('/api/students');
       expect(res.status).toBe(200);
       expect(res.body).toEqual({
-        students: DEMO_STUDENTS.map((s) => ({ id: expect.any(Number), ...s })),
+        students: DEMO_STUDENTS.filter((s) => STUDIO_OF[who]!.includes(s.name)).map((s) => ({
+          id: expect.any(Number),
+          ...s,
+        })),
       });
       for (const student of res.body.students as object[])
         expect(Object.keys(student).sort()).toEqual(['email', 'id', 'name']);
@@ -64,7 +76,6 @@ describe('GET /api/students (teachers and admins)', () => {
       expect((res.body.students as { email: string }[]).map((s) => s.email)).toEqual([
         'felix.abara@larkspur.test',
         'juno.marsh@larkspur.test',
-        'wren.okoye@larkspur.test',
       ]);
     } finally {
       await t
@@ -83,8 +94,12 @@ describe('StudentsService', () => {
       { id: 2, name: 'Élan Moss', email: 'elan.moss@larkspur.test', role: 'student' },
       { id: 1, name: 'Élan Moss', email: 'elan.moss2@larkspur.test', role: 'student' },
     ];
-    const service = new StudentsService({ listActiveByRole: async () => rows });
-    const names = (await service.listStudents()).map((s) => `${s.name}#${s.id}`);
+    const service = new StudentsService(
+      { listActiveByRole: async () => rows },
+      { activeStudents: async () => [] },
+    );
+    const admin = { id: 9, name: 'Admin', email: 'a@larkspur.test', role: 'admin' } as const;
+    const names = (await service.listStudents(admin)).map((s) => `${s.name}#${s.id}`);
     expect(names).toEqual(['de Vries Ana#3', 'Élan Moss#1', 'Élan Moss#2', 'Zola Finch#4']);
   });
 });

@@ -1,4 +1,6 @@
+import type { PublicUser } from '../auth/roles';
 import type { UsersRepository } from '../auth/users-repository';
+import type { StudioRepository } from '../studio/studio-repository';
 
 /** A student as a teacher's lists show them. */
 export interface StudentSummary {
@@ -15,15 +17,20 @@ const byName = new Intl.Collator('en', { sensitivity: 'base' });
 
 /** The students a teacher (or an admin) can pick from, e.g. when assigning drills. */
 export class StudentsService {
-  constructor(private readonly users: Pick<UsersRepository, 'listActiveByRole'>) {}
+  constructor(
+    private readonly users: Pick<UsersRepository, 'listActiveByRole'>,
+    private readonly studio: Pick<StudioRepository, 'activeStudents'>,
+  ) {}
 
   /**
-   * Every active student, sorted by name (then id, so equal names keep a stable order).
-   * For now the whole school; once the studio links students to teachers this will narrow to
-   * the signed-in teacher's own students (admins keep seeing everyone).
+   * A teacher's own active students (their studio); an admin sees every active student. Sorted
+   * by name, then id, so equal names keep a stable order.
    */
-  async listStudents(): Promise<StudentSummary[]> {
-    const students = await this.users.listActiveByRole('student');
+  async listStudents(viewer: PublicUser): Promise<StudentSummary[]> {
+    const students =
+      viewer.role === 'admin'
+        ? await this.users.listActiveByRole('student')
+        : await this.studio.activeStudents(viewer.id);
     return students
       .map(({ id, name, email }) => ({ id, name, email }))
       .sort((a, b) => byName.compare(a.name, b.name) || a.id - b.id);

@@ -19,7 +19,7 @@ describe('GET /api/users (admin only)', () => {
     const users = res.body.users as Record<string, unknown>[];
     expect(users.map((u) => u['email']).sort()).toEqual(DEMO_ACCOUNTS.map((a) => a.email).sort());
     for (const user of users)
-      expect(Object.keys(user).sort()).toEqual(['email', 'id', 'name', 'role']);
+      expect(Object.keys(user).sort()).toEqual(['email', 'id', 'name', 'role', 'status']);
     expect(users[0]?.['role']).toBe('admin');
   });
 

@@ -2,7 +2,7 @@
  * The text rows of a bar: sticking (R, L, or R over L stacked) over the struck instants and the counting
  * syllables under every slot of every beat.
  */
-import type { Stave, SVGContext } from 'vexflow/bravura';
+import type { Stave, SVGContext } from 'vexflow/core';
 import { COUNT_ROOM, countPositions, spreadPositions, syllableSize } from './count-positions';
 import type { NotationBar } from './notation-model';
 import { svgText } from './svg-text';

@@ -9,7 +9,7 @@
  * replaced by equivalents: the state, font and style records hold only strings and numbers, so a
  * shallow copy is an exact copy, and a glyph's metrics cannot change within one pass.
  */
-import { Element, Metrics, SVGContext } from 'vexflow/bravura';
+import { Element, Metrics, SVGContext } from 'vexflow/core';
 
 /** An SVG context whose save/restore copy the (flat) drawing state without `structuredClone`. */
 export class EngravingContext extends SVGContext {

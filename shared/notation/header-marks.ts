@@ -12,7 +12,7 @@
  * SMuFL ranges "Metronome marks" and "Beamed groups of notes", the latter made to be set in a
  * line of text; words are in Academico, as every other text of the score.
  */
-import type { SVGContext } from 'vexflow/bravura';
+import type { SVGContext } from 'vexflow/core';
 import { swingFeel } from '../playback/swing';
 
 /** A note value in a mark: 1 whole, 2 half, 4 quarter, 8 eighth, 16 sixteenth. */

@@ -12,7 +12,7 @@ import {
   SVGContext,
   Voice,
   VoiceMode,
-} from 'vexflow/bravura';
+} from 'vexflow/core';
 import type { NotationModel } from './notation-model';
 import { STAFF_PLACEMENTS, vexKeyOf } from './staff-placement';
 import { svgText } from './svg-text';

@@ -5,7 +5,7 @@
  * written at their real values). A cycle that runs onto the next system is drawn in two pieces,
  * the label on the first, the open ends without hooks.
  */
-import type { SVGContext } from 'vexflow/bravura';
+import type { SVGContext } from 'vexflow/core';
 import type { PolyrhythmGroup } from './polyrhythm';
 import { svgText } from './svg-text';
 

@@ -3,8 +3,9 @@
  * such as jsdom), and reports where every bar and beat landed so a host can draw a playback
  * cursor and the tension plots under the bars.
  *
- * Only the `vexflow/bravura` entry is used: it carries the Bravura and Academico fonts as data
- * URLs, so nothing is fetched at run time.
+ * Only `vexflow/core` is imported: the host makes VexFlow's default faces, Bravura and Academico,
+ * available before drawing (the browser loads them as font files, the server registers them with
+ * its canvas, test pages import the `vexflow/bravura` entry that embeds them).
  */
 import {
   BarlineType,
@@ -14,7 +15,7 @@ import {
   TimeSignature,
   type SVGContext,
   type Tuplet,
-} from 'vexflow/bravura';
+} from 'vexflow/core';
 import { drawBeatTexts, STICKING_LINE } from './beat-texts';
 import { countPositions } from './count-positions';
 import { EngravingContext, withFastEngraving } from './engraving-context';

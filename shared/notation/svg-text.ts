@@ -1,5 +1,5 @@
 /** Plain text in the notation SVG (sticking, counts, key labels), centred on x by default. */
-import type { SVGContext } from 'vexflow/bravura';
+import type { SVGContext } from 'vexflow/core';
 
 export interface TextStyle {
   readonly size: number;

@@ -3,7 +3,7 @@
  * a colour and with a small triangle under the staff, and a one-line key says what the triangle
  * means, so the mark never depends on colour alone.
  */
-import type { SVGContext } from 'vexflow/bravura';
+import type { SVGContext } from 'vexflow/core';
 import type { NotationBar } from './notation-model';
 import { svgText } from './svg-text';
 import type { EngravedBar } from './vexflow-bar';

@@ -18,7 +18,7 @@ import {
   Tuplet,
   Voice,
   VoiceMode,
-} from 'vexflow/bravura';
+} from 'vexflow/core';
 import type { LayerBar, NotationBar, NotationEvent, NotationModel } from './notation-model';
 import type { Layer } from './staff-placement';
 

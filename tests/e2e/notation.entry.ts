@@ -1,4 +1,6 @@
 /** Browser side of the notation geometry checks: engraves a drill into the page. */
+// The entry that embeds Bravura and Academico: the notation code itself imports VexFlow's core.
+import 'vexflow/bravura';
 import { buildNotation, type NotationSource } from '../../shared/notation/notation-model';
 import { renderNotation, type RenderOptions } from '../../shared/notation/render-vexflow';
 

@@ -23,6 +23,7 @@ import { toLoadState, type LoadState } from '../core/load-state';
 import type { Drill } from '../../../shared/generator/index';
 import { generateFromCard } from './drill-result';
 import { DrillsApi, type PresetDetail } from './drills-api';
+import { ExportMenu } from '../exports/export-menu';
 import { PlaybackPanel } from './playback/playback-panel';
 import { isTypingTarget } from './playback/playback-keys';
 import { RecentDrills } from './recent-drills';
@@ -52,6 +53,7 @@ const SHORTCUTS_DIALOG = 'tensile-drill-shortcuts';
     DrillScore,
     PlaybackPanel,
     SaveDrillButton,
+    ExportMenu,
   ],
   templateUrl: './drill-page.html',
   styleUrl: './drill-page.scss',

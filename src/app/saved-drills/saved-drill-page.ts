@@ -27,6 +27,7 @@ import { freshSeed } from '../drills/seed-words';
 import { confirmAction } from '../ui/confirm-dialog';
 import { SavedDrillsApi, type SavedDrill, type SeedLink } from './saved-drills-api';
 import { SharePanel } from './share-panel';
+import { ExportMenu } from '../exports/export-menu';
 
 /**
  * `/saved-drills/:id`: a kept drill, drawn from its stored snapshot (so it reads the same after
@@ -45,6 +46,7 @@ import { SharePanel } from './share-panel';
     DrillScore,
     PlaybackPanel,
     SharePanel,
+    ExportMenu,
   ],
   templateUrl: './saved-drill-page.html',
   styleUrl: './saved-drill-page.scss',

@@ -26,6 +26,7 @@ import {
 } from '../../../../shared/notation/notation-model';
 import { onCardScale, targetTension } from '../drill-result';
 import { TensionPlot } from '../tension-plot/tension-plot';
+import { loadMusicFonts } from './music-fonts';
 import {
   cursorBox,
   fitToWidth,
@@ -264,8 +265,11 @@ export class DrillScore {
   ): Promise<void> {
     const token = ++this.renderToken;
     try {
-      const { renderNotation } = await import('../../../../shared/notation/render-vexflow');
-      await document.fonts?.ready;
+      // Only the score's own faces are waited for (not the page's text and icon fonts).
+      const [{ renderNotation }] = await Promise.all([
+        import('../../../../shared/notation/render-vexflow'),
+        loadMusicFonts(),
+      ]);
       if (token !== this.renderToken) return;
       const engrave = (lineWidth: number) =>
         renderNotation(this.canvas().nativeElement, model, {

@@ -1,0 +1,90 @@
+import { provideHttpClient } from '@angular/common/http';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { provideZonelessChangeDetection } from '@angular/core';
+import { TestBed } from '@angular/core/testing';
+import { firstValueFrom } from 'rxjs';
+import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+
+import { drillCardId, startEarlyPreset } from './drill-prefetch';
+import { DrillsApi } from './drills-api';
+
+const PRESET = {
+  id: 'early-backbeat',
+  title: 'Early backbeat',
+  summary: 'Snare a sixteenth before 2 and 4.',
+  card: { meter: '4/4' },
+  meter: '4/4',
+  subdivision: 'sixteenths',
+};
+
+describe('drillCardId', () => {
+  it('reads the card id of a drill page path and nothing else', () => {
+    expect(drillCardId('/drills/early-backbeat')).toBe('early-backbeat');
+    expect(drillCardId('/drills/early-backbeat/')).toBe('early-backbeat');
+    expect(drillCardId('/drills/a%20b')).toBe('a b');
+    expect(drillCardId('/drills')).toBeNull();
+    expect(drillCardId('/drills/')).toBeNull();
+    expect(drillCardId('/saved-drills/3')).toBeNull();
+    expect(drillCardId('/drills/a/b')).toBeNull();
+    expect(drillCardId('/drills/%E0%A4%A')).toBeNull();
+  });
+});
+
+describe('DrillsApi.preset with a request started before the app booted', () => {
+  let api: DrillsApi;
+  let http: HttpTestingController;
+  const fetchMock = vi.fn<typeof fetch>();
+
+  beforeEach(() => {
+    vi.stubGlobal('fetch', fetchMock);
+    TestBed.configureTestingModule({
+      providers: [
+        provideZonelessChangeDetection(),
+        provideHttpClient(),
+        provideHttpClientTesting(),
+      ],
+    });
+    api = TestBed.inject(DrillsApi);
+    http = TestBed.inject(HttpTestingController);
+  });
+
+  afterEach(() => {
+    http.verify();
+    fetchMock.mockReset();
+    vi.unstubAllGlobals();
+  });
+
+  it('uses the early answer once, then asks the server itself', async () => {
+    fetchMock.mockResolvedValue(Response.json({ preset: PRESET }));
+    startEarlyPreset('early-backbeat');
+    expect(fetchMock).toHaveBeenCalledWith('/api/presets/early-backbeat', expect.anything());
+
+    await expect(firstValueFrom(api.preset('early-backbeat'))).resolves.toEqual(PRESET);
+    http.expectNone('/api/presets/early-backbeat');
+
+    const again = firstValueFrom(api.preset('early-backbeat'));
+    http.expectOne('/api/presets/early-backbeat').flush({ preset: PRESET });
+    await expect(again).resolves.toEqual(PRESET);
+  });
+
+  it('falls back to its own request when the early one failed, so the error is reported', async () => {
+    fetchMock.mockResolvedValue(Response.json({ error: { code: 'not_found' } }, { status: 404 }));
+    startEarlyPreset('nope');
+    const answer = firstValueFrom(api.preset('nope'));
+    const request = await vi.waitFor(() => http.expectOne('/api/presets/nope'));
+    request.flush(
+      { error: { code: 'not_found', message: 'There is no preset rule card with that id.' } },
+      { status: 404, statusText: 'Not Found' },
+    );
+    await expect(answer).rejects.toMatchObject({ status: 404 });
+  });
+
+  it('ignores an early answer for another card', async () => {
+    fetchMock.mockResolvedValue(Response.json({ preset: PRESET }));
+    startEarlyPreset('early-backbeat');
+    const answer = firstValueFrom(api.preset('four-over-three'));
+    const other = { ...PRESET, id: 'four-over-three' };
+    http.expectOne('/api/presets/four-over-three').flush({ preset: other });
+    await expect(answer).resolves.toEqual(other);
+  });
+});
