@@ -5,7 +5,7 @@
 import type { Stave, SVGContext } from 'vexflow/core';
 import { COUNT_ROOM, countPositions, spreadPositions, syllableSize } from './count-positions';
 import type { NotationBar } from './notation-model';
-import { svgText } from './svg-text';
+import { SvgTextRow } from './svg-text';
 import type { EngravedBar } from './vexflow-bar';
 
 /** Syllables on slots where nothing sounds are printed lighter (still ≥ 4.5:1 on white). */
@@ -77,13 +77,12 @@ function drawSticking(
     tightest = Math.min(tightest, sorted[i]! - sorted[i - 1]!);
   const fits = Math.floor((tightest - LETTER_GAP) / LETTER_WIDTH);
   const size = Math.max(SMALLEST_STICKING, Math.min(STICKING_SIZE, fits));
+  if (placed.length === 0) return;
+  const letters = new SvgTextRow(ctx, 'tensile-sticking-row', { size, weight: 'bold' });
   for (const { x, hands, beat, slot } of placed) {
     hands.forEach((hand, i) => {
       const row = hands.length - 1 - i;
-      const label = svgText(ctx, hand, x, y - row * STICKING_LINE, 'tensile-sticking', {
-        size,
-        weight: 'bold',
-      });
+      const label = letters.add(hand, x, y - row * STICKING_LINE, 'tensile-sticking');
       label.setAttribute('data-beat', String(beat));
       label.setAttribute('data-slot', String(slot));
     });
@@ -119,6 +118,7 @@ function drawCounts(
     COUNT_ROOM,
   );
   const size = syllableSize([...flat, endX + COUNT_ROOM]);
+  const syllables = new SvgTextRow(ctx, 'tensile-count-row', { size });
   let next = 0;
   bar.beats.forEach((beat, index) => {
     const slots = flat.slice(next, next + (positions[index]?.length ?? 0));
@@ -127,8 +127,7 @@ function drawCounts(
       const x = slots[slot];
       if (x === undefined) continue;
       const className = sounding ? 'tensile-count' : 'tensile-count tensile-count-silent';
-      const label = svgText(ctx, text, x, y, className, {
-        size,
+      const label = syllables.add(text, x, y, className, {
         weight: strong ? 'bold' : 'normal',
         ...(sounding ? {} : { opacity: SILENT_COUNT_OPACITY }),
       });

@@ -25,6 +25,8 @@ import { STEP_PX, WEINBERG_STEPS } from '../support/drumset-staff';
 import { collisions, crowded, overlaps, readScore, type ScoreGeometry } from './notation.geometry';
 
 const SEED = 'lesson-12';
+/** How long a page may take to show a state it was asked for, on a busy machine. */
+const SETTLE_MS = 20_000;
 
 type RawCard = Record<string, unknown>;
 const QUINTUPLET = BUILT_IN_PRESETS.find((p) => {
@@ -208,24 +210,44 @@ describe('drill page notation (Chromium)', () => {
       const lastBar = score.locator(
         `svg .tensile-bar[data-bar="${drill.bars.length}"] > .vf-stave`,
       );
-      const below = await lastBar.evaluate((g) => g.getBoundingClientRect().top > innerHeight);
-      expect(below, 'the last bar starts off screen').toBe(true);
+      // The playback panel loads once the page is idle and lengthens it, and the score re-flows
+      // once a scroll bar takes its width: measure the page once it has settled.
+      await shortPage.locator('tensile-playback-panel').waitFor();
+      await expect
+        .poll(() => lastBar.evaluate((g) => g.getBoundingClientRect().top > innerHeight), {
+          timeout: SETTLE_MS,
+          message: 'the last bar starts off screen',
+        })
+        .toBe(true);
       await score.evaluate((el) => (el as HTMLElement).focus({ preventScroll: true }));
       const cursorOnScreen = () =>
         score.locator('.cursor').evaluate((el) => {
           const rect = el.getBoundingClientRect();
           return rect.top >= 0 && rect.bottom <= innerHeight;
         });
-      const beats = drill.bars.reduce((n, bar) => n + bar.beats.length, 0);
-      for (let i = 0; i < beats; i++) {
+      const spoken = score.locator('[aria-live="polite"]');
+      const beats = drill.bars.flatMap((bar) =>
+        bar.beats.map((_, i) => `Bar ${bar.bar}, beat ${i + 1}`),
+      );
+      for (const beat of beats) {
         await shortPage.keyboard.press('ArrowRight');
-        await expect.poll(cursorOnScreen, { message: `beat ${i + 1} on screen` }).toBe(true);
+        // Wait for the states checked, not for a time (a busy machine can take seconds): the
+        // cursor has reached this beat, then its line is on screen.
+        await expect
+          .poll(async () => (await spoken.textContent())?.trim(), {
+            timeout: SETTLE_MS,
+            message: `cursor at ${beat}`,
+          })
+          .toBe(beat);
+        await expect
+          .poll(cursorOnScreen, { timeout: SETTLE_MS, message: `${beat} on screen` })
+          .toBe(true);
       }
       expect(await lastBar.evaluate((g) => g.getBoundingClientRect().top < innerHeight)).toBe(true);
     } finally {
       await short.close();
     }
-  });
+  }, 180_000);
 
   it('keeps the seed in the address, and a new seed redraws another drill', async () => {
     const preset = QUINTUPLET!;
