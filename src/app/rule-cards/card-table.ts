@@ -7,30 +7,29 @@ import {
   viewChild,
   type ElementRef,
 } from '@angular/core';
-import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatMenuModule } from '@angular/material/menu';
-import { MatPaginatorModule, type PageEvent } from '@angular/material/paginator';
+import { MatPaginatorModule } from '@angular/material/paginator';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import { MatSnackBar } from '@angular/material/snack-bar';
-import { MatSortModule, type Sort } from '@angular/material/sort';
+import { MatSortModule } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
 import { filter, switchMap, type Observer } from 'rxjs';
-import { toLoadState, type LoadState } from '../core/load-state';
 import { confirmAction } from '../ui/confirm-dialog';
 import { EmptyState } from '../ui/empty-state';
+import { ServerTable } from '../ui/server-table';
 import { apiErrorWithDetails } from './api-details';
 import { subdivisionLabel } from './card-labels';
 import { debounced } from './debounced';
 import { downloadJson, readJsonFile } from './json-file';
-import { TeacherCardsApi, type CardLevel, type Page, type RuleCardSummary } from './rule-cards-api';
+import { TeacherCardsApi, type CardLevel, type RuleCardSummary } from './rule-cards-api';
 import { inputText } from './input-text';
 import { TitleDialog, type TitleDialogData } from './title-dialog';
 
@@ -86,41 +85,23 @@ export class CardTable {
   protected readonly meter = signal('');
   protected readonly subdivision = signal<number | ''>('');
   protected readonly archived = signal(false);
-  protected readonly sort = signal<Sort>({ active: 'updatedAt', direction: 'desc' });
-  protected readonly page = signal({ index: 0, size: 20 });
-  private readonly reload = signal(0);
 
   private readonly typedQ = debounced(this.q, FILTER_DEBOUNCE_MS);
   private readonly typedTag = debounced(this.tag, FILTER_DEBOUNCE_MS);
   private readonly typedMeter = debounced(this.meter, FILTER_DEBOUNCE_MS);
 
-  private readonly query = computed(() => ({
-    page: this.page().index,
-    pageSize: this.page().size,
-    sort: this.sort().direction ? this.sort().active : '',
-    direction: this.sort().direction,
-    q: this.typedQ().trim(),
-    tag: this.typedTag().trim(),
-    level: this.level(),
-    meter: this.typedMeter().trim(),
-    subdivision: this.subdivision(),
-    archived: this.archived() ? true : '',
-    reload: this.reload(),
-  }));
-
-  protected readonly state = toSignal(
-    toObservable(this.query).pipe(
-      switchMap(({ reload: _reload, ...query }) => toLoadState(this.api.list(query))),
-    ),
-    { initialValue: { status: 'loading' } as LoadState<Page<RuleCardSummary>> },
-  );
-  protected readonly rows = computed(() => {
-    const state = this.state();
-    return state.status === 'ready' ? state.value.items : [];
-  });
-  protected readonly total = computed(() => {
-    const state = this.state();
-    return state.status === 'ready' ? state.value.total : 0;
+  protected readonly table = new ServerTable<RuleCardSummary>({
+    sort: { active: 'updatedAt', direction: 'desc' },
+    pageSize: 20,
+    filters: () => ({
+      q: this.typedQ().trim(),
+      tag: this.typedTag().trim(),
+      level: this.level(),
+      meter: this.typedMeter().trim(),
+      subdivision: this.subdivision(),
+      archived: this.archived() ? true : '',
+    }),
+    load: (query) => this.api.list(query),
   });
   protected readonly filtered = computed(
     () => !!(this.q() || this.tag() || this.level() || this.meter() || this.subdivision() !== ''),
@@ -133,20 +114,11 @@ export class CardTable {
   /** Any filter change starts again from the first page. */
   protected setFilter<T>(target: { set(value: T): void }, value: T): void {
     target.set(value);
-    this.page.update((page) => ({ ...page, index: 0 }));
+    this.table.firstPage();
   }
 
   protected textFilter(target: { set(value: string): void }, event: Event): void {
     this.setFilter(target, inputText(event));
-  }
-
-  protected sorted(sort: Sort): void {
-    this.sort.set(sort);
-    this.page.update((page) => ({ ...page, index: 0 }));
-  }
-
-  protected paged(event: PageEvent): void {
-    this.page.set({ index: event.pageIndex, size: event.pageSize });
   }
 
   protected clearFilters(): void {
@@ -155,7 +127,7 @@ export class CardTable {
     this.level.set('');
     this.meter.set('');
     this.subdivision.set('');
-    this.page.update((page) => ({ ...page, index: 0 }));
+    this.table.firstPage();
   }
 
   protected rename(card: RuleCardSummary): void {
@@ -221,7 +193,7 @@ export class CardTable {
     return {
       next: (value) => {
         this.snackBar.open(message(value), undefined, { duration: 4000 });
-        this.reload.update((n) => n + 1);
+        this.table.reload();
       },
       error: (error: unknown) => this.failed(error),
     };

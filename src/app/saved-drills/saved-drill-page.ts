@@ -141,7 +141,8 @@ export class SavedDrillPage {
     if (!drill) return;
     confirmAction(this.dialog, {
       title: `Delete "${drill.title}"?`,
-      message: 'The drill and its seed link are deleted. This cannot be undone.',
+      message:
+        'The drill is deleted; anyone opening its seed link is told it was withdrawn. This cannot be undone.',
       confirm: 'Delete',
     })
       .pipe(

@@ -1,18 +1,15 @@
-import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
-import { toObservable, toSignal } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
-import { MatPaginatorModule, type PageEvent } from '@angular/material/paginator';
+import { MatPaginatorModule } from '@angular/material/paginator';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { MatSortModule, type Sort } from '@angular/material/sort';
+import { MatSortModule } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
-import { switchMap } from 'rxjs';
-import { toLoadState, type LoadState } from '../core/load-state';
-import type { Page } from '../rule-cards/rule-cards-api';
 import { debounced } from '../rule-cards/debounced';
 import { inputText } from '../rule-cards/input-text';
 import { EmptyState } from '../ui/empty-state';
+import { ServerTable } from '../ui/server-table';
 import { SavedDrillsApi, type SavedDrillSummary } from './saved-drills-api';
 
 /** The teacher's saved drills: a server-side table with search, sort and paging. */
@@ -33,24 +30,24 @@ import { SavedDrillsApi, type SavedDrillSummary } from './saved-drills-api';
       <mat-label>Search saved drills</mat-label>
       <input matInput [value]="q()" (input)="search($event)" />
     </mat-form-field>
-    @switch (state().status) {
+    @switch (table.state().status) {
       @case ('loading') {
         <mat-progress-bar mode="indeterminate" aria-label="Loading saved drills" />
       }
       @case ('error') {
         <tensile-empty-state icon="cloud_off" heading="Saved drills could not load">
-          {{ errorMessage() }}
+          {{ table.errorMessage() }}
         </tensile-empty-state>
       }
     }
-    <div [hidden]="state().status !== 'ready' || total() === 0">
+    <div [hidden]="table.state().status !== 'ready' || table.total() === 0">
       <table
         mat-table
-        [dataSource]="rows()"
+        [dataSource]="table.rows()"
         matSort
-        [matSortActive]="sort().active"
-        [matSortDirection]="sort().direction"
-        (matSortChange)="sorted($event)"
+        [matSortActive]="table.sort().active"
+        [matSortDirection]="table.sort().direction"
+        (matSortChange)="table.sorted($event)"
         aria-label="Saved drills"
       >
         <ng-container matColumnDef="title">
@@ -71,15 +68,15 @@ import { SavedDrillsApi, type SavedDrillSummary } from './saved-drills-api';
         <tr mat-row *matRowDef="let row; columns: columns"></tr>
       </table>
       <mat-paginator
-        [length]="total()"
-        [pageIndex]="page().index"
-        [pageSize]="page().size"
+        [length]="table.total()"
+        [pageIndex]="table.page().index"
+        [pageSize]="table.page().size"
         [pageSizeOptions]="[10, 20, 50]"
-        (page)="paged($event)"
+        (page)="table.paged($event)"
         aria-label="Pages of saved drills"
       />
     </div>
-    @if (state().status === 'ready' && total() === 0) {
+    @if (table.state().status === 'ready' && table.total() === 0) {
       <tensile-empty-state icon="bookmark_border" heading="No saved drills yet">
         @if (q()) {
           No saved drill matches "{{ q() }}".
@@ -104,45 +101,16 @@ export class SavedDrillsTable {
   private readonly api = inject(SavedDrillsApi);
   protected readonly columns = ['title', 'seed', 'createdAt'];
   protected readonly q = signal('');
-  protected readonly sort = signal<Sort>({ active: 'createdAt', direction: 'desc' });
-  protected readonly page = signal({ index: 0, size: 10 });
   private readonly typedQ = debounced(this.q, 200);
-  protected readonly state = toSignal(
-    toObservable(
-      computed(() => ({
-        page: this.page().index,
-        pageSize: this.page().size,
-        sort: this.sort().direction ? this.sort().active : '',
-        direction: this.sort().direction,
-        q: this.typedQ().trim(),
-      })),
-    ).pipe(switchMap((query) => toLoadState(this.api.list(query)))),
-    { initialValue: { status: 'loading' } as LoadState<Page<SavedDrillSummary>> },
-  );
-  protected readonly rows = computed(() => {
-    const state = this.state();
-    return state.status === 'ready' ? state.value.items : [];
-  });
-  protected readonly total = computed(() => {
-    const state = this.state();
-    return state.status === 'ready' ? state.value.total : 0;
-  });
-  protected readonly errorMessage = computed(() => {
-    const state = this.state();
-    return state.status === 'error' ? state.message : '';
+  protected readonly table = new ServerTable<SavedDrillSummary>({
+    sort: { active: 'createdAt', direction: 'desc' },
+    pageSize: 10,
+    filters: () => ({ q: this.typedQ().trim() }),
+    load: (query) => this.api.list(query),
   });
 
   protected search(event: Event): void {
     this.q.set(inputText(event));
-    this.page.update((page) => ({ ...page, index: 0 }));
-  }
-
-  protected sorted(sort: Sort): void {
-    this.sort.set(sort);
-    this.page.update((page) => ({ ...page, index: 0 }));
-  }
-
-  protected paged(event: PageEvent): void {
-    this.page.set({ index: event.pageIndex, size: event.pageSize });
+    this.table.firstPage();
   }
 }
