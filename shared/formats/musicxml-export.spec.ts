@@ -100,12 +100,28 @@ describe('drillToMusicXml', () => {
     const measure = score.doc.getElementsByTagName('measure')[0]!;
     expect(measure.getElementsByTagName('backup')).toHaveLength(1);
     expect(text(measure.getElementsByTagName('backup')[0]!, 'duration')).toBe(String(6 * 840));
-    // 6/8 hi-hat eighths beamed in threes (common practice): begin, continue, end, twice.
-    const hands = score.notes.filter((n) => n.measure === 0 && n.voice === '1' && !n.rest);
-    const beams = hands
-      .filter((n) => !n.element.getElementsByTagName('chord').length)
-      .map((n) => text(n.element, 'beam'));
-    expect(beams).toEqual(['begin', 'continue', 'end', 'begin', 'continue', 'end']);
+    // 6/8 beamed by dotted quarter (common practice): in every bar the hands' primary beam
+    // begins on the group's first note and ends on its last, never across the two groups.
+    const groupLength = 3 * 840;
+    for (let m = 0; m < score.voiceTotals.length; m++) {
+      const heads = score.notes.filter(
+        (n) =>
+          n.measure === m &&
+          n.voice === '1' &&
+          !n.rest &&
+          n.element.getElementsByTagName('chord').length === 0,
+      );
+      for (const group of [0, 1]) {
+        const inGroup = heads.filter((n) => Math.floor(n.start / groupLength) === group);
+        const primary = inGroup.map(
+          (n) => n.element.querySelector('beam[number="1"]')?.textContent ?? null,
+        );
+        if (inGroup.length < 2) continue;
+        expect(primary[0], `bar ${m + 1} group ${group + 1}`).toBe('begin');
+        expect(primary.at(-1)).toBe('end');
+        expect(primary.slice(1, -1).every((b) => b === 'continue')).toBe(true);
+      }
+    }
   });
 
   it('marks the tempo: the metronome in the beat’s note and sound tempo in quarters', () => {
