@@ -8,7 +8,6 @@ import {
   signal,
   type OnInit,
 } from '@angular/core';
-import { HttpEventType, type HttpEvent } from '@angular/common/http';
 import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatIconModule } from '@angular/material/icon';
@@ -17,6 +16,7 @@ import { DomSanitizer, type SafeResourceUrl } from '@angular/platform-browser';
 import { RouterLink } from '@angular/router';
 import type { Subscription } from 'rxjs';
 import { apiErrorMessage } from '../core/api-error-message';
+import { PdfDownload, type PdfProgress } from '../pdf/pdf-download';
 import { WorksheetsApi, type Paper } from './worksheets-api';
 
 type PrintState =
@@ -72,6 +72,7 @@ export class PrintPreview implements OnInit {
   readonly id = input.required<string>();
 
   private readonly api = inject(WorksheetsApi);
+  private readonly downloads = inject(PdfDownload);
   private readonly sanitizer = inject(DomSanitizer);
   protected readonly title = signal('');
   protected readonly paper = signal<Paper>('a4');
@@ -117,10 +118,16 @@ export class PrintPreview implements OnInit {
     this.request?.unsubscribe();
     this.release();
     this.state.set({ status: 'loading', received: 0 });
-    this.request = this.api.pdf(this.id(), this.paper()).subscribe({
-      next: (event) => this.progress(event),
-      error: (error: unknown) => this.failed(error),
-    });
+    this.request = this.downloads
+      .fetch(this.api.pdfUrl(this.id(), this.paper()), undefined, 'worksheet.pdf')
+      .subscribe({
+        next: (progress) => this.progress(progress),
+        error: (error: unknown) =>
+          this.state.set({
+            status: 'error',
+            message: apiErrorMessage(error, 'The PDF could not be made. Please try again.'),
+          }),
+      });
   }
 
   protected cancel(): void {
@@ -128,52 +135,24 @@ export class PrintPreview implements OnInit {
     this.state.set({ status: 'idle' });
   }
 
+  /** Saves the very file the preview shows; nothing is laid out twice. */
   protected download(): void {
     const state = this.state();
-    if (state.status !== 'ready') return;
-    const link = document.createElement('a');
-    link.href = state.url;
-    link.download = state.name;
-    link.click();
+    if (state.status === 'ready') this.downloads.save(state.file, state.name);
   }
 
-  private progress(event: HttpEvent<Blob>): void {
-    if (event.type === HttpEventType.DownloadProgress) {
-      this.state.set({ status: 'loading', received: event.loaded });
-    } else if (event.type === HttpEventType.Response && event.body) {
-      const name = fileName(event.headers.get('Content-Disposition')) ?? 'worksheet.pdf';
-      const file = new Blob([event.body], { type: 'application/pdf' });
-      this.state.set({ status: 'ready', file, url: URL.createObjectURL(file), name });
+  private progress(progress: PdfProgress): void {
+    if (progress.state === 'receiving') {
+      this.state.set({ status: 'loading', received: progress.loaded });
+    } else if (progress.state === 'done') {
+      const file = new Blob([progress.file], { type: 'application/pdf' });
+      const url = URL.createObjectURL(file);
+      this.state.set({ status: 'ready', file, url, name: progress.filename });
     }
-  }
-
-  /** A blob error body holds the server's JSON message; read it before saying what went wrong. */
-  private failed(error: unknown): void {
-    const body = (error as { error?: unknown }).error;
-    if (!(body instanceof Blob)) {
-      this.state.set({ status: 'error', message: apiErrorMessage(error) });
-      return;
-    }
-    void body.text().then((text) => {
-      let message = apiErrorMessage(error);
-      try {
-        const parsed = JSON.parse(text) as { error?: { message?: string } };
-        message = parsed.error?.message ?? message;
-      } catch {
-        // Not JSON (a proxy's page): keep the general message.
-      }
-      this.state.set({ status: 'error', message });
-    });
   }
 
   private release(): void {
     const state = this.state();
     if (state.status === 'ready') URL.revokeObjectURL(state.url);
   }
-}
-
-/** The file name from `attachment; filename=…` (quoted or not). */
-export function fileName(disposition: string | null): string | null {
-  const match = disposition?.match(/filename="?([^";]+)"?/);
-  return match?.[1] ?? null;
 }

@@ -26,6 +26,7 @@ import { of, type Observable } from 'rxjs';
 import { apiErrorMessage } from '../core/api-error-message';
 import { apiErrorWithDetails } from '../rule-cards/api-details';
 import { inputText } from '../rule-cards/input-text';
+import { PdfDownloadButton } from '../pdf/pdf-download-button';
 import type { LeavesSafely } from '../rule-card-editor/leave-guard';
 import { confirmAction } from '../ui/confirm-dialog';
 import { ItemPicker, type PickedItem } from './item-picker';
@@ -57,6 +58,7 @@ import {
     MatIconModule,
     MatInputModule,
     MatProgressBarModule,
+    PdfDownloadButton,
     RouterLink,
   ],
   templateUrl: './worksheet-editor.html',
@@ -97,6 +99,8 @@ export class WorksheetEditor implements OnInit, LeavesSafely {
     () => !!this.input().title && this.items().every((item) => !ladderProblem(item.ladder)),
   );
   protected readonly isNew = computed(() => !this.id());
+  /** The saved worksheet's PDF on the chosen paper (what is saved, not unsaved edits). */
+  protected readonly pdfUrl = computed(() => this.api.pdfUrl(this.id() ?? '', this.paper()));
 
   protected readonly inputText = inputText;
   protected readonly ladderProblem = ladderProblem;

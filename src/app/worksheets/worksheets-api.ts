@@ -1,4 +1,4 @@
-import { HttpClient, type HttpEvent } from '@angular/common/http';
+import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable, map } from 'rxjs';
 import { listParams, type ListQuery, type Page } from '../rule-cards/rule-cards-api';
@@ -96,16 +96,8 @@ export class WorksheetsApi {
     return this.http.delete<void>(`/api/worksheets/${encodeURIComponent(id)}`);
   }
 
-  /**
-   * The printed worksheet, with download progress events; unsubscribing cancels the request,
-   * and the server then stops laying out pages.
-   */
-  pdf(id: number | string, paper: Paper): Observable<HttpEvent<Blob>> {
-    return this.http.get(`/api/worksheets/${encodeURIComponent(id)}/pdf`, {
-      params: { paper },
-      responseType: 'blob',
-      observe: 'events',
-      reportProgress: true,
-    });
+  /** The printed worksheet's route (fetched with progress by the PDF download service). */
+  pdfUrl(id: number | string, paper: Paper): string {
+    return `/api/worksheets/${encodeURIComponent(id)}/pdf?paper=${paper}`;
   }
 }
