@@ -86,6 +86,35 @@ describe('ExportMenu', () => {
     });
     expect(saved).toEqual([]);
   });
+  it('prints a PDF with progress and Cancel, and saves it when it arrives', async () => {
+    await choose('PDF');
+    const request = backend.expectOne('/api/pdf/drill');
+    expect(request.request.method).toBe('POST');
+    expect(request.request.body).toEqual({ source: { kind: 'saved', drillId: 7 }, paper: 'a4' });
+    const host = fixture.nativeElement as HTMLElement;
+    expect(host.querySelector('mat-progress-bar')).not.toBeNull();
+    expect(host.textContent).toContain('Laying out the pages');
+    request.flush(new Blob(['%PDF-1.3']), {
+      headers: { 'Content-Disposition': 'attachment; filename=quintuplets-week-3.pdf' },
+    });
+    await fixture.whenStable();
+    expect(saved).toEqual([{ name: 'quintuplets-week-3.pdf', href: 'blob:tensile/1' }]);
+    expect(host.querySelector('mat-progress-bar')).toBeNull();
+  });
+
+  it('cancels a PDF that is still being laid out', async () => {
+    await choose('PDF');
+    const request = backend.expectOne('/api/pdf/drill');
+    const host = fixture.nativeElement as HTMLElement;
+    const cancel = [...host.querySelectorAll('button')].find((b) =>
+      b.textContent?.includes('Cancel'),
+    );
+    cancel!.click();
+    await fixture.whenStable();
+    expect(request.cancelled).toBe(true);
+    expect(host.querySelector('mat-progress-bar')).toBeNull();
+    expect(saved).toEqual([]);
+  });
 });
 
 describe('filenameOf', () => {

@@ -8,10 +8,11 @@ import {
 } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
 import type { Subscription } from 'rxjs';
 import { apiErrorMessage } from '../core/api-error-message';
+import { saveFile } from '../exports/save-file';
 import { PdfDownload, type PdfProgress } from './pdf-download';
+import { PdfProgressBar } from './pdf-progress';
 
 /**
  * A "Download PDF" button that shows the download's progress on a Material progress bar, with a
@@ -19,7 +20,7 @@ import { PdfDownload, type PdfProgress } from './pdf-download';
  */
 @Component({
   selector: 'tensile-pdf-download',
-  imports: [MatButtonModule, MatIconModule, MatProgressBarModule],
+  imports: [MatButtonModule, MatIconModule, PdfProgressBar],
   templateUrl: './pdf-download-button.html',
   styleUrl: './pdf-download-button.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -47,7 +48,7 @@ export class PdfDownloadButton {
       next: (progress) => {
         this.progress.set(progress);
         if (progress.state === 'done') {
-          this.downloads.save(progress.file, progress.filename);
+          saveFile(progress.file, progress.filename);
           this.finish();
         }
       },
@@ -67,15 +68,5 @@ export class PdfDownloadButton {
   private finish(): void {
     this.running = null;
     this.progress.set(null);
-  }
-
-  protected percent(progress: PdfProgress): number | null {
-    return progress.state === 'receiving' && progress.total
-      ? Math.round((100 * progress.loaded) / progress.total)
-      : null;
-  }
-
-  protected kilobytes(progress: PdfProgress): number {
-    return progress.state === 'receiving' ? Math.round(progress.loaded / 1024) : 0;
   }
 }

@@ -67,20 +67,6 @@ export class PdfDownload {
       ),
     );
   }
-
-  /** Hand a finished file to the browser as a download. */
-  save(file: Blob, filename: string): void {
-    const url = URL.createObjectURL(file);
-    const link = document.createElement('a');
-    link.href = url;
-    link.download = filename;
-    link.rel = 'noopener';
-    document.body.appendChild(link);
-    link.click();
-    link.remove();
-    // The click has started the download; the object URL can go once the browser took it.
-    setTimeout(() => URL.revokeObjectURL(url), 10_000);
-  }
 }
 
 /**
