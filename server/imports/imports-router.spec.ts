@@ -109,6 +109,15 @@ describe('POST /api/imports/midi (preview)', () => {
     expect(await savedDrillCount()).toBe(before);
   });
 
+  it('refuses a file of more notes than any groove holds with 400', async () => {
+    const teacher = await t.signIn('teacher');
+    const notes = Array.from({ length: 20_001 }, (_, i) => ({ key: 42, at: (i % 128) / 8 }));
+    const res = await upload(teacher, grooveFile({ bpm: 90, notes }));
+    expect(res.status).toBe(400);
+    expect(res.body.error).toMatchObject({ code: 'too_many_notes' });
+    expect(res.body.error.message).toMatch(/more than 20,000 notes/);
+  });
+
   it('refuses a file over 1 MB with 400, not 500', async () => {
     const teacher = await t.signIn('teacher');
     const big = new Uint8Array(1024 * 1024 + 1);
