@@ -87,6 +87,22 @@ describe('admin: users', () => {
     await hanaAgent.patch(`/api/users/${hana}`).send({ role: 'teacher' });
   });
 
+  it('retires the open invitation of an account it deactivates', async () => {
+    const admin = await t.signIn('admin');
+    const created = await admin
+      .post('/api/users')
+      .send({ name: 'Otto Brandt', email: 'otto.brandt@larkspur.test' });
+    const token = linkToken(await latestMailTo(t.db, 'otto.brandt@larkspur.test'), 'invitations');
+    await admin.patch(`/api/users/${created.body.user.id}`).send({ active: false });
+    const res = await request(t.app)
+      .post(`/api/invitations/${token}`)
+      .send({ password: 'otto-tries-anyway' });
+    expect(res.status).toBe(410);
+    const list = await admin.get('/api/users');
+    const otto = list.body.users.find((u: { id: number }) => u.id === created.body.user.id);
+    expect(otto.status).toBe('deactivated');
+  });
+
   it('answers 400 for an empty change, 404 for an unknown user', async () => {
     const admin = await t.signIn('admin');
     const empty = await admin.patch('/api/users/1').send({});

@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import type { AccountLinksService } from '../auth/account-links-service';
+import { AccountTokensRepository } from '../auth/account-tokens-repository';
 import type { PublicUser, Role } from '../auth/roles';
 import { UsersRepository, toPublicUser } from '../auth/users-repository';
 import { HttpError, notFound } from '../http-error';
@@ -87,6 +88,11 @@ export class UsersService {
       }
       if (changes.role !== undefined) await users.setRole(id, changes.role);
       if (changes.active !== undefined) await users.setDisabled(id, !changes.active);
+      // A deactivated account's open links must not reopen it.
+      if (changes.active === false) {
+        await new AccountTokensRepository(trx, 'invitations').retireAll(id);
+        await new AccountTokensRepository(trx, 'password_resets').retireAll(id);
+      }
     });
     return this.view(id);
   }

@@ -150,7 +150,11 @@ describe('the studio journey', () => {
       ] as const) {
         await log.getByLabel('Minutes').fill(minutes);
         await log.getByLabel('Highest clean tempo (BPM)').fill(tempo);
-        await log.getByRole('button', { name: '4' }).click();
+        // A single-choice toggle group: its toggles are radios to assistive technology.
+        await log
+          .getByRole('radio', { name: '4', exact: true })
+          .or(log.getByRole('button', { name: '4', exact: true }))
+          .click();
         await log.getByLabel('Note for your teacher').fill(`Session at ${tempo}`);
         await log.getByRole('button', { name: 'Log practice' }).click();
         await log
