@@ -16,6 +16,7 @@ import { DomSanitizer, type SafeResourceUrl } from '@angular/platform-browser';
 import { RouterLink } from '@angular/router';
 import type { Subscription } from 'rxjs';
 import { apiErrorMessage } from '../core/api-error-message';
+import { saveFile } from '../exports/save-file';
 import { PdfDownload, type PdfProgress } from '../pdf/pdf-download';
 import { WorksheetsApi, type Paper } from './worksheets-api';
 
@@ -138,7 +139,7 @@ export class PrintPreview implements OnInit {
   /** Saves the very file the preview shows; nothing is laid out twice. */
   protected download(): void {
     const state = this.state();
-    if (state.status === 'ready') this.downloads.save(state.file, state.name);
+    if (state.status === 'ready') saveFile(state.file, state.name);
   }
 
   private progress(progress: PdfProgress): void {
