@@ -101,6 +101,7 @@ describe('app routes', () => {
   it('turns a student away from the rule cards to their assignments', async () => {
     const harness = await open('/rule-cards', student);
     (await nextRequest('/api/presets')).flush({ presets: [] });
+    (await nextRequest('/api/assignments/mine')).flush({ assignments: [] });
     await harness.fixture.whenStable();
     expect(TestBed.inject(Title).getTitle()).toBe('Tensile · Assignments');
     expect(document.body.textContent).toContain('That page is for teachers.');
