@@ -51,9 +51,20 @@ export function containsPattern(text: string): string {
   return `%${text.toLowerCase().replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
 }
 
-/** Adds "lower(column) contains text" (portable: an explicit ESCAPE works in SQLite and PostgreSQL). */
-export function whereContains(query: Knex.QueryBuilder, column: string, text: string): void {
-  query.whereRaw(`lower(??) like ? escape '\\'`, [column, containsPattern(text)]);
+/**
+ * Adds "lower(column) contains text", for any of the columns when several are given (portable:
+ * an explicit ESCAPE works in SQLite and PostgreSQL).
+ */
+export function whereContains(
+  query: Knex.QueryBuilder,
+  column: string | readonly string[],
+  text: string,
+): void {
+  const pattern = containsPattern(text);
+  const columns = typeof column === 'string' ? [column] : column;
+  query.where((any) => {
+    for (const name of columns) any.orWhereRaw(`lower(??) like ? escape '\\'`, [name, pattern]);
+  });
 }
 
 /** Total rows of a filtered query (run on a clone, without order or limit). */

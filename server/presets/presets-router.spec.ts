@@ -258,4 +258,67 @@ describe('GET /api/presets/:id/thumbnail.svg', () => {
       401,
     );
   });
+
+  it('lists teachers’ live cards for promotion, paged and filtered on the server, admin only', async () => {
+    const tomasz = await t.signIn('tomasz.reyes@larkspur.test');
+    const hana = await t.signIn('hana.lindqvist@larkspur.test');
+    const admin = await t.signIn('admin');
+    const fourOverThree = findBuiltInPreset('four-over-three')!.card;
+    const made: number[] = [];
+    for (const [agent, title, level] of [
+      [tomasz, 'Quokka groove one', 'beginner'],
+      [tomasz, 'Quokka groove two', 'advanced'],
+      [hana, 'Quokka groove three', 'advanced'],
+    ] as const) {
+      const res = await agent.post('/api/rule-cards').send({ title, card: fourOverThree, level });
+      made.push(res.body.ruleCard.id as number);
+    }
+    const archived = await hana
+      .post('/api/rule-cards')
+      .send({ title: 'Quokka groove archived', card: fourOverThree });
+    await hana.post('/api/drills').send({
+      ruleCardId: archived.body.ruleCard.id,
+      title: 'keeps it',
+      card: fourOverThree,
+      seed: 's1',
+    });
+    expect((await hana.delete(`/api/rule-cards/${archived.body.ruleCard.id}`)).body).toEqual({
+      archived: true,
+    });
+    // The admin's own card is not a teacher's.
+    await admin.post('/api/rule-cards').send({ title: 'Quokka groove admin', card: fourOverThree });
+
+    const all = await admin.get('/api/presets/candidates?q=quokka&sort=title&pageSize=2');
+    expect(all.status).toBe(200);
+    expect(all.body).toMatchObject({ total: 3, page: 0, pageSize: 2 });
+    expect(all.body.items.map((c: { title: string }) => c.title)).toEqual([
+      'Quokka groove one',
+      'Quokka groove three',
+    ]);
+    expect(all.body.items[1]).toMatchObject({ ownerName: 'Hana Lindqvist', meter: '3/4' });
+    const next = await admin.get('/api/presets/candidates?q=quokka&sort=title&pageSize=2&page=1');
+    expect(next.body.items.map((c: { id: number }) => c.id)).toEqual([made[1]]);
+
+    const byLevel = await admin.get('/api/presets/candidates?q=quokka&level=advanced');
+    expect(byLevel.body.items.map((c: { id: number }) => c.id).sort()).toEqual(
+      [made[1], made[2]].sort(),
+    );
+    // The search text finds the teacher's name too.
+    const byName = await admin.get('/api/presets/candidates?q=lindqvist&sort=title');
+    expect(byName.body.items.map((c: { title: string }) => c.title)).toContain(
+      'Quokka groove three',
+    );
+    expect(
+      byName.body.items.every((c: { ownerName: string }) => c.ownerName === 'Hana Lindqvist'),
+    ).toBe(true);
+
+    const bad = await admin.get('/api/presets/candidates?pageSize=500&sort=owner');
+    expect(bad.status).toBe(400);
+    expect((bad.body.error.details as { path: string }[]).map((d) => d.path).sort()).toEqual([
+      'query.pageSize',
+      'query.sort',
+    ]);
+    expect((await tomasz.get('/api/presets/candidates')).status).toBe(403);
+    expect((await request(t.app).get('/api/presets/candidates')).status).toBe(401);
+  });
 });

@@ -3,7 +3,12 @@ import { z } from 'zod';
 import { requireRole, requireSignIn } from '../auth/require-role';
 import { queryBoolean } from '../paging';
 import { levelSchema, tagSchema, tagsSchema, titleSchema } from '../rule-cards/card-fields';
-import { meterFilter, subdivisionFilter } from '../rule-cards/rule-cards-router';
+import {
+  meterFilter,
+  ruleCardListSchema,
+  subdivisionFilter,
+  toListQuery,
+} from '../rule-cards/rule-cards-router';
 import { validate } from '../validate';
 import type { PresetsService } from './presets-service';
 
@@ -52,6 +57,18 @@ export function createPresetsRouter(service: PresetsService, engineVersion: stri
     const filter = req.query as unknown as z.output<typeof listSchema>;
     res.json({ presets: await service.list(req.user!, filter) });
   });
+
+  // Teachers' live cards for the admin to promote (archived ones are not offered).
+  const candidateSchema = ruleCardListSchema.omit({ archived: true });
+  router.get(
+    '/candidates',
+    requireRole('admin'),
+    validate({ query: candidateSchema }),
+    async (req, res) => {
+      const query = req.query as unknown as z.output<typeof candidateSchema>;
+      res.json(await service.candidates(toListQuery({ ...query, archived: false })));
+    },
+  );
 
   router.post(
     '/promote',

@@ -4,8 +4,16 @@ import { generateOrRefuse, type DrillGenerator } from '../drills/drill-generator
 import { HttpError, notFound } from '../http-error';
 import { cardFacts, checkCard } from '../rule-cards/card-check';
 import { fileSlug, type Level } from '../rule-cards/card-fields';
-import type { RuleCardDetail, RuleCardsRepository } from '../rule-cards/rule-cards-repository';
+import type { Page } from '../paging';
+import type {
+  RuleCardDetail,
+  RuleCardListQuery,
+  RuleCardsRepository,
+  TeacherRuleCard,
+} from '../rule-cards/rule-cards-repository';
 import type { Preset, PresetChanges, PresetsRepository } from './presets-repository';
+import { THUMBNAIL_BARS } from './engrave-thumbnail';
+import { threadedThumbnails } from './thumbnail-thread';
 
 /** A preset as the API sends it. */
 export interface PresetView {
@@ -34,28 +42,12 @@ export interface PresetListFilter {
 export type ThumbnailRenderer = (drill: Drill) => Promise<string>;
 
 /**
- * Engraves with the server's VexFlow renderer, loaded on first use (jsdom and the font canvas
- * are only needed once a thumbnail is missing from the cache), then outlines the glyphs so the
- * SVG shows as an `<img>` without the music font.
+ * Engraves thumbnails in a worker thread (see engrave-thumbnail.ts for the drawing), so the first
+ * draw, which loads jsdom, the fonts and VexFlow, never holds up a request.
  */
-export const engraveThumbnail: ThumbnailRenderer = async (drill) => {
-  const [{ renderDrillSvg }, { outlineText }] = await Promise.all([
-    import('../notation/render-svg'),
-    import('./outline-text'),
-  ]);
-  const { svg } = renderDrillSvg(drill, {
-    width: 800,
-    showSticking: false,
-    showCounts: false,
-    showLegend: false,
-    showMarks: false,
-    maxBarsPerSystem: THUMBNAIL_BARS,
-  });
-  return outlineText(svg);
-};
+export const engraveThumbnail: ThumbnailRenderer = threadedThumbnails();
 
-/** How many bars a thumbnail shows. */
-export const THUMBNAIL_BARS = 2;
+export { THUMBNAIL_BARS };
 
 const MISSING = 'There is no preset rule card with that id.';
 
@@ -66,7 +58,10 @@ const MISSING = 'There is no preset rule card with that id.';
 export class PresetsService {
   constructor(
     private readonly presets: PresetsRepository,
-    private readonly cards: Pick<RuleCardsRepository, 'findAny' | 'insert' | 'find'>,
+    private readonly cards: Pick<
+      RuleCardsRepository,
+      'findAny' | 'insert' | 'find' | 'listTeachers'
+    >,
     private readonly generate: DrillGenerator,
     private readonly render: ThumbnailRenderer,
   ) {}
@@ -110,6 +105,11 @@ export class PresetsService {
   async update(id: string, changes: PresetChanges): Promise<PresetView> {
     if (!(await this.presets.update(id, changes))) throw notFound(MISSING);
     return toView((await this.presets.find(id))!);
+  }
+
+  /** Teachers' cards the admin may promote, a page at a time. */
+  candidates(query: RuleCardListQuery): Promise<Page<TeacherRuleCard>> {
+    return this.cards.listTeachers(query);
   }
 
   /** Copies any teacher's card into the presets, credited to the teacher, withdrawn at first. */

@@ -40,6 +40,11 @@ export interface RuleCardSummary {
   readonly updatedAt: string;
 }
 
+/** A teacher's rule card as the admin's promotion list shows it. */
+export interface TeacherRuleCard extends RuleCardSummary {
+  readonly ownerName: string;
+}
+
 /** A rule card with the card itself and where it came from. */
 export interface RuleCardDetail extends RuleCardSummary {
   readonly card: unknown;
@@ -104,7 +109,7 @@ const SORT_COLUMNS: Record<RuleCardSort, string> = {
 };
 
 const LEVEL_RANK =
-  "case level when 'beginner' then 1 when 'intermediate' then 2 when 'advanced' then 3 else 0 end";
+  "case rule_cards.level when 'beginner' then 1 when 'intermediate' then 2 when 'advanced' then 3 else 0 end";
 
 /** Reads and writes `rule_cards`. Every read is scoped to the owner. */
 export class RuleCardsRepository {
@@ -120,27 +125,60 @@ export class RuleCardsRepository {
   }
 
   async list(ownerId: number, query: RuleCardListQuery): Promise<Page<RuleCardSummary>> {
-    const rows = this.withDrillCount().where('owner_id', ownerId);
-    if (query.archived) rows.whereNotNull('archived_at');
-    else rows.whereNull('archived_at');
-    if (query.q) whereContains(rows, 'title', query.q);
-    if (query.tag) rows.where('tags', 'like', tagPattern(query.tag));
-    if (query.level) rows.where('level', query.level);
-    if (query.meter) rows.where('meter', query.meter);
-    if (query.slots !== undefined) rows.where('slots', query.slots);
+    const page = await this.pageOf(
+      this.withDrillCount().where('rule_cards.owner_id', ownerId),
+      query,
+    );
+    return { ...page, items: page.items.map(toSummary) };
+  }
+
+  /**
+   * Every teacher's cards with the teacher's name, for the admin to choose one to promote; the
+   * text search finds the title or the teacher's name.
+   */
+  async listTeachers(query: RuleCardListQuery): Promise<Page<TeacherRuleCard>> {
+    const rows = this.withDrillCount()
+      .select('users.name as owner_name')
+      .join('users', 'users.id', 'rule_cards.owner_id')
+      .where('users.role', 'teacher');
+    if (query.q) whereContains(rows, ['rule_cards.title', 'users.name'], query.q);
+    const page = await this.pageOf(rows, { ...query, q: undefined });
+    return {
+      ...page,
+      items: (page.items as (RuleCardRow & { owner_name: string })[]).map((row) => ({
+        ...toSummary(row),
+        ownerName: row.owner_name,
+      })),
+    };
+  }
+
+  /** Filters, counts, sorts and cuts one page of a rule-card query. */
+  private async pageOf(
+    rows: Knex.QueryBuilder,
+    query: RuleCardListQuery,
+  ): Promise<Page<RuleCardRow>> {
+    if (query.archived) rows.whereNotNull('rule_cards.archived_at');
+    else rows.whereNull('rule_cards.archived_at');
+    if (query.q) whereContains(rows, 'rule_cards.title', query.q);
+    if (query.tag) rows.where('rule_cards.tags', 'like', tagPattern(query.tag));
+    if (query.level) rows.where('rule_cards.level', query.level);
+    if (query.meter) rows.where('rule_cards.meter', query.meter);
+    if (query.slots !== undefined) rows.where('rule_cards.slots', query.slots);
     const total = await countRows(rows);
     const column = SORT_COLUMNS[query.sort];
-    if (column === 'title') rows.orderByRaw(`lower(title) ${query.direction}`);
+    if (column === 'title') rows.orderByRaw(`lower(rule_cards.title) ${query.direction}`);
     // A mixed grid (no single slot count) ranks above every even one, in SQLite and PostgreSQL.
-    else if (column === 'slots') rows.orderByRaw(`coalesce(slots, 1000) ${query.direction}`);
+    else if (column === 'slots')
+      rows.orderByRaw(`coalesce(rule_cards.slots, 1000) ${query.direction}`);
     // Levels rank by difficulty, not alphabetically; a card without one ranks lowest.
     else if (column === 'level') rows.orderByRaw(`${LEVEL_RANK} ${query.direction}`);
-    else rows.orderBy(column, query.direction);
-    const page = (await rows
-      .orderBy('id', query.direction)
+    // The drill count is a computed column, named as such; the rest belong to rule_cards.
+    else rows.orderBy(column === 'drill_count' ? column : `rule_cards.${column}`, query.direction);
+    const items = (await rows
+      .orderBy('rule_cards.id', query.direction)
       .limit(query.pageSize)
       .offset(query.page * query.pageSize)) as RuleCardRow[];
-    return { items: page.map(toSummary), total, page: query.page, pageSize: query.pageSize };
+    return { items, total, page: query.page, pageSize: query.pageSize };
   }
 
   /** The owner's card with this id (archived or not), or undefined. */

@@ -28,7 +28,8 @@ export const subdivisionFilter = z.coerce
   .min(1, 'The subdivision is 1 to 16 slots per beat.')
   .max(16, 'The subdivision is 1 to 16 slots per beat.');
 
-const listSchema = listQuery(RULE_CARD_SORTS, 'updatedAt').extend({
+/** The rule-card list query: the common one with the card filters. */
+export const ruleCardListSchema = listQuery(RULE_CARD_SORTS, 'updatedAt').extend({
   tag: tagSchema.optional(),
   level: levelSchema.optional(),
   meter: meterFilter.optional(),
@@ -51,9 +52,9 @@ const updateSchema = z.strictObject({
   level: levelSchema.nullable().optional(),
 });
 
-type ListInput = z.output<typeof listSchema>;
+type ListInput = z.output<typeof ruleCardListSchema>;
 
-function toListQuery(input: ListInput): RuleCardListQuery {
+export function toListQuery(input: ListInput): RuleCardListQuery {
   const { subdivision, direction, ...rest } = input;
   const ascending = rest.sort === 'title' || rest.sort === 'meter' || rest.sort === 'level';
   return { ...rest, slots: subdivision, direction: direction ?? (ascending ? 'asc' : 'desc') };
@@ -64,7 +65,7 @@ export function createRuleCardsRouter(service: RuleCardsService): Router {
   const router = Router();
   const author = requireRole('teacher', 'admin');
 
-  router.get('/', author, validate({ query: listSchema }), async (req, res) => {
+  router.get('/', author, validate({ query: ruleCardListSchema }), async (req, res) => {
     const query = req.query as unknown as ListInput;
     res.json(await service.list(req.user!.id, toListQuery(query)));
   });

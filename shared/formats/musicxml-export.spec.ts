@@ -120,6 +120,19 @@ describe('drillToMusicXml', () => {
     expect(text(seven.doc.getElementsByTagName('direction')[1]!, 'words')).toBe('2+2+3');
   });
 
+  it('writes the card’s swing for playback: 2 : 1 eighths for a triplet feel', () => {
+    const score = readScore(drillToMusicXml(drill('four over three'), 'x'));
+    const swing = score.doc.getElementsByTagName('swing')[0]!;
+    expect([text(swing, 'first'), text(swing, 'second'), text(swing, 'swing-type')]).toEqual([
+      '2',
+      '1',
+      'eighth',
+    ]);
+    expect(
+      readScore(drillToMusicXml(drill('6/8'), 'x')).doc.getElementsByTagName('swing'),
+    ).toHaveLength(0);
+  });
+
   it('escapes the title and fills silent bars with one measure rest', () => {
     const card = {
       ...(FORMAT_CARDS['septuplets'] as object),

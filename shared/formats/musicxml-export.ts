@@ -24,6 +24,7 @@ import { headerMarks, type MarkNote } from '../notation/header-marks';
 import { STAFF_PLACEMENTS } from '../notation/staff-placement';
 import type { TupletRatio } from '../notation/rhythm';
 import { GM_DRUM_NOTE, GM_PERCUSSION_CHANNEL } from '../playback/gm-drum-map';
+import { swingRatio } from '../playback/swing';
 import { barTicks, quarterBpm, ticksPerQuarter } from './timing';
 
 const PART = 'P1';
@@ -119,19 +120,30 @@ function attributes(divisions: number, beats: number, unit: number): string {
   );
 }
 
-/** The metronome mark the notation prints, and the tempo in quarter notes a minute. */
+/**
+ * The metronome mark the notation prints, and for playback the tempo in quarter notes a minute
+ * and the card's swing as MusicXML's long : short pair (2 : 1 for a triplet feel).
+ */
 function tempoDirection(drill: Drill): string[] {
-  const mark = headerMarks(drill.card).tempo;
-  const sound = `<sound tempo="${decimal(quarterBpm(drill.card.tempo, drill.card.meter.unit))}"/>`;
-  if (!mark)
-    return [
-      `<direction placement="above"><direction-type><words/></direction-type>${sound}</direction>`,
-    ];
-  return [
-    '<direction placement="above"><direction-type>' +
-      `<metronome>${beatUnit(mark.note)}<per-minute>${mark.approximate ? 'c. ' : ''}${mark.bpm}</per-minute></metronome>` +
-      `</direction-type>${sound}</direction>`,
+  const marks = headerMarks(drill.card);
+  const sound = `<sound tempo="${decimal(quarterBpm(drill.card.tempo, drill.card.meter.unit))}">${swingOf(drill)}</sound>`;
+  const mark = marks.tempo;
+  const metronome = mark
+    ? `<metronome>${beatUnit(mark.note)}<per-minute>${mark.approximate ? 'c. ' : ''}${mark.bpm}</per-minute></metronome>`
+    : '<words/>';
+  const lines = [
+    `<direction placement="above"><direction-type>${metronome}</direction-type>${sound}</direction>`,
   ];
+  if (marks.swing) lines.push(words(marks.swing.words));
+  return lines;
+}
+
+function swingOf(drill: Drill): string {
+  const swing = drill.card.swing;
+  if (!swing) return '';
+  const { num, den } = swingRatio(swing.ratio);
+  const type = swing.unit === 16 ? '16th' : 'eighth';
+  return `<swing><first>${num}</first><second>${den - num}</second><swing-type>${type}</swing-type></swing>`;
 }
 
 function beatUnit(note: MarkNote): string {

@@ -296,10 +296,31 @@ function removeOne(ctx: FillContext, f: BarFill, rng: Rng, lean: number): boolea
   return true;
 }
 
-/** The bar's first fill: `density` of its free slots, chosen by seeded weighted draws. */
-export function initialFill(ctx: FillContext, bar: number, rng: Rng, lean: number): BarFill {
+/**
+ * How many fill notes a bar asks for: `density` of its free slots; under a tension curve
+ * (`target` not null) fewer in calm bars and more in tense ones (a quarter of that at target 0,
+ * one and three quarters at 1), so the curve is heard as notes too: a build adds notes toward
+ * its peak and the release thins out (common practice).
+ */
+export function fillCount(ctx: FillContext, bar: number, target: number | null): number {
+  const free = freeCount(ctx, bar);
+  const share = target === null ? 1 : 0.25 + 1.5 * target;
+  return Math.min(free, Math.round(ctx.card.density * free * share));
+}
+
+/**
+ * The bar's first fill: `fillCount` of its free slots, chosen by seeded weighted draws leaning
+ * as `lean` asks (the bar's target, or 0.5 without a curve).
+ */
+export function initialFill(
+  ctx: FillContext,
+  bar: number,
+  rng: Rng,
+  lean: number,
+  target: number | null = null,
+): BarFill {
   const f = emptyFill(ctx, bar);
-  const count = Math.round(ctx.card.density * freeCount(ctx, bar));
+  const count = fillCount(ctx, bar, target);
   // Additions only close instants: the one just taken, and every lone hit once the linear
   // budget is spent. So the live weights are kept up to date instead of rebuilt per hit.
   const weights = liveWeights(ctx, f, instantWeights(ctx, bar, lean));

@@ -1,5 +1,12 @@
 import { giveUp } from './tension-reach';
-import { emptyFill, initialFill, variantOf, type BarFill, type FillContext } from './fill';
+import {
+  emptyFill,
+  fillCount,
+  initialFill,
+  variantOf,
+  type BarFill,
+  type FillContext,
+} from './fill';
 import type { TensionGauge } from './tension-gauge';
 import type { Rng } from './random';
 import { tensionLevels } from './rules/tension';
@@ -37,7 +44,9 @@ export function drawFills(
   targets: readonly number[] | null,
 ): BarFill[] {
   return Array.from({ length: ctx.grid.bars }, (_, bar) =>
-    initialFill(ctx, bar, rng, targets ? (targets[bar] ?? 0.5) : 0.5),
+    targets
+      ? initialFill(ctx, bar, rng, targets[bar] ?? 0.5, targets[bar] ?? 0.5)
+      : initialFill(ctx, bar, rng, 0.5),
   );
 }
 
@@ -66,9 +75,13 @@ export function shapeTension(
     budget.left -= ctx.grid.slotsPerBar;
     return meter(fill);
   };
+  // Of fills alike in tension, each bar keeps the one nearest its share of notes.
+  const want = targets.map((target, bar) => fillCount(ctx, bar, target));
+  const keep = (bar: number, c: Candidate): void =>
+    keepNew(candidates[bar] ?? [], c, want[bar] ?? 0);
   // The bare bar (obligations only) is always playable: every search starts with a way down.
   const candidates: Candidate[][] = base.map((fill) => [measure(fill)]);
-  candidates.forEach((cands, bar) => keepNew(cands, measure(emptyFill(ctx, bar))));
+  candidates.forEach((_, bar) => keep(bar, measure(emptyFill(ctx, bar))));
   let best: { picks: number[]; miss: number } | null = null;
   let found = -1;
   for (let round = 0; ; round++) {
@@ -89,9 +102,9 @@ export function shapeTension(
       const cands = candidates[bar];
       if (!cands) continue;
       const from = picks ? (cands[picks[bar] ?? 0] as Candidate).fill : extreme(cands, direction);
-      keepNew(cands, measure(variantOf(ctx, from, rng, direction > 0 ? 1 : 0)));
+      keep(bar, measure(variantOf(ctx, from, rng, direction > 0 ? 1 : 0)));
       const any = cands[rng.int(cands.length)] ?? (cands[0] as Candidate);
-      keepNew(cands, measure(variantOf(ctx, any.fill, rng, lean(bar))));
+      keep(bar, measure(variantOf(ctx, any.fill, rng, lean(bar))));
     }
   }
   if (!best) giveUp(ctx, targets, gauge);
@@ -170,9 +183,17 @@ function candidateMeter(ctx: FillContext, gauge: TensionGauge): (fill: BarFill) 
   };
 }
 
-/** Only the rank order counts, so one fill per tension value is enough. */
-function keepNew(cands: Candidate[], c: Candidate): void {
-  if (!cands.some((other) => other.units === c.units)) cands.push(c);
+/**
+ * One fill per tension value is enough for the order; of two alike, the one whose number of
+ * notes is nearer `want` stays (the first on ties).
+ */
+function keepNew(cands: Candidate[], c: Candidate, want: number): void {
+  const k = cands.findIndex((other) => other.units === c.units);
+  if (k < 0) cands.push(c);
+  else {
+    const had = cands[k] as Candidate;
+    if (Math.abs(c.fill.fills.length - want) < Math.abs(had.fill.fills.length - want)) cands[k] = c;
+  }
 }
 
 /**

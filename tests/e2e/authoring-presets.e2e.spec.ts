@@ -1,7 +1,8 @@
 /**
  * Curated presets in a real browser against the real server: the admin renames, tags and
  * publishes a preset; a teacher finds it in the gallery by that tag, starts a card from it and
- * gets a drill from the copy in the editor.
+ * gets a drill from the copy in the editor. The admin also promotes a teacher's card found in the
+ * list of teachers' cards, without knowing its number.
  */
 import type { BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -71,5 +72,38 @@ describe('authoring journey: curated presets', () => {
       .first()
       .waitFor({ state: 'visible', timeout: 20_000 });
     expect(await page.locator('tensile-card-preview .problem').count()).toBe(0);
+  }, 120_000);
+
+  it('the admin finds a teacher’s card in the list and promotes it to a credited preset', async () => {
+    await context.clearCookies();
+    const teacher = DEMO_TEACHERS[0]!;
+    await signIn(page, suite.server.url, teacher.email, teacher.password);
+    const title = 'Wombat shuffle study';
+    // The teacher's card is made over the API with the teacher's session: this journey is the
+    // admin's (writing a card in the editor is the other journeys' part).
+    const made = await page.request.post(`${suite.server.url}/api/rule-cards`, {
+      data: { title, card: BUILT_IN_PRESETS[1]!.card, level: 'intermediate' },
+    });
+    expect(made.status()).toBe(201);
+
+    await context.clearCookies();
+    await signIn(page, suite.server.url, DEMO_ADMIN.email, DEMO_ADMIN.password);
+    await page.goto(`${suite.server.url}/presets`);
+    const candidates = page.getByRole('table', { name: "Teachers' rule cards" });
+    await candidates.getByRole('row').nth(1).waitFor();
+    await page.getByLabel('Search title or teacher').fill('wombat');
+    await expect.poll(() => candidates.getByRole('row').count(), POLL).toBe(2);
+    const row = candidates.getByRole('row', { name: new RegExp(title) });
+    expect(await row.innerText()).toContain('Tomasz Reyes');
+    await row.getByRole('button', { name: `Promote ${title} by Tomasz Reyes to a preset` }).click();
+    await page.getByText(`"${title}" by Tomasz Reyes is a new preset`).waitFor(POLL);
+
+    // In the presets table: credited, and withdrawn until the admin publishes it.
+    const presets = page.getByRole('table', { name: 'All presets' });
+    const promoted = presets.getByRole('row', { name: new RegExp(title) });
+    await promoted.waitFor(POLL);
+    expect(await promoted.innerText()).toContain('Tomasz Reyes');
+    const toggle = page.getByRole('switch', { name: `Publish ${title}` });
+    expect(await toggle.getAttribute('aria-checked')).toBe('false');
   }, 120_000);
 });

@@ -9,7 +9,11 @@ const preset = (id: string) => findBuiltInPreset(id)!.card;
  */
 export const FORMAT_CARDS: Readonly<Record<string, unknown>> = {
   quintuplets: preset('quintuplets-hihat-1-3-4'),
-  'four over three': preset('four-over-three'),
+  // Swung, for the MusicXML swing element (playback only: the notes stay straight).
+  'four over three': {
+    ...(preset('four-over-three') as object),
+    swing: { unit: 8, ratio: 0.6667 },
+  },
   '6/8': preset('six-eight-groove'),
   '12/8 shuffle': preset('twelve-eight-shuffle'),
   '7/8': preset('seven-eight-two-two-three'),

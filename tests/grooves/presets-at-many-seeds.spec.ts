@@ -107,6 +107,37 @@ describe.each(TENSION_CARDS)('%s, tension', (id, raw) => {
     expect(count).toBe(SEEDS * card.bars);
     expect(total / count).toBeLessThanOrEqual(0.1);
   });
+
+  // The curve is heard, not only measured: a build adds notes toward its peak and the release
+  // thins out to a clear landing (common practice). Notes are the bar's hits besides the time.
+  const notes = (bar: Drill['bars'][number]): number =>
+    bar.hits.filter((h) => h.source !== 'ostinato').length;
+  const bars = Array.from({ length: card.bars }, (_, i) => i + 1);
+  const peak = bars.reduce((a, b) => (targetOf(b) > targetOf(a) ? b : a));
+  const release = bars.reduce((a, b) => (targetOf(b) < targetOf(a) ? b : a));
+
+  it('plays more notes in its tensest bar than in its calmest, at every seed', () => {
+    expect(targetOf(peak)).toBeGreaterThan(targetOf(release));
+    for (const drill of drills)
+      expect(
+        notes(drill.bars[peak - 1]!),
+        `seed ${drill.seed}: bar ${peak} (target ${targetOf(peak)}) against bar ${release}`,
+      ).toBeGreaterThan(notes(drill.bars[release - 1]!));
+  });
+
+  it('grows busier with the target: the mean number of notes rises with each higher target', () => {
+    const targets = [...new Set(bars.map(targetOf))].sort((a, b) => a - b);
+    const mean = targets.map((t) => {
+      const mine = bars.filter((b) => targetOf(b) === t);
+      let sum = 0;
+      for (const drill of drills) for (const b of mine) sum += notes(drill.bars[b - 1]!);
+      return sum / (mine.length * drills.length);
+    });
+    for (let k = 1; k < mean.length; k++)
+      expect(mean[k], `target ${targets[k]} against ${targets[k - 1]}`).toBeGreaterThan(
+        mean[k - 1]!,
+      );
+  });
 });
 
 describe('a card with no room', () => {

@@ -58,6 +58,9 @@ export const FAR_SIDE_FOR_LEFT_HAND: ReadonlySet<string> = new Set([
   'tomFloor',
 ]);
 
+/** The far side of a right-handed kit for the right hand: the hi-hat (common practice). */
+export const FAR_SIDE_FOR_RIGHT_HAND: ReadonlySet<string> = new Set(['hihat', 'hihatOpen']);
+
 export type Role = 'time' | 'anchor' | 'embellishment' | 'colour';
 export type Dynamic = 'ghost' | 'normal' | 'accent';
 

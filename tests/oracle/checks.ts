@@ -5,7 +5,14 @@
  * fill window the time layers of hand voices rest, and a phrase's landing crash replaces the time
  * cymbal on its instant (see `rests` in plan.ts).
  */
-import { isHand, rulesOf, FAR_SIDE_FOR_LEFT_HAND, type OracleCard, type Voice } from './card';
+import {
+  isHand,
+  rulesOf,
+  FAR_SIDE_FOR_LEFT_HAND,
+  FAR_SIDE_FOR_RIGHT_HAND,
+  type OracleCard,
+  type Voice,
+} from './card';
 import { key, PRECEDENCE, type Plan, type Source } from './plan';
 import { measuredTension } from './tension';
 
@@ -79,6 +86,10 @@ export const PRESET_CHECKS = [
   'preset/kick-on-one-at-landings',
   'preset/no-three-in-a-row',
   'preset/no-hand-crossing',
+  'preset/no-leap-across-the-kit',
+  'preset/ghost-notes-when-asked',
+  'preset/ghost-beside-time-on-free-hand',
+  'preset/kick-beyond-one',
 ] as const;
 
 export type CheckName = (typeof DRILL_CHECKS)[number] | (typeof PRESET_CHECKS)[number];
@@ -641,5 +652,78 @@ export function checkPreset(plan: Plan, drill: DrillLike): Violation[] {
           message: `hand ${crossing} crosses to ${h.voice} at ${grid.describe(index)} while hand ${other} is free`,
         });
     }
+
+  // No leap across the kit: one hand does not go from the hi-hat side to the floor tom and ride
+  // side (or back) between two consecutive grid notes of a run (4 notes a second or more, as
+  // docs/engine.md reads a run), time notes included: there is no time to travel the width of
+  // the kit (common practice).
+  const leftSide = card.hand === 'right' ? FAR_SIDE_FOR_RIGHT_HAND : FAR_SIDE_FOR_LEFT_HAND;
+  const rightSide = card.hand === 'right' ? FAR_SIDE_FOR_LEFT_HAND : FAR_SIDE_FOR_RIGHT_HAND;
+  const sideOf = (voice: string): number =>
+    leftSide.has(voice) ? -1 : rightSide.has(voice) ? 1 : 0;
+  for (let i = 0; i < n; i++) {
+    const j = (i + 1) % n;
+    if (grid.notesPerMinuteAt(i, card.tempo) < 240) continue;
+    for (const side of ['R', 'L'])
+      for (const a of byIndex.get(i) ?? [])
+        for (const b of byIndex.get(j) ?? [])
+          if (a.hand === side && b.hand === side && sideOf(a.voice) * sideOf(b.voice) < 0)
+            out.push({
+              check: 'preset/no-leap-across-the-kit',
+              message: `hand ${side} leaps from the ${a.voice} at ${grid.describe(i)} to the ${b.voice} at the next note`,
+            });
+  }
+
+  // Ghost notes where the card asks for them: a fillHoles rule with a ghost share puts some
+  // in every drill (docs/engine.md, "Voice roles": embellishments are ghost notes by default).
+  const asked = rulesOf(card, 'fillHoles').filter((r) => r.ghost > 0);
+  if (asked.length > 0 && !hits.some((h) => h.dynamic === 'ghost' && h.source === 'fill'))
+    out.push({
+      check: 'preset/ghost-notes-when-asked',
+      message: `no ghost note in the drill, though fillHoles asks for ghost notes on ${asked.flatMap((r) => r.voices).join(', ')}`,
+    });
+
+  // A ghost note right beside a note of the time is played by the free hand: the hand keeping
+  // time stays on its cymbal and the other hand plays the ghost notes (common practice), unless
+  // the other hand is busy at that instant or plays both neighbouring notes (it would play three
+  // in a row).
+  const timeHand = card.lead === 'alternate' ? null : card.lead === 'right' ? 'R' : 'L';
+  if (timeHand && card.ostinato && isHand(card.ostinato.voice)) {
+    const freeHand = timeHand === 'R' ? 'L' : 'R';
+    const timeAt = (i: number): boolean =>
+      (byIndex.get(((i % n) + n) % n) ?? []).some(
+        (h) => h.source === 'ostinato' && h.hand === timeHand,
+      );
+    const freeAt = (i: number): boolean =>
+      (byIndex.get(((i % n) + n) % n) ?? []).some((h) => h.hand === freeHand);
+    for (const h of hits) {
+      if (h.dynamic !== 'ghost' || h.source !== 'fill' || h.hand !== timeHand) continue;
+      if (!timeAt(h.index - 1) && !timeAt(h.index + 1)) continue;
+      if (freeAt(h.index) || (freeAt(h.index - 1) && freeAt(h.index + 1))) continue;
+      out.push({
+        check: 'preset/ghost-beside-time-on-free-hand',
+        message: `ghost ${h.voice} at ${grid.describe(h.index)} on the time hand ${timeHand}, right beside its ${card.ostinato.voice}`,
+      });
+    }
+  }
+
+  // The kick is more than a downbeat marker: it plays somewhere besides beat 1 in every drill,
+  // and in every bar of a linear groove, where it is one of the voices sharing the line (common
+  // practice).
+  if (card.voices.includes('kick')) {
+    const offOne = (h: Placed): boolean => h.voice === 'kick' && h.index !== grid.downbeat(h.bar);
+    if (!hits.some(offOne))
+      out.push({
+        check: 'preset/kick-beyond-one',
+        message: 'the kick plays nothing but beat 1 in the whole drill',
+      });
+    if (rulesOf(card, 'linear').length > 0)
+      for (let bar = 1; bar <= card.bars; bar++)
+        if (!hits.some((h) => h.bar === bar && offOne(h)))
+          out.push({
+            check: 'preset/kick-beyond-one',
+            message: `bar ${bar} of a linear groove has the kick on beat 1 only`,
+          });
+  }
   return out;
 }

@@ -30,10 +30,14 @@
  *    and that pattern puts three notes in a row on a grid at least as fast as sixteenths at
  *    120 BPM, which a single hand should not play without doubles (issue 8, "Tests").
  */
-import { FAR_SIDE_FOR_LEFT_HAND, isHand, rulesOf, TIME_CYMBALS, type Voice } from './card';
-
-/** The right hand's far side on a right-handed kit: the hi-hat (common practice). */
-const RIGHT_HAND_FAR: ReadonlySet<string> = new Set(['hihat', 'hihatOpen']);
+import {
+  FAR_SIDE_FOR_LEFT_HAND,
+  FAR_SIDE_FOR_RIGHT_HAND,
+  isHand,
+  rulesOf,
+  TIME_CYMBALS,
+  type Voice,
+} from './card';
 import { key, type Plan } from './plan';
 
 export interface Feasibility {
@@ -112,7 +116,7 @@ export function reasonAbout(plan: Plan): Feasibility {
     const otherFar = (v: string): boolean =>
       (card.lead === 'right') === (card.hand === 'right')
         ? FAR_SIDE_FOR_LEFT_HAND.has(v)
-        : RIGHT_HAND_FAR.has(v);
+        : FAR_SIDE_FOR_RIGHT_HAND.has(v);
     for (const [index, voices] of byIndex)
       if (
         voices.has(timeCymbal) &&
@@ -131,6 +135,43 @@ export function reasonAbout(plan: Plan): Feasibility {
       policy.push(`two hand time layers meet at ${at(index)}`);
       break;
     }
+
+  // 7. (policy) With a leading hand, it keeps every hand time note. A time note on its far side
+  // of the kit with another fixed hand note on the other hand's far side at the next (or the
+  // previous) grid note of a run leaves no sticking: the leading hand would leap across the
+  // kit, the other hand would cross arms with it (docs/engine.md, "Sticking"; common practice).
+  if (card.lead !== 'alternate') {
+    const leadHand = card.lead === 'right' ? 'R' : 'L';
+    const farFor = (hand: 'R' | 'L', v: string): boolean =>
+      (hand === 'R') === (card.hand === 'right')
+        ? FAR_SIDE_FOR_RIGHT_HAND.has(v)
+        : FAR_SIDE_FOR_LEFT_HAND.has(v);
+    const other = leadHand === 'R' ? 'L' : 'R';
+    const n = grid.totalSlots;
+    for (let i = 0; i < n; i++) {
+      const time = plan.wants.some(
+        (w) =>
+          w.index === i && w.part === 'ostinato' && isHand(w.voice) && farFor(leadHand, w.voice),
+      );
+      if (!time) continue;
+      // The note before (reached at its own slot's rate) and the note after (at this one's).
+      const before = (i + n - 1) % n;
+      const beside = [
+        ...(grid.notesPerMinuteAt(before, card.tempo) >= 240 ? [before] : []),
+        ...(grid.notesPerMinuteAt(i, card.tempo) >= 240 ? [(i + 1) % n] : []),
+      ];
+      if (
+        beside.some((j) =>
+          plan.wants.some((w) => w.index === j && isHand(w.voice) && farFor(other, w.voice)),
+        )
+      ) {
+        policy.push(
+          `the time at ${at(i)} and a note beside it lie on the two far sides of the kit`,
+        );
+        break;
+      }
+    }
+  }
 
   const lead = card.ostinato;
   if (lead && isHand(lead.voice) && card.lead !== 'alternate' && !card.doubles) {

@@ -9,6 +9,7 @@ export const MIDI_IMPORT_REFUSALS = [
   'no_notes',
   'no_drum_notes',
   'too_long',
+  'too_many_notes',
 ] as const;
 export type MidiImportRefusal = (typeof MIDI_IMPORT_REFUSALS)[number];
 

@@ -9,6 +9,7 @@ import {
   MidiImportError,
   type MidiImportRefusal,
 } from './index';
+import { countNoteOns, MAX_NOTES } from './read-midi';
 import { grooveFile, rockGroove } from './testing/groove-file';
 
 const NUM_RUNS = Number(process.env['FC_RUNS'] ?? 1000);
@@ -297,6 +298,21 @@ describe('importMidiGroove: refusals', () => {
       ],
     });
     expect(importMidiGroove(sixtyFour).drill.bars).toHaveLength(64);
+  });
+
+  it('refuses more notes than any groove needs, before the library reads them', () => {
+    const notes = Array.from({ length: MAX_NOTES + 1 }, (_, i) => ({ key: 42, at: (i % 128) / 8 }));
+    expect(refusal(() => importMidiGroove(grooveFile({ bpm: 90, notes })))).toBe('too_many_notes');
+    // The guard counts what the library reads: every note of every track of a real file.
+    const dense = Array.from({ length: 3000 }, (_, i) => ({ key: 36 + (i % 12), at: i / 8 }));
+    const file = grooveFile({ bpm: 90, notes: dense, melody: [{ key: 60, at: 0 }] });
+    let counted = 0;
+    for (let at = 14; at < file.length;) {
+      const length = new DataView(file.buffer, file.byteOffset + at + 4, 4).getUint32(0);
+      counted += countNoteOns(file.subarray(at + 8, at + 8 + length));
+      at += 8 + length;
+    }
+    expect(counted).toBe(3001);
   });
 
   it('refuses a track that is not there, and SMPTE timing', () => {

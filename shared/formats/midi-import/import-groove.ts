@@ -121,8 +121,15 @@ export function importMidiGroove(bytes: Uint8Array, options: MidiImportOptions =
     const index = Math.floor(at + EARLY_MARGIN);
     return { ...n, index, x: at - index };
   });
-  const firstBar = Math.floor(Math.min(...placed.map((n) => n.index)) / meter.beats);
-  const lastBar = Math.floor(Math.max(...placed.map((n) => n.index)) / meter.beats);
+  // Loops, not Math.min(...): a 1 MB file can hold more notes than a call takes arguments.
+  let first = Infinity;
+  let last = -Infinity;
+  for (const n of placed) {
+    first = Math.min(first, n.index);
+    last = Math.max(last, n.index);
+  }
+  const firstBar = Math.floor(first / meter.beats);
+  const lastBar = Math.floor(last / meter.beats);
   const barCount = lastBar - firstBar + 1;
   if (barCount > MAX_BARS) {
     throw new MidiImportError(
@@ -244,7 +251,11 @@ function quantise(
   unitBpm: number,
 ): { bars: PlainBar[]; residuals: BeatResidual[]; merged: number } {
   const byBeat = new Map<number, Placed[]>();
-  for (const n of placed) byBeat.set(n.index, [...(byBeat.get(n.index) ?? []), n]);
+  for (const n of placed) {
+    const notes = byBeat.get(n.index);
+    if (notes) notes.push(n);
+    else byBeat.set(n.index, [n]);
+  }
   const msPerBeat = 60_000 / unitBpm;
   const bars: PlainBar[] = [];
   const residuals: BeatResidual[] = [];

@@ -41,6 +41,6 @@ export function fitBeat(onsets: readonly number[]): BeatFit {
     );
     return { slots, slotOf, error };
   });
-  const least = Math.min(...fits.map((fit) => fit.error));
+  const least = fits.reduce((min, fit) => Math.min(min, fit.error), Infinity);
   return fits.find((fit) => fit.error <= least + TIE_TOLERANCE)!;
 }

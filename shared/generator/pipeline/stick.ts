@@ -8,6 +8,7 @@ import type { Rng } from '../random';
 import { embellishmentDynamics, embellishmentVoices, fillHolesOwners } from '../rules/fill-holes';
 import type { RuleCard } from '../schema';
 import { voiceWord } from '../words';
+import { isHandVoice, type VoiceId } from '../drill';
 import type { Attempt, Shaped, Stuck } from './stages';
 
 /**
@@ -29,12 +30,56 @@ export function stick(shaped: Shaped, attempt: Attempt): Stuck {
         rule: -2,
         hand: null,
       });
+  if (kept.size === 0 && card.measure === 'lhl') voiceEveryRule(free, cells, attempt.rng);
   repairHands(card, grid, cells, kept);
   // Around kept notes, a fillHoles rule's shares may need fewer (or more) free notes.
   for (let k = 0; k < 2 && fitShares(free, cells, kept, attempt.rng); k++)
     repairHands(card, grid, cells, kept);
   markEmbellishments(free, cells, attempt.rng, kept);
   return { ...proven, cells };
+}
+
+/**
+ * A fillHoles rule that asks for ghost notes or accents is heard in every drill: where the fill
+ * gave none of the drill's notes to the rule's voices, one fill note of a voice whose dynamics no
+ * fillHoles rule asks for (a kick), at an instant where one of the rule's voices may play, becomes the rule's
+ * (seeded). The bar's onsets, so its Longuet-Higgins & Lee tension, stay as they were.
+ */
+function voiceEveryRule(ctx: FillContext, cells: WorkHit[][], rng: Rng): void {
+  const { card, grid } = ctx;
+  const owners = fillHolesOwners(card);
+  const asksNothing = (voice: VoiceId): boolean => {
+    const rule = card.rules[owners.get(voice) ?? -1];
+    return rule?.kind !== 'fillHoles' || (rule.ghost === 0 && rule.accent === 0);
+  };
+  card.rules.forEach((rule, index) => {
+    if (rule.kind !== 'fillHoles' || (rule.ghost === 0 && rule.accent === 0)) return;
+    if (
+      cells.some((cell) => cell.some((h) => h.source === 'fill' && owners.get(h.voice) === index))
+    )
+      return;
+    const swaps: { cell: WorkHit[]; k: number; voice: VoiceId }[] = [];
+    cells.forEach((cell, instant) => {
+      const allowed =
+        ctx.options[Math.floor(instant / grid.slotsPerBar)]?.[instant % grid.slotsPerBar];
+      const hands = cell.filter((h) => isHandVoice(h.voice)).length;
+      cell.forEach((hit, k) => {
+        if (hit.source !== 'fill' || !asksNothing(hit.voice)) return;
+        const voice = rule.voices.find(
+          (v) =>
+            owners.get(v) === index &&
+            (allowed ?? []).includes(v) &&
+            !cell.some((h) => h.voice === v) &&
+            (!isHandVoice(v) || isHandVoice(hit.voice) || hands < 2),
+        );
+        if (voice) swaps.push({ cell, k, voice });
+      });
+    });
+    const pick = swaps[rng.int(swaps.length)];
+    if (swaps.length === 0 || !pick) return;
+    const old = pick.cell[pick.k] as WorkHit;
+    pick.cell[pick.k] = { ...old, voice: pick.voice, hand: null };
+  });
 }
 
 /**

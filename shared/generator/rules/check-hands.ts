@@ -60,7 +60,9 @@ export interface StickingFault {
  *    both included (time and figure notes excepted: the crossed hi-hat grip is normal); and
  *    the arms never cross both ways: the two hands never play their far sides at one instant,
  *    nor one right after the other at two consecutive notes of a run (time notes included: the
- *    left hand does not reach under to the floor tom between two crossed hi-hat strokes);
+ *    left hand does not reach under to the floor tom between two crossed hi-hat strokes); and
+ *    no hand leaps across the kit, from one side to the other (hi-hat and floor tom or ride),
+ *    between two consecutive notes of a run (time notes included);
  * 7. run: in a run (consecutive notes of the grid, 4 or more a second) no hand plays three notes
  *    in a row while the other hand is free (unless all three are time or figure notes); drills
  *    of fewer than three instants are exempt (they cannot alternate round the loop).
@@ -262,6 +264,19 @@ function tangleFaults(
       const [r, l] = onFarR(i) ? [i, j] : [j, i];
       const message = `The right hand plays the ${word(voiceR[r] ?? 0)} right ${r === i ? 'before' : 'after'} the left hand plays the ${word(voiceL[l] ?? 0)}: the arms cross both ways.`;
       out.push(fault('hands', 'crossing', j, message));
+    }
+    // A leap: one hand from one side of the kit to the other between two run notes.
+    for (const [bit, voices] of [
+      [1, voiceR],
+      [2, voiceL],
+    ] as const) {
+      if (!((who[i] ?? 0) & bit) || !((who[j] ?? 0) & bit)) continue;
+      const a = voices[i] ?? 0;
+      const b = voices[j] ?? 0;
+      if ((farR[a] && farL[b]) || (farL[a] && farR[b])) {
+        const message = `${capital(handWord(bit === 1 ? 'R' : 'L'))} leaps from the ${word(a)} to the ${word(b)} between two notes of a run, across the kit.`;
+        out.push(fault('hands', 'crossing', j, message));
+      }
     }
   }
 }

@@ -380,7 +380,9 @@ const EXA = 512; // the previous note of the run was a time or figure note
 const EXB = 1024; // and the one before it
 const FAR_R = 2048; // at the previous note the right hand played its far side
 const FAR_L = 4096;
-const FLAGS = 8192;
+const OWN_R = 8192; // at the previous note the right hand played its own side (floor tom, ride)
+const OWN_L = 16384;
+const FLAGS = 32768;
 
 /** The search's states, layer after layer, in flat arrays: layer L is begin[L]..begin[L+1]-1. */
 interface Lattice {
@@ -629,16 +631,36 @@ function advance(
           if (far1 & 1) cost += COST.far;
           if (crossedIfFirstL) cost += COST.crossed;
         }
-        // The arms cross both ways when a hand plays its far side right after the other did.
+        // The arms cross both ways when a hand plays its far side right after the other did;
+        // a hand leaps across the kit when it goes between its far and its own side at once.
         const farNowR = firstHand === 1 ? rawFar0 & 1 : rawFar1 & 1;
         const farNowL = firstHand === 1 ? rawFar1 & 2 : rawFar0 & 2;
+        const ownNowR = firstHand === 1 ? rawFar0 & 2 : rawFar1 & 2;
+        const ownNowL = firstHand === 1 ? rawFar1 & 1 : rawFar0 & 1;
         if (ev.runStep && ((farNowR && f & FAR_L) || (farNowL && f & FAR_R))) {
           why.other = true;
           why.arms = true;
           continue;
         }
+        if (
+          ev.runStep &&
+          ((farNowR && f & OWN_R) ||
+            (ownNowR && f & FAR_R) ||
+            (farNowL && f & OWN_L) ||
+            (ownNowL && f & FAR_L))
+        ) {
+          why.other = true;
+          continue;
+        }
         const flags =
-          dblR | dblL | ORDER_SAME | PREV_BOTH | (farNowR ? FAR_R : 0) | (farNowL ? FAR_L : 0);
+          dblR |
+          dblL |
+          ORDER_SAME |
+          PREV_BOTH |
+          (farNowR ? FAR_R : 0) |
+          (farNowL ? FAR_L : 0) |
+          (ownNowR ? OWN_R : 0) |
+          (ownNowL ? OWN_L : 0);
         put(lat, base, flags, T, T, flags, cost, p, firstHand === 1 ? 0 : 1);
       }
       continue;
@@ -660,9 +682,18 @@ function advance(
         continue;
       }
       const farNow = rawFar0 & hand;
+      const ownNow = rawFar0 & (3 - hand);
       if (farNow && ev.runStep && f & (right ? FAR_L : FAR_R)) {
         why.other = true;
         why.arms = true;
+        continue;
+      }
+      // No leap across the kit: the hand's far side and its own side at two run notes running.
+      if (
+        ev.runStep &&
+        ((farNow && f & (right ? OWN_R : OWN_L)) || (ownNow && f & (right ? FAR_R : FAR_L)))
+      ) {
+        why.other = true;
         continue;
       }
       let cost = cost0;
@@ -691,7 +722,8 @@ function advance(
         cost += COST.fillRepeat;
       }
       const keep = f & (right ? DBL_L : DBL_R);
-      const farBit = farNow ? (right ? FAR_R : FAR_L) : 0;
+      const farBit =
+        (farNow ? (right ? FAR_R : FAR_L) : 0) | (ownNow ? (right ? OWN_R : OWN_L) : 0);
       const flags =
         keep | dbl | pend | (right ? ORDER_R | PREV_R : ORDER_L | PREV_L) | run | farBit;
       const key = right ? (width + dL) * FLAGS + flags : (dR * width + 1) * FLAGS + flags;

@@ -102,9 +102,20 @@ describe('linear-sixteenths sticking', () => {
     }
   });
 
+  // The same groove with a floor tom in the line: the tom on the far right of the kit.
+  const withFloorTom = parseRuleCard({
+    ...(preset?.card as object),
+    voices: ['kick', 'snare', 'hihat', 'tomHigh', 'tomFloor'],
+    rules: [
+      { kind: 'linear', maxOverlaps: 0 },
+      { kind: 'backbeat', voice: 'snare', beats: [2, 4], shift: 0 },
+      { kind: 'fillHoles', voices: ['snare', 'tomHigh', 'tomFloor'], ghost: 0.5, accent: 0.1 },
+    ],
+  });
+
   it('keeps the hi-hat on the right hand, and never runs the left hand round the toms while the right waits', () => {
     for (const seed of SEEDS) {
-      const { strokes } = strokesOf(generateDrill(card, seed));
+      const { strokes } = strokesOf(generateDrill(withFloorTom, seed));
       for (const s of strokes) if (s.voice === 'hihat') expect(s.hand).toBe('R');
       // High tom, floor tom, high tom on the left hand with no right-hand stroke among them.
       for (let k = 0; k + 2 < strokes.length; k++) {
@@ -113,6 +124,24 @@ describe('linear-sixteenths sticking', () => {
         expect(lefty, `${seed} at ${strokes[k]?.at}`).toBe(false);
       }
     }
+  });
+
+  // common practice: at sixteenths the right hand has no time to travel from the floor tom to
+  // the hi-hat (or back) between two notes running, across the whole kit.
+  it('never takes the right hand between the floor tom and the hi-hat from one sixteenth to the next', () => {
+    let floorToms = 0;
+    for (const seed of SEEDS) {
+      const drill = generateDrill(withFloorTom, seed);
+      const { strokes, instants } = strokesOf(drill);
+      const at = new Map(strokes.filter((s) => s.hand === 'R').map((s) => [s.at, s.voice]));
+      for (const [i, voice] of at) {
+        if (voice === 'tomFloor') floorToms++;
+        const next = at.get((i + 1) % instants);
+        const pair = [voice, next].sort().join(' ');
+        expect(pair, `${seed} at ${i}`).not.toBe('hihat tomFloor');
+      }
+    }
+    expect(floorToms).toBeGreaterThan(0);
   });
 });
 

@@ -1,7 +1,13 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable, map } from 'rxjs';
-import { listParams, type RuleCardDetail } from '../rule-cards/rule-cards-api';
+import {
+  listParams,
+  type ListQuery,
+  type Page,
+  type RuleCardDetail,
+  type RuleCardSummary,
+} from '../rule-cards/rule-cards-api';
 
 /** A preset as the admin sees it in the list. */
 export interface PresetSummary {
@@ -42,6 +48,11 @@ export interface PresetView {
   readonly credit: string | null;
 }
 
+/** A teacher's rule card the admin may promote. */
+export interface PromotionCandidate extends RuleCardSummary {
+  readonly ownerName: string;
+}
+
 export interface PresetFilter {
   readonly tag?: string;
   readonly level?: PresetLevel | '';
@@ -77,6 +88,13 @@ export class CuratedPresetsApi {
     return this.http
       .put<{ preset: PresetView }>(`/api/presets/${encodeURIComponent(id)}`, edit)
       .pipe(map((body) => body.preset));
+  }
+
+  /** Teachers' cards, paged and filtered on the server (admin). */
+  candidates(query: ListQuery): Observable<Page<PromotionCandidate>> {
+    return this.http.get<Page<PromotionCandidate>>('/api/presets/candidates', {
+      params: listParams(query),
+    });
   }
 
   promote(ruleCardId: number): Observable<PresetView> {

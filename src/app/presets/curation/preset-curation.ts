@@ -1,11 +1,8 @@
 import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
-import { FormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
-import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
-import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import { MatSnackBar } from '@angular/material/snack-bar';
@@ -18,24 +15,23 @@ import { freshSeedWord } from '../../rule-cards/seed-word';
 import { EmptyState } from '../../ui/empty-state';
 import { CuratedPresetsApi, type PresetEdit, type PresetView } from '../presets-api';
 import { PresetEditDialog } from './preset-edit-dialog';
+import { PromoteTable } from './promote-table';
 
 /**
  * `/presets` (admin): every preset, published or withdrawn, in gallery order; edit, publish or
- * withdraw, and promote a teacher's rule card (by its number) to a new preset.
+ * withdraw, and promote a teacher's rule card (chosen from a list of them) to a new preset.
  */
 @Component({
   selector: 'tensile-preset-curation',
   imports: [
-    FormsModule,
     MatButtonModule,
-    MatFormFieldModule,
     MatIconModule,
-    MatInputModule,
     MatProgressBarModule,
     MatSlideToggleModule,
     MatTableModule,
     RouterLink,
     EmptyState,
+    PromoteTable,
   ],
   templateUrl: './preset-curation.html',
   styleUrl: './preset-curation.scss',
@@ -56,7 +52,6 @@ export class PresetCuration {
     'published',
     'actions',
   ];
-  protected readonly promoteId = signal<number | null>(null);
   protected readonly state = toSignal(
     toObservable(this.reload).pipe(switchMap(() => toLoadState(this.api.list({ all: true })))),
     { initialValue: { status: 'loading' } as LoadState<readonly PresetView[]> },
@@ -97,15 +92,8 @@ export class PresetCuration {
       );
   }
 
-  protected promote(): void {
-    const id = this.promoteId();
-    if (id === null || !Number.isInteger(id) || id < 1) return;
-    this.api.promote(id).subscribe(
-      this.done((preset) => {
-        this.promoteId.set(null);
-        return `"${preset.title}" is a new preset, withdrawn until you publish it.`;
-      }),
-    );
+  protected reloadPresets(): void {
+    this.reload.update((n) => n + 1);
   }
 
   private done<T>(message: (value: T) => string) {
