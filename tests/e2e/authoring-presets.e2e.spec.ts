@@ -75,7 +75,10 @@ describe('authoring journey: curated presets', () => {
   }, 120_000);
 
   it('the admin finds a teacher’s card in the list and promotes it to a credited preset', async () => {
-    await context.clearCookies();
+    // A context of its own: the gallery's thumbnails may still hold the other one's connections.
+    const own = await suite.browser.newContext({ viewport: { width: 1400, height: 1000 } });
+    const page = await own.newPage();
+    const context = own;
     const teacher = DEMO_TEACHERS[0]!;
     await signIn(page, suite.server.url, teacher.email, teacher.password);
     const title = 'Wombat shuffle study';
@@ -105,5 +108,6 @@ describe('authoring journey: curated presets', () => {
     expect(await promoted.innerText()).toContain('Tomasz Reyes');
     const toggle = page.getByRole('switch', { name: `Publish ${title}` });
     expect(await toggle.getAttribute('aria-checked')).toBe('false');
+    await own.close();
   }, 120_000);
 });

@@ -33,6 +33,7 @@ import { blankCard, type CardDraft } from './card-draft';
 import { CardPreview } from './card-preview';
 import { OstinatoGrid } from './ostinato-grid';
 import { RuleList } from './rule-list';
+import { VoiceSetup } from './voice-setup';
 
 /** Tags a teacher reaches for most; any other word may be typed. */
 export const SUGGESTED_TAGS = [
@@ -63,6 +64,7 @@ export const SUGGESTED_TAGS = [
     CardPreview,
     OstinatoGrid,
     RuleList,
+    VoiceSetup,
   ],
   providers: [CardEditorStore],
   templateUrl: './rule-card-editor.html',
