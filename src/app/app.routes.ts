@@ -49,6 +49,12 @@ export const routes: Routes = [
           import('./worksheets/worksheets-routes').then((m) => m.WORKSHEET_ROUTES),
       },
       {
+        path: 'print-settings',
+        title: 'Print settings',
+        canActivate: [requireRole('teacher')],
+        loadComponent: () => import('./branding/print-settings').then((m) => m.PrintSettings),
+      },
+      {
         path: 'studio',
         canActivate: [requireRole('teacher')],
         loadChildren: () => import('./studio/studio-routes').then((m) => m.STUDIO_ROUTES),

@@ -16,6 +16,7 @@ export const NAVIGATION: Readonly<Record<Role, readonly NavItem[]>> = {
     { label: 'Drills', path: '/drills', icon: 'queue_music' },
     { label: 'Worksheets', path: '/worksheets', icon: 'description' },
     { label: 'Studio', path: '/studio', icon: 'groups' },
+    { label: 'Print settings', path: '/print-settings', icon: 'print' },
   ],
   student: [
     { label: 'Assignments', path: '/assignments', icon: 'assignment' },

@@ -64,13 +64,21 @@ describe('Shell', () => {
 
   it('gives a teacher rule cards, the preset gallery, drills, worksheets and the studio', async () => {
     const page = await renderAs(people.teacher);
-    expect(navLabels(page)).toEqual(['Rule cards', 'Gallery', 'Drills', 'Worksheets', 'Studio']);
+    expect(navLabels(page)).toEqual([
+      'Rule cards',
+      'Gallery',
+      'Drills',
+      'Worksheets',
+      'Studio',
+      'Print settings',
+    ]);
     expect(navTargets(page)).toEqual([
       '/rule-cards',
       '/gallery',
       '/drills',
       '/worksheets',
       '/studio',
+      '/print-settings',
     ]);
   });
 
