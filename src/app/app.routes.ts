@@ -74,6 +74,12 @@ export const routes: Routes = [
         loadChildren: () => import('./imports/import-routes').then((m) => m.IMPORT_ROUTES),
       },
       {
+        path: 'print-settings',
+        title: 'Print settings',
+        canActivate: [requireRole('teacher')],
+        loadComponent: () => import('./branding/print-settings').then((m) => m.PrintSettings),
+      },
+      {
         path: 'studio',
         canActivate: [requireRole('teacher')],
         loadChildren: () => import('./studio/studio-routes').then((m) => m.STUDIO_ROUTES),

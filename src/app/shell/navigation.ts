@@ -17,6 +17,7 @@ export const NAVIGATION: Readonly<Record<Role, readonly NavItem[]>> = {
     { label: 'Worksheets', path: '/worksheets', icon: 'description' },
     { label: 'Import groove', path: '/imports', icon: 'upload_file' },
     { label: 'Studio', path: '/studio', icon: 'groups' },
+    { label: 'Print settings', path: '/print-settings', icon: 'print' },
   ],
   student: [
     { label: 'Assignments', path: '/assignments', icon: 'assignment' },

@@ -71,6 +71,7 @@ describe('Shell', () => {
       'Worksheets',
       'Import groove',
       'Studio',
+      'Print settings',
     ]);
     expect(navTargets(page)).toEqual([
       '/rule-cards',
@@ -79,6 +80,7 @@ describe('Shell', () => {
       '/worksheets',
       '/imports',
       '/studio',
+      '/print-settings',
     ]);
   });
 
