@@ -35,7 +35,15 @@ const HOMES: readonly RoleHome[] = [
     account: DEMO_TEACHERS[0]!,
     path: '/rule-cards',
     heading: /rule cards/i,
-    navigation: ['Rule cards', 'Gallery', 'Drills', 'Worksheets', 'Studio', 'Print settings'],
+    navigation: [
+      'Rule cards',
+      'Gallery',
+      'Drills',
+      'Worksheets',
+      'Import groove',
+      'Studio',
+      'Print settings',
+    ],
   },
   {
     account: DEMO_STUDENTS[0]!,
