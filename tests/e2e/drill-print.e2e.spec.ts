@@ -28,9 +28,12 @@ const SEED = 'print-check';
 const SIZES = [
   // Four bars a line: 24 bars need a second page.
   { name: 'desktop', width: 1280, height: 900, bars: 24 },
-  // One bar a line: 16 bars run over several pages.
-  { name: 'phone', width: 390, height: 844, bars: 16 },
+  // One bar a line on screen; on paper the same systems as the desktop.
+  { name: 'phone', width: 390, height: 844, bars: 24 },
 ] as const;
+
+/** Bars per printed system, by screen size: print must not depend on the screen. */
+const printedSystems = new Map<string, number[]>();
 
 /** Serves the preset with more bars, so the drill runs over more than one page. */
 async function longerCard(page: Page, bars: number): Promise<void> {
@@ -98,8 +101,9 @@ describe.each(SIZES)('printing a drill from the $name ($width px)', (size) => {
   it(
     `prints ${size.bars} bars without the app's frame, breaking pages only between systems`,
     {
-      // Generating and engraving a long drill takes a while on a busy machine.
-      timeout: 150_000,
+      // Generating and engraving a long drill (one system a bar on a phone's screen) takes a
+      // while on a busy machine.
+      timeout: 300_000,
     },
     async () => {
       const context = await suite.browser.newContext({
@@ -116,8 +120,35 @@ describe.each(SIZES)('printing a drill from the $name ($width px)', (size) => {
         const bars = page.locator('tensile-drill-score svg.tensile-notation .tensile-bar');
         await expect.poll(() => bars.count(), { timeout: 90_000 }).toBe(size.bars);
         await page.getByRole('region', { name: 'Playback' }).waitFor();
-        const systems = await page.locator('tensile-drill-score .band').count();
+
+        // Laid out for print, the score re-flows on the print line (wait for that state).
+        await page.emulateMedia({ media: 'print' });
+        const sheet = page.locator('tensile-drill-score svg.tensile-notation');
+        await expect
+          .poll(() => sheet.evaluate((svg) => Number(svg.getAttribute('width'))), {
+            timeout: 30_000,
+          })
+          .toBeGreaterThanOrEqual(960);
+        const bands = page.locator('tensile-drill-score .band');
+        const perSystem = await bands.evaluateAll((strips) =>
+          strips.map((strip) => strip.querySelectorAll('tensile-tension-plot').length),
+        );
+        const systems = perSystem.length;
         expect(systems).toBeGreaterThan(1);
+        expect(perSystem.reduce((a, b) => a + b, 0)).toBe(size.bars);
+        // Systems that fill the page: never a phone's one bar a line.
+        expect(Math.max(...perSystem), 'bars on the fullest printed system').toBeGreaterThan(2);
+        printedSystems.set(size.name, perSystem);
+        const desktop = printedSystems.get('desktop');
+        if (size.name !== 'desktop' && desktop) expect(perSystem).toEqual(desktop);
+        // Nothing printed overlaps: every bar of a system starts where the one before it ends.
+        const rows = await page
+          .locator('tensile-drill-score .plot')
+          .evaluateAll((plots) => plots.map((plot) => plot.getBoundingClientRect()));
+        for (let i = 1; i < rows.length; i++) {
+          const [a, b] = [rows[i - 1]!, rows[i]!];
+          if (Math.abs(a.top - b.top) < 1) expect(b.left).toBeGreaterThanOrEqual(a.right - 0.5);
+        }
 
         // Plain text first: what is on paper, and what is not.
         const plain = join(dir, 'plain.pdf');

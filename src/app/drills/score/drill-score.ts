@@ -1,5 +1,6 @@
 import {
   ChangeDetectionStrategy,
+  ChangeDetectorRef,
   Component,
   DestroyRef,
   ElementRef,
@@ -46,6 +47,12 @@ const RESIZE_DEBOUNCE_MS = 150;
  * 186 mm at 96 px to the inch): the score is zoomed to it in print.
  */
 export const PRINT_WIDTH = 700;
+/**
+ * The line the score is engraved on for print, whatever the screen: a desktop window's score
+ * width, zoomed to PRINT_WIDTH on paper. A phone prints the same systems as a desktop instead of
+ * its one bar a line.
+ */
+export const PRINT_ENGRAVING_WIDTH = 960;
 let scoreIds = 0;
 
 /**
@@ -84,6 +91,11 @@ export class DrillScore {
   /** The drawing's id, which the later systems' strips point at. */
   private readonly svgId = `tensile-score-${++scoreIds}`;
   private readonly width = signal(0);
+  /** True while the page is laid out for print (see watchPrint). */
+  private readonly printing = signal(false);
+  private readonly changes = inject(ChangeDetectorRef);
+  /** The engraver once loaded, so a print can re-flow the score without waiting. */
+  private engraver: typeof import('../../../../shared/notation/render-vexflow') | null = null;
   private renderToken = 0;
 
   protected readonly layout = signal<ScoreLayout | null>(null);
@@ -163,14 +175,16 @@ export class DrillScore {
         else timer = setTimeout(() => this.width.set(width), RESIZE_DEBOUNCE_MS);
       });
       observer.observe(this.host.nativeElement);
+      const unwatchPrint = this.watchPrint();
       destroyRef.onDestroy(() => {
         clearTimeout(timer);
         observer.disconnect();
+        unwatchPrint();
       });
     });
     effect(() => {
       const model = this.model();
-      const width = this.width();
+      const width = this.printing() ? PRINT_ENGRAVING_WIDTH : this.width();
       const showSticking = this.showSticking();
       const showCounts = this.showCounts();
       const showTension = this.showTension();
@@ -258,6 +272,44 @@ export class DrillScore {
     }
   }
 
+  /**
+   * Print re-flows the score on the print line and back afterwards. The browser lays the page
+   * out for print right after `beforeprint`, so that re-flow is done synchronously there (the
+   * engraver and fonts are loaded by then); a print media query change (print preview, or a
+   * test emulating print) goes the same way.
+   */
+  private watchPrint(): () => void {
+    const start = (): void => {
+      if (this.printing()) return;
+      this.printing.set(true);
+      const engraver = this.engraver;
+      if (engraver === null || this.width() === 0) return;
+      this.draw(engraver, this.model(), PRINT_ENGRAVING_WIDTH, this.shown());
+      this.changes.detectChanges();
+      // After-render hooks wait for the next frame; print does not.
+      this.drawEchoes(this.laterBands(), this.fit().contentWidth);
+    };
+    const end = (): void => this.printing.set(false);
+    const media = window.matchMedia?.('print');
+    const onMedia = (event: MediaQueryListEvent): void => (event.matches ? start() : end());
+    window.addEventListener('beforeprint', start);
+    window.addEventListener('afterprint', end);
+    media?.addEventListener?.('change', onMedia);
+    return () => {
+      window.removeEventListener('beforeprint', start);
+      window.removeEventListener('afterprint', end);
+      media?.removeEventListener?.('change', onMedia);
+    };
+  }
+
+  private shown(): { showSticking: boolean; showCounts: boolean; showTension: boolean } {
+    return {
+      showSticking: this.showSticking(),
+      showCounts: this.showCounts(),
+      showTension: this.showTension(),
+    };
+  }
+
   private async render(
     model: NotationModel,
     width: number,
@@ -266,33 +318,44 @@ export class DrillScore {
     const token = ++this.renderToken;
     try {
       // Only the score's own faces are waited for (not the page's text and icon fonts).
-      const [{ renderNotation }] = await Promise.all([
+      const [engraver] = await Promise.all([
         import('../../../../shared/notation/render-vexflow'),
         loadMusicFonts(),
       ]);
       if (token !== this.renderToken) return;
-      const engrave = (lineWidth: number) =>
-        renderNotation(this.canvas().nativeElement, model, {
-          width: lineWidth,
-          ...shown,
-          gapBelowSystem: PLOT_ROOM,
-          ink: 'currentColor',
-        });
-      let { svg, ...layout } = engrave(width);
-      const fit = fitToWidth(layout, width);
-      if (fit.contentWidth > width) {
-        // A bar ran past the line: engrave again on a line that holds it, so every system fills
-        // the same wider sheet, which the template scales down to the host as one.
-        ({ svg, ...layout } = engrave(fit.contentWidth));
-      }
-      svg.setAttribute('aria-hidden', 'true');
-      svg.id = this.svgId;
-      this.fit.set(fit);
-      this.layout.set(layout);
-      this.failure.set(null);
+      this.engraver = engraver;
+      this.draw(engraver, model, width, shown);
     } catch (error) {
       if (token !== this.renderToken) return;
       this.failure.set(error instanceof Error ? error.message : String(error));
     }
+  }
+
+  /** Engrave `model` on a line of `width` pixels and publish its layout (synchronous). */
+  private draw(
+    { renderNotation }: typeof import('../../../../shared/notation/render-vexflow'),
+    model: NotationModel,
+    width: number,
+    shown: { showSticking: boolean; showCounts: boolean; showTension: boolean },
+  ): void {
+    const engrave = (lineWidth: number) =>
+      renderNotation(this.canvas().nativeElement, model, {
+        width: lineWidth,
+        ...shown,
+        gapBelowSystem: PLOT_ROOM,
+        ink: 'currentColor',
+      });
+    let { svg, ...layout } = engrave(width);
+    const fit = fitToWidth(layout, width);
+    if (fit.contentWidth > width) {
+      // A bar ran past the line: engrave again on a line that holds it, so every system fills
+      // the same wider sheet, which the template scales down to the host as one.
+      ({ svg, ...layout } = engrave(fit.contentWidth));
+    }
+    svg.setAttribute('aria-hidden', 'true');
+    svg.id = this.svgId;
+    this.fit.set(fit);
+    this.layout.set(layout);
+    this.failure.set(null);
   }
 }
