@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod';
 import { VOICE_IDS, type VoiceId } from './drill';
 import { listWords } from './words';
 
