@@ -46,6 +46,10 @@ export class Users {
   protected readonly roles: readonly Role[] = ['admin', 'teacher', 'student'];
   protected readonly roleLabel = ROLE_LABEL;
   protected readonly columns = ['name', 'email', 'role', 'status', 'actions'] as const;
+
+  protected statusLabel(status: StudioUser['status']): string {
+    return status === 'invited' ? 'Invited' : status === 'deactivated' ? 'Deactivated' : 'Active';
+  }
   protected readonly state = toSignal(
     toObservable(this.version).pipe(switchMap(() => toLoadState(this.api.list()))),
     { initialValue: { status: 'loading' } as LoadState<readonly StudioUser[]> },
