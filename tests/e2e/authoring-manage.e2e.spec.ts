@@ -42,7 +42,18 @@ describe('authoring journey: managing cards and drills', () => {
   /** The card table's row for a title, found through the table's own search. */
   async function cardRow(title: string) {
     const search = page.getByLabel('Search titles');
-    await search.fill(title);
+    if ((await search.inputValue()) !== title) {
+      // Wait for the debounced search's own answer: a row found before it lands is re-rendered
+      // (and an open menu on it closed) when the filtered list arrives.
+      const searched = page.waitForResponse(
+        (res) =>
+          new URL(res.url()).pathname === '/api/rule-cards' &&
+          new URL(res.url()).searchParams.get('q') === title,
+        POLL,
+      );
+      await search.fill(title);
+      await searched;
+    }
     // The row whose title link is exactly this title (a copy's title starts the same).
     const row = page
       .getByRole('table', { name: 'Your rule cards' })
