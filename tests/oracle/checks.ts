@@ -14,7 +14,7 @@ import {
   type Voice,
 } from './card';
 import { key, PRECEDENCE, type Plan, type Source } from './plan';
-import { measuredTension } from './tension';
+import { measuredTension, measuredWitek } from './tension';
 
 export interface HitLike {
   readonly beat: number;
@@ -464,16 +464,15 @@ export function checkDrill(plan: Plan, drill: DrillLike): Violation[] {
     }
   }
 
-  // ---- each bar's stored tension against the oracle's own measure (LHL cards) ----
-  if (card.measure === 'lhl')
-    for (const bar of drill.bars) {
-      const mine = measuredTension(plan, bar);
-      if (mine !== bar.tension)
-        out.push({
-          check: 'tension/measured',
-          message: `bar ${bar.bar} stores tension ${bar.tension}; the oracle's Longuet-Higgins & Lee measure gives ${mine}`,
-        });
-    }
+  // ---- each bar's stored tension against the oracle's own measure of the card's kind ----
+  for (const bar of drill.bars) {
+    const mine = card.measure === 'lhl' ? measuredTension(plan, bar) : measuredWitek(plan, bar);
+    if (mine !== bar.tension)
+      out.push({
+        check: 'tension/measured',
+        message: `bar ${bar.bar} stores tension ${bar.tension}; the oracle's ${card.measure === 'lhl' ? 'Longuet-Higgins & Lee' : 'Witek'} measure gives ${mine}`,
+      });
+  }
 
   // ---- tension rank order (the drill's own stored values) ----
   if (plan.targets)

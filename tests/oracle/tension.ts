@@ -13,6 +13,7 @@ import type { BarLike } from './checks';
 import { fillableSlots } from './feasibility';
 import { key, type Plan } from './plan';
 import { barTree, exactRange, lhl, scaled, type TreeNode } from './syncopation';
+import { greatest, STREAM_OF_VOICE, subsetsOf, weightsOf, witek, type Stream } from './witek';
 
 export interface Scale {
   readonly tree: TreeNode;
@@ -45,6 +46,36 @@ export function measuredTension(plan: Plan, bar: BarLike): number {
   for (const h of bar.hits)
     if (h.source !== 'ostinato') onsets[plan.grid.index(1, h.beat, h.slot)] = true;
   return scaled(lhl(tree, onsets), most);
+}
+
+const witekScales = new Map<TreeNode, { weights: number[]; most: number }>();
+
+/**
+ * The bar's tension on the polyphonic measure (docs/tension.md, "Polyphonic syncopation"): the
+ * Witek index of every hit, the ostinato's too, over the greatest index of the bar's grid.
+ */
+export function measuredWitek(plan: Plan, bar: BarLike): number {
+  const { tree } = scaleOf(plan);
+  let s = witekScales.get(tree);
+  if (!s) {
+    const weights = weightsOf(tree);
+    const all = subsetsOf(['low', 'mid', 'high']);
+    s = {
+      weights,
+      most: greatest(
+        weights,
+        weights.map(() => all),
+      ),
+    };
+    witekScales.set(tree, s);
+  }
+  const cells = s.weights.map(() => new Set<Stream>());
+  for (const h of bar.hits) {
+    const stream = STREAM_OF_VOICE[h.voice];
+    if (!stream) throw new Error(`no Witek class for voice ${h.voice}`);
+    cells[plan.grid.index(1, h.beat, h.slot)]!.add(stream);
+  }
+  return scaled(witek(s.weights, cells), s.most);
 }
 
 /** Limbs the fixed notes use at each slot of the drill (each foot voice its own, hands apart). */
