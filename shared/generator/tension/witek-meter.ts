@@ -48,8 +48,9 @@ export function witekMeter(beats: BarGrid, grouping?: readonly number[] | null):
  * 4 decimals. Measured on the bar alone, like `measureTension`; a grid on which nothing can
  * syncopate measures 0.
  *
- * Not wired into the generator: the drill's tension stays `measureTension` unless a card chooses
- * otherwise. Measuring many bars of one grid: use `witekMeter(beats)`, which gives the same values.
+ * A card that chooses `measure: 'witek'` gets its bars' tension from this (through the tension
+ * gauge); `measureTension(bar, grouping, 'witek')` calls it. Measuring many bars of one grid: use
+ * `witekMeter(beats)`, which gives the same values.
  */
 export function measureWitek(bar: DrillBar, grouping?: readonly number[] | null): number {
   return witekMeter(bar.beats, grouping).measure(bar);
