@@ -56,7 +56,8 @@ describe('the engine’s Witek measure against the oracle’s', () => {
 
   it('compares a drill for most runs (the sample is not mostly refusals)', () => {
     expect(drills(presets).length).toBeGreaterThanOrEqual(presets.length * 0.8);
-    expect(drills(randoms).length).toBeGreaterThanOrEqual(Math.min(300, RANDOM_RUNS / 2));
+    // 300 drills at the default 360 cards (313 come back today).
+    expect(drills(randoms).length).toBeGreaterThanOrEqual(Math.round((RANDOM_RUNS * 300) / 360));
   });
 
   it('every preset bar stores the oracle’s Witek tension', () => {
