@@ -9,8 +9,9 @@
  *   which wins there;
  * - a tension curve is varied only when the notes the rules fix repeat bar for bar (then a drill
  *   whose bars all measure alike keeps any rank order, so the card is feasible); otherwise it is
- *   flat (every bar the same target: no order to keep), because the oracle does not measure
- *   tension; on the polyphonic (Witek) measure it is always flat.
+ *   flat (every bar the same target: no order to keep), because the oracle does not reason
+ *   about which tensions a free fill can reach; on the polyphonic (Witek) measure, whose reach
+ *   the oracle does not work out (it only re-measures each bar, witek.ts), it is always flat.
  */
 import fc from 'fast-check';
 import { ALL_VOICES, isHand, readCard, type Voice } from './card';
