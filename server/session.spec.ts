@@ -13,6 +13,7 @@ import {
   SafeSessionStore,
   createSessionStore,
 } from './session';
+import { postgresForTests } from './testing/postgres-scratch';
 import { AGE_SESSIONS, createTestApp, findAccount, type TestApp } from './testing/test-app';
 
 let t: TestApp | undefined;
@@ -24,7 +25,15 @@ afterEach(async () => {
 
 /** Makes every stored session look saved an hour ago, so its next request renews it. */
 async function ageSessions(app: TestApp): Promise<void> {
-  await app.db.raw(AGE_SESSIONS);
+  if (app.db.client.config.client !== 'pg') {
+    await app.db.raw(AGE_SESSIONS);
+    return;
+  }
+  await app.db.raw(
+    "update sessions set sess = jsonb_set(sess::jsonb, '{cookie,expires}', to_jsonb(to_char(" +
+      "(now() at time zone 'utc') - interval '1 hour' + interval '7 days', " +
+      '\'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"\')))::json',
+  );
 }
 
 function sqliteFile(app: TestApp): string {
@@ -73,7 +82,7 @@ describe('session expiry writes', () => {
   });
 });
 
-describe('a session store that fails', () => {
+describe.skipIf(postgresForTests())('a session store that fails', () => {
   it('answers 503 while another process holds the SQLite write lock, and serves again after', async () => {
     t = await createTestApp();
     const agent = await t.signIn('teacher');

@@ -1,6 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { BUILT_IN_PRESETS } from '../../shared/generator/presets/index';
-import { loadConfig } from '../config';
 import { createDb, migrateLatest } from '../db';
 import { createTestApp, type TestApp } from '../testing/test-app';
 import { syncBuiltInPresets } from './sync-built-ins';
@@ -34,8 +33,8 @@ describe('built-in presets in the database', () => {
     expect((await admin.put('/api/presets/kick-off-the-one').send(edit)).status).toBe(200);
     const before = await t.db('presets').orderBy('id');
 
-    // A restart is another process opening the same file: migrate, then sync again.
-    const db = createDb(loadConfig({ DATA_DIR: t.dataDir }));
+    // A restart is another process opening the same database: migrate, then sync again.
+    const db = createDb(t.config);
     try {
       expect(await migrateLatest(db)).toEqual([]);
       expect(await syncBuiltInPresets(db)).toBe(0);

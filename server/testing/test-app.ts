@@ -12,6 +12,7 @@ import type { Role } from '../auth/roles';
 import { SignInLimiter, type SignInLimits } from '../auth/sign-in-limiter';
 import { loadConfig, type Config } from '../config';
 import { createDb, migrateLatest } from '../db';
+import { createScratchDatabase, postgresForTests } from './postgres-scratch';
 import { DEMO_ACCOUNTS, type DemoAccount } from '../demo/seed-demo';
 import { seedDemo } from '../demo/seed-demo';
 import { createLogger, type Logger } from '../logger';
@@ -59,9 +60,13 @@ export const TEST_HASH_COST = '10';
  */
 export async function createTestApp(options: TestAppOptions = {}): Promise<TestApp> {
   const dataDir = await mkdtemp(path.join(os.tmpdir(), 'tensile-test-'));
+  const postgres = postgresForTests();
+  const scratch =
+    postgres && !options.env?.['DATABASE_URL'] ? await createScratchDatabase(postgres) : undefined;
   const config = loadConfig({
     DATA_DIR: dataDir,
     PASSWORD_HASH_COST: TEST_HASH_COST,
+    ...(scratch ? { DATABASE_URL: scratch.url } : {}),
     ...options.env,
   });
   const db = createDb(config);
@@ -114,6 +119,7 @@ export async function createTestApp(options: TestAppOptions = {}): Promise<TestA
       }
       stopSessionStore(sessionStore);
       await db.destroy();
+      await scratch?.drop();
       await rm(dataDir, { recursive: true, force: true });
     },
   };
