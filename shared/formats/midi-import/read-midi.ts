@@ -1,4 +1,5 @@
 import * as tonejs from '@tonejs/midi';
+import { closeOpenNotes } from './close-notes';
 import { MidiImportError } from './errors';
 
 // Node loads the package's CommonJS build (only a default export); bundlers load its ES build.
@@ -184,7 +185,7 @@ export function countNoteOns(data: Uint8Array): number {
 }
 
 /**
- * Reads a Standard MIDI File with `@tonejs/midi`. Throws only `MidiImportError`: the library
+ * Reads a Standard MIDI File with `@tonejs/midi`, hits without note-offs included. Throws only `MidiImportError`: the library
  * throws plain strings (and may throw other errors) on damaged track data, which become a
  * `damaged` refusal carrying its words.
  */
@@ -192,7 +193,7 @@ export function readMidi(bytes: Uint8Array): MidiFileContent {
   const checked = checkChunks(bytes);
   let midi: InstanceType<typeof Midi>;
   try {
-    midi = new Midi(checked);
+    midi = new Midi(closeOpenNotes(checked));
   } catch (error) {
     const why = error instanceof Error ? error.message : String(error);
     throw new MidiImportError(
