@@ -63,6 +63,7 @@ import { createSpaRouter } from './web/spa';
 import { MailService, type Mailer } from './mail/mail-service';
 import { OutboxRepository } from './mail/outbox-repository';
 import { AccountLinksService } from './auth/account-links-service';
+import { MailLimiter } from './auth/mail-limiter';
 import { createInvitationsRouter, createPasswordResetsRouter } from './auth/account-links-router';
 import { AssignmentsService } from './assignments/assignments-service';
 import { createAssignmentsRouter } from './assignments/assignments-router';
@@ -100,6 +101,8 @@ export interface AppDeps {
    * limits read it. Tests pass a fixed one to cross day and week boundaries deterministically.
    */
   readonly now?: () => Date;
+  /** Limits on reset and invitation e-mails; defaults to {@link MailLimiter}'s own. */
+  readonly mailLimiter?: MailLimiter;
 }
 
 /** Largest JSON body accepted; rule cards and drills are far smaller. */
@@ -161,14 +164,24 @@ export function createApp(deps: AppDeps): Express {
   const ruleCards = new RuleCardsRepository(db);
   const drills = new DrillsRepository(db);
   const links = new AccountLinksService(db, passwords, mailer, config.publicUrl, now);
-  app.use('/api/users', answerWrongMethods(createUsersRouter(new UsersService(db, links))));
+  const mailLimiter = deps.mailLimiter ?? new MailLimiter(now);
+  app.use(
+    '/api/users',
+    answerWrongMethods(createUsersRouter(new UsersService(db, links), mailLimiter)),
+  );
   app.use(
     '/api/students',
     answerWrongMethods(createStudentsRouter(new StudentsService(users, new StudioRepository(db)))),
   );
   app.use('/api/invitations', answerWrongMethods(createInvitationsRouter(links)));
-  app.use('/api/password-resets', answerWrongMethods(createPasswordResetsRouter(links)));
-  app.use('/api/studio', answerWrongMethods(createStudioRouter(new StudioService(db, links, now))));
+  app.use(
+    '/api/password-resets',
+    answerWrongMethods(createPasswordResetsRouter(links, mailLimiter)),
+  );
+  app.use(
+    '/api/studio',
+    answerWrongMethods(createStudioRouter(new StudioService(db, links, now), mailLimiter)),
+  );
   app.use(
     '/api/assignments',
     answerWrongMethods(
