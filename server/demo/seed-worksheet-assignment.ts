@@ -53,8 +53,9 @@ export async function seedDemoWorksheetAssignment(
     createdAt: new Date(now.getTime() - 14 * DAY_MS),
     title: sheet.title,
     dueDate: new Date(now.getTime() + 5 * DAY_MS).toISOString().slice(0, 10),
-    startTempo: 64,
-    targetTempo: 84,
+    // The whole sheet's span: best tempo and status are counted per assignment, over its drills.
+    startTempo: Math.min(...drills.map((d) => d.ladder.start)),
+    targetTempo: Math.max(...drills.map((d) => d.ladder.target)),
     note: 'One drill a day, in order; log each one.',
     studentIds: [Number(student.id)],
   });
