@@ -206,6 +206,16 @@ describe('the studio journey', () => {
 
       const log = studentPage.locator('tensile-log-practice');
       await log.getByText('protect your hearing').waitFor();
+      // The tempo played back pre-fills the clean tempo (the trainer raises the same figure while
+      // it plays; headless audio may be blocked, so the tempo field stands in for it here).
+      const playbackTempo = studentPage
+        .getByRole('region', { name: 'Playback' })
+        .getByLabel('Tempo (BPM)', { exact: true });
+      const heard = Math.min(300, Number(await playbackTempo.inputValue()) + 7);
+      await playbackTempo.fill(String(heard));
+      await playbackTempo.press('Tab');
+      const clean = log.getByLabel('Highest clean tempo (BPM)');
+      await expect.poll(() => clean.inputValue(), POLL).toBe(String(heard));
       await log.getByLabel('Minutes').fill('12');
       await log.getByLabel('Highest clean tempo (BPM)').fill('66');
       await log.getByLabel('Note for your teacher').fill('Worksheet drill two');
