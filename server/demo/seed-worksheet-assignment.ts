@@ -60,7 +60,7 @@ export async function seedDemoWorksheetAssignment(
     studentIds: [Number(student.id)],
   });
   const stored = await repo.drills([id]);
-  const logs = [];
+  const logs: Record<string, unknown>[] = [];
   for (let day = 13; day >= 1; day -= 1) {
     if (day % 3 === 0) continue; // a rest day in three
     // Drills in turn, one a practice day.
