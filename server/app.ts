@@ -63,6 +63,7 @@ import { createSpaRouter } from './web/spa';
 import { MailService, type Mailer } from './mail/mail-service';
 import { OutboxRepository } from './mail/outbox-repository';
 import { AccountLinksService } from './auth/account-links-service';
+import { MailLimiter } from './auth/mail-limiter';
 import { createInvitationsRouter, createPasswordResetsRouter } from './auth/account-links-router';
 import { AssignmentsService } from './assignments/assignments-service';
 import { createAssignmentsRouter } from './assignments/assignments-router';
@@ -95,6 +96,13 @@ export interface AppDeps {
   readonly mailer?: Mailer;
   /** Lays out worksheet PDFs; tests inject a slow one to cancel a download midway. */
   readonly renderWorksheetPdf?: WorksheetPdfRoute['render'];
+  /**
+   * The server's clock: practice times, days and weeks (counted in UTC), token expiry and rate
+   * limits read it. Tests pass a fixed one to cross day and week boundaries deterministically.
+   */
+  readonly now?: () => Date;
+  /** Limits on reset and invitation e-mails; defaults to {@link MailLimiter}'s own. */
+  readonly mailLimiter?: MailLimiter;
 }
 
 /** Largest JSON body accepted; rule cards and drills are far smaller. */
@@ -105,6 +113,7 @@ const JSON_BODY_LIMIT = '256kb';
  */
 export function createApp(deps: AppDeps): Express {
   const { config, db } = deps;
+  const now = deps.now ?? (() => new Date());
   const logger = deps.logger ?? createLogger(config.logLevel);
   const users = new UsersRepository(db);
   const passwords = new PasswordHasher(config.passwordHashCost);
@@ -150,26 +159,38 @@ export function createApp(deps: AppDeps): Express {
       }),
     ),
   );
-  const links = new AccountLinksService(db, passwords, mailer, config.publicUrl);
-  app.use('/api/users', answerWrongMethods(createUsersRouter(new UsersService(db, links))));
+  const generate = deps.generateDrill ?? engineGenerator;
+  const presets = new PresetsRepository(db);
+  const ruleCards = new RuleCardsRepository(db);
+  const drills = new DrillsRepository(db);
+  const links = new AccountLinksService(db, passwords, mailer, config.publicUrl, now);
+  const mailLimiter = deps.mailLimiter ?? new MailLimiter(now);
+  app.use(
+    '/api/users',
+    answerWrongMethods(createUsersRouter(new UsersService(db, links), mailLimiter)),
+  );
   app.use(
     '/api/students',
     answerWrongMethods(createStudentsRouter(new StudentsService(users, new StudioRepository(db)))),
   );
   app.use('/api/invitations', answerWrongMethods(createInvitationsRouter(links)));
-  app.use('/api/password-resets', answerWrongMethods(createPasswordResetsRouter(links)));
-  app.use('/api/studio', answerWrongMethods(createStudioRouter(new StudioService(db, links))));
+  app.use(
+    '/api/password-resets',
+    answerWrongMethods(createPasswordResetsRouter(links, mailLimiter)),
+  );
+  app.use(
+    '/api/studio',
+    answerWrongMethods(createStudioRouter(new StudioService(db, links, now), mailLimiter)),
+  );
   app.use(
     '/api/assignments',
     answerWrongMethods(
-      createAssignmentsRouter(new AssignmentsService(db, mailer, config.publicUrl)),
+      createAssignmentsRouter(
+        new AssignmentsService(db, mailer, config.publicUrl, now, { presets, drills, generate }),
+      ),
     ),
   );
-  app.use('/api/practice', answerWrongMethods(createPracticeRouter(new PracticeService(db))));
-  const generate = deps.generateDrill ?? engineGenerator;
-  const presets = new PresetsRepository(db);
-  const ruleCards = new RuleCardsRepository(db);
-  const drills = new DrillsRepository(db);
+  app.use('/api/practice', answerWrongMethods(createPracticeRouter(new PracticeService(db, now))));
   const seedLinks = new SeedLinksService(new SeedLinksRepository(db), drills);
   app.use(
     '/api/presets',

@@ -10,6 +10,7 @@ import { seedDemo } from './demo/seed-demo';
 import { seedDemoAuthoring } from './demo/seed-authoring';
 import { seedDemoStudio } from './demo/seed-studio';
 import { seedDemoWorksheets } from './demo/seed-worksheets';
+import { seedDemoWorksheetAssignment } from './demo/seed-worksheet-assignment';
 import { createLogger, errorFields } from './logger';
 import { syncBuiltInPresets } from './presets/sync-built-ins';
 import { createSessionStore, stopSessionStore } from './session';
@@ -37,6 +38,9 @@ async function main(): Promise<void> {
     if (studio.links > 0) logger.info('Demo studio added', { ...studio });
     const worksheets = await seedDemoWorksheets(db);
     if (worksheets > 0) logger.info('Demo worksheets added', { count: worksheets });
+    if ((await seedDemoWorksheetAssignment(db)) > 0) {
+      logger.info('Demo worksheet assignment added');
+    }
     if (config.production) {
       logger.warn(
         'SEED_DEMO=true in production: the demo accounts and their published passwords work',

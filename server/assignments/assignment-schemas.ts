@@ -25,7 +25,8 @@ export const calendarDate = z
 
 export const createAssignmentBody = z
   .strictObject({
-    drillId: positiveId('drill'),
+    drillId: positiveId('drill').optional(),
+    worksheetId: positiveId('worksheet').optional(),
     studentIds: z
       .array(positiveId('student'), { error: 'Choose at least one student.' })
       .min(1, 'Choose at least one student.')
@@ -34,6 +35,10 @@ export const createAssignmentBody = z
     startTempo: tempo('start tempo'),
     targetTempo: tempo('target tempo'),
     note: z.string().trim().max(2000, 'A note has at most 2000 characters.').default(''),
+  })
+  .refine((body) => (body.drillId === undefined) !== (body.worksheetId === undefined), {
+    message: 'Assign either a saved drill (drillId) or a worksheet (worksheetId).',
+    path: ['drillId'],
   })
   .refine((body) => body.targetTempo >= body.startTempo, {
     message: 'The target tempo is at least the start tempo.',

@@ -1,11 +1,24 @@
 import type { Knex } from 'knex';
 import { countRows, type Page } from '../paging';
+import type { Drill } from '../../shared/generator/index';
 import { isoTime } from '../rows';
+
+interface AssignmentDrillRow {
+  id: number;
+  assignment_id: number;
+  position: number;
+  title: string;
+  drill: string;
+  ladder_start: number;
+  ladder_target: number;
+}
 
 interface AssignmentRow {
   id: number;
   teacher_id: number;
+  kind: string;
   saved_drill_id: number | null;
+  worksheet_id: number | null;
   title: string;
   due_date: string;
   start_tempo: number;
@@ -20,7 +33,10 @@ export interface AssignmentRecord {
   readonly id: number;
   readonly teacherId: number;
   readonly teacherName: string | null;
+  /** A saved drill, or a worksheet whose drills were copied when it was assigned. */
+  readonly kind: AssignmentKind;
   readonly drillId: number | null;
+  readonly worksheetId: number | null;
   readonly title: string;
   readonly dueDate: string;
   readonly startTempo: number;
@@ -29,9 +45,32 @@ export interface AssignmentRecord {
   readonly createdAt: string;
 }
 
+export type AssignmentKind = 'drill' | 'worksheet';
+
+/** One drill of a worksheet assignment, as copied from the worksheet. */
+export interface AssignmentDrillRecord {
+  readonly id: number;
+  readonly assignmentId: number;
+  readonly position: number;
+  readonly title: string;
+  readonly drill: Drill;
+  readonly ladder: { readonly start: number; readonly target: number };
+}
+
+export interface NewAssignmentDrill {
+  readonly title: string;
+  readonly drill: Drill;
+  readonly ladder: { readonly start: number; readonly target: number };
+}
+
 export interface NewAssignment {
   readonly teacherId: number;
-  readonly drillId: number;
+  readonly kind: AssignmentKind;
+  readonly drillId: number | null;
+  readonly worksheetId: number | null;
+  /** The worksheet's drills, in order (empty for a drill assignment). */
+  readonly drills: readonly NewAssignmentDrill[];
+  readonly createdAt: Date;
   readonly title: string;
   readonly dueDate: string;
   readonly startTempo: number;
@@ -56,19 +95,33 @@ export class AssignmentsRepository {
       const [row] = (await trx('assignments')
         .insert({
           teacher_id: input.teacherId,
+          kind: input.kind,
           saved_drill_id: input.drillId,
+          worksheet_id: input.worksheetId,
           title: input.title,
           due_date: input.dueDate,
           start_tempo: input.startTempo,
           target_tempo: input.targetTempo,
           note: input.note,
-          created_at: new Date(),
+          created_at: input.createdAt,
         })
         .returning('id')) as ({ id: number } | number)[];
       const id = typeof row === 'object' ? Number(row.id) : Number(row);
       await trx('assignment_students').insert(
         input.studentIds.map((studentId) => ({ assignment_id: id, student_id: studentId })),
       );
+      if (input.drills.length > 0) {
+        await trx('assignment_drills').insert(
+          input.drills.map((d, position) => ({
+            assignment_id: id,
+            position,
+            title: d.title,
+            drill: JSON.stringify(d.drill),
+            ladder_start: d.ladder.start,
+            ladder_target: d.ladder.target,
+          })),
+        );
+      }
       return id;
     });
   }
@@ -125,6 +178,16 @@ export class AssignmentsRepository {
     return row ? toRecord(row) : undefined;
   }
 
+  /** The drills of these (worksheet) assignments, in worksheet order. */
+  async drills(assignmentIds: readonly number[]): Promise<AssignmentDrillRecord[]> {
+    if (assignmentIds.length === 0) return [];
+    const rows = (await this.db('assignment_drills')
+      .whereIn('assignment_id', assignmentIds)
+      .orderBy('assignment_id')
+      .orderBy('position')) as AssignmentDrillRow[];
+    return rows.map(toDrill);
+  }
+
   async students(assignmentIds: readonly number[]): Promise<AssignedStudent[]> {
     if (assignmentIds.length === 0) return [];
     const rows = (await this.db('assignment_students as s')
@@ -171,12 +234,25 @@ function toRecord(row: AssignmentRow): AssignmentRecord {
     id: Number(row.id),
     teacherId: Number(row.teacher_id),
     teacherName: row.teacher_name ?? null,
+    kind: row.kind === 'worksheet' ? 'worksheet' : 'drill',
     drillId: row.saved_drill_id === null ? null : Number(row.saved_drill_id),
+    worksheetId: row.worksheet_id === null ? null : Number(row.worksheet_id),
     title: row.title,
     dueDate: row.due_date,
     startTempo: Number(row.start_tempo),
     targetTempo: Number(row.target_tempo),
     note: row.note,
     createdAt: isoTime(row.created_at),
+  };
+}
+
+function toDrill(row: AssignmentDrillRow): AssignmentDrillRecord {
+  return {
+    id: Number(row.id),
+    assignmentId: Number(row.assignment_id),
+    position: Number(row.position),
+    title: row.title,
+    drill: JSON.parse(row.drill) as Drill,
+    ladder: { start: Number(row.ladder_start), target: Number(row.ladder_target) },
   };
 }

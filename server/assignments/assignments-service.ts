@@ -8,7 +8,13 @@ import type { Page } from '../paging';
 import { PracticeRepository, type AssignmentProgress } from '../practice/practice-repository';
 import { assignmentStatus, dayOf, type AssignmentStatus } from '../practice/practice-stats';
 import { StudioRepository } from '../studio/studio-repository';
-import { AssignmentsRepository, type AssignmentRecord } from './assignments-repository';
+import { resolveDrillSource, type DrillSourceDeps } from '../exports/drill-source';
+import { WorksheetsRepository } from '../worksheets/worksheets-repository';
+import {
+  AssignmentsRepository,
+  type AssignmentRecord,
+  type NewAssignmentDrill,
+} from './assignments-repository';
 
 /** A student's standing on one assignment. */
 export interface StudentProgress {
@@ -20,9 +26,26 @@ export interface StudentProgress {
   readonly minutes: number;
 }
 
+/** A drill of a worksheet assignment, without the drill itself (for lists). */
+export interface AssignmentDrillSummary {
+  readonly id: number;
+  readonly position: number;
+  readonly title: string;
+  readonly ladder: { readonly start: number; readonly target: number };
+}
+
+/** A drill of a worksheet assignment as its student practises it. */
+export interface StudentAssignmentDrill extends AssignmentDrillSummary {
+  readonly drill: Drill;
+  readonly bestTempo: number | null;
+  readonly logs: number;
+}
+
 /** An assignment as its teacher sees it: every student's standing. */
 export interface TeacherAssignment extends AssignmentRecord {
   readonly students: readonly StudentProgress[];
+  /** A worksheet's drills, in order; empty for a drill assignment. */
+  readonly drills: readonly AssignmentDrillSummary[];
 }
 
 /** An assignment as a student sees it: their own standing only. */
@@ -33,7 +56,8 @@ export interface StudentAssignment extends AssignmentRecord {
 }
 
 export interface NewAssignmentInput {
-  readonly drillId: number;
+  readonly drillId?: number | undefined;
+  readonly worksheetId?: number | undefined;
   readonly studentIds: readonly number[];
   readonly dueDate: string;
   readonly startTempo: number;
@@ -41,13 +65,14 @@ export interface NewAssignmentInput {
   readonly note: string;
 }
 
-/** Assignments: a teacher's saved drill given to students of their studio. */
+/** Assignments: a teacher's saved drill or worksheet given to students of their studio. */
 export class AssignmentsService {
   constructor(
     private readonly db: Knex,
     private readonly mailer: Mailer,
     private readonly publicUrl: string,
     private readonly now: () => Date = () => new Date(),
+    private readonly sources?: DrillSourceDeps,
   ) {}
 
   private get repo(): AssignmentsRepository {
@@ -58,12 +83,7 @@ export class AssignmentsService {
     teacher: PublicUser,
     input: NewAssignmentInput,
   ): Promise<TeacherAssignment & { noticesSent: number }> {
-    const drill = await new DrillsRepository(this.db).find(teacher.id, input.drillId);
-    if (!drill) {
-      throw new HttpError(404, 'not_found', 'No saved drill with this id among yours.', [
-        { path: 'body.drillId', message: 'No saved drill with this id among yours.' },
-      ]);
-    }
+    const material = await this.material(teacher, input);
     const studentIds = [...new Set(input.studentIds)];
     const mine = new Set(
       await new StudioRepository(this.db)
@@ -84,8 +104,8 @@ export class AssignmentsService {
     }
     const id = await this.repo.create({
       teacherId: teacher.id,
-      drillId: drill.id,
-      title: drill.title,
+      ...material,
+      createdAt: this.now(),
       dueDate: input.dueDate,
       startTempo: input.startTempo,
       targetTempo: input.targetTempo,
@@ -97,11 +117,11 @@ export class AssignmentsService {
     const recipients = await this.db('users').whereIn('id', studentIds).select('email', 'name');
     for (const student of recipients as { email: string; name: string }[]) {
       const sent = await this.mailer.trySend(student.email, {
-        subject: `New assignment: ${drill.title}`,
+        subject: `New assignment: ${material.title}`,
         greeting: `Hello ${student.name},`,
         blocks: [
           {
-            text: `${teacher.name} has assigned you "${drill.title}", due ${input.dueDate}. Start at ${input.startTempo} BPM and work up to ${input.targetTempo} BPM.`,
+            text: `${teacher.name} has assigned you "${material.title}", due ${input.dueDate}. Start at ${input.startTempo} BPM and work up to ${input.targetTempo} BPM.`,
           },
           ...(input.note ? [{ text: `Note from ${teacher.name}: ${input.note}` }] : []),
           { link: `${this.publicUrl}/assignments/${id}`, label: 'Open the assignment' },
@@ -110,6 +130,74 @@ export class AssignmentsService {
       if (sent) noticesSent += 1;
     }
     return { ...assignment, noticesSent };
+  }
+
+  /** What is assigned: the teacher's saved drill, or a copy of their worksheet's drills. */
+  private async material(
+    teacher: PublicUser,
+    input: NewAssignmentInput,
+  ): Promise<{
+    kind: 'drill' | 'worksheet';
+    drillId: number | null;
+    worksheetId: number | null;
+    title: string;
+    drills: NewAssignmentDrill[];
+  }> {
+    if (input.worksheetId === undefined) {
+      const drill = await new DrillsRepository(this.db).find(teacher.id, input.drillId!);
+      if (!drill) {
+        throw new HttpError(404, 'not_found', 'No saved drill with this id among yours.', [
+          { path: 'body.drillId', message: 'No saved drill with this id among yours.' },
+        ]);
+      }
+      return {
+        kind: 'drill',
+        drillId: drill.id,
+        worksheetId: null,
+        title: drill.title,
+        drills: [],
+      };
+    }
+    const sheet = await new WorksheetsRepository(this.db).find(teacher.id, input.worksheetId);
+    if (!sheet) {
+      throw new HttpError(404, 'not_found', 'No worksheet with this id among yours.', [
+        { path: 'body.worksheetId', message: 'No worksheet with this id among yours.' },
+      ]);
+    }
+    if (sheet.items.length === 0) {
+      throw new HttpError(409, 'empty_worksheet', 'This worksheet has no drills to assign yet.', [
+        { path: 'body.worksheetId', message: 'This worksheet has no drills to assign yet.' },
+      ]);
+    }
+    if (!this.sources) throw new Error('Worksheet assignments need the drill sources');
+    const drills: NewAssignmentDrill[] = [];
+    for (const [index, item] of sheet.items.entries()) {
+      const resolved = await resolveDrillSource(this.sources, teacher, item.source).catch(
+        (error: unknown) => {
+          if (!(error instanceof HttpError) || error.status !== 404) throw error;
+          throw new HttpError(
+            409,
+            'not_assignable',
+            `Drill ${index + 1} of this worksheet can no longer be opened: its preset has been withdrawn. Take it off the worksheet or choose another.`,
+          );
+        },
+      );
+      drills.push({
+        title:
+          item.source.kind === 'preset'
+            ? `${resolved.title} (seed ${item.source.seed})`
+            : resolved.title,
+        drill: resolved.drill,
+        ladder: { start: item.ladder.start, target: item.ladder.target },
+      });
+    }
+    return {
+      kind: 'worksheet',
+      drillId: null,
+      worksheetId: sheet.id,
+      title: sheet.title,
+      drills,
+    };
   }
 
   async listForTeacher(
@@ -134,19 +222,34 @@ export class AssignmentsService {
     return records.map((record) => this.forStudent(record, studentId, progress));
   }
 
-  /** One of the student's assignments with the drill to practise (its saved snapshot). */
+  /**
+   * One of the student's assignments with what to practise: the drill (its saved snapshot) or,
+   * for a worksheet, each of its drills with the student's best tempo on it.
+   */
   async getForStudent(
     studentId: number,
     id: number,
-  ): Promise<StudentAssignment & { drill: Drill | null }> {
+  ): Promise<
+    StudentAssignment & { drill: Drill | null; drills: readonly StudentAssignmentDrill[] }
+  > {
     const record = await this.repo.findForStudent(studentId, id);
     if (!record) throw assignmentNotFound();
-    const progress = await new PracticeRepository(this.db).progress([id]);
+    const practice = new PracticeRepository(this.db);
+    const progress = await practice.progress([id]);
     const saved =
       record.drillId === null
         ? undefined
         : await new DrillsRepository(this.db).findShared(record.drillId);
-    return { ...this.forStudent(record, studentId, progress), drill: saved?.snapshot ?? null };
+    const perDrill = await practice.drillProgress(id, studentId);
+    const drills = (await this.repo.drills([id])).map(({ assignmentId: _, ...d }) => {
+      const mine = perDrill.find((p) => p.assignmentDrillId === d.id);
+      return { ...d, bestTempo: mine?.bestTempo ?? null, logs: mine?.logs ?? 0 };
+    });
+    return {
+      ...this.forStudent(record, studentId, progress),
+      drill: saved?.snapshot ?? null,
+      drills,
+    };
   }
 
   async remove(teacherId: number, id: number): Promise<void> {
@@ -171,10 +274,14 @@ export class AssignmentsService {
   private async withStudents(records: readonly AssignmentRecord[]): Promise<TeacherAssignment[]> {
     const ids = records.map((r) => r.id);
     const students = await this.repo.students(ids);
+    const drills = await this.repo.drills(ids);
     const progress = await new PracticeRepository(this.db).progress(ids);
     const today = dayOf(this.now());
     return records.map((record) => ({
       ...record,
+      drills: drills
+        .filter((d) => d.assignmentId === record.id)
+        .map((d) => ({ id: d.id, position: d.position, title: d.title, ladder: d.ladder })),
       students: students
         .filter((s) => s.assignmentId === record.id)
         .map((s) => {

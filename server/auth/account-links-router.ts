@@ -3,6 +3,8 @@ import type { z } from 'zod';
 import { validate } from '../validate';
 import { choosePasswordBody, resetRequestBody, tokenParams } from './account-schemas';
 import type { AccountLinksService } from './account-links-service';
+import type { MailLimiter } from './mail-limiter';
+import { addressKey } from './sign-in-limiter';
 import { allowAnyone } from './require-role';
 import type { PublicUser } from './roles';
 
@@ -37,14 +39,20 @@ export function createInvitationsRouter(links: AccountLinksService): Router {
 
 /**
  * `/api/password-resets` (anyone):
- * - `POST /` `{ email }` → 202, the same answer whether or not the address has an account;
+ * - `POST /` `{ email }` → 202, the same answer whether or not the address has an account; 429
+ *   after 3 requests for one address (or 10 from one client) within an hour;
  * - `GET /:token` → `{ reset: { email } }`; 404 / 410 as for invitations;
  * - `POST /:token` `{ password }` → 204; the person then signs in with the new password.
  */
-export function createPasswordResetsRouter(links: AccountLinksService): Router {
+export function createPasswordResetsRouter(
+  links: AccountLinksService,
+  limiter: MailLimiter,
+): Router {
   const router = Router();
   router.post('/', allowAnyone, validate({ body: resetRequestBody }), async (req, res) => {
     const { email } = req.body as z.output<typeof resetRequestBody>;
+    // Counted on the address asked for, account or not, so a 429 reveals nothing either.
+    limiter.take('password_reset', email, addressKey(req.ip), res);
     await links.requestReset(email);
     res.status(202).json({
       message: 'If an account uses this address, a link to choose a new password is on its way.',

@@ -91,6 +91,23 @@ export class AccountLinksService {
     };
   }
 
+  /**
+   * A fresh invitation for an existing (invited or removed) account, replacing its unused ones;
+   * returns the new token, to e-mail through {@link sendInvitation}.
+   */
+  async reissueInvitation(trx: Knex, userId: number, invitedBy: number): Promise<string> {
+    const tokens = new AccountTokensRepository(trx, 'invitations');
+    await tokens.retireAll(userId);
+    const { token, hash } = newLinkToken();
+    await tokens.insert({
+      userId,
+      hash,
+      expiresAt: new Date(this.now().getTime() + INVITATION_TTL_MS),
+      invitedBy,
+    });
+    return token;
+  }
+
   /** E-mails the invitation link; a failure is the caller's 502. */
   async sendInvitation(user: PublicUser, token: string, inviterName: string): Promise<void> {
     try {

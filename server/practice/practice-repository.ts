@@ -6,6 +6,7 @@ interface LogRow {
   id: number;
   student_id: number;
   assignment_id: number | null;
+  assignment_drill_id: number | null;
   minutes: number;
   tempo: number;
   rating: number;
@@ -20,6 +21,8 @@ export interface PracticeLog {
   readonly studentId: number;
   readonly assignmentId: number | null;
   readonly assignmentTitle: string | null;
+  /** For a worksheet assignment, which of its drills was practised. */
+  readonly assignmentDrillId: number | null;
   readonly minutes: number;
   readonly tempo: number;
   readonly rating: number;
@@ -30,6 +33,7 @@ export interface PracticeLog {
 export interface NewPracticeLog {
   readonly studentId: number;
   readonly assignmentId: number | null;
+  readonly assignmentDrillId: number | null;
   readonly minutes: number;
   readonly tempo: number;
   readonly rating: number;
@@ -55,6 +59,7 @@ export class PracticeRepository {
       .insert({
         student_id: log.studentId,
         assignment_id: log.assignmentId,
+        assignment_drill_id: log.assignmentDrillId,
         minutes: log.minutes,
         tempo: log.tempo,
         rating: log.rating,
@@ -129,6 +134,29 @@ export class PracticeRepository {
     }));
   }
 
+  /** Best tempo and count of one student's logs per drill of a worksheet assignment. */
+  async drillProgress(
+    assignmentId: number,
+    studentId: number,
+  ): Promise<{ assignmentDrillId: number; bestTempo: number; logs: number }[]> {
+    const rows = (await this.db('practice_logs')
+      .where({ assignment_id: assignmentId, student_id: studentId })
+      .whereNotNull('assignment_drill_id')
+      .groupBy('assignment_drill_id')
+      .select('assignment_drill_id')
+      .max({ best: 'tempo' })
+      .count({ logs: '*' })) as {
+      assignment_drill_id: number;
+      best: number;
+      logs: number | string;
+    }[];
+    return rows.map((row) => ({
+      assignmentDrillId: Number(row.assignment_drill_id),
+      bestTempo: Number(row.best),
+      logs: Number(row.logs),
+    }));
+  }
+
   /** The days (as stored moments) a student practised since `since`. */
   async momentsSince(studentId: number, since: Date): Promise<string[]> {
     const rows = (await this.db('practice_logs')
@@ -145,6 +173,7 @@ function toLog(row: LogRow): PracticeLog {
     studentId: Number(row.student_id),
     assignmentId: row.assignment_id === null ? null : Number(row.assignment_id),
     assignmentTitle: row.assignment_title ?? null,
+    assignmentDrillId: row.assignment_drill_id === null ? null : Number(row.assignment_drill_id),
     minutes: Number(row.minutes),
     tempo: Number(row.tempo),
     rating: Number(row.rating),

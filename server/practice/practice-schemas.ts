@@ -15,6 +15,12 @@ export const logPracticeBody = z.strictObject({
     .min(1, 'The assignment id is a positive number.')
     .nullable()
     .default(null),
+  assignmentDrillId: z
+    .number({ error: 'The worksheet drill id is a number.' })
+    .int('The worksheet drill id is a whole number.')
+    .min(1, 'The worksheet drill id is a positive number.')
+    .nullable()
+    .default(null),
   minutes: z
     .number({ error: 'Give the minutes you practised.' })
     .int('Minutes are a whole number.')

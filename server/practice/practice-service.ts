@@ -9,6 +9,8 @@ import { minutesPerWeek } from './practice-stats';
 
 export interface LogInput {
   readonly assignmentId: number | null;
+  /** Which drill of a worksheet assignment; required for those, refused for others. */
+  readonly assignmentDrillId: number | null;
   readonly minutes: number;
   readonly tempo: number;
   readonly rating: number;
@@ -41,15 +43,33 @@ export class PracticeService {
   }
 
   async log(student: PublicUser, input: LogInput): Promise<PracticeLog> {
-    if (input.assignmentId !== null) {
-      const assignment = await new AssignmentsRepository(this.db).findForStudent(
-        student.id,
-        input.assignmentId,
-      );
+    if (input.assignmentId === null) {
+      if (input.assignmentDrillId !== null) {
+        throw invalidField('body.assignmentDrillId', 'A worksheet drill needs its assignment id.');
+      }
+    } else {
+      const assignments = new AssignmentsRepository(this.db);
+      const assignment = await assignments.findForStudent(student.id, input.assignmentId);
       if (!assignment) {
         throw new HttpError(404, 'not_found', 'No assignment with this id.', [
           { path: 'body.assignmentId', message: 'No assignment with this id.' },
         ]);
+      }
+      if (assignment.kind === 'worksheet') {
+        if (input.assignmentDrillId === null) {
+          throw invalidField(
+            'body.assignmentDrillId',
+            'Say which drill of the worksheet you practised.',
+          );
+        }
+        const drills = await assignments.drills([assignment.id]);
+        if (!drills.some((d) => d.id === input.assignmentDrillId)) {
+          throw new HttpError(404, 'not_found', 'No drill with this id in the assignment.', [
+            { path: 'body.assignmentDrillId', message: 'No drill with this id in the assignment.' },
+          ]);
+        }
+      } else if (input.assignmentDrillId !== null) {
+        throw invalidField('body.assignmentDrillId', 'This assignment is a single drill.');
       }
     }
     const id = await this.logs.insert({ ...input, studentId: student.id, practisedAt: this.now() });
@@ -140,4 +160,8 @@ export class PracticeService {
     if (viewer.role === 'student') return viewer.id === studentId;
     return new StudioRepository(this.db).has(viewer.id, studentId, true);
   }
+}
+
+function invalidField(path: string, message: string): HttpError {
+  return new HttpError(400, 'validation_failed', message, [{ path, message }]);
 }

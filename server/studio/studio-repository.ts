@@ -37,6 +37,21 @@ export class StudioRepository {
     });
   }
 
+  /** Brings a removed student back: the same link, so their history is still theirs. */
+  async restore(teacherId: number, studentId: number): Promise<void> {
+    await this.db('studio_students')
+      .where({ teacher_id: teacherId, student_id: studentId })
+      .update({ removed_at: null });
+  }
+
+  /** The link between this teacher and student, current or removed. */
+  async linkOf(teacherId: number, studentId: number): Promise<{ removed: boolean } | undefined> {
+    const row = (await this.db('studio_students')
+      .where({ teacher_id: teacherId, student_id: studentId })
+      .first()) as { removed_at: unknown } | undefined;
+    return row ? { removed: row.removed_at !== null } : undefined;
+  }
+
   /** Marks the link removed; returns false when the teacher has no such (current) student. */
   async remove(teacherId: number, studentId: number): Promise<boolean> {
     const changed = await this.db('studio_students')

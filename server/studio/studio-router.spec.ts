@@ -68,7 +68,7 @@ describe('inviting a student (POST /api/studio/students)', () => {
     expect(paths).toEqual(['body', 'body.email', 'body.name']);
   });
 
-  it('answers 409 when the address already has an account', async () => {
+  it('answers 409 email_taken when the address is an account outside the studio', async () => {
     const { res } = await invite(TOMASZ, 'Juno again', 'juno.marsh@larkspur.test');
     expect(res.status).toBe(409);
     expect(res.body.error.code).toBe('email_taken');

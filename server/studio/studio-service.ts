@@ -2,9 +2,9 @@ import type { Knex } from 'knex';
 import type { AccountLinksService } from '../auth/account-links-service';
 import type { PublicUser } from '../auth/roles';
 import { AccountTokensRepository } from '../auth/account-tokens-repository';
-import { UsersRepository } from '../auth/users-repository';
+import { UsersRepository, toPublicUser, type UserRow } from '../auth/users-repository';
 import { AssignmentsRepository } from '../assignments/assignments-repository';
-import { notFound } from '../http-error';
+import { HttpError, notFound } from '../http-error';
 import { PracticeRepository } from '../practice/practice-repository';
 import { dayOf, practiceStreak } from '../practice/practice-stats';
 import { StudioRepository } from './studio-repository';
@@ -26,6 +26,13 @@ export interface RosterEntry {
   /** Days in a row with practice, up to today (or yesterday). */
   readonly streak: number;
 }
+
+/** What inviting did: a new account, a pending invitation sent again, a removed student back. */
+export type InviteOutcome = 'invited' | 'resent' | 'rejoined';
+
+const EMAIL_TAKEN =
+  'This e-mail address belongs to someone else’s account. Ask them for another address, or ask an admin.';
+const ALREADY_HERE = 'This student is already in your studio.';
 
 /** Days of logs read back for streaks: a longer streak shows as this many. */
 const STREAK_WINDOW_DAYS = 366;
@@ -73,11 +80,23 @@ export class StudioService {
     return entries;
   }
 
-  /** Creates the student's account and invitation in the teacher's studio, then e-mails it. */
+  /**
+   * Invites a student by e-mail. A new address gets an account and an invitation. An address
+   * already in this studio is invited again: a pending invitation is resent, a removed student
+   * rejoins with their history (a fresh invitation when their sign-in was disabled). Any other
+   * account answers 409 `email_taken`; a current student 409 `already_in_studio`. Resends are
+   * rate limited through `limit` (called with the address before anything is sent).
+   */
   async invite(
     teacher: PublicUser,
     invitee: { name: string; email: string },
-  ): Promise<RosterEntry> {
+    limit: (email: string) => void = () => undefined,
+  ): Promise<{ student: RosterEntry; outcome: InviteOutcome }> {
+    const existing = await new UsersRepository(this.db).findByEmail(invitee.email);
+    if (existing) {
+      const outcome = await this.inviteAgain(teacher, existing, limit);
+      return { student: await this.entry(teacher.id, existing.id), outcome };
+    }
     const { user, token } = await this.db.transaction(async (trx) => {
       const created = await this.links.createInvitation(
         trx,
@@ -88,7 +107,65 @@ export class StudioService {
       return created;
     });
     await this.links.sendInvitation(user, token, teacher.name);
-    const entry = (await this.roster(teacher.id)).find((e) => e.id === user.id);
+    return { student: await this.entry(teacher.id, user.id), outcome: 'invited' };
+  }
+
+  /** Resends a pending invitation of a student in the studio (rate limited through `limit`). */
+  async resend(
+    teacher: PublicUser,
+    studentId: number,
+    limit: (email: string) => void = () => undefined,
+  ): Promise<RosterEntry> {
+    const user = await new UsersRepository(this.db).findById(studentId);
+    const link = await new StudioRepository(this.db).linkOf(teacher.id, studentId);
+    if (!user || !link) throw studentNotFound();
+    if (link.removed || user.disabled_at === null) {
+      throw new HttpError(
+        409,
+        'not_pending',
+        link.removed
+          ? 'This student was removed: invite them again from the invitation form.'
+          : 'This student has already joined; there is no invitation to resend.',
+      );
+    }
+    await this.inviteAgain(teacher, user, limit);
+    return this.entry(teacher.id, studentId);
+  }
+
+  private async inviteAgain(
+    teacher: PublicUser,
+    user: UserRow,
+    limit: (email: string) => void,
+  ): Promise<InviteOutcome> {
+    const link =
+      user.role === 'student'
+        ? await new StudioRepository(this.db).linkOf(teacher.id, user.id)
+        : undefined;
+    if (!link) {
+      throw new HttpError(409, 'email_taken', EMAIL_TAKEN, [
+        { path: 'body.email', message: EMAIL_TAKEN },
+      ]);
+    }
+    const pending = !link.removed && user.disabled_at !== null;
+    if (!link.removed && !pending) {
+      throw new HttpError(409, 'already_in_studio', ALREADY_HERE, [
+        { path: 'body.email', message: ALREADY_HERE },
+      ]);
+    }
+    limit(user.email);
+    const token = await this.db.transaction(async (trx) => {
+      if (link.removed) await new StudioRepository(trx).restore(teacher.id, user.id);
+      // A student still taught elsewhere keeps signing in as before: no new password needed.
+      if (user.disabled_at === null) return null;
+      return this.links.reissueInvitation(trx, user.id, teacher.id);
+    });
+    const student = toPublicUser(user);
+    if (token !== null) await this.links.sendInvitation(student, token, teacher.name);
+    return pending ? 'resent' : 'rejoined';
+  }
+
+  private async entry(teacherId: number, studentId: number): Promise<RosterEntry> {
+    const entry = (await this.roster(teacherId)).find((e) => e.id === studentId);
     if (!entry) throw new Error('An invited student is missing from the roster');
     return entry;
   }

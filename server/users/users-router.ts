@@ -5,6 +5,8 @@ import { requireRole } from '../auth/require-role';
 import { ROLES } from '../auth/roles';
 import { idOf, idParams } from '../rule-cards/rule-cards-router';
 import { validate } from '../validate';
+import type { MailLimiter } from '../auth/mail-limiter';
+import { addressKey } from '../auth/sign-in-limiter';
 import type { UsersService } from './users-service';
 
 const inviteTeacherBody = z.strictObject({ name: personNameSchema, email: emailSchema });
@@ -23,9 +25,10 @@ const updateUserBody = z
  *   deactivated);
  * - `POST /` `{ name, email }` → 201 `{ user }`: a teacher, invited by e-mail;
  * - `PATCH /:id` `{ role?, active? }` → `{ user }`; 409 `last_admin`;
- * - `POST /:id/password-reset` → 202, a reset link e-mailed.
+ * - `POST /:id/password-reset` → 202, a reset link e-mailed; 429 under the same limits as the
+ *   public reset form (the two count together per address).
  */
-export function createUsersRouter(users: UsersService): Router {
+export function createUsersRouter(users: UsersService, limiter: MailLimiter): Router {
   const router = Router();
   const admin = requireRole('admin');
   router.get('/', admin, async (_req, res) => {
@@ -45,7 +48,9 @@ export function createUsersRouter(users: UsersService): Router {
     },
   );
   router.post('/:id/password-reset', admin, validate({ params: idParams }), async (req, res) => {
-    await users.sendReset(idOf(req.params));
+    await users.sendReset(idOf(req.params), (email) =>
+      limiter.take('password_reset', email, addressKey(req.ip), res),
+    );
     res.status(202).json({ message: 'A reset link is on its way.' });
   });
   return router;

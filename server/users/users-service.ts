@@ -97,13 +97,14 @@ export class UsersService {
     return this.view(id);
   }
 
-  /** E-mails a password reset link to an active account. */
-  async sendReset(id: number): Promise<void> {
+  /** E-mails a password reset link to an active account; `limit` may refuse it (429). */
+  async sendReset(id: number, limit: (email: string) => void = () => undefined): Promise<void> {
     const user = await new UsersRepository(this.db).findById(id);
     if (!user) throw notFound('No user with this id.');
     if (user.disabled_at !== null) {
       throw new HttpError(409, 'user_inactive', 'This account is not active: reactivate it first.');
     }
+    limit(user.email);
     await this.links.sendReset(toPublicUser(user));
   }
 

@@ -2,7 +2,10 @@
  * The studio from a fresh database, in a real browser: a teacher invites a student; the student
  * follows the e-mailed link (read from the admin's outbox), chooses a password, finds the
  * assignment, drills it with playback and logs practice twice; the teacher sees both logs and the
- * chart; the admin has a teacher's password reset by e-mail and the teacher signs in with it.
+ * chart; the teacher also assigns a worksheet, the student logs practice on one of its drills
+ * from that drill's page, and the teacher sees it; an address of someone else's account is
+ * refused in words under the e-mail field; the admin has a teacher's password reset by e-mail and
+ * the teacher signs in with it.
  */
 import type { Browser, BrowserContext, Locator, Page } from 'playwright-core';
 import { afterAll, describe, expect, it } from 'vitest';
@@ -168,6 +171,83 @@ describe('the studio journey', () => {
   );
 
   it(
+    'the teacher assigns a worksheet to the new student',
+    async () => {
+      await teacherPage.goto(`${suite.server.url}/studio`);
+      const form = teacherPage.locator('tensile-assign-form form');
+      await form
+        .getByRole('radio', { name: 'A worksheet' })
+        .or(form.getByRole('button', { name: 'A worksheet' }))
+        .click();
+      await pick(teacherPage, form.getByRole('combobox', { name: 'Worksheet' }), /Juno, week 3/);
+      await pick(teacherPage, form.getByRole('combobox', { name: 'Students' }), /^Pim Osei$/);
+      await form.getByLabel('Start tempo (BPM)').fill('60');
+      await form.getByLabel('Target tempo (BPM)').fill('132');
+      await form.getByRole('button', { name: 'Assign' }).click();
+      await form.getByRole('status').filter({ hasText: 'Juno, week 3' }).waitFor();
+    },
+    STEP_TIMEOUT_MS,
+  );
+
+  it(
+    'the student opens the worksheet, picks its second drill and logs practice on it',
+    async () => {
+      await studentPage.goto(`${suite.server.url}/assignments`);
+      const row = studentPage.getByRole('row').filter({ hasText: 'Juno, week 3' });
+      await row.getByRole('link').click();
+      const sheet = studentPage.getByRole('navigation', { name: 'Drills of this worksheet' });
+      const second = sheet.getByRole('listitem').nth(1);
+      await second.getByRole('link').click();
+      await studentPage.waitForURL((url) => /^\d+$/.test(url.searchParams.get('drill') ?? ''));
+      await expect
+        .poll(() => second.getByRole('link').getAttribute('aria-current'), POLL)
+        .toBe('true');
+      await studentPage.locator('tensile-drill-score svg').first().waitFor();
+
+      const log = studentPage.locator('tensile-log-practice');
+      await log.getByText('protect your hearing').waitFor();
+      // The tempo played back pre-fills the clean tempo (the trainer raises the same figure while
+      // it plays; headless audio may be blocked, so the tempo field stands in for it here).
+      const playbackTempo = studentPage
+        .getByRole('region', { name: 'Playback' })
+        .getByLabel('Tempo (BPM)', { exact: true });
+      const heard = Math.min(300, Number(await playbackTempo.inputValue()) + 7);
+      await playbackTempo.fill(String(heard));
+      await playbackTempo.press('Tab');
+      const clean = log.getByLabel('Highest clean tempo (BPM)');
+      await expect.poll(() => clean.inputValue(), POLL).toBe(String(heard));
+      await log.getByLabel('Minutes').fill('12');
+      await log.getByLabel('Highest clean tempo (BPM)').fill('66');
+      await log.getByLabel('Note for your teacher').fill('Worksheet drill two');
+      await log.getByRole('button', { name: 'Log practice' }).click();
+      await log.getByRole('status').filter({ hasText: 'Logged 12 minutes at 66 BPM.' }).waitFor();
+      // The snackbar confirms it too, and the drill's line counts the log.
+      await studentPage
+        .locator('mat-snack-bar-container')
+        .filter({ hasText: 'Well played' })
+        .waitFor();
+      await expect.poll(() => second.innerText(), POLL).toMatch(/your best 66 BPM · 1 log/);
+      await expect
+        .poll(() => sheet.getByRole('listitem').first().innerText(), POLL)
+        .toMatch(/0 logs/);
+    },
+    STEP_TIMEOUT_MS,
+  );
+
+  it(
+    'an address of someone else’s account is refused in words under the e-mail field',
+    async () => {
+      await teacherPage.goto(`${suite.server.url}/studio`);
+      const invite = teacherPage.locator('form.invite');
+      await invite.getByLabel('Name').fill('Someone Else');
+      await invite.getByLabel('E-mail').fill(OTHER_TEACHER.email);
+      await invite.getByRole('button', { name: 'Send invitation' }).click();
+      await invite.locator('mat-error').filter({ hasText: 'someone else’s account' }).waitFor();
+    },
+    STEP_TIMEOUT_MS,
+  );
+
+  it(
     'the teacher sees both logs in the progress table and the chart',
     async () => {
       await teacherPage.goto(`${suite.server.url}/studio`);
@@ -176,6 +256,9 @@ describe('the studio journey', () => {
       const table = teacherPage.getByRole('table', { name: 'Practice history' });
       await expect.poll(() => table.innerText(), POLL).toMatch(/82 BPM[\s\S]*70 BPM/);
       expect(await table.innerText()).toContain('Session at 70');
+      await expect
+        .poll(() => table.innerText(), POLL)
+        .toMatch(/Juno, week 3[\s\S]*Worksheet drill two/);
       const charts = teacherPage.locator('tensile-progress-chart canvas');
       await expect.poll(() => charts.count(), POLL).toBe(2);
       const size = await charts.first().boundingBox();

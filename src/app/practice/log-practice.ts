@@ -13,6 +13,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
+import { MatSnackBar } from '@angular/material/snack-bar';
 import { apiErrorMessage } from '../core/api-error-message';
 import { PracticeApi, type PracticeLog } from './practice-api';
 
@@ -35,11 +36,14 @@ import { PracticeApi, type PracticeLog } from './practice-api';
 })
 export class LogPractice {
   readonly assignmentId = input<number | null>(null);
+  /** For a worksheet assignment, the drill of it being practised. */
+  readonly assignmentDrillId = input<number | null>(null);
   /** The tempo heard in playback; pre-fills the clean tempo while the field is untouched. */
   readonly suggestedTempo = input<number | null>(null);
   readonly logged = output<PracticeLog>();
 
   private readonly api = inject(PracticeApi);
+  private readonly snackBar = inject(MatSnackBar);
   protected readonly ratings = [1, 2, 3, 4, 5] as const;
   protected readonly form = inject(FormBuilder).group({
     minutes: [20 as number | null, [Validators.required, Validators.min(1), Validators.max(600)]],
@@ -74,6 +78,7 @@ export class LogPractice {
     this.api
       .log({
         assignmentId: this.assignmentId(),
+        assignmentDrillId: this.assignmentDrillId(),
         minutes: Number(value.minutes),
         tempo: Number(value.tempo),
         rating: Number(value.rating),
@@ -82,7 +87,9 @@ export class LogPractice {
       .subscribe({
         next: (log) => {
           this.pending.set(false);
-          this.saved.set(`Logged ${log.minutes} minutes at ${log.tempo} BPM.`);
+          const message = `Logged ${log.minutes} minutes at ${log.tempo} BPM.`;
+          this.saved.set(message);
+          this.snackBar.open(`${message} Well played!`, 'OK', { duration: 5000 });
           this.form.controls.note.reset('');
           this.logged.emit(log);
         },

@@ -16,6 +16,7 @@ export const STATUS_LABEL: Readonly<Record<AssignmentStatus, string>> = {
 /** An assignment as its student sees it. */
 export interface MyAssignment {
   readonly id: number;
+  readonly kind: 'drill' | 'worksheet';
   readonly title: string;
   readonly teacherName: string | null;
   readonly dueDate: string;
@@ -27,12 +28,30 @@ export interface MyAssignment {
   readonly logs: number;
 }
 
+/** One drill of a worksheet assignment, with the student's best tempo on it. */
+export interface MyAssignmentDrill {
+  readonly id: number;
+  readonly position: number;
+  readonly title: string;
+  readonly drill: Drill;
+  readonly ladder: { readonly start: number; readonly target: number };
+  readonly bestTempo: number | null;
+  readonly logs: number;
+}
+
+/** An assignment with what to practise: its drill, or a worksheet's drills. */
+export type MyAssignmentDetail = MyAssignment & {
+  readonly drill: Drill | null;
+  readonly drills: readonly MyAssignmentDrill[];
+};
+
 /** One logged practice session. */
 export interface PracticeLog {
   readonly id: number;
   readonly studentId: number;
   readonly assignmentId: number | null;
   readonly assignmentTitle: string | null;
+  readonly assignmentDrillId: number | null;
   readonly minutes: number;
   readonly tempo: number;
   readonly rating: number;
@@ -42,6 +61,8 @@ export interface PracticeLog {
 
 export interface NewPracticeLog {
   readonly assignmentId: number | null;
+  /** Which drill of a worksheet assignment was practised. */
+  readonly assignmentDrillId: number | null;
   readonly minutes: number;
   readonly tempo: number;
   readonly rating: number;
@@ -77,10 +98,10 @@ export class PracticeApi {
       .pipe(map((body) => body.assignments));
   }
 
-  myAssignment(id: string): Observable<MyAssignment & { drill: Drill | null }> {
+  myAssignment(id: string): Observable<MyAssignmentDetail> {
     return this.http
       .get<{
-        assignment: MyAssignment & { drill: Drill | null };
+        assignment: MyAssignmentDetail;
       }>(`/api/assignments/${encodeURIComponent(id)}`)
       .pipe(map((body) => body.assignment));
   }

@@ -27,7 +27,9 @@ const POINTS = ['circle', 'rect', 'triangle', 'rectRot', 'star'] as const;
         </div>
       </figure>
       <figure>
-        <figcaption>Minutes practised per week (weeks start on Monday)</figcaption>
+        <figcaption>
+          Minutes practised per week (weeks start Monday 00:00 UTC; days are UTC days)
+        </figcaption>
         <div class="frame">
           <canvas baseChart type="bar" [data]="minutesData()" [options]="barOptions"></canvas>
         </div>

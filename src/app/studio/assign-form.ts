@@ -1,6 +1,8 @@
 import { ChangeDetectionStrategy, Component, inject, input, output, signal } from '@angular/core';
+import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { FormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
+import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
@@ -13,12 +15,13 @@ function inAWeek(): string {
   return new Date(Date.now() + 7 * 86_400_000).toISOString().slice(0, 10);
 }
 
-/** Assign one of the teacher's saved drills to some of their students. */
+/** Assign one of the teacher's saved drills or worksheets to some of their students. */
 @Component({
   selector: 'tensile-assign-form',
   imports: [
     ReactiveFormsModule,
     MatButtonModule,
+    MatButtonToggleModule,
     MatFormFieldModule,
     MatInputModule,
     MatSelectModule,
@@ -51,8 +54,11 @@ export class AssignForm {
 
   private readonly api = inject(StudioApi);
   protected readonly drills = loadStateSignal(this.api.drills());
+  protected readonly worksheets = loadStateSignal(this.api.worksheets());
   protected readonly form = inject(FormBuilder).group({
+    kind: ['drill' as 'drill' | 'worksheet'],
     drillId: [null as number | null, Validators.required],
+    worksheetId: [{ value: null as number | null, disabled: true }, Validators.required],
     studentIds: [[] as number[], Validators.required],
     dueDate: [inAWeek(), Validators.required],
     startTempo: [60, [Validators.required, Validators.min(20), Validators.max(300)]],
@@ -62,6 +68,18 @@ export class AssignForm {
   protected readonly pending = signal(false);
   protected readonly failure = signal<string | null>(null);
   protected readonly done = signal<string | null>(null);
+
+  constructor() {
+    // Only the chosen kind's picker is enabled, so only it is required.
+    this.form.controls.kind.valueChanges.pipe(takeUntilDestroyed()).subscribe((kind) => {
+      const [on, off] =
+        kind === 'worksheet'
+          ? [this.form.controls.worksheetId, this.form.controls.drillId]
+          : [this.form.controls.drillId, this.form.controls.worksheetId];
+      on.enable();
+      off.disable();
+    });
+  }
 
   protected assign(): void {
     if (this.pending()) return;
@@ -74,7 +92,9 @@ export class AssignForm {
     this.failure.set(null);
     this.api
       .assign({
-        drillId: Number(value.drillId),
+        ...(value.kind === 'worksheet'
+          ? { worksheetId: Number(value.worksheetId) }
+          : { drillId: Number(value.drillId) }),
         studentIds: value.studentIds ?? [],
         dueDate: value.dueDate ?? '',
         startTempo: Number(value.startTempo),
@@ -92,7 +112,7 @@ export class AssignForm {
         },
         error: (error: unknown) => {
           this.pending.set(false);
-          this.failure.set(apiErrorMessage(error, 'The drill could not be assigned.'));
+          this.failure.set(apiErrorMessage(error, 'It could not be assigned.'));
         },
       });
   }

@@ -25,9 +25,19 @@ export interface StudentStanding {
   readonly minutes: number;
 }
 
+/** A drill of a worksheet assignment (copied from the worksheet when assigned). */
+export interface AssignmentDrillSummary {
+  readonly id: number;
+  readonly position: number;
+  readonly title: string;
+  readonly ladder: { readonly start: number; readonly target: number };
+}
 export interface TeacherAssignment {
   readonly id: number;
+  readonly kind: 'drill' | 'worksheet';
   readonly drillId: number | null;
+  readonly worksheetId: number | null;
+  readonly drills: readonly AssignmentDrillSummary[];
   readonly title: string;
   readonly dueDate: string;
   readonly startTempo: number;
@@ -37,7 +47,9 @@ export interface TeacherAssignment {
 }
 
 export interface NewAssignment {
-  readonly drillId: number;
+  /** Exactly one of a saved drill and a worksheet. */
+  readonly drillId?: number;
+  readonly worksheetId?: number;
   readonly studentIds: readonly number[];
   readonly dueDate: string;
   readonly startTempo: number;
@@ -45,7 +57,12 @@ export interface NewAssignment {
   readonly note: string;
 }
 
-/** A saved drill to pick when assigning. */
+/** What inviting did. */
+export interface InviteResult {
+  readonly student: RosterStudent;
+  readonly outcome: 'invited' | 'resent' | 'rejoined';
+}
+/** A saved drill or worksheet to pick when assigning. */
 export interface DrillChoice {
   readonly id: number;
   readonly title: string;
@@ -62,9 +79,13 @@ export class StudioApi {
       .pipe(map((body) => body.students));
   }
 
-  invite(name: string, email: string): Observable<RosterStudent> {
+  /** Invites a new address, resends a pending invitation or brings a removed student back. */
+  invite(name: string, email: string): Observable<InviteResult> {
+    return this.http.post<InviteResult>('/api/studio/students', { name, email });
+  }
+  resendInvitation(id: number): Observable<RosterStudent> {
     return this.http
-      .post<{ student: RosterStudent }>('/api/studio/students', { name, email })
+      .post<{ student: RosterStudent }>(`/api/studio/students/${id}/invitation`, {})
       .pipe(map((body) => body.student));
   }
 
@@ -98,6 +119,13 @@ export class StudioApi {
   drills(): Observable<readonly DrillChoice[]> {
     return this.http
       .get<{ items: readonly DrillChoice[] }>('/api/drills?pageSize=100&sort=title')
+      .pipe(map((body) => body.items));
+  }
+  worksheets(): Observable<readonly (DrillChoice & { itemCount: number })[]> {
+    return this.http
+      .get<{
+        items: readonly (DrillChoice & { itemCount: number })[];
+      }>('/api/worksheets?pageSize=100&sort=title&direction=asc')
       .pipe(map((body) => body.items));
   }
 }

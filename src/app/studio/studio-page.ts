@@ -1,4 +1,5 @@
 import { DatePipe } from '@angular/common';
+import { HttpErrorResponse } from '@angular/common/http';
 import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { FormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
@@ -15,7 +16,22 @@ import { toLoadState, type LoadState } from '../core/load-state';
 import { STATUS_LABEL } from '../practice/practice-api';
 import { confirmAction } from '../ui/confirm-dialog';
 import { AssignForm } from './assign-form';
-import { StudioApi, type RosterStudent, type TeacherAssignment } from './studio-api';
+import {
+  StudioApi,
+  type InviteResult,
+  type RosterStudent,
+  type TeacherAssignment,
+} from './studio-api';
+
+const INVITE_MESSAGE: Record<InviteResult['outcome'], (s: RosterStudent) => string> = {
+  invited: (s) => `Invitation sent to ${s.name} (${s.email}).`,
+  resent: (s) =>
+    `Invitation sent again to ${s.name} (${s.email}); the earlier link no longer works.`,
+  rejoined: (s) =>
+    s.status === 'invited'
+      ? `${s.name} is back in your studio, with their history. A new invitation is on its way to ${s.email}.`
+      : `${s.name} is back in your studio, with their history.`,
+};
 
 /** `/studio`: the teacher's roster, invitations, and assignments with each student's status. */
 @Component({
@@ -68,6 +84,8 @@ export class StudioPage {
     email: ['', [Validators.required, Validators.email, Validators.maxLength(254)]],
   });
   protected readonly inviting = signal(false);
+  /** The server's words when the address is taken, shown under the e-mail field. */
+  protected readonly emailTaken = signal<string | null>(null);
   protected readonly message = signal<string | null>(null);
   protected readonly failure = signal<string | null>(null);
 
@@ -81,16 +99,48 @@ export class StudioPage {
     this.inviting.set(true);
     this.failure.set(null);
     this.api.invite(name.trim(), email.trim()).subscribe({
-      next: (student) => {
+      next: ({ student, outcome }) => {
         this.inviting.set(false);
         this.inviteForm.reset();
-        this.message.set(`Invitation sent to ${student.name} (${student.email}).`);
+        this.message.set(INVITE_MESSAGE[outcome](student));
         this.reload();
       },
       error: (error: unknown) => {
         this.inviting.set(false);
-        this.failure.set(apiErrorMessage(error, 'The invitation could not be sent.'));
+        const text = apiErrorMessage(error, 'The invitation could not be sent.');
+        // An address already in use is a fault of the e-mail field: say so beside it.
+        if (error instanceof HttpErrorResponse && error.status === 409) {
+          this.emailTaken.set(text);
+          this.inviteForm.controls.email.setErrors({ taken: true });
+          this.inviteForm.controls.email.markAsTouched();
+        } else {
+          this.failure.set(text);
+        }
       },
+    });
+  }
+
+  /** Sends a pending invitation again (a new link; the old one stops working). */
+  protected resend(student: RosterStudent): void {
+    this.failure.set(null);
+    this.api.resendInvitation(student.id).subscribe({
+      next: (updated) => {
+        this.message.set(INVITE_MESSAGE.resent(updated));
+        this.reload();
+      },
+      error: (error: unknown) => this.failure.set(apiErrorMessage(error)),
+    });
+  }
+
+  /** Invites a removed student back; they rejoin with their history. */
+  protected inviteBack(student: RosterStudent): void {
+    this.failure.set(null);
+    this.api.invite(student.name, student.email).subscribe({
+      next: ({ student: back, outcome }) => {
+        this.message.set(INVITE_MESSAGE[outcome](back));
+        this.reload();
+      },
+      error: (error: unknown) => this.failure.set(apiErrorMessage(error)),
     });
   }
 
