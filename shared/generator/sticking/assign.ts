@@ -363,14 +363,18 @@ const COST = {
   /** One hand on three notes of a run in a row, even with the other hand striking beside the
    * middle one (L L L snare under a right-hand hi-hat): runs alternate. */
   three: 20,
-  /** A far-side stroke while the near hand is free, other than hand to hand inside a run on
-   * that side (the L of R L R on the floor tom): a fill ends on the floor tom with the right
-   * hand. Above `fillRepeat`: R R on the floor tom beats R L with the left hand crossing. */
-  crossFree: 40,
+  /** A far-side stroke while the near hand is free, other than hand to hand inside a run the
+   * near hand carries on on that side (the L of R L R on the floor tom): a fill ends on the
+   * floor tom with the right hand, by starting its alternation on the other hand where it can.
+   * Below `fillRepeat`: a fill that can only end on the left hand still alternates. */
+  crossFree: 20,
   /** A note right beside a time note on the time hand, unless both hands struck the note
    * before: the time hand stays on its cymbal and the other hand plays the note (above
    * `repeat`: L L beats R leaving the hi-hat for a ghost). */
   beside: 6,
+  /** A time note the leading hand may leave (right before a phrase's fill) played by the other
+   * hand: only when the fill needs it. */
+  leaveTime: 10,
   /** A backbeat off the hand the time leaves free (the left hand's snare under a right-hand
    * hi-hat), wherever the backbeat is moved to. */
   backbeat: 20,
@@ -803,6 +807,8 @@ function advance(
         }
         cost += COST.three;
       }
+      if (ev.free && !exempt && hand === ev.free && ev.a.source === 'ostinato')
+        cost += COST.leaveTime;
       if (ev.free && !exempt && hand !== ev.free) {
         if (ev.beat0) cost += COST.backbeat;
         // Unless both hands struck the note before (the time and the free hand's note): then
