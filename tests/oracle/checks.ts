@@ -90,6 +90,10 @@ export const PRESET_CHECKS = [
   'preset/ghost-notes-when-asked',
   'preset/ghost-beside-time-on-free-hand',
   'preset/kick-beyond-one',
+  'preset/runs-alternate',
+  'preset/far-side-on-the-near-hand',
+  'preset/backbeat-on-the-free-hand',
+  'preset/ghost-notes-on-the-snare',
 ] as const;
 
 export type CheckName = (typeof DRILL_CHECKS)[number] | (typeof PRESET_CHECKS)[number];
@@ -684,8 +688,8 @@ export function checkPreset(plan: Plan, drill: DrillLike): Violation[] {
 
   // A ghost note right beside a note of the time is played by the free hand: the hand keeping
   // time stays on its cymbal and the other hand plays the ghost notes (common practice), unless
-  // the other hand is busy at that instant or plays both neighbouring notes (it would play three
-  // in a row).
+  // the other hand is busy at that instant or plays both neighbouring notes, or the two notes on
+  // one side of it (it would play three in a row; runs alternate, see preset/runs-alternate).
   const timeHand = card.lead === 'alternate' ? null : card.lead === 'right' ? 'R' : 'L';
   if (timeHand && card.ostinato && isHand(card.ostinato.voice)) {
     const freeHand = timeHand === 'R' ? 'L' : 'R';
@@ -699,12 +703,100 @@ export function checkPreset(plan: Plan, drill: DrillLike): Violation[] {
       if (h.dynamic !== 'ghost' || h.source !== 'fill' || h.hand !== timeHand) continue;
       if (!timeAt(h.index - 1) && !timeAt(h.index + 1)) continue;
       if (freeAt(h.index) || (freeAt(h.index - 1) && freeAt(h.index + 1))) continue;
+      if (freeAt(h.index - 2) && freeAt(h.index - 1)) continue;
+      if (freeAt(h.index + 1) && freeAt(h.index + 2)) continue;
       out.push({
         check: 'preset/ghost-beside-time-on-free-hand',
         message: `ghost ${h.voice} at ${grid.describe(h.index)} on the time hand ${timeHand}, right beside its ${card.ostinato.voice}`,
       });
     }
   }
+
+  // Runs alternate (common practice): where the grid runs at 4 notes a second or more
+  // (sixteenths from 60 BPM; docs/engine.md calls that a run), no hand plays three grid notes in
+  // a row, whether or not the other hand strikes beside the middle one (L L L snare with the
+  // hi-hat on R under the middle L is still three in a row for the left hand), unless the card
+  // asks for doubles or all three are notes of a line one hand keeps (the time, a figure).
+  if (!card.doubles) {
+    const line = (h: HitLike): boolean => ['ostinato', 'polyrhythm', 'euclid'].includes(h.source);
+    const at = (i: number): Placed[] => byIndex.get(((i % n) + n) % n) ?? [];
+    const runAt = (i: number): boolean => grid.notesPerMinuteAt(i, card.tempo) >= 240;
+    if (n >= 3)
+      for (let i = 0; i < n; i++)
+        for (const side of ['R', 'L']) {
+          const three = [at(i), at(i + 1), at(i + 2)].map((g) => g.find((h) => h.hand === side));
+          if (!runAt(i) || !runAt(i + 1) || three.some((h) => !h)) continue;
+          if (three.every((h) => line(h!))) continue;
+          out.push({
+            check: 'preset/runs-alternate',
+            message: `hand ${side} plays three grid notes in a row from ${grid.describe(i)} at ${card.tempo} BPM`,
+          });
+        }
+  }
+
+  // A note on a hand's far side of the kit (the floor tom or ride for the left hand of a
+  // right-handed player) goes to the near hand whenever that hand is free: the crossing hand may
+  // take it only while the near hand strikes at the same instant, or hand to hand inside a run
+  // that the near hand carries on on that side (the near hand at the grid note just before it,
+  // and on that side at the grid note just after it: the L of R L R on the floor tom, or of
+  // tom R, floor L, floor R going round the kit). So a fill that ends on the floor tom ends on
+  // the near hand (common practice). Time and figure notes keep the hand their line needs.
+  for (const side of ['R', 'L'] as const) {
+    const near = side === 'R' ? 'L' : 'R';
+    const rightHandSide = card.hand === 'right' ? FAR_SIDE_FOR_LEFT_HAND : FAR_SIDE_FOR_RIGHT_HAND;
+    const leftHandSide = card.hand === 'right' ? FAR_SIDE_FOR_RIGHT_HAND : FAR_SIDE_FOR_LEFT_HAND;
+    const farSide = side === 'R' ? leftHandSide : rightHandSide;
+    const at = (i: number): Placed[] => byIndex.get(((i % n) + n) % n) ?? [];
+    const runFrom = (i: number): boolean =>
+      grid.notesPerMinuteAt(((i % n) + n) % n, card.tempo) >= 240;
+    const nearBefore = (i: number): boolean =>
+      runFrom(i - 1) && at(i - 1).some((h) => h.hand === near);
+    const nearAfter = (i: number): boolean =>
+      runFrom(i) && at(i + 1).some((h) => h.hand === near && farSide.has(h.voice));
+    for (const h of hits) {
+      if (h.hand !== side || !farSide.has(h.voice)) continue;
+      if (['ostinato', 'polyrhythm', 'euclid'].includes(h.source)) continue;
+      if (at(h.index).some((g) => g.hand === near)) continue;
+      if (nearBefore(h.index) && nearAfter(h.index)) continue;
+      out.push({
+        check: 'preset/far-side-on-the-near-hand',
+        message: `hand ${side} crosses to the ${h.voice} at ${grid.describe(h.index)} while hand ${near} is free`,
+      });
+    }
+  }
+
+  // A backbeat goes to the hand the time leaves free (common practice: the right hand rides the
+  // hi-hat, the left plays the snare on 2 and 4), wherever the backbeat is moved to; a voice on
+  // the free hand's far side is left to the crossing check, and in a phrase's fill window the
+  // time rests, so both hands are free and the fill's sticking rules.
+  if (timeHand && card.ostinato && isHand(card.ostinato.voice)) {
+    const freeHand = timeHand === 'R' ? 'L' : 'R';
+    const farForFree =
+      (freeHand === 'L') === (card.hand === 'right')
+        ? FAR_SIDE_FOR_LEFT_HAND
+        : FAR_SIDE_FOR_RIGHT_HAND;
+    for (const h of hits)
+      if (
+        h.source === 'backbeat' &&
+        !plan.fillWindow.has(h.index) &&
+        isHand(h.voice as Voice) &&
+        h.voice !== card.ostinato.voice &&
+        !farForFree.has(h.voice) &&
+        h.hand !== freeHand
+      )
+        out.push({
+          check: 'preset/backbeat-on-the-free-hand',
+          message: `backbeat ${h.voice} at ${grid.describe(h.index)} on ${h.hand}, the hand keeping the ${card.ostinato.voice}`,
+        });
+  }
+
+  // Ghost notes belong on the snare (common practice): a tom is not played as a ghost note.
+  for (const h of hits)
+    if (h.dynamic === 'ghost' && /^tom/.test(h.voice))
+      out.push({
+        check: 'preset/ghost-notes-on-the-snare',
+        message: `ghost note on the ${h.voice} at ${grid.describe(h.index)}`,
+      });
 
   // The kick is more than a downbeat marker: it plays somewhere besides beat 1 in every drill,
   // and in every bar of a linear groove, where it is one of the voices sharing the line (common

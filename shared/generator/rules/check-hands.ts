@@ -51,7 +51,8 @@ export interface StickingFault {
  *    three in a row;
  * 4. time: the time (the ostinato's and layers' notes on the card's hand voices with role
  *    `time`) is on the leading hand for its whole pattern, when the card leads with a hand and
- *    one hand can play the time;
+ *    one hand can play the time, but for the time note right before a phrase's fill (the hand
+ *    may leave the cymbal one note early to start the fill);
  * 5. figure: a polyrhythm or euclid figure on one hand voice stays on one hand when one hand
  *    can play it;
  * 6. crossing: a hand plays on its far side of the kit (the right hand on a right-handed kit's

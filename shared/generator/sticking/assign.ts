@@ -360,6 +360,24 @@ const COST = {
   far: 8,
   /** Crossed hands at one instant. */
   crossed: 4,
+  /** One hand on three notes of a run in a row, even with the other hand striking beside the
+   * middle one (L L L snare under a right-hand hi-hat): runs alternate. */
+  three: 20,
+  /** A far-side stroke while the near hand is free, other than hand to hand inside a run the
+   * near hand carries on on that side (the L of R L R on the floor tom): a fill ends on the
+   * floor tom with the right hand, by starting its alternation on the other hand where it can.
+   * Below `fillRepeat`: a fill that can only end on the left hand still alternates. */
+  crossFree: 20,
+  /** A note right beside a time note on the time hand, unless both hands struck the note
+   * before: the time hand stays on its cymbal and the other hand plays the note (above
+   * `repeat`: L L beats R leaving the hi-hat for a ghost). */
+  beside: 6,
+  /** A time note the leading hand may leave (right before a phrase's fill) played by the other
+   * hand: only when the fill needs it. */
+  leaveTime: 10,
+  /** A backbeat off the hand the time leaves free (the left hand's snare under a right-hand
+   * hi-hat), wherever the backbeat is moved to. */
+  backbeat: 20,
 } as const;
 
 const REST = -1e15;
@@ -382,7 +400,19 @@ const FAR_R = 2048; // at the previous note the right hand played its far side
 const FAR_L = 4096;
 const OWN_R = 8192; // at the previous note the right hand played its own side (floor tom, ride)
 const OWN_L = 16384;
-const FLAGS = 32768;
+const TWO_R = 1 << 15; // the right hand struck the previous two notes of a run (alone or not)
+const TWO_L = 1 << 16;
+const NX_R = 1 << 17; // the right hand's stroke at the previous note was not a time or figure note
+const NX_L = 1 << 18;
+const MX_R = 1 << 19; // of the right hand's previous two strokes, one was not a time or figure note
+const MX_L = 1 << 20;
+const CROSS_R = 1 << 21; // the right hand crossed at the previous note right after a left-hand
+const CROSS_L = 1 << 22; // stroke; the left must strike on that side now
+const LS_R = 1 << 23; // the right hand's stroke at the previous note was a loose fill stroke
+const LS_L = 1 << 24;
+const LX_R = 1 << 25; // of the right hand's previous two strokes, one was a loose fill stroke
+const LX_L = 1 << 26;
+const FLAGS = 1 << 27;
 
 /** The search's states, layer after layer, in flat arrays: layer L is begin[L]..begin[L+1]-1. */
 interface Lattice {
@@ -467,8 +497,19 @@ interface Event {
   /** With the previous event (round the loop for the first): a run step; within a beat. */
   runStep: boolean;
   nearStep: boolean;
-  /** A note of a phrase fill, or the note right after one. */
+  /** A note of a phrase fill, or the note right after one, inside its window (a hand may
+   * repeat into or out of the fill). */
   readonly fill: boolean;
+  /** Per note: a backbeat rule's note (it goes to the hand the time leaves free). */
+  readonly beat0: boolean;
+  readonly beat1: boolean;
+  /** Per note: a fill stroke the repair may remove (not a kept bar's). */
+  readonly loose0: boolean;
+  readonly loose1: boolean;
+  /** 1 or 2: the hand the time leaves free, or 0. */
+  readonly free: number;
+  /** The time hand plays its line at the instant before or after this one. */
+  readonly beside: boolean;
 }
 
 /**
@@ -523,9 +564,31 @@ function eventAt(
       plan.timeHand && !runStep ? 3 - plan.timeHand : slot % 2 === 0 ? ctx.lead : 3 - ctx.lead,
     runStep,
     nearStep: !!prev && step <= frame.pace.ticksPerBeat,
-    fill: a.source === 'phrase' || prev?.a.source === 'phrase',
+    // Groove fills stay out of a phrase's fill window: beside one, the run enters or leaves it.
+    fill:
+      !!prev &&
+      (fillStroke(a) || fillStroke(prev.a)) &&
+      a.source !== 'fill' &&
+      prev.a.source !== 'fill',
+    beat0: a.source === 'backbeat',
+    beat1: b?.source === 'backbeat',
+    loose0: a.source === 'fill' && !a.pinned,
+    loose1: !!b && b.source === 'fill' && !b.pinned,
+    free: plan.timeHand ? 3 - plan.timeHand : 0,
+    beside: besideTime(ctx, plan, instant),
   };
 }
+
+/** True when the time hand plays its line (time or figure) at the instant before or after. */
+function besideTime(ctx: Ctx, plan: Plan, instant: number): boolean {
+  if (!plan.timeHand) return false;
+  const line = plan.timeHand === 1 ? plan.right : plan.left;
+  const { n } = ctx;
+  return (line[(instant + n - 1) % n] ?? 0) !== 0 || (line[(instant + 1) % n] ?? 0) !== 0;
+}
+
+/** A phrase's fill stroke (its landing, kick and crash on the next one, is accented). */
+const fillStroke = (hit: WorkHit): boolean => hit.source === 'phrase' && hit.dynamic !== 'accent';
 
 const pinOf = (hit: WorkHit): number => (!hit.pinned ? 0 : hit.hand === 'R' ? 1 : 2);
 
@@ -652,6 +715,26 @@ function advance(
           why.other = true;
           continue;
         }
+        // Soft: third notes of a run in a row, a pending crossing left unmet, backbeats.
+        const exR = (firstHand === 1 ? ev.forced0 : ev.forced1) !== 0;
+        const exL = (firstHand === 1 ? ev.forced1 : ev.forced0) !== 0;
+        const lsR = firstHand === 1 ? ev.loose0 : ev.loose1;
+        const lsL = firstHand === 1 ? ev.loose1 : ev.loose0;
+        const threeR = ctx.runs && third(f, 1, ev.runStep, exR);
+        const threeL = ctx.runs && third(f, 2, ev.runStep, exL);
+        // A fill stroke never makes a hand's third note of a run in a row: it is removed.
+        if ((threeR && (lsR || f & LX_R)) || (threeL && (lsL || f & LX_L))) {
+          why.other = true;
+          continue;
+        }
+        if (threeR) cost += COST.three;
+        if (threeL) cost += COST.three;
+        if (f & CROSS_R && !(ev.runStep && ownNowL)) cost += COST.crossFree;
+        if (f & CROSS_L && !(ev.runStep && ownNowR)) cost += COST.crossFree;
+        if (ev.free) {
+          if (ev.beat0 && !ev.forced0 && firstHand !== ev.free) cost += COST.backbeat;
+          if (ev.beat1 && !ev.forced1 && firstHand === ev.free) cost += COST.backbeat;
+        }
         const flags =
           dblR |
           dblL |
@@ -660,7 +743,9 @@ function advance(
           (farNowR ? FAR_R : 0) |
           (farNowL ? FAR_L : 0) |
           (ownNowR ? OWN_R : 0) |
-          (ownNowL ? OWN_L : 0);
+          (ownNowL ? OWN_L : 0) |
+          strikeBits(f, 1, ev.runStep, exR, lsR) |
+          strikeBits(f, 2, ev.runStep, exL, lsL);
         put(lat, base, flags, T, T, flags, cost, p, firstHand === 1 ? 0 : 1);
       }
       continue;
@@ -698,13 +783,38 @@ function advance(
       }
       let cost = cost0;
       let pend = 0;
+      let cross = 0;
       if (far0 & hand) {
         cost += COST.far;
         // Covered when the other hand struck at or since this hand's last stroke.
         if ((f & ORDER) === (right ? ORDER_R : ORDER_L)) pend = right ? PEND_R : PEND_L;
+        // The near hand is free: the crossing is fine only hand to hand inside a run the near
+        // hand carries on on that side (it struck the note before; the note after is checked
+        // then: the near hand on that side).
+        if (ev.runStep && f & (right ? PREV_L : PREV_R)) cross = right ? CROSS_R : CROSS_L;
+        else cost += COST.crossFree;
       }
+      // A crossing wedged at the note before needs the near hand (this one) on its side now.
+      if (f & CROSS_R && !(ev.runStep && !right && ownNow)) cost += COST.crossFree;
+      if (f & CROSS_L && !(ev.runStep && right && ownNow)) cost += COST.crossFree;
       const prevMine = (f & PREV) === (right ? PREV_R : PREV_L);
       const exempt = ev.forced0 !== 0;
+      if (ctx.runs && third(f, hand, ev.runStep, exempt)) {
+        // A fill stroke never makes a hand's third note of a run in a row: it is removed.
+        if (ev.loose0 || f & (right ? LX_R : LX_L)) {
+          why.other = true;
+          continue;
+        }
+        cost += COST.three;
+      }
+      if (ev.free && !exempt && hand === ev.free && ev.a.source === 'ostinato')
+        cost += COST.leaveTime;
+      if (ev.free && !exempt && hand !== ev.free) {
+        if (ev.beat0) cost += COST.backbeat;
+        // Unless both hands struck the note before (the time and the free hand's note): then
+        // the time hand may take its turn.
+        if (ev.beside && !(ev.runStep && (f & PREV) === PREV_BOTH)) cost += COST.beside;
+      }
       let run = exempt ? EXA : 0;
       if (ev.runStep && prevMine) {
         if (f & RUN2 && ctx.runs && !(f & EXA && f & EXB && exempt)) {
@@ -725,13 +835,44 @@ function advance(
       const farBit =
         (farNow ? (right ? FAR_R : FAR_L) : 0) | (ownNow ? (right ? OWN_R : OWN_L) : 0);
       const flags =
-        keep | dbl | pend | (right ? ORDER_R | PREV_R : ORDER_L | PREV_L) | run | farBit;
+        keep |
+        dbl |
+        pend |
+        (right ? ORDER_R | PREV_R : ORDER_L | PREV_L) |
+        run |
+        farBit |
+        cross |
+        strikeBits(f, hand, ev.runStep, exempt, ev.loose0);
       const key = right ? (width + dL) * FLAGS + flags : (dR * width + 1) * FLAGS + flags;
       put(lat, base, key, right ? T : lastR, right ? lastL : T, flags, cost, p, right ? 0 : 1);
     }
   }
   close(lat, layer + 1);
   return lat.size - base;
+}
+
+/** The run bits (TWO, NX, MX, LS, LX) of a hand (1 R, 2 L) striking now, from the flags. */
+function strikeBits(
+  f: number,
+  hand: number,
+  runStep: boolean,
+  exempt: boolean,
+  loose: boolean,
+): number {
+  const right = hand === 1;
+  let bits = exempt ? 0 : right ? NX_R : NX_L;
+  if (runStep && f & (right ? PREV_R : PREV_L)) bits |= right ? TWO_R : TWO_L;
+  if (!exempt || f & (right ? NX_R : NX_L)) bits |= right ? MX_R : MX_L;
+  if (loose) bits |= right ? LS_R | LX_R : LS_L | LX_L;
+  else if (f & (right ? LS_R : LS_L)) bits |= right ? LX_R : LX_L;
+  return bits;
+}
+
+/** True when the hand's stroke now is its third note of a run in a row, not all time notes. */
+function third(f: number, hand: number, runStep: boolean, exempt: boolean): boolean {
+  const right = hand === 1;
+  if (!runStep || !(f & (right ? TWO_R : TWO_L))) return false;
+  return !exempt || (f & (right ? MX_R : MX_L)) !== 0;
 }
 
 /** A state's key as seen from the tick `end` (what the next lap starts from). */
@@ -744,12 +885,17 @@ function keyAt(ctx: Ctx, lat: Lattice, j: number, end: number): string {
   return `${restR ? -1 : end - lastR}/${restL ? -1 : end - lastL}/${flags}`;
 }
 
+/** A lap's cost at state j, with a crossing still pending at its end charged (the next lap
+ * meets it at its first note, which this lap does not count). */
+const endCost = (lat: Lattice, j: number): number =>
+  (lat.cost[j] ?? 0) + ((lat.flags[j] ?? 0) & (CROSS_R | CROSS_L) ? COST.crossFree : 0);
+
 /** The cheapest state of a layer (the first on ties). */
 function cheapest(lat: Lattice, layer: number): number {
   const from = lat.begin[layer] ?? 0;
   const to = lat.begin[layer + 1] ?? 0;
   let best = from;
-  for (let j = from + 1; j < to; j++) if ((lat.cost[j] ?? 0) < (lat.cost[best] ?? 0)) best = j;
+  for (let j = from + 1; j < to; j++) if (endCost(lat, j) < endCost(lat, best)) best = j;
   return best;
 }
 
@@ -864,7 +1010,7 @@ function secondLap(
     [2 * E, 2 * loop],
   ] as const) {
     for (let j = lat.begin[layer] ?? 0; j < (lat.begin[layer + 1] ?? 0); j++)
-      candidates.push({ key: keyAt(ctx, lat, j, end), cost: lat.cost[j] ?? 0, order: j });
+      candidates.push({ key: keyAt(ctx, lat, j, end), cost: endCost(lat, j), order: j });
   }
   candidates.sort((a, b) => a.cost - b.cost || a.order - b.order);
   const seen = new Set<string>();
@@ -882,7 +1028,7 @@ function secondLap(
     let pick = -1;
     for (let j = trial.begin[E] ?? 0; j < trial.size; j++) {
       if (keyAt(ctx, trial, j, 2 * loop) !== key) continue;
-      if (pick < 0 || (trial.cost[j] ?? 0) < (trial.cost[pick] ?? 0)) pick = j;
+      if (pick < 0 || endCost(trial, j) < endCost(trial, pick)) pick = j;
     }
     if (pick < 0) continue;
     writePath(lap, trial, pick);

@@ -148,6 +148,9 @@ export function oneHandCanPlay(frame: Frame, instants: readonly number[]): boole
  * that other rules add on those voices are not part of it. When two of them strike at one
  * instant, only the first keeps time: the ostinato's voice, else the first layer's, else the
  * first in the card's voice list.
+ * The time note right before a phrase's fill (the fill's first stroke at the next instant) is
+ * not part of it: the leading hand may leave the cymbal one note early to start the fill (common
+ * practice), so a hi-hat time need not cross the arms into a fill on the floor tom.
  * There is none when the card asks for `alternate` sticking or when one hand cannot play the
  * notes as single strokes (then the hands share the time, hand to hand).
  */
@@ -184,9 +187,21 @@ export function timeStream(card: StickingCard, frame: Frame, table: NoteTable): 
       } else crowded = true;
     }
   }
-  const line = crowded ? primaryOnly : instants;
+  let line = crowded ? primaryOnly : instants;
+  let lineVoices = crowded ? line.map(() => primary) : voices;
+  const beforeFill = (i: number): boolean => {
+    const next = (i + 1) % n;
+    for (let k = start[next] ?? 0; k < (start[next + 1] ?? 0); k++)
+      if (table.notes[k]?.source === 'phrase' && HAND_VOICE[voice[k] ?? 0]) return true;
+    return false;
+  };
+  if (n > 1 && line.some(beforeFill)) {
+    const keep = line.map((i) => !beforeFill(i));
+    line = line.filter((_, k) => keep[k]);
+    lineVoices = lineVoices.filter((_, k) => keep[k]);
+  }
   if (line.length === 0 || !oneHandCanPlay(frame, line)) return null;
-  return { kind: 'time', instants: line, voices: crowded ? line.map(() => primary) : voices };
+  return { kind: 'time', instants: line, voices: lineVoices };
 }
 
 /**
