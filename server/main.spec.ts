@@ -44,7 +44,7 @@ function start(dataDir: string, extraEnv: Record<string, string> = {}): Promise<
   let output = '';
   const exited = new Promise<number | null>((resolve) => child.on('exit', (code) => resolve(code)));
   return new Promise((resolve, reject) => {
-    const timer = setTimeout(() => reject(new Error(`server did not start:\n${output}`)), 20_000);
+    const timer = setTimeout(() => reject(new Error(`server did not start:\n${output}`)), 60_000);
     const onData = (chunk: Buffer) => {
       output += chunk.toString();
       const match = /"message":"Tensile is listening","port":(\d+)/.exec(output);
@@ -121,7 +121,8 @@ describe.skipIf(postgresForTests())('server/main.ts under tsx', () => {
       second.child.kill('SIGTERM');
       expect(await second.exited).toBe(0);
     }
-  });
+    // Two start-ups, each migrating and seeding the demo studio: slow on a busy 2-core machine.
+  }, 150_000);
 
   it('fails fast with a readable message on a bad PORT', async () => {
     const { code, stderr } = await runToExit(dataDir, { PORT: 'eighty' });
