@@ -3,7 +3,7 @@ import { TestBed, type ComponentFixture } from '@angular/core/testing';
 import { beforeEach, describe, expect, it } from 'vitest';
 import { blankCard } from './card-draft';
 import { CardEditorStore } from './card-editor-store';
-import { PREVIEW_DEBOUNCE_MS } from './preview-timing';
+import { PROBLEM_DELAY_MS } from './preview-timing';
 import { VoiceSetup, parseNumberList } from './voice-setup';
 
 describe('parseNumberList', () => {
@@ -34,10 +34,10 @@ describe('VoiceSetup', () => {
     await fixture.whenStable();
   }, 30_000);
 
-  /** Lets the debounced preview run (jsdom has no workers, so the engine runs in place). */
+  /** Lets the preview run and its messages show (jsdom has no workers: the engine runs in place). */
   async function settle(): Promise<void> {
     TestBed.tick();
-    await new Promise((resolve) => setTimeout(resolve, PREVIEW_DEBOUNCE_MS + 200));
+    await new Promise((resolve) => setTimeout(resolve, PROBLEM_DELAY_MS + 200));
     TestBed.tick();
     await fixture.whenStable();
   }
