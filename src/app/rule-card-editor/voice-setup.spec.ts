@@ -92,6 +92,37 @@ describe('VoiceSetup', () => {
     expect(store.card().roles).toBeUndefined();
   });
 
+  it('names the role the engine would give each voice left to its default', async () => {
+    store.edit((card) => {
+      card.voices = ['kick', 'snare', 'hihat', 'crash'];
+      card.ostinato = { voice: 'hihat', slots: [0] };
+    });
+    await fixture.whenStable();
+    const defaults = () =>
+      Object.fromEntries(
+        [...page.querySelectorAll('mat-form-field')]
+          .filter((f) => f.querySelector('mat-label')?.textContent?.includes(' role'))
+          .map((f) => [
+            f.querySelector('mat-label')!.textContent!.trim(),
+            f.querySelector('.mat-mdc-select-value')!.textContent!.trim(),
+          ]),
+      );
+    // The contract's defaults: the ostinato's voice and every layer's keep time, the kick
+    // anchors, the crash colours, the rest embellish.
+    expect(defaults()).toEqual({
+      'Kick role': 'Default (anchor)',
+      'Snare role': 'Default (embellishment)',
+      'Hi-hat role': 'Default (time)',
+      'Crash role': 'Default (colour)',
+    });
+    // A layer on the snare makes it keep time; a role of its own replaces the default.
+    store.edit((card) => (card.layers = [{ voice: 'snare', slots: [0], beats: [2, 4] }]));
+    store.edit((card) => (card.roles = { kick: 'embellishment' }));
+    await fixture.whenStable();
+    expect(defaults()['Snare role']).toBe('Default (time)');
+    expect(defaults()['Kick role']).toBe('Embellishment');
+  });
+
   it('adds, edits and removes a time-keeping layer, with the engine’s words beside its fields', async () => {
     store.edit((card) => (card.voices = ['kick', 'snare', 'hihat', 'hihatFoot']));
     await fixture.whenStable();
