@@ -12,7 +12,12 @@ import { seedDemoStudio } from './demo/seed-studio';
 import { seedDemoWorksheets } from './demo/seed-worksheets';
 import { seedDemoWorksheetAssignment } from './demo/seed-worksheet-assignment';
 import { createLogger, errorFields } from './logger';
+import { engineGenerator } from './drills/drill-generator';
+import { PresetsRepository } from './presets/presets-repository';
+import { PresetsService, engraveThumbnail } from './presets/presets-service';
 import { syncBuiltInPresets } from './presets/sync-built-ins';
+import { RuleCardsRepository } from './rule-cards/rule-cards-repository';
+import { ENGINE_VERSION } from '../shared/generator/index';
 import { createSessionStore, stopSessionStore } from './session';
 
 /** Open connections get this long to finish after SIGTERM before the process exits anyway. */
@@ -61,6 +66,21 @@ async function main(): Promise<void> {
       publicUrl: config.publicUrl,
       db: config.database.client,
     });
+    // In the background, once requests are served: the gallery's thumbnails, drawn before its
+    // first visitor asks (a request for one not drawn yet draws it itself).
+    new PresetsService(
+      new PresetsRepository(db),
+      new RuleCardsRepository(db),
+      engineGenerator,
+      engraveThumbnail,
+    )
+      .drawThumbnails(ENGINE_VERSION)
+      .then(
+        (count) => {
+          if (count > 0) logger.info('Preset thumbnails drawn', { count });
+        },
+        (error: unknown) => logger.warn('Preset thumbnails not drawn', errorFields(error)),
+      );
   });
   server.on('error', (error) => {
     logger.error('The server could not start', errorFields(error));

@@ -90,6 +90,33 @@ export class PresetsService {
     const preset = await this.visible(user, id);
     const cached = await this.presets.thumbnail(id);
     if (cached?.svg && cached.engine === engineVersion) return cached.svg;
+    return this.draw(preset, engineVersion);
+  }
+
+  /**
+   * Draws and keeps every preset's thumbnail that is missing or from another engine version,
+   * one preset at a time and giving way to requests between presets, and says how many it drew.
+   * The server runs it once it listens, so the gallery's first visitor finds them drawn: the
+   * engine's work for each one otherwise runs inside the visitor's thumbnail requests, and the
+   * gallery's list request waits behind it. A preset whose card gives no drill is left out.
+   */
+  async drawThumbnails(engineVersion: string): Promise<number> {
+    let drawn = 0;
+    for (const preset of await this.presets.list({ includeWithdrawn: true })) {
+      await new Promise((resolve) => setImmediate(resolve));
+      const cached = await this.presets.thumbnail(preset.id);
+      if (cached?.svg && cached.engine === engineVersion) continue;
+      try {
+        await this.draw(preset, engineVersion);
+        drawn += 1;
+      } catch (error) {
+        if (!(error instanceof HttpError)) throw error;
+      }
+    }
+    return drawn;
+  }
+
+  private async draw(preset: Preset, engineVersion: string): Promise<string> {
     let drill: Drill;
     try {
       drill = generateOrRefuse(this.generate, checkCard(preset.card, 'card'), preset.id);
@@ -98,7 +125,7 @@ export class PresetsService {
       throw notFound('This preset has no thumbnail: its card gives no drill at its default seed.');
     }
     const svg = await this.render({ ...drill, bars: drill.bars.slice(0, THUMBNAIL_BARS) });
-    await this.presets.storeThumbnail(id, svg, engineVersion);
+    await this.presets.storeThumbnail(preset.id, svg, engineVersion);
     return svg;
   }
 

@@ -53,4 +53,5 @@ export {
   VOICE_ROLES,
 } from './schema';
 export { defaultGrouping, isCompound } from './meter';
+export { defaultRole, type RoleSource } from './roles';
 export { drillDifficulty, cardVariant, type Difficulty } from './difficulty';

@@ -100,6 +100,15 @@ export interface NotationLayout {
   readonly svg: SVGSVGElement;
 }
 
+/**
+ * Each system's drawing (its bars, their marks and the voice key beside the first) is one group
+ * of this class, a direct child of the SVG in system order; what spans systems, the polyrhythm
+ * brackets, is one group of BRACKETS_CLASS after them. Title, marks and keys above the first
+ * system stay outside both.
+ */
+export const SYSTEM_CLASS = 'tensile-system';
+export const BRACKETS_CLASS = 'tensile-polyrhythms';
+
 /** Pixels between stave lines (VexFlow's default). */
 export const STAVE_SPACE = 10;
 const MARGIN_X = 12;
@@ -198,6 +207,8 @@ function engrave(
     const systemTop = head + systemIndex * (systemHeight + gap + separation);
     const topLineY = systemTop + sticking + HEADROOM;
     let x = MARGIN_X + (systemIndex === 0 ? legend : 0);
+    // One group a system, so a host can show a system on its own (see SYSTEM_CLASS).
+    ctx.openGroup().setAttribute('class', SYSTEM_CLASS);
     if (systemIndex === 0 && keyBeside)
       drawLegend(ctx, model, MARGIN_X, topLineY - STAVE_TOP_OFFSET, ink);
     // The system's bars are formatted first, so its tuplet brackets can share one line and its
@@ -260,6 +271,7 @@ function engrave(
       recordInstants(instants, bar.bar, engraved, systemIndex);
       x += width;
     });
+    ctx.closeGroup();
     const bandLeft = boxes.find((b) => b.system === systemIndex)!;
     bands.push({
       left: bandLeft.x,
@@ -268,7 +280,9 @@ function engrave(
       belowY: topLineY + 4 * STAVE_SPACE + POLYRHYTHM_BELOW,
     });
   });
+  ctx.openGroup().setAttribute('class', BRACKETS_CLASS);
   drawPolyrhythmBrackets(ctx, model.polyrhythms, instants, bands);
+  ctx.closeGroup();
   const height = head + plans.length * (systemHeight + gap + separation) - separation;
   ctx.resize(options.width, height);
   svg.setAttribute('viewBox', `0 0 ${options.width} ${height}`);

@@ -1,3 +1,4 @@
+import { NgTemplateOutlet } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatCheckboxModule } from '@angular/material/checkbox';
@@ -10,6 +11,34 @@ import { subdivisionLabel } from '../rule-cards/card-labels';
 import { CardEditorStore, typedNumber } from './card-editor-store';
 import { beatSlots, type CardDraft } from './card-draft';
 
+type NumberKey = 'beats' | 'bars' | 'tempo' | 'density';
+
+/** One of the card's typed numbers: where it sits in the card, and the range the engine takes. */
+interface NumberField {
+  readonly key: NumberKey;
+  readonly path: string;
+  readonly label: string;
+  readonly min: number;
+  readonly max: number;
+  readonly step?: number;
+  readonly hint?: string;
+}
+
+const NUMBER_FIELDS: Readonly<Record<NumberKey, NumberField>> = {
+  beats: { key: 'beats', path: 'meter.beats', label: 'Beats per bar', min: 1, max: 15 },
+  bars: { key: 'bars', path: 'bars', label: 'Bars', min: 1, max: 64 },
+  tempo: { key: 'tempo', path: 'tempo', label: 'Tempo (BPM)', min: 20, max: 320 },
+  density: {
+    key: 'density',
+    path: 'density',
+    label: 'Density (0–1)',
+    min: 0,
+    max: 1,
+    step: 0.05,
+    hint: 'Share of free slots filled',
+  },
+};
+
 /** The card's frame: meter, bars, grid, tempo, voices, density and the player's feel. */
 @Component({
   selector: 'tensile-card-basics',
@@ -19,6 +48,7 @@ import { beatSlots, type CardDraft } from './card-draft';
     MatFormFieldModule,
     MatInputModule,
     MatSelectModule,
+    NgTemplateOutlet,
   ],
   templateUrl: './card-basics.html',
   styleUrl: './card-basics.scss',
@@ -33,6 +63,13 @@ export class CardBasics {
   protected readonly perBeat = computed(() => Array.isArray(this.card().subdivision));
   protected readonly slots = computed(() => beatSlots(this.card()));
   protected readonly unit = computed(() => this.card().meter?.unit ?? 4);
+  protected readonly numbers = NUMBER_FIELDS;
+
+  /** What a number field shows: the card's value, or nothing while it is unset. */
+  protected numberValue(key: NumberKey): number | string {
+    const card = this.card();
+    return (key === 'beats' ? card.meter?.beats : card[key]) ?? '';
+  }
 
   protected slotLabel(slots: number): string {
     return `${slots} · ${subdivisionLabel(slots, { unit: this.unit() })}`;
@@ -46,7 +83,7 @@ export class CardBasics {
     return this.store.errorState(path);
   }
 
-  protected typed(path: 'bars' | 'tempo' | 'density' | 'beats', text: Event): void {
+  protected typed(path: NumberKey, text: Event): void {
     const value = typedNumber(text);
     this.store.edit((card) => {
       if (path === 'beats') {

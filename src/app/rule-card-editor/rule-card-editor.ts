@@ -91,18 +91,14 @@ export class RuleCardEditor {
   protected readonly loading = signal(false);
   protected readonly loadError = signal<string | null>(null);
   protected readonly saving = signal(false);
-  protected readonly title = signal('Untitled card');
-  protected readonly tags = signal<readonly string[]>([]);
-  protected readonly level = signal<CardLevel | null>(null);
-  private readonly savedMeta = signal(JSON.stringify(['Untitled card', [], null]));
+  protected readonly title = computed(() => this.store.meta().title);
+  protected readonly tags = computed(() => this.store.meta().tags);
+  protected readonly level = computed(() => this.store.meta().level);
   protected readonly titleProblem = computed(() =>
     this.title().trim() === '' ? 'Give the card a title.' : null,
   );
   protected readonly titleErrors = { isErrorState: () => this.titleProblem() !== null };
-  protected readonly metaDirty = computed(
-    () => JSON.stringify([this.title(), this.tags(), this.level()]) !== this.savedMeta(),
-  );
-  protected readonly dirty = computed(() => this.store.dirty() || this.metaDirty());
+  protected readonly dirty = this.store.dirty;
   protected readonly cardInvalid = computed(() => this.store.outcome()?.status === 'invalid');
 
   constructor() {
@@ -137,20 +133,29 @@ export class RuleCardEditor {
     else this.store.undo();
   }
 
+  protected setTitle(title: string): void {
+    this.store.editMeta({ title }, 'title');
+  }
+
+  protected setLevel(level: CardLevel | null): void {
+    this.store.editMeta({ level });
+  }
+
   protected addTag(event: MatChipInputEvent): void {
     const tag = event.value.trim().toLowerCase();
-    if (tag && !this.tags().includes(tag)) this.tags.update((tags) => [...tags, tag]);
+    if (tag && !this.tags().includes(tag)) this.store.editMeta({ tags: [...this.tags(), tag] });
     event.chipInput.clear();
   }
 
   protected toggleTag(tag: string): void {
-    this.tags.update((tags) =>
-      tags.includes(tag) ? tags.filter((t) => t !== tag) : [...tags, tag],
-    );
+    const tags = this.tags();
+    this.store.editMeta({
+      tags: tags.includes(tag) ? tags.filter((t) => t !== tag) : [...tags, tag],
+    });
   }
 
   protected removeTag(tag: string): void {
-    this.tags.update((tags) => tags.filter((t) => t !== tag));
+    this.store.editMeta({ tags: this.tags().filter((t) => t !== tag) });
   }
 
   protected save(): void {
@@ -167,7 +172,7 @@ export class RuleCardEditor {
     request.subscribe({
       next: (saved) => {
         this.saving.set(false);
-        this.markSaved();
+        this.store.markSaved();
         this.snackBar.open(`Saved "${saved.title}".`, undefined, { duration: 3000 });
         if (id === undefined) {
           void this.router.navigate(['/rule-cards', saved.id], { replaceUrl: true });
@@ -244,15 +249,6 @@ export class RuleCardEditor {
     level: CardLevel | null,
     card: CardDraft,
   ): void {
-    this.title.set(title);
-    this.tags.set([...tags]);
-    this.level.set(level);
-    this.store.load(card);
-    this.markSaved();
-  }
-
-  private markSaved(): void {
-    this.store.markSaved();
-    this.savedMeta.set(JSON.stringify([this.title(), this.tags(), this.level()]));
+    this.store.load(card, { title, tags: [...tags], level });
   }
 }

@@ -3,7 +3,7 @@ import { TestBed, type ComponentFixture } from '@angular/core/testing';
 import { beforeEach, describe, expect, it } from 'vitest';
 import { blankCard } from './card-draft';
 import { CardEditorStore } from './card-editor-store';
-import { PREVIEW_DEBOUNCE_MS } from './preview-timing';
+import { PROBLEM_DELAY_MS } from './preview-timing';
 import { VoiceSetup, parseNumberList } from './voice-setup';
 
 describe('parseNumberList', () => {
@@ -34,10 +34,10 @@ describe('VoiceSetup', () => {
     await fixture.whenStable();
   }, 30_000);
 
-  /** Lets the debounced preview run (jsdom has no workers, so the engine runs in place). */
+  /** Lets the preview run and its messages show (jsdom has no workers: the engine runs in place). */
   async function settle(): Promise<void> {
     TestBed.tick();
-    await new Promise((resolve) => setTimeout(resolve, PREVIEW_DEBOUNCE_MS + 200));
+    await new Promise((resolve) => setTimeout(resolve, PROBLEM_DELAY_MS + 200));
     TestBed.tick();
     await fixture.whenStable();
   }
@@ -90,6 +90,37 @@ describe('VoiceSetup', () => {
       null,
     );
     expect(store.card().roles).toBeUndefined();
+  });
+
+  it('names the role the engine would give each voice left to its default', async () => {
+    store.edit((card) => {
+      card.voices = ['kick', 'snare', 'hihat', 'crash'];
+      card.ostinato = { voice: 'hihat', slots: [0] };
+    });
+    await fixture.whenStable();
+    const defaults = () =>
+      Object.fromEntries(
+        [...page.querySelectorAll('mat-form-field')]
+          .filter((f) => f.querySelector('mat-label')?.textContent?.includes(' role'))
+          .map((f) => [
+            f.querySelector('mat-label')!.textContent!.trim(),
+            f.querySelector('.mat-mdc-select-value')!.textContent!.trim(),
+          ]),
+      );
+    // The contract's defaults: the ostinato's voice and every layer's keep time, the kick
+    // anchors, the crash colours, the rest embellish.
+    expect(defaults()).toEqual({
+      'Kick role': 'Default (anchor)',
+      'Snare role': 'Default (embellishment)',
+      'Hi-hat role': 'Default (time)',
+      'Crash role': 'Default (colour)',
+    });
+    // A layer on the snare makes it keep time; a role of its own replaces the default.
+    store.edit((card) => (card.layers = [{ voice: 'snare', slots: [0], beats: [2, 4] }]));
+    store.edit((card) => (card.roles = { kick: 'embellishment' }));
+    await fixture.whenStable();
+    expect(defaults()['Snare role']).toBe('Default (time)');
+    expect(defaults()['Kick role']).toBe('Embellishment');
   });
 
   it('adds, edits and removes a time-keeping layer, with the engine’s words beside its fields', async () => {

@@ -4,7 +4,12 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
-import { VOICE_ROLES, defaultGrouping, type VoiceId } from '../../../shared/generator/index';
+import {
+  VOICE_ROLES,
+  defaultGrouping,
+  defaultRole,
+  type VoiceId,
+} from '../../../shared/generator/index';
 import { VOICE_LABELS } from '../drills/playback/playback-panel';
 import { inputText } from '../rule-cards/input-text';
 import { CardEditorStore } from './card-editor-store';
@@ -12,6 +17,9 @@ import { cardVoices, type CardDraft } from './card-draft';
 
 type LayerDraft = NonNullable<CardDraft['layers']>[number];
 type Role = (typeof VOICE_ROLES)[number];
+
+/** The role choice that leaves the voice to the engine's default. */
+const DEFAULT = 'default';
 
 /** The engine takes at most this many extra time-keeping layers. */
 export const MAX_LAYERS = 4;
@@ -46,6 +54,7 @@ export class VoiceSetup {
     colour: 'Colour',
   };
   protected readonly maxLayers = MAX_LAYERS;
+  protected readonly defaultChoice = DEFAULT;
   protected readonly voices = computed(() => cardVoices(this.card()));
   protected readonly layers = computed(() => this.card().layers ?? []);
   /** What the teacher typed where it is not a list of numbers yet, by field. */
@@ -85,14 +94,20 @@ export class VoiceSetup {
     }, 'meter.grouping');
   }
 
-  protected role(voice: VoiceId): Role | null {
-    return this.card().roles?.[voice] ?? null;
+  /** The role the engine gives `voice` when the card leaves it to the default. */
+  protected defaultRole(voice: VoiceId): Role {
+    return defaultRole(this.card(), voice);
   }
 
-  protected setRole(voice: VoiceId, role: Role | null): void {
+  /** The voice's own role, or DEFAULT (a value of its own: a select shows null as empty). */
+  protected role(voice: VoiceId): Role | typeof DEFAULT {
+    return this.card().roles?.[voice] ?? DEFAULT;
+  }
+
+  protected setRole(voice: VoiceId, role: Role | typeof DEFAULT | null): void {
     this.store.edit((card) => {
       const roles = { ...(card.roles ?? {}) };
-      if (role === null) delete roles[voice];
+      if (role === null || role === DEFAULT) delete roles[voice];
       else roles[voice] = role;
       if (Object.keys(roles).length === 0) delete card.roles;
       else card.roles = roles;

@@ -54,6 +54,8 @@ export const PRINT_WIDTH = 700;
  */
 export const PRINT_ENGRAVING_WIDTH = 960;
 let scoreIds = 0;
+/** The drawing's attributes that are its own, not ink its copies should inherit. */
+const OWN_ATTRIBUTES = new Set(['id', 'class', 'role', 'width', 'height', 'viewBox', 'style']);
 
 /**
  * The drill in drum-set notation. VexFlow is loaded on first use (dynamic import), so it stays out
@@ -213,24 +215,37 @@ export class DrillScore {
   }
 
   /**
-   * Each later system's strip shows its slice of the one drawing through `<use>`, so the notes
+   * Each later system's strip shows its system of the one drawing through `<use>`, so the notes
    * exist once in the page (for assistive technology, tests and memory) yet print breaks
-   * between systems.
+   * between systems. A `<use>` copies what it points at into the page: pointing at the system's
+   * own group (and the brackets) rather than the whole drawing keeps the page at two copies of
+   * the score instead of one per system, which style and layout pay for on every redraw.
    */
   private drawEchoes(bands: readonly SystemBand[], width: number): void {
     const slots = this.echoes();
+    const drawing = this.canvas().nativeElement.querySelector('svg');
+    if (!drawing) return;
     const ns = 'http://www.w3.org/2000/svg';
+    const brackets = drawing.querySelector(`[id="${this.svgId}-brackets"]`);
     bands.forEach((band, i) => {
       const slot = slots[i]?.nativeElement;
       if (!slot) return;
       const svg = document.createElementNS(ns, 'svg');
+      // The copies inherit from this element, not from the drawing: give it the drawing's ink.
+      for (const name of drawing.getAttributeNames()) {
+        if (!OWN_ATTRIBUTES.has(name)) svg.setAttribute(name, drawing.getAttribute(name)!);
+      }
       svg.setAttribute('width', String(width));
       svg.setAttribute('height', String(band.height));
       svg.setAttribute('viewBox', `0 ${band.top} ${width} ${band.height}`);
       svg.setAttribute('aria-hidden', 'true');
-      const use = document.createElementNS(ns, 'use');
-      use.setAttribute('href', `#${this.svgId}`);
-      svg.append(use);
+      const parts = [`${this.svgId}-system-${band.system}`];
+      if (brackets?.hasChildNodes()) parts.push(brackets.id);
+      for (const id of parts) {
+        const use = document.createElementNS(ns, 'use');
+        use.setAttribute('href', `#${id}`);
+        svg.append(use);
+      }
       slot.replaceChildren(svg);
     });
   }
@@ -333,7 +348,11 @@ export class DrillScore {
 
   /** Engrave `model` on a line of `width` pixels and publish its layout (synchronous). */
   private draw(
-    { renderNotation }: typeof import('../../../../shared/notation/render-vexflow'),
+    {
+      renderNotation,
+      SYSTEM_CLASS,
+      BRACKETS_CLASS,
+    }: typeof import('../../../../shared/notation/render-vexflow'),
     model: NotationModel,
     width: number,
     shown: { showSticking: boolean; showCounts: boolean; showTension: boolean },
@@ -354,6 +373,12 @@ export class DrillScore {
     }
     svg.setAttribute('aria-hidden', 'true');
     svg.id = this.svgId;
+    // Named, so each later strip can show its own system (see drawEchoes).
+    svg.querySelectorAll(`:scope > .${SYSTEM_CLASS}`).forEach((group, system) => {
+      group.id = `${this.svgId}-system-${system}`;
+    });
+    const brackets = svg.querySelector(`:scope > .${BRACKETS_CLASS}`);
+    if (brackets) brackets.id = `${this.svgId}-brackets`;
     this.fit.set(fit);
     this.layout.set(layout);
     this.failure.set(null);
