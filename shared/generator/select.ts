@@ -3,6 +3,7 @@ import {
   emptyFill,
   fillCount,
   initialFill,
+  LANDING_LEAN,
   variantOf,
   type BarFill,
   type FillContext,
@@ -37,16 +38,25 @@ interface Candidate {
   readonly units: number;
 }
 
-/** The first fill of every bar: `density` of its free slots, by seeded weighted draws. */
+/**
+ * The first fill of every bar: `density` of its free slots, by seeded weighted draws. Without a
+ * tension curve, `landings` (0-based bars) are drawn as calm bars: a quarter of the notes,
+ * leaning on the beat, so the groove lets go where it lands; a curve, when the card has one,
+ * decides every bar instead.
+ */
 export function drawFills(
   ctx: FillContext,
   rng: Rng,
   targets: readonly number[] | null,
+  landings: ReadonlySet<number> = new Set(),
 ): BarFill[] {
   return Array.from({ length: ctx.grid.bars }, (_, bar) =>
     targets
       ? initialFill(ctx, bar, rng, targets[bar] ?? 0.5, targets[bar] ?? 0.5)
-      : initialFill(ctx, bar, rng, 0.5),
+      : landings.has(bar)
+        ? // A landing releases: few fill notes, on the strong positions (common practice).
+          initialFill(ctx, bar, rng, LANDING_LEAN, 0)
+        : initialFill(ctx, bar, rng, 0.5),
   );
 }
 
