@@ -118,8 +118,68 @@ export function shapeTension(
     }
   }
   if (!best) giveUp(ctx, targets, gauge);
-  const picks = best.picks;
+  const picks = best.picks.slice();
+  busierPeaks(ctx, levels, candidates, picks, goals, (bar, from) => {
+    if (budget.left <= 0) return false;
+    keep(bar, measure(variantOf(ctx, from, rng, 1)));
+    return true;
+  });
   return picks.map((k, bar) => (candidates[bar]?.[k] as Candidate).fill);
+}
+
+/** Variants tried per peak bar for one busier than the calmest bars. */
+const BUSIER_TRIES = 48;
+
+/**
+ * The curve is heard as notes too (common practice): on the Longuet-Higgins & Lee measure the
+ * tensest bars are often the sparsest, so a peak bar may end up with no more notes than the
+ * release. Each bar of the top level that plays no more notes (besides the time) than the
+ * busiest bar of the bottom level takes instead the candidate nearest its goal, above the
+ * level below it, that does; variants are drawn (within the work budget) when none is known.
+ * The rank order stays as it was.
+ */
+function busierPeaks(
+  ctx: FillContext,
+  levels: readonly number[][],
+  candidates: readonly Candidate[][],
+  picks: number[],
+  goals: readonly number[],
+  vary: (bar: number, from: BarFill) => boolean,
+): void {
+  if (levels.length < 2) return;
+  const { grid, ob } = ctx;
+  const fixed = Array.from({ length: grid.bars }, (_, bar) => {
+    let n = 0;
+    for (let i = 0; i < grid.slotsPerBar; i++)
+      for (const hit of ob.cells[bar * grid.slotsPerBar + i] ?? [])
+        if (hit.source !== 'ostinato') n++;
+    return n;
+  });
+  const notes = (bar: number, c: Candidate): number => (fixed[bar] ?? 0) + c.fill.fills.length;
+  const picked = (bar: number): Candidate => candidates[bar]?.[picks[bar] ?? 0] as Candidate;
+  const calmest = Math.max(...(levels[0] ?? []).map((bar) => notes(bar, picked(bar))));
+  const floor = Math.max(...(levels[levels.length - 2] ?? []).map((bar) => picked(bar).units));
+  for (const bar of levels[levels.length - 1] ?? []) {
+    const cands = candidates[bar] ?? [];
+    const choose = (): number => {
+      let pick = -1;
+      cands.forEach((c, k) => {
+        if (c.units <= floor || notes(bar, c) <= calmest) return;
+        const off = Math.abs(c.units - (goals[bar] ?? 0));
+        if (pick < 0 || off < Math.abs((cands[pick] as Candidate).units - (goals[bar] ?? 0)))
+          pick = k;
+      });
+      return pick;
+    };
+    if (notes(bar, picked(bar)) > calmest) continue;
+    let pick = choose();
+    for (let t = 0; pick < 0 && t < BUSIER_TRIES; t++) {
+      const from = (cands[picks[bar] ?? 0] as Candidate).fill;
+      if (!vary(bar, from)) break;
+      pick = choose();
+    }
+    if (pick >= 0) picks[bar] = pick;
+  }
 }
 
 /**
