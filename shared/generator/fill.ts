@@ -349,6 +349,13 @@ export function initialFill(
   return f;
 }
 
+/** The fill with one more seeded note, leaning as asked (the same fill when none fits). */
+export function withOneMore(ctx: FillContext, from: BarFill, rng: Rng, lean: number): BarFill {
+  const f = copyFill(from);
+  addOne(ctx, f, rng, instantWeights(ctx, f.bar, lean));
+  return f;
+}
+
 /** A neighbour of a fill: one move (remove + add), addition or removal, leaning as asked. */
 export function variantOf(ctx: FillContext, from: BarFill, rng: Rng, lean: number): BarFill {
   const f = copyFill(from);

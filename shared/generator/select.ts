@@ -5,6 +5,7 @@ import {
   initialFill,
   LANDING_LEAN,
   variantOf,
+  withOneMore,
   type BarFill,
   type FillContext,
 } from './fill';
@@ -120,22 +121,24 @@ export function shapeTension(
   if (!best) giveUp(ctx, targets, gauge);
   const picks = best.picks.slice();
   busierPeaks(ctx, levels, candidates, picks, goals, (bar, from) => {
-    if (budget.left <= 0) return false;
-    keep(bar, measure(variantOf(ctx, from, rng, 1)));
-    return true;
+    if (budget.left <= 0) return null;
+    const c = measure(withOneMore(ctx, from, rng, lean(bar)));
+    keep(bar, c);
+    return c.fill.fills.length > from.fills.length ? c.fill : null;
   });
   return picks.map((k, bar) => (candidates[bar]?.[k] as Candidate).fill);
 }
 
 /** Variants tried per peak bar for one busier than the calmest bars. */
-const BUSIER_TRIES = 48;
+const BUSIER_TRIES = 8;
 
 /**
  * The curve is heard as notes too (common practice): on the Longuet-Higgins & Lee measure the
  * tensest bars are often the sparsest, so a peak bar may end up with no more notes than the
  * release. Each bar of the top level that plays no more notes (besides the time) than the
  * busiest bar of the bottom level takes instead the candidate nearest its goal, above the
- * level below it, that does; variants are drawn (within the work budget) when none is known.
+ * level below it, that does; when none is known, notes are added to its pick one at a time
+ * (up to 8, within the work budget) and each fill so far is weighed.
  * The rank order stays as it was.
  */
 function busierPeaks(
@@ -144,7 +147,7 @@ function busierPeaks(
   candidates: readonly Candidate[][],
   picks: number[],
   goals: readonly number[],
-  vary: (bar: number, from: BarFill) => boolean,
+  vary: (bar: number, from: BarFill) => BarFill | null,
 ): void {
   if (levels.length < 2) return;
   const { grid, ob } = ctx;
@@ -173,9 +176,10 @@ function busierPeaks(
     };
     if (notes(bar, picked(bar)) > calmest) continue;
     let pick = choose();
-    for (let t = 0; pick < 0 && t < BUSIER_TRIES; t++) {
-      const from = (cands[picks[bar] ?? 0] as Candidate).fill;
-      if (!vary(bar, from)) break;
+    // Notes added one at a time to the pick, until one of the fills so far will do.
+    let from: BarFill | null = (cands[picks[bar] ?? 0] as Candidate).fill;
+    for (let t = 0; pick < 0 && from && t < BUSIER_TRIES; t++) {
+      from = vary(bar, from);
       pick = choose();
     }
     if (pick >= 0) picks[bar] = pick;
