@@ -210,7 +210,15 @@ function removeAt(f: BarFill, k: number): void {
  */
 const CALM = [8, 6, 3, 1] as const;
 const TENSE = [1, 2, 5, 8] as const;
+/**
+ * The lean of a landing bar: its fill notes go only on the downbeat and the beats (group starts
+ * in a grouped meter), where they cannot start a syncopation the beat after would not already
+ * hold, so the bar lets go (common practice: the groove releases where it lands).
+ */
+export const LANDING_LEAN = -1;
+const LANDING = [8, 6, 0, 0] as const;
 function weightOf(strength: number, lean: number): number {
+  if (lean === LANDING_LEAN) return LANDING[strength] ?? 0;
   return (CALM[strength] ?? 1) * (1 - lean) + (TENSE[strength] ?? 1) * lean;
 }
 
@@ -338,6 +346,13 @@ export function initialFill(
     if (f.overlaps !== overlaps && f.overlaps >= ctx.budget)
       for (let j = 0; j < weights.length; j++) if ((f.size[j] ?? 0) === 1) weights[j] = 0;
   }
+  return f;
+}
+
+/** The fill with one more seeded note, leaning as asked (the same fill when none fits). */
+export function withOneMore(ctx: FillContext, from: BarFill, rng: Rng, lean: number): BarFill {
+  const f = copyFill(from);
+  addOne(ctx, f, rng, instantWeights(ctx, f.bar, lean));
   return f;
 }
 

@@ -3,7 +3,9 @@ import {
   emptyFill,
   fillCount,
   initialFill,
+  LANDING_LEAN,
   variantOf,
+  withOneMore,
   type BarFill,
   type FillContext,
 } from './fill';
@@ -37,16 +39,25 @@ interface Candidate {
   readonly units: number;
 }
 
-/** The first fill of every bar: `density` of its free slots, by seeded weighted draws. */
+/**
+ * The first fill of every bar: `density` of its free slots, by seeded weighted draws. Without a
+ * tension curve, `landings` (0-based bars) are drawn as calm bars: a quarter of the notes,
+ * leaning on the beat, so the groove lets go where it lands; a curve, when the card has one,
+ * decides every bar instead.
+ */
 export function drawFills(
   ctx: FillContext,
   rng: Rng,
   targets: readonly number[] | null,
+  landings: ReadonlySet<number> = new Set(),
 ): BarFill[] {
   return Array.from({ length: ctx.grid.bars }, (_, bar) =>
     targets
       ? initialFill(ctx, bar, rng, targets[bar] ?? 0.5, targets[bar] ?? 0.5)
-      : initialFill(ctx, bar, rng, 0.5),
+      : landings.has(bar)
+        ? // A landing releases: few fill notes, on the strong positions (common practice).
+          initialFill(ctx, bar, rng, LANDING_LEAN, 0)
+        : initialFill(ctx, bar, rng, 0.5),
   );
 }
 
@@ -108,8 +119,71 @@ export function shapeTension(
     }
   }
   if (!best) giveUp(ctx, targets, gauge);
-  const picks = best.picks;
+  const picks = best.picks.slice();
+  busierPeaks(ctx, levels, candidates, picks, goals, (bar, from) => {
+    if (budget.left <= 0) return null;
+    const c = measure(withOneMore(ctx, from, rng, lean(bar)));
+    keep(bar, c);
+    return c.fill.fills.length > from.fills.length ? c.fill : null;
+  });
   return picks.map((k, bar) => (candidates[bar]?.[k] as Candidate).fill);
+}
+
+/** Variants tried per peak bar for one busier than the calmest bars. */
+const BUSIER_TRIES = 8;
+
+/**
+ * The curve is heard as notes too (common practice): on the Longuet-Higgins & Lee measure the
+ * tensest bars are often the sparsest, so a peak bar may end up with no more notes than the
+ * release. Each bar of the top level that plays no more notes (besides the time) than the
+ * busiest bar of the bottom level takes instead the candidate nearest its goal, above the
+ * level below it, that does; when none is known, notes are added to its pick one at a time
+ * (up to 8, within the work budget) and each fill so far is weighed.
+ * The rank order stays as it was.
+ */
+function busierPeaks(
+  ctx: FillContext,
+  levels: readonly number[][],
+  candidates: readonly Candidate[][],
+  picks: number[],
+  goals: readonly number[],
+  vary: (bar: number, from: BarFill) => BarFill | null,
+): void {
+  if (levels.length < 2) return;
+  const { grid, ob } = ctx;
+  const fixed = Array.from({ length: grid.bars }, (_, bar) => {
+    let n = 0;
+    for (let i = 0; i < grid.slotsPerBar; i++)
+      for (const hit of ob.cells[bar * grid.slotsPerBar + i] ?? [])
+        if (hit.source !== 'ostinato') n++;
+    return n;
+  });
+  const notes = (bar: number, c: Candidate): number => (fixed[bar] ?? 0) + c.fill.fills.length;
+  const picked = (bar: number): Candidate => candidates[bar]?.[picks[bar] ?? 0] as Candidate;
+  const calmest = Math.max(...(levels[0] ?? []).map((bar) => notes(bar, picked(bar))));
+  const floor = Math.max(...(levels[levels.length - 2] ?? []).map((bar) => picked(bar).units));
+  for (const bar of levels[levels.length - 1] ?? []) {
+    const cands = candidates[bar] ?? [];
+    const choose = (): number => {
+      let pick = -1;
+      cands.forEach((c, k) => {
+        if (c.units <= floor || notes(bar, c) <= calmest) return;
+        const off = Math.abs(c.units - (goals[bar] ?? 0));
+        if (pick < 0 || off < Math.abs((cands[pick] as Candidate).units - (goals[bar] ?? 0)))
+          pick = k;
+      });
+      return pick;
+    };
+    if (notes(bar, picked(bar)) > calmest) continue;
+    let pick = choose();
+    // Notes added one at a time to the pick, until one of the fills so far will do.
+    let from: BarFill | null = (cands[picks[bar] ?? 0] as Candidate).fill;
+    for (let t = 0; pick < 0 && from && t < BUSIER_TRIES; t++) {
+      from = vary(bar, from);
+      pick = choose();
+    }
+    if (pick >= 0) picks[bar] = pick;
+  }
 }
 
 /**

@@ -94,6 +94,10 @@ export const PRESET_CHECKS = [
   'preset/far-side-on-the-near-hand',
   'preset/backbeat-on-the-free-hand',
   'preset/ghost-notes-on-the-snare',
+  'preset/embellishment-only-where-asked',
+  'preset/compound-on-its-beats',
+  'preset/landing-releases',
+  'preset/no-repeated-rule',
 ] as const;
 
 export type CheckName = (typeof DRILL_CHECKS)[number] | (typeof PRESET_CHECKS)[number];
@@ -816,5 +820,78 @@ export function checkPreset(plan: Plan, drill: DrillLike): Violation[] {
             message: `bar ${bar} of a linear groove has the kick on beat 1 only`,
           });
   }
+
+  // Embellishments only where the card asks: a fill note (density or fillHoles, not a phrase)
+  // belongs to a voice a fillHoles rule lists, or is an anchor (the kick) at its own strength;
+  // no voice gets ghost notes the card never asked for (docs/engine.md, "Voice roles"; common
+  // practice: a written groove has no ghost notes unless the teacher adds them).
+  const listed = new Set(rulesOf(card, 'fillHoles').flatMap((r) => r.voices));
+  for (const h of hits) {
+    if (h.source !== 'fill' || listed.has(h.voice as Voice)) continue;
+    if (card.roles.get(h.voice as Voice) === 'anchor' && h.dynamic !== 'ghost') continue;
+    out.push({
+      check: 'preset/embellishment-only-where-asked',
+      message: `${h.dynamic} ${h.voice} fill note at ${grid.describe(h.index)}, though no fillHoles rule lists the ${h.voice}`,
+    });
+  }
+
+  // A compound meter (6/8, 12/8: groups of three beats) is played on its beats: every note at
+  // full strength on a beat of the meter (the eighths of 6/8), ghost notes between them sparse,
+  // at most one per group of three in a bar (common practice: a 6/8 groove is written in
+  // eighths, the cymbal on each, kick on one, snare on four).
+  if (card.grouping && card.grouping.every((g) => g === 3))
+    for (let bar = 1; bar <= card.bars; bar++) {
+      const mine = hits.filter((h) => h.bar === bar);
+      for (const h of mine)
+        if (h.slot !== 0 && h.dynamic !== 'ghost')
+          out.push({
+            check: 'preset/compound-on-its-beats',
+            message: `${h.dynamic} ${h.voice} at ${grid.describe(h.index)}, between the beats of a compound meter`,
+          });
+      const ghosts = mine.filter((h) => h.dynamic === 'ghost').length;
+      if (ghosts > card.grouping.length)
+        out.push({
+          check: 'preset/compound-on-its-beats',
+          message: `bar ${bar} has ${ghosts} ghost notes, more than one per group of three`,
+        });
+    }
+
+  // A landing lets go: without a tension curve of the card's own, each landing bar (a phrase's
+  // landing, the resolution bar of an avoidDownbeat cycle of two bars or more) is no tenser than
+  // the other bars on average (common practice: tension builds toward the landing and releases
+  // on it). Re-measured by the oracle's own measure.
+  // A phrase's fill bar is a run, not the groove: the landing is weighed against the groove bars.
+  const landing = new Set<number>(plan.landingBars);
+  for (const [voice, bars] of plan.resolutionBars)
+    if (rulesOf(card, 'avoidDownbeat').some((r) => r.voice === voice && r.resolveEvery >= 2))
+      for (const bar of bars) landing.add(bar);
+  const groove = drill.bars.filter((b) => !landing.has(b.bar) && !plan.fillBars.includes(b.bar));
+  if (
+    rulesOf(card, 'tension').length === 0 &&
+    card.measure === 'lhl' &&
+    landing.size > 0 &&
+    groove.length > 0
+  ) {
+    const tension = new Map(drill.bars.map((b) => [b.bar, measuredTension(plan, b)]));
+    const others = groove.map((b) => tension.get(b.bar) ?? 0);
+    const mean = others.reduce((a, b) => a + b, 0) / others.length;
+    for (const bar of landing)
+      if ((tension.get(bar) ?? 0) > mean + 1e-9)
+        out.push({
+          check: 'preset/landing-releases',
+          message: `landing bar ${bar} measures ${tension.get(bar)}, tenser than the other bars' mean ${mean.toFixed(4)}`,
+        });
+  }
+
+  // A card says each rule once: the same rule twice is a slip (it changes nothing but reads as
+  // if it did).
+  const written = card.rules.map((r) => JSON.stringify(r));
+  written.forEach((r, i) => {
+    if (written.indexOf(r) !== i)
+      out.push({
+        check: 'preset/no-repeated-rule',
+        message: `rule ${i + 1} repeats rule ${written.indexOf(r) + 1}: ${r}`,
+      });
+  });
   return out;
 }

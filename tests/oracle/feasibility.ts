@@ -11,10 +11,9 @@
  *    allows (each voice at an instant takes a limb of its own);
  *
  * 5. a tension curve with two or more different targets, while every bar must sound the same: no
- *    slot anywhere is open to a fill (docs/engine.md, "Voice roles": fills go to anchor and
- *    embellishment voices only, embellishments only where the ostinato rests and off the
- *    downbeats kept free, toms only when a fillHoles rule names them, never on a euclid or
- *    polyrhythm voice) and the fixed notes repeat bar for bar; the rank order is strict, so equal
+ *    slot anywhere is open to a fill (docs/engine.md, "Voice roles": fills go to anchor voices
+ *    and to embellishment voices a fillHoles rule lists, embellishments only where the ostinato
+ *    rests and off the downbeats kept free, never on a euclid or polyrhythm voice) and the fixed notes repeat bar for bar; the rank order is strict, so equal
  *    bars cannot keep it;
  * 7. a phrase's fill bar whose fill beats are all taken by notes other rules fix (docs/engine.md,
  *    "Phrases": a fill keeps at least one slot free of other rules);
@@ -193,8 +192,6 @@ export function reasonAbout(plan: Plan): Feasibility {
   return { impossible: reasons, policy };
 }
 
-const TOMS = new Set<Voice>(['tomHigh', 'tomMid', 'tomFloor']);
-
 /** Slots where some fill voice may sound (docs/engine.md, "Voice roles"). */
 export function fillableSlots(plan: Plan): Set<number> {
   const { card, grid } = plan;
@@ -202,9 +199,8 @@ export function fillableSlots(plan: Plan): Set<number> {
   const named = new Set(rulesOf(card, 'fillHoles').flatMap((r) => r.voices));
   const fillable = card.voices.filter((v) => {
     const role = card.roles.get(v);
-    if (role !== 'anchor' && role !== 'embellishment') return false;
     if (plan.figureVoices.has(v)) return false;
-    return !TOMS.has(v) || named.has(v);
+    return role === 'anchor' || (role === 'embellishment' && named.has(v));
   });
   const embellishing = (v: Voice): boolean => card.roles.get(v) === 'embellishment' || named.has(v);
   const silentAt = new Set(plan.silent.map((x) => key(x.voice, x.index)));

@@ -113,8 +113,13 @@ export function barReaches(plan: Plan): { least: number; most: number }[] {
   const anchors = card.voices.filter(
     (v) => card.roles.get(v) === 'anchor' && !plan.figureVoices.has(v),
   );
+  // Embellishments fill only where a fillHoles rule lists them (docs/engine.md, "Voice roles").
+  const listed = new Set(rulesOf(card, 'fillHoles').flatMap((r) => r.voices));
   const handFills = card.voices.some(
-    (v) => isHand(v) && ['anchor', 'embellishment'].includes(card.roles.get(v) ?? ''),
+    (v) =>
+      isHand(v) &&
+      !plan.figureVoices.has(v) &&
+      (card.roles.get(v) === 'anchor' || (card.roles.get(v) === 'embellishment' && listed.has(v))),
   );
   const out: { least: number; most: number }[] = [];
   for (let bar = 1; bar <= card.bars; bar++) {

@@ -54,9 +54,9 @@ describe('backbeat', () => {
     expect(where(grid, rule({ bars: [2] })).map((p) => p.bar)).toEqual([2, 2]);
   });
 
-  // common practice: a tumbao-like bass figure, kick on the "a" of 1, "&" of 2, "a" of 3 and
-  // "&" of 4, written here as two shifted backbeat rules.
-  it('reproduces a Cuban-style bass figure with shifted backbeats', () => {
+  // An anticipated bass figure of our own (the anticipated-bass preset's): kick on the "a" of 1,
+  // "&" of 2, "a" of 3 and "&" of 4, written here as two shifted backbeat rules.
+  it('writes an anticipated bass figure with shifted backbeats', () => {
     const card = parseRuleCard({
       bars: 2,
       voices: ['kick', 'hihat'],
@@ -69,7 +69,7 @@ describe('backbeat', () => {
         { kind: 'avoidDownbeat', voice: 'kick' },
       ],
     });
-    const drill = generateDrill(card, 'tumbao');
+    const drill = generateDrill(card, 'anticipated');
     for (const bar of drill.bars) {
       const kicks = bar.hits.filter((h) => h.voice === 'kick').map((h) => [h.beat, h.slot]);
       expect(kicks).toEqual([

@@ -17,21 +17,21 @@ export function fillHolesOwners(card: RuleCard): Map<VoiceId, number> {
 }
 
 /**
- * Voices the density fill may use: anchors and embellishments, never a time-keeper or a colour,
- * and never a voice whose euclid or polyrhythm line would be blurred by extra notes.
+ * Voices the density fill may use: anchors (the kick moves under the groove), and embellishments
+ * only where a fillHoles rule lists them, so ghost notes appear only where the card asks for
+ * them (common practice: a written groove has no ghost notes unless the teacher adds them).
+ * Never a time-keeper or a colour, and never a voice whose euclid or polyrhythm line would be
+ * blurred by extra notes.
  */
 export function fillVoices(card: RuleCard): VoiceId[] {
   const lines = lineVoices(card);
   const named = fillHolesOwners(card);
   return card.voices.filter((voice) => {
     const role = card.roles[voice];
-    // Toms colour a groove only when a fillHoles rule asks for them (common practice).
-    if (TOMS.has(voice) && !named.has(voice)) return false;
-    return (role === 'anchor' || role === 'embellishment') && !lines.has(voice);
+    if (lines.has(voice)) return false;
+    return role === 'anchor' || (role === 'embellishment' && named.has(voice));
   });
 }
-
-const TOMS: ReadonlySet<VoiceId> = new Set<VoiceId>(['tomHigh', 'tomMid', 'tomFloor']);
 
 /**
  * Voices filled as embellishments: ghosted by default, only in the holes of the ostinato, never

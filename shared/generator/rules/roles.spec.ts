@@ -65,11 +65,29 @@ describe('voice roles', () => {
     }
   });
 
+  it('adds no embellishment that no fillHoles rule asks for; density still moves the kick', () => {
+    const card = parseRuleCard({
+      ostinato: { voice: 'hihat', slots: [0, 2] },
+      density: 1,
+      rules: [{ kind: 'backbeat', voice: 'snare', beats: [2, 4] }],
+    });
+    for (const seed of SEEDS) {
+      const drill = generateDrill(card, seed);
+      expect(hitsOf(drill, (h) => h.voice === 'snare' && h.source === 'fill')).toEqual([]);
+      expect(
+        hitsOf(drill, (h) => h.voice === 'kick' && h.source === 'fill').length,
+      ).toBeGreaterThan(0);
+    }
+  });
+
   it('ghosts embellishments, keeps them in the holes and off the downbeats kept free', () => {
     const card = parseRuleCard({
       ostinato: { voice: 'hihat', slots: [0, 2] },
       density: 1,
-      rules: [{ kind: 'avoidDownbeat', voice: 'kick', resolveEvery: 2 }],
+      rules: [
+        { kind: 'avoidDownbeat', voice: 'kick', resolveEvery: 2 },
+        { kind: 'fillHoles', voices: ['snare'], ghost: 1, accent: 0 },
+      ],
     });
     for (const seed of SEEDS) {
       const drill = generateDrill(card, seed);
