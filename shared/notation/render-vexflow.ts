@@ -16,7 +16,8 @@ import {
   type SVGContext,
   type Tuplet,
 } from 'vexflow/core';
-import { drawBeatTexts, STICKING_LINE } from './beat-texts';
+import { countSize, drawBeatTexts, STICKING_LINE } from './beat-texts';
+import { SYLLABLE_SIZE } from './count-positions';
 import { countPositions } from './count-positions';
 import { EngravingContext, withFastEngraving } from './engraving-context';
 import { drawHeaderMarks, layoutHeaderMarks } from './header-marks';
@@ -194,12 +195,13 @@ function engrave(
   const instants = new Map<string, InstantBox>();
   const bands: SystemBand[] = [];
   const hasPolyrhythmAbove = model.polyrhythms.some((g) => !g.below);
-  plans.forEach((plan, systemIndex) => {
-    const systemTop = head + systemIndex * (systemHeight + gap + separation);
-    const topLineY = systemTop + sticking + HEADROOM;
-    let x = MARGIN_X + (systemIndex === 0 ? legend : 0);
-    if (systemIndex === 0 && keyBeside)
-      drawLegend(ctx, model, MARGIN_X, topLineY - STAVE_TOP_OFFSET, ink);
+  const systemTopOf = (systemIndex: number) =>
+    head + systemIndex * (systemHeight + gap + separation);
+  // Every system is formatted before anything is drawn, so the whole score's counting can be set
+  // in one size (the smallest its bars need).
+  const systemStaves = plans.map((plan, systemIndex) => {
+    const topLineY = systemTopOf(systemIndex) + sticking + HEADROOM;
+    const x = MARGIN_X + (systemIndex === 0 ? legend : 0);
     // The system's bars are formatted first, so its tuplet brackets can share one line and its
     // sticking can sit just over its highest mark, close to its own staff.
     let staveX = x;
@@ -222,8 +224,27 @@ function engrave(
       formatBar(engravedBars[barIndex]!, stave);
       return stave;
     });
+    levelTuplets(plan.bars.map((barIndex) => engravedBars[barIndex]!));
+    return staves;
+  });
+  const syllableSize = showCounts
+    ? Math.min(
+        SYLLABLE_SIZE,
+        ...plans.flatMap((plan, s) =>
+          plan.bars.map((barIndex, i) =>
+            countSize(model.bars[barIndex]!, engravedBars[barIndex]!, systemStaves[s]![i]!),
+          ),
+        ),
+      )
+    : SYLLABLE_SIZE;
+  plans.forEach((plan, systemIndex) => {
+    const systemTop = systemTopOf(systemIndex);
+    const topLineY = systemTop + sticking + HEADROOM;
+    let x = MARGIN_X + (systemIndex === 0 ? legend : 0);
+    if (systemIndex === 0 && keyBeside)
+      drawLegend(ctx, model, MARGIN_X, topLineY - STAVE_TOP_OFFSET, ink);
+    const staves = systemStaves[systemIndex]!;
     const systemBars = plan.bars.map((barIndex) => engravedBars[barIndex]!);
-    levelTuplets(systemBars);
     const ceiling = Math.min(
       highestMark(systemBars, topLineY),
       hasPolyrhythmAbove ? topLineY - POLYRHYTHM_ABOVE - POLYRHYTHM_LABEL : Infinity,
@@ -235,7 +256,7 @@ function engrave(
       const stave = staves[i]!;
       const engraved = engravedBars[barIndex]!;
       if (showTension) colourSyncopations(bar, engraved, TENSION_INK);
-      drawBar(ctx, bar, engraved, stave, options, topLineY, stickingY);
+      drawBar(ctx, bar, engraved, stave, options, topLineY, stickingY, syllableSize);
       if (showTension)
         drawTensionMarks(
           ctx,
@@ -486,6 +507,7 @@ function drawBar(
   options: RenderOptions,
   topLineY: number,
   stickingY: number,
+  syllableSize: number,
 ): void {
   const group = ctx.openGroup();
   group.setAttribute('class', 'tensile-bar');
@@ -514,6 +536,7 @@ function drawBar(
   drawBeatTexts(ctx, bar, engraved, stave, {
     stickingY: options.showSticking ? stickingY : null,
     countsY: options.showCounts ? topLineY + 4 * STAVE_SPACE + FOOTROOM + 16 : null,
+    countSize: syllableSize,
   });
   ctx.closeGroup();
 }

@@ -293,6 +293,9 @@ describe('drill page notation (Chromium)', () => {
 });
 
 /** A built-in preset's drill, optionally lengthened. */
+/** Least clear space between two syllables that meet at a bar line, in pixels. */
+const MIN_COUNT_GAP = 6;
+
 function presetDrill(id: string, seed: string, bars?: number): Drill {
   const preset = BUILT_IN_PRESETS.find((p) => p.id === id);
   if (!preset) throw new Error(`no preset ${id}`);
@@ -593,6 +596,65 @@ describe('engraving rules on the drawn score (Chromium)', () => {
       expect(bracket.right - last.right).toBeLessThan(8);
     }
   });
+
+  /** The written heads at each instant of the drawn score, keyed `bar:beat:slot`. */
+  function headsAt(score: ScoreGeometry): Map<string, { left: number; right: number }> {
+    const heads = new Map<string, { left: number; right: number }>();
+    for (const bar of score.bars)
+      for (const layer of ['hands', 'feet'] as const)
+        for (const e of bar.layers[layer].events) {
+          if (e.kind !== 'note' || e.box === null) continue;
+          const key = `${bar.bar}:${e.beat}:${e.slot}`;
+          const known = heads.get(key);
+          heads.set(key, {
+            left: Math.min(e.box.left, known?.left ?? Infinity),
+            right: Math.max(e.box.right, known?.right ?? -Infinity),
+          });
+        }
+    return heads;
+  }
+
+  for (const [id, seed] of [
+    ['cuban-style-bass', 'lesson-12'],
+    ['four-over-three', 'lesson-12'],
+    ['early-backbeat', 'harbor-spark-21'],
+    ['quintuplets-hihat-1-3-4', 'lesson-12'],
+  ] as const) {
+    it(`sets each counting syllable of ${id} under the note it counts, apart at bar lines`, async () => {
+      const drill = presetDrill(id, seed);
+      for (const width of [1100, 390]) {
+        const score = await engrave(drill, { width, ...FULL });
+        const heads = headsAt(score);
+        // Common practice: the count is read as the rhythm's own words, each syllable under
+        // the note it names, so a sounding syllable's centre lies within its notehead.
+        const astray = score.counts.flatMap((c) => {
+          const head = heads.get(`${c.bar}:${c.beat}:${c.slot}`);
+          if (!head) return [];
+          const centre = (c.left + c.right) / 2;
+          return centre >= head.left - 1 && centre <= head.right + 1
+            ? []
+            : [
+                `${c.text} bar ${c.bar} beat ${c.beat} slot ${c.slot}: ${Math.round(centre)} vs ${Math.round(head.left)}..${Math.round(head.right)}`,
+              ];
+        });
+        expect(astray, `${id} at ${width} px: syllables off their notes`).toEqual([]);
+        // Across a bar line the last syllable of a bar and the first of the next keep a clear
+        // gap, so "a" and "1" never read as one word "a1" (common practice).
+        const tight: string[] = [];
+        for (const bar of score.bars) {
+          const next = score.bars.find((b) => b.bar === bar.bar + 1 && b.topLineY === bar.topLineY);
+          if (!next) continue;
+          const own = score.counts.filter((c) => c.bar === bar.bar);
+          const theirs = score.counts.filter((c) => c.bar === next.bar);
+          const last = Math.max(...own.map((c) => c.right));
+          const first = Math.min(...theirs.map((c) => c.left));
+          if (first - last < MIN_COUNT_GAP)
+            tight.push(`bars ${bar.bar}|${next.bar}: ${(first - last).toFixed(1)} px`);
+        }
+        expect(tight, `${id} at ${width} px: syllables run together at a bar line`).toEqual([]);
+      }
+    });
+  }
 
   it('prints the title and the tempo mark above the first system of a 16-bar drill', async () => {
     const drill = presetDrill('tension-and-release', 'lesson-12', 16);
