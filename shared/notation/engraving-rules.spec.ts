@@ -95,14 +95,22 @@ describe('tuplets', () => {
     }
   });
 
-  it('writes a shuffle\'s "3" once, then "sim.", on one voice only', () => {
+  it('writes a shuffle\'s "3" once in each voice, then "sim."', () => {
     const drill = generateDrill(parseRuleCard(preset('shuffle-kick-upbeats').card), 'lesson-12');
-    const tuplets = buildNotation(drill).bars.flatMap((bar) =>
-      bar.layers.flatMap((layer) => layer.tuplets),
-    );
-    expect(tuplets.length).toBeGreaterThan(4);
-    expect(tuplets.filter((t) => t.shown)).toHaveLength(1);
-    expect(tuplets[0]).toMatchObject({ shown: true, simile: true });
+    const bars = buildNotation(drill).bars;
+    for (const name of ['hands', 'feet'] as const) {
+      const tuplets = bars.flatMap((bar) =>
+        bar.layers.filter((l) => l.layer === name).flatMap((layer) => layer.tuplets),
+      );
+      expect(tuplets.length, name).toBeGreaterThan(4);
+      // Gould, "Behind Bars", ch. "Tuplets" (from memory): the bracket is dropped once the
+      // pattern is established in the part; each voice is its own part here.
+      expect(
+        tuplets.filter((t) => t.shown),
+        name,
+      ).toHaveLength(1);
+      expect(tuplets[0], name).toMatchObject({ shown: true, simile: true });
+    }
   });
 
   it('keeps every bracket where tuplets come and go (a drill not in triplets throughout)', () => {

@@ -490,13 +490,20 @@ describe('engraving rules on the drawn score (Chromium)', () => {
     }
   });
 
-  it('writes a shuffle\'s "3" once, then "sim."', async () => {
+  it('writes a shuffle\'s "3" once in each voice, then "sim."', async () => {
     const score = await engrave(presetDrill('shuffle-kick-upbeats', 'lesson-12'), {
       width: 1100,
       ...FULL,
     });
-    expect(score.shownTuplets).toBe(1);
-    expect(score.simile).toBe(1);
+    // Each voice gets its own "3" then "sim.": a marking over the hands alone says nothing of
+    // the kick's rhythm (E. Gould, "Behind Bars", Faber Music 2011, ch. "Tuplets", from memory:
+    // brackets are dropped only once the pattern is established in that part).
+    for (const layer of ['hands', 'feet'] as const) {
+      const shown = score.bars.flatMap((b) => b.layers[layer].tuplets);
+      expect(shown, `${layer}: one "3"`).toHaveLength(1);
+    }
+    expect(score.shownTuplets).toBe(2);
+    expect(score.simile).toBe(2);
   });
 
   it('shows one whole-bar rest, centred, where a voice is silent for a bar', async () => {
