@@ -21,7 +21,7 @@ import { SYLLABLE_SIZE } from './count-positions';
 import { countPositions } from './count-positions';
 import { EngravingContext, withFastEngraving } from './engraving-context';
 import { drawHeaderMarks, layoutHeaderMarks } from './header-marks';
-import { drawLegend, legendWidth } from './legend';
+import { drawLegend, legendHeight } from './legend';
 import { svgText } from './svg-text';
 import { drawPolyrhythmBrackets, type InstantBox, type SystemBand } from './polyrhythm-brackets';
 import {
@@ -148,19 +148,14 @@ function engrave(
     naturalBarWidth(bar, tightest[i]!, model, showCounts),
   );
   const systemStartWidth = systemStartWidths(model);
-  // The key stands beside the first system where the line still holds a bar beside it; on a
-  // narrow line (a phone) it gets a band of its own above, so the bars keep the whole width.
-  const keyWidth = showLegend ? legendWidth(model) : 0;
-  const keyBeside =
-    showLegend &&
-    options.width - 2 * MARGIN_X - keyWidth >= systemStartWidth(0) + (barWidths[0] ?? 0);
-  const legend = keyBeside ? keyWidth : 0;
-  const keyBand = showLegend && !keyBeside ? KEY_BAND : 0;
+  // The key has a band of its own above the first system (see legend.ts), so every system,
+  // the first too, gives its whole width to the bars.
+  const keyBand = showLegend ? legendHeight(model, options.width - 2 * MARGIN_X) + KEY_GAP : 0;
   const plans = planSystems({
     barWidths,
     minBarWidths: model.bars.map((bar, i) => leastBarWidth(bar, tightest[i]!, model, showCounts)),
     systemStartWidth,
-    lineWidth: (i) => options.width - 2 * MARGIN_X - (i === 0 ? legend : 0),
+    lineWidth: () => options.width - 2 * MARGIN_X,
     maxBarsPerSystem: options.maxBarsPerSystem ?? 4,
   });
   // Two hands at once stack their letters: a second line of sticking where the drill has them.
@@ -173,16 +168,11 @@ function engrave(
   const gap = options.gapBelowSystem ?? 0;
   // Air between one system's counting and the next one's sticking, so each reads with its own.
   const separation = options.showSticking ? SYSTEM_SEPARATION : 0;
-  // The marks start over the first bar (the key, if drawn, stays to their left); a line too
-  // narrow for them all puts the swing marking on a line of its own.
+  // The marks start at the margin, over the first bar; a line too narrow for them all puts the
+  // swing marking on a line of its own.
   const shown = (options.showMarks ?? true) ? model.marks : { tempo: null, swing: null };
-  let marksX = MARGIN_X + legend;
-  let marks = layoutHeaderMarks(shown, options.width - MARGIN_X - marksX);
-  if (marks.width > options.width - MARGIN_X - marksX) {
-    // Not even one mark a line fits beside the key: start them at the margin instead.
-    marksX = MARGIN_X;
-    marks = layoutHeaderMarks(shown, options.width - 2 * MARGIN_X);
-  }
+  const marksX = MARGIN_X;
+  const marks = layoutHeaderMarks(shown, options.width - 2 * MARGIN_X);
   const boxes: BarBox[] = [];
   const title = drawTitle(ctx, options.title ?? null, options.width);
   drawHeaderMarks(ctx, shown, marks, marksX, title);
@@ -191,7 +181,8 @@ function engrave(
   if (showTension)
     drawTensionLegend(ctx, marksX, title + marks.height + tensionKey - 8, TENSION_INK);
   const head = title + marks.height + tensionKey + keyBand;
-  if (keyBand > 0) drawLegend(ctx, model, MARGIN_X, head - keyBand + KEY_BAND_STAVE_Y, ink);
+  if (keyBand > 0)
+    drawLegend(ctx, model, MARGIN_X, head - keyBand, options.width - 2 * MARGIN_X, ink);
   const instants = new Map<string, InstantBox>();
   const bands: SystemBand[] = [];
   const hasPolyrhythmAbove = model.polyrhythms.some((g) => !g.below);
@@ -201,7 +192,7 @@ function engrave(
   // in one size (the smallest its bars need).
   const systemStaves = plans.map((plan, systemIndex) => {
     const topLineY = systemTopOf(systemIndex) + sticking + HEADROOM;
-    const x = MARGIN_X + (systemIndex === 0 ? legend : 0);
+    const x = MARGIN_X;
     // The system's bars are formatted first, so its tuplet brackets can share one line and its
     // sticking can sit just over its highest mark, close to its own staff.
     let staveX = x;
@@ -240,9 +231,7 @@ function engrave(
   plans.forEach((plan, systemIndex) => {
     const systemTop = systemTopOf(systemIndex);
     const topLineY = systemTop + sticking + HEADROOM;
-    let x = MARGIN_X + (systemIndex === 0 ? legend : 0);
-    if (systemIndex === 0 && keyBeside)
-      drawLegend(ctx, model, MARGIN_X, topLineY - STAVE_TOP_OFFSET, ink);
+    let x = MARGIN_X;
     const staves = systemStaves[systemIndex]!;
     const systemBars = plan.bars.map((barIndex) => engravedBars[barIndex]!);
     const ceiling = Math.min(
@@ -422,9 +411,8 @@ function leastBarWidth(
 /** Least room per counted slot: a two-letter syllable at 10 px with a gap. */
 const LEAST_COUNT_ROOM = 14;
 
-/** The key's own band above the first system on a narrow line, and its stave's y in it. */
-const KEY_BAND = 176;
-const KEY_BAND_STAVE_Y = 6;
+/** Space between the key's band and the first system's band. */
+const KEY_GAP = 8;
 
 /** Room for what opens a system: the clef on every system, the time signature on the first. */
 function systemStartWidths(model: NotationModel): (systemIndex: number) => number {

@@ -679,6 +679,35 @@ describe('engraving rules on the drawn score (Chromium)', () => {
     });
   }
 
+  it('sets the voice key apart from the music: a "Key" heading, no staff of its own', async () => {
+    for (const [id, seed] of [
+      ['early-backbeat', 'harbor-spark-21'],
+      ['quintuplets-hihat-1-3-4', 'lesson-12'],
+      ['four-over-three', 'lesson-12'],
+    ] as const) {
+      const drill = presetDrill(id, seed);
+      for (const width of [1100, 390]) {
+        const score = await engrave(drill, { width, ...FULL });
+        const review = process.env['TENSILE_REVIEW_DIR'];
+        if (review)
+          await page.locator('#score').screenshot({ path: `${review}/${id}-${width}.png` });
+        const what = `${id} at ${width} px`;
+        const key = score.legend;
+        expect(key, what).not.toBeNull();
+        // Common practice: an instrument key is labelled as one and set apart from the bars,
+        // never as a bar of notes on a staff beside the first system, which reads as music.
+        expect(key!.heading, what).toBe('Key');
+        expect(key!.staffLines, `${what}: staff lines as long as a bar's`).toBe(0);
+        const firstTop = Math.min(...score.bars.map((b) => b.topLineY));
+        expect(key!.bottom, `${what}: the key above the first system`).toBeLessThan(firstTop);
+        expect(key!.right, what).toBeLessThanOrEqual(width);
+        // The first system keeps the whole line for its bars.
+        const firstLeft = Math.min(...score.bars.map((b) => b.left));
+        expect(firstLeft, what).toBeLessThan(20);
+      }
+    }
+  });
+
   it('prints the title and the tempo mark above the first system of a 16-bar drill', async () => {
     const drill = presetDrill('tension-and-release', 'lesson-12', 16);
     for (const width of [1100, 390]) {
