@@ -45,6 +45,14 @@ export interface RenderOptions {
   /** Room left free under every system for the host (e.g. tension plots), in pixels. */
   readonly gapBelowSystem?: number;
   readonly maxBarsPerSystem?: number;
+  /**
+   * Least room per written note and per counted slot, in pixels (defaults 22 and 16, a
+   * screen's; print sets them closer, see `PRINT_LAYOUT`).
+   */
+  readonly noteRoom?: number;
+  readonly countRoom?: number;
+  /** Room beyond VexFlow's tightest setting of a bar, as a factor (default 1.2). */
+  readonly air?: number;
   /** Colour of everything drawn (default black; `currentColor` follows the page's text colour). */
   readonly ink?: string;
   /**
@@ -144,9 +152,12 @@ function engrave(
   const showCounts = options.showCounts ?? false;
   // Each bar's tightest setting, measured once (VexFlow formats the bar to measure it).
   const tightest = engravedBars.map(minimumBarWidth);
-  const barWidths = model.bars.map((bar, i) =>
-    naturalBarWidth(bar, tightest[i]!, model, showCounts),
-  );
+  const room = {
+    note: options.noteRoom ?? NOTE_ROOM,
+    count: showCounts ? (options.countRoom ?? COUNT_SLOT_ROOM) : 0,
+    air: options.air ?? 1.2,
+  };
+  const barWidths = model.bars.map((bar, i) => naturalBarWidth(bar, tightest[i]!, model, room));
   const systemStartWidth = systemStartWidths(model);
   // The key has a band of its own above the first system (see legend.ts), so every system,
   // the first too, gives its whole width to the bars.
@@ -377,7 +388,7 @@ function naturalBarWidth(
   bar: NotationBar,
   measured: number,
   model: NotationModel,
-  showCounts: boolean,
+  room: { readonly note: number; readonly count: number; readonly air: number },
 ): number {
   // Written events per beat (in whichever voice writes more there), summed over the bar.
   const notes = bar.beats.reduce(
@@ -386,12 +397,17 @@ function naturalBarWidth(
       Math.max(...bar.layers.map((l) => l.events.filter((e) => e.beat === beat.beat).length), 1),
     0,
   );
-  const counted = showCounts ? bar.beats.reduce((n, beat) => n + beat.subdivision, 0) : 0;
-  // Room to breathe beyond the tightest setting, never under ~22 px a note, and room for the count.
+  const counted = bar.beats.reduce((n, beat) => n + beat.subdivision, 0);
+  // Room to breathe beyond the tightest setting, never under the least room a note, and room
+  // for the count.
   return (
-    Math.max(measured * 1.2, notes * 22, counted * COUNT_SLOT_ROOM, model.meter.beats * 40) + 20
+    Math.max(measured * room.air, notes * room.note, counted * room.count, model.meter.beats * 40) +
+    20
   );
 }
+
+/** Least room per written note on a screen, in pixels. */
+const NOTE_ROOM = 22;
 
 /**
  * The least a bar may be set in when a line holds only it and it would not fit otherwise: its

@@ -11,6 +11,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { isHandVoice } from '../../shared/generator/drill';
 import { generateDrill, parseRuleCard, type Drill } from '../../shared/generator/index';
 import { BUILT_IN_PRESETS } from '../../shared/generator/presets/index';
+import { PRINT_LAYOUT } from '../../shared/notation/print-layout';
 import { buildNotation, type NotationSource } from '../../shared/notation/notation-model';
 import type { RenderOptions } from '../../shared/notation/render-vexflow';
 import {
@@ -706,6 +707,40 @@ describe('engraving rules on the drawn score (Chromium)', () => {
         expect(firstLeft, what).toBeLessThan(20);
       }
     }
+  });
+
+  it('sets four bars of sixteenths on each printed system, justified, none squeezed', async () => {
+    const drill = presetDrill('early-backbeat', 'harbor-spark-21', 24);
+    const score = await engrave(drill, { ...PRINT_LAYOUT, ...FULL });
+    const { width } = PRINT_LAYOUT;
+    const review = process.env['TENSILE_REVIEW_DIR'];
+    if (review) await page.locator('#score').screenshot({ path: `${review}/print-24-bars.png` });
+    const systems = [...new Set(score.bars.map((b) => b.topLineY))].map((y) =>
+      score.bars.filter((b) => b.topLineY === y),
+    );
+    // Common practice: four bars of sixteenths to a system on A4 or US Letter.
+    expect(systems.map((s) => s.length)).toEqual([4, 4, 4, 4, 4, 4]);
+    // Systems fill the line alike: every one ends at the same right edge, inside the page.
+    const rights = systems.map((s) => Math.max(...s.map((b) => b.right)));
+    expect(Math.max(...rights) - Math.min(...rights)).toBeLessThan(1);
+    expect(Math.max(...rights)).toBeLessThanOrEqual(width);
+    expect(Math.max(...rights)).toBeGreaterThan(width - 40);
+    // Nothing squeezed: the heads of one voice keep clear air between them (each bar is widened
+    // from its natural width in proportion to its content, never narrowed).
+    for (const bar of score.bars) {
+      for (const layer of ['hands', 'feet'] as const) {
+        const boxes = bar.layers[layer].events
+          .flatMap((e) => (e.box ? [e.box] : []))
+          .sort((a, b) => a.left - b.left);
+        for (let i = 1; i < boxes.length; i++)
+          expect(boxes[i]!.left - boxes[i - 1]!.right, `bar ${bar.bar} ${layer}`).toBeGreaterThan(
+            2,
+          );
+      }
+    }
+    expect(collisions(score.counts)).toEqual([]);
+    expect(crowded(score.counts, 2)).toEqual([]);
+    expect(collisions(score.sticking)).toEqual([]);
   });
 
   it('prints the title and the tempo mark above the first system of a 16-bar drill', async () => {
