@@ -10,12 +10,12 @@
  */
 export const PRINT_LAYOUT = {
   /** The line the score is engraved on, in pixels at the renderer's scale. */
-  width: 1240,
+  width: 1280,
   /** Least room per written note on paper, in pixels at the renderer's scale. */
   noteRoom: 15,
   /** Least room per counted slot on paper (a one-letter syllable with its gap). */
   countRoom: 14,
   /** Room beyond a bar's tightest setting (a screen's is 1.2). */
-  air: 1.05,
+  air: 1,
   maxBarsPerSystem: 4,
 } as const;

@@ -741,6 +741,15 @@ describe('engraving rules on the drawn score (Chromium)', () => {
     expect(collisions(score.counts)).toEqual([]);
     expect(crowded(score.counts, 2)).toEqual([]);
     expect(collisions(score.sticking)).toEqual([]);
+    // A four-bar drill prints on one system, whatever its seed (time signature included).
+    for (const seed of ['handout-1', 'lesson-12', 'harbor-spark-21', 'print-check']) {
+      const short = await engrave(presetDrill('early-backbeat', seed), {
+        ...PRINT_LAYOUT,
+        ...FULL,
+      });
+      expect(new Set(short.bars.map((b) => b.topLineY)).size, seed).toBe(1);
+      expect(short.bars).toHaveLength(4);
+    }
   });
 
   it('prints the title and the tempo mark above the first system of a 16-bar drill', async () => {
