@@ -21,10 +21,15 @@ import type { NotationModel } from './notation-model';
 import { STAFF_PLACEMENTS, vexKeyOf } from './staff-placement';
 import { svgText } from './svg-text';
 
+/**
+ * The key is drawn at this share of the music's size: a compact line that reads as a caption,
+ * not as music, and takes no more height than the tempo mark beside it.
+ */
+const KEY_SCALE = 0.7;
 /** Width of the staff fragment under each voice's notehead. */
 const FRAGMENT = 30;
-const LABEL_SIZE = 12;
-const HEADING_SIZE = 13;
+const LABEL_SIZE = 15;
+const HEADING_SIZE = 16;
 /** Average advance of the key's font per character, as a share of its size (a safe over-estimate). */
 const CHAR_WIDTH = 0.56;
 /** Space between a fragment and its name, and after each name. */
@@ -34,11 +39,26 @@ const ITEM_GAP = 18;
 const HEADING_ROOM = 44;
 /**
  * Height of one line of the key: the fragment's staff (4 spaces) with room above for a crash's
- * ledger line and an up-stem, and below for the kick's down-stem.
+ * ledger line. The heads stand without stems: the key names positions and noteheads, and stems
+ * would double its height.
  */
-const ROW_HEIGHT = 104;
-/** The fragment's top line lies this far under its line's top. */
-const TOP_LINE = 44;
+/** The most one key line takes. */
+const ROW_HEIGHT = 64;
+/** Pixels a staff step (half a space) takes, and the steps from the middle to the top line. */
+const STEP = 5;
+const TOP_STEPS = 4;
+
+/**
+ * The room a key line needs above its top line and under its bottom line: only as much as its
+ * highest and lowest heads take (a crash's ledger line above, a pedal under), so a key of voices
+ * on the staff stays a slim line.
+ */
+function rowMetrics(model: NotationModel): { top: number; height: number } {
+  const positions = model.voices.map((v) => STAFF_PLACEMENTS[v].position);
+  const above = Math.max(0, (Math.max(...positions) - TOP_STEPS) * STEP + STEP) + 2;
+  const below = Math.max(0, (-TOP_STEPS - Math.min(...positions)) * STEP + STEP) + 2;
+  return { top: above, height: Math.min(ROW_HEIGHT, above + 8 * STEP + below) };
+}
 /** VexFlow places a stave's top line this far under its y. */
 const STAVE_TOP_OFFSET = 40;
 
@@ -73,9 +93,16 @@ function linesOf(model: NotationModel, width: number): KeyItem[][] {
   return lines;
 }
 
+/** Width of the key set on one line. */
+export function legendLineWidth(model: NotationModel): number {
+  return (
+    KEY_SCALE * (itemsOf(model).reduce((sum, item) => sum + item.width, HEADING_ROOM) - ITEM_GAP)
+  );
+}
+
 /** Height the key takes on a line `width` pixels wide. */
 export function legendHeight(model: NotationModel, width: number): number {
-  return linesOf(model, width).length * ROW_HEIGHT;
+  return KEY_SCALE * linesOf(model, width / KEY_SCALE).length * rowMetrics(model).height;
 }
 
 /** Draw the key in the band from (x, top), `width` pixels wide. */
@@ -93,9 +120,14 @@ export function drawLegend(
     'aria-label',
     `Voice key: ${model.voices.map((v) => STAFF_PLACEMENTS[v].label).join(', ')}`,
   );
-  linesOf(model, width).forEach((line, row) => {
-    const lineTop = top + row * ROW_HEIGHT;
-    const middle = lineTop + TOP_LINE + 20;
+  const scaled = ctx.openGroup();
+  scaled.setAttribute('transform', `translate(${x} ${top}) scale(${KEY_SCALE})`);
+  x = 0;
+  top = 0;
+  linesOf(model, width / KEY_SCALE).forEach((line, row) => {
+    const metrics = rowMetrics(model);
+    const lineTop = top + row * metrics.height;
+    const middle = lineTop + metrics.top + 20;
     if (row === 0) {
       const heading = svgText(ctx, 'Key', x, middle + 5, 'tensile-legend-heading', {
         size: HEADING_SIZE,
@@ -106,7 +138,7 @@ export function drawLegend(
     }
     let itemX = x + HEADING_ROOM;
     for (const item of line) {
-      drawItem(ctx, item, itemX, lineTop + TOP_LINE - STAVE_TOP_OFFSET, ink);
+      drawItem(ctx, item, itemX, lineTop + metrics.top - STAVE_TOP_OFFSET, ink);
       svgText(ctx, item.label, itemX + FRAGMENT + LABEL_GAP, middle + 4, 'tensile-legend-label', {
         size: LABEL_SIZE,
         anchor: 'start',
@@ -115,9 +147,10 @@ export function drawLegend(
     }
   });
   ctx.closeGroup();
+  ctx.closeGroup();
 }
 
-/** One voice's notehead on its own staff fragment, stem as in the music. */
+/** One voice's notehead on its own staff fragment, without a stem. */
 function drawItem(ctx: SVGContext, item: KeyItem, x: number, staveY: number, ink: string): void {
   const placement = STAFF_PLACEMENTS[item.voice];
   const stave = new Stave(x, staveY, FRAGMENT, { leftBar: false, rightBar: false });
@@ -131,6 +164,7 @@ function drawItem(ctx: SVGContext, item: KeyItem, x: number, staveY: number, ink
     clef: 'percussion',
     stemDirection: placement.stem === 'up' ? Stem.UP : Stem.DOWN,
   });
+  note.getStem()?.setVisibility(false);
   if (placement.mark === 'open') note.addModifier(new Ornament('plungerOpen'));
   const voice = new Voice({ numBeats: 1, beatValue: 4 }).setMode(VoiceMode.SOFT);
   voice.addTickables([note]);

@@ -21,7 +21,7 @@ import { SYLLABLE_SIZE } from './count-positions';
 import { countPositions } from './count-positions';
 import { EngravingContext, withFastEngraving } from './engraving-context';
 import { drawHeaderMarks, layoutHeaderMarks } from './header-marks';
-import { drawLegend, legendHeight } from './legend';
+import { drawLegend, legendHeight, legendLineWidth } from './legend';
 import { svgText } from './svg-text';
 import { drawPolyrhythmBrackets, type InstantBox, type SystemBand } from './polyrhythm-brackets';
 import {
@@ -161,7 +161,6 @@ function engrave(
   const systemStartWidth = systemStartWidths(model);
   // The key has a band of its own above the first system (see legend.ts), so every system,
   // the first too, gives its whole width to the bars.
-  const keyBand = showLegend ? legendHeight(model, options.width - 2 * MARGIN_X) + KEY_GAP : 0;
   const plans = planSystems({
     barWidths,
     minBarWidths: model.bars.map((bar, i) => leastBarWidth(bar, tightest[i]!, model, showCounts)),
@@ -191,9 +190,21 @@ function engrave(
   const tensionKey = showTension ? TENSION_LEGEND_HEIGHT : 0;
   if (showTension)
     drawTensionLegend(ctx, marksX, title + marks.height + tensionKey - 8, TENSION_INK);
+  // The key stands at the right of the marks' line where both fit (as a part's key sits at the
+  // top right of its page; from memory), else in a band of its own under the marks.
+  const line = options.width - 2 * MARGIN_X;
+  const keyLine = showLegend ? legendLineWidth(model) : 0;
+  const keyBesideMarks = showLegend && !showTension && marks.width + KEY_GAP_X + keyLine <= line;
+  // One line of key when beside the marks (it fits the line), as many as it needs under them.
+  const keyHeight = showLegend ? legendHeight(model, line) : 0;
+  const keyBand = !showLegend
+    ? 0
+    : keyBesideMarks
+      ? Math.max(0, keyHeight - marks.height)
+      : keyHeight + KEY_GAP;
   const head = title + marks.height + tensionKey + keyBand;
-  if (keyBand > 0)
-    drawLegend(ctx, model, MARGIN_X, head - keyBand, options.width - 2 * MARGIN_X, ink);
+  if (keyBesideMarks) drawLegend(ctx, model, options.width - MARGIN_X - keyLine, title, line, ink);
+  else if (showLegend) drawLegend(ctx, model, MARGIN_X, head - keyBand, line, ink);
   const instants = new Map<string, InstantBox>();
   const bands: SystemBand[] = [];
   const hasPolyrhythmAbove = model.polyrhythms.some((g) => !g.below);
@@ -427,8 +438,9 @@ function leastBarWidth(
 /** Least room per counted slot: a two-letter syllable at 10 px with a gap. */
 const LEAST_COUNT_ROOM = 14;
 
-/** Space between the key's band and the first system's band. */
+/** Space between the key's band and the first system's band, and between the marks and the key. */
 const KEY_GAP = 8;
+const KEY_GAP_X = 24;
 
 /** Room for what opens a system: the clef on every system, the time signature on the first. */
 function systemStartWidths(model: NotationModel): (systemIndex: number) => number {
