@@ -246,10 +246,27 @@ describe('marks above the first system', () => {
     // Noteheads reach 0.56 staff space under the baseline (Bravura metadata): 24 px glyphs.
     expect(marksBaseline + 0.6 * 6).toBeLessThanOrEqual(band);
     const firstSystem = render.layout.bars.filter((b) => b.system === 0).map((b) => b.bar);
-    const groups = [
-      ...firstSystem.map((bar) => swingDoc.querySelector(`.tensile-bar[data-bar="${bar}"]`)!),
-      swingDoc.querySelector('.tensile-legend')!,
-    ];
+    const groups = firstSystem.map((bar) =>
+      swingDoc.querySelector(`.tensile-bar[data-bar="${bar}"]`)!,
+    );
+    expect(highestOf(groups)).toBeGreaterThanOrEqual(band);
+    // The voice key stands at the right of the marks' line (the tempo mark at the left margin),
+    // a compact line whose staff fragments end above the first system's band.
+    const key = swingDoc.querySelector('.tensile-legend > g[transform]')!;
+    const [, kx, ky, scale] = /translate\(([\d.]+) ([\d.]+)\) scale\(([\d.]+)\)/
+      .exec(key.getAttribute('transform') ?? '')!
+      .map(Number);
+    expect(kx).toBeGreaterThan(1000 / 2);
+    const tempoX = Number(swingDoc.querySelector('.tensile-marks text')?.getAttribute('x'));
+    expect(tempoX).toBeLessThan(1000 / 4);
+    for (const path of key.querySelectorAll('path'))
+      expect(ky! + scale! * Math.max(...pathYs(path.getAttribute('d') ?? ''))).toBeLessThanOrEqual(
+        band,
+      );
+  });
+
+  /** The highest y any text, rect or path of `groups` reaches. */
+  function highestOf(groups: readonly Element[]): number {
     let highest = Infinity;
     for (const group of groups) {
       for (const text of group.querySelectorAll('text')) {
@@ -265,8 +282,8 @@ describe('marks above the first system', () => {
         highest = Math.min(highest, ...pathYs(path.getAttribute('d') ?? ''));
       }
     }
-    expect(highest).toBeGreaterThanOrEqual(band);
-  });
+    return highest;
+  }
 
   it('moves the swing marking to a line of its own on a page too narrow for one line', () => {
     // At a phone's 390 px the voice key moves above the first system, which leaves the marks
@@ -289,7 +306,7 @@ describe('marks above the first system', () => {
     const straight = parse(renderDrillSvg(plainDrill).svg);
     expect(straight.querySelector('.tensile-tempo-mark')).not.toBeNull();
     expect(straight.querySelector('.tensile-swing-mark, .tensile-swing-words')).toBeNull();
-    const bare = renderDrillSvg(swingDrill, { width: 1000, showMarks: false });
+    const bare = renderDrillSvg(swingDrill, { width: 1000, showMarks: false, showLegend: false });
     expect(parse(bare.svg).querySelector('.tensile-marks')).toBeNull();
     expect(bare.layout.bars[0]!.systemTop).toBe(0);
   });

@@ -3,10 +3,20 @@
  * syllables under every slot of every beat.
  */
 import type { Stave, SVGContext } from 'vexflow/core';
-import { COUNT_ROOM, countPositions, spreadPositions, syllableSize } from './count-positions';
+import {
+  countPositions,
+  fittingSyllableSize,
+  spreadPositions,
+  SYLLABLE_GAP,
+  syllableGaps,
+  syllableWidth,
+} from './count-positions';
 import type { NotationBar } from './notation-model';
 import { SvgTextRow } from './svg-text';
 import type { EngravedBar } from './vexflow-bar';
+
+/** Clear space kept between a syllable and a bar line (half the gap between two bars' syllables). */
+const BAR_LINE_CLEARANCE = SYLLABLE_GAP;
 
 /** Syllables on slots where nothing sounds are printed lighter (still ≥ 4.5:1 on white). */
 const SILENT_COUNT_OPACITY = 0.55;
@@ -26,6 +36,8 @@ function instantX(engraved: EngravedBar): Map<string, number> {
 export interface TextRows {
   readonly stickingY: number | null;
   readonly countsY: number | null;
+  /** The counting syllables' size (see `countSize`). */
+  readonly countSize: number;
 }
 
 /** Sticking over the notes and the count under them, for one engraved and formatted bar. */
@@ -37,9 +49,9 @@ export function drawBeatTexts(
   rows: TextRows,
 ): void {
   const xs = instantX(engraved);
-  const { stickingY, countsY } = rows;
+  const { stickingY, countsY, countSize } = rows;
   if (stickingY !== null) drawSticking(ctx, bar, xs, stickingY);
-  if (countsY !== null) drawCounts(ctx, bar, xs, stave, countsY);
+  if (countsY !== null) drawCounts(ctx, bar, engraved, stave, countsY, countSize);
 }
 
 /** Sticking letters' size where they have room, and the smallest they shrink to. */
@@ -89,18 +101,17 @@ function drawSticking(
   }
 }
 
-/**
- * Every syllable of every beat, under its slot; lighter where nothing sounds. All syllables of
- * a bar share one size and each gets its slot's room, moved apart from a tightly set neighbour
- * where needed, so a silent syllable reads as clearly as a sounding one.
- */
-function drawCounts(
-  ctx: SVGContext,
-  bar: NotationBar,
-  xs: ReadonlyMap<string, number>,
-  stave: Stave,
-  y: number,
-): void {
+interface CountLayout {
+  /** The syllables' raw x in time order (slot by slot, beat by beat) and their texts. */
+  readonly raw: readonly number[];
+  readonly texts: readonly string[];
+  readonly positions: readonly (readonly number[])[];
+  /** The largest size at which the bar's syllables keep their gaps without moving. */
+  readonly size: number;
+}
+
+function layoutCounts(bar: NotationBar, engraved: EngravedBar, stave: Stave): CountLayout {
+  const xs = instantX(engraved);
   const anchors = bar.beats.map((beat) => {
     const written = new Map<number, number>();
     for (let slot = 0; slot < beat.subdivision; slot++) {
@@ -109,15 +120,53 @@ function drawCounts(
     }
     return { subdivision: beat.subdivision, written };
   });
-  const endX = stave.getNoteEndX();
-  const positions = countPositions(anchors, stave.getNoteStartX(), endX);
-  const flat = spreadPositions(
-    positions.flat(),
-    Math.min(stave.getNoteStartX(), positions[0]?.[0] ?? Infinity),
-    endX,
-    COUNT_ROOM,
+  const positions = countPositions(anchors, stave.getNoteStartX(), stave.getNoteEndX());
+  // The syllables in time order, as the slots are.
+  const texts = bar.beats.flatMap((beat, index) =>
+    Array.from(
+      { length: positions[index]?.length ?? 0 },
+      (_, slot) => beat.counts.find((c) => c.slot === slot)?.text ?? '',
+    ),
   );
-  const size = syllableSize([...flat, endX + COUNT_ROOM]);
+  const raw = positions.flat();
+  const barLine = stave.getX() + stave.getWidth();
+  const size = fittingSyllableSize(texts, raw, barLine - BAR_LINE_CLEARANCE - (raw.at(-1) ?? 0));
+  return { raw, texts, positions, size };
+}
+
+/**
+ * The size a bar's counting syllables can be set in where they stay under their notes; a score
+ * sets all its syllables in the smallest of its bars' sizes, so the count reads as one line.
+ */
+export function countSize(bar: NotationBar, engraved: EngravedBar, stave: Stave): number {
+  return layoutCounts(bar, engraved, stave).size;
+}
+
+/**
+ * Every syllable of every beat, under its slot; lighter where nothing sounds. All syllables of
+ * a bar share one size and each stays under the note it counts (common practice: the count
+ * reads as the rhythm's words); only where the notes stand too close even at `size` are
+ * syllables moved apart. Half the gap stays clear on each side of a bar line, so the last
+ * syllable of a bar and the first of the next never read as one word ("a1").
+ */
+function drawCounts(
+  ctx: SVGContext,
+  bar: NotationBar,
+  engraved: EngravedBar,
+  stave: Stave,
+  y: number,
+  size: number,
+): void {
+  const { raw, texts, positions } = layoutCounts(bar, engraved, stave);
+  const barLine = stave.getX() + stave.getWidth();
+  const lastHalf = syllableWidth(texts.at(-1) ?? '', size) / 2;
+  const firstHalf = syllableWidth(texts[0] ?? '', size) / 2;
+  const flat = spreadPositions(
+    raw,
+    stave.getX() + BAR_LINE_CLEARANCE + firstHalf,
+    barLine - BAR_LINE_CLEARANCE - lastHalf,
+    syllableGaps(texts, size),
+  );
   const syllables = new SvgTextRow(ctx, 'tensile-count-row', { size });
   let next = 0;
   bar.beats.forEach((beat, index) => {

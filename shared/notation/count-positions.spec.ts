@@ -1,6 +1,13 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { countPositions, spreadPositions, syllableSize, SYLLABLE_SIZE } from './count-positions';
+import {
+  countPositions,
+  fittingSyllableSize,
+  spreadPositions,
+  SYLLABLE_GAP,
+  SYLLABLE_SIZE,
+  syllableWidth,
+} from './count-positions';
 
 const beat = (subdivision: number, written: Record<number, number>) => ({
   subdivision,
@@ -79,13 +86,35 @@ describe('countPositions', () => {
   });
 });
 
-describe('syllableSize', () => {
+describe('fittingSyllableSize', () => {
   it('keeps the full size where syllables have room and shrinks them in a tight beat', () => {
-    expect(syllableSize([0, 20, 40, 60])).toBe(SYLLABLE_SIZE);
-    const tight = syllableSize([0, 13, 26, 39]);
+    const texts = ['1', 'e', '&', 'a'];
+    expect(fittingSyllableSize(texts, [0, 20, 40, 60], 20)).toBe(SYLLABLE_SIZE);
+    const tight = fittingSyllableSize(texts, [0, 12, 24, 36], 20);
     expect(tight).toBeLessThan(SYLLABLE_SIZE);
     expect(tight).toBeGreaterThanOrEqual(10);
-    expect(syllableSize([0, 2, 4])).toBe(10);
+    expect(fittingSyllableSize(texts, [0, 2, 4, 6], 20)).toBe(10);
+  });
+
+  it('gives every pair at the chosen size its clear gap when it does not hit the floor', () => {
+    fc.assert(
+      fc.property(
+        fc.array(fc.constantFrom('1', 'e', '&', 'a', 'trip', 'let', '5'), {
+          minLength: 2,
+          maxLength: 8,
+        }),
+        fc.integer({ min: 8, max: 40 }),
+        (texts, step) => {
+          const xs = texts.map((_, i) => i * step);
+          const size = fittingSyllableSize(texts, xs, 40);
+          if (size === 10) return;
+          texts.slice(1).forEach((t, i) => {
+            const clear = step - (syllableWidth(t, size) + syllableWidth(texts[i]!, size)) / 2;
+            expect(clear).toBeGreaterThanOrEqual(SYLLABLE_GAP - 1e-9);
+          });
+        },
+      ),
+    );
   });
 });
 
@@ -99,6 +128,10 @@ describe('spreadPositions', () => {
 
   it('pulls syllables back from the bar end, keeping the gap', () => {
     expect(spreadPositions([100, 190, 195], 90, 200, 17)).toEqual([100, 183, 200]);
+  });
+
+  it('keeps each pair its own gap when given one per pair', () => {
+    expect(spreadPositions([0, 5, 10], 0, 100, [8, 12])).toEqual([0, 8, 20]);
   });
 
   it('spreads evenly when the bar is too short for the gap everywhere', () => {

@@ -65,43 +65,72 @@ function interpolate(points: readonly Point[], t: number): number {
 /** Size of the syllables after the beat number, in pixels, when there is room. */
 export const SYLLABLE_SIZE = 13;
 const SMALLEST_SYLLABLE = 10;
-/** Centre-to-centre room a two-letter syllable needs at `SYLLABLE_SIZE` (from its set width). */
-const ROOM_AT_FULL_SIZE = 17;
-/** The room every syllable is given from its neighbour where the bar has it (clear air between two syllables at full size). */
-export const COUNT_ROOM = 22;
-
-/**
- * Font size for the syllables of one beat whose slots sit at `xs` (in order, followed by the next
- * downbeat's x): full size where they have room, smaller in a tightly set beat so neighbouring
- * syllables do not run together, never under 10 px.
- */
-export function syllableSize(xs: readonly number[]): number {
-  let tightest = Infinity;
-  for (let i = 1; i < xs.length; i++) tightest = Math.min(tightest, xs[i]! - xs[i - 1]!);
-  if (tightest >= ROOM_AT_FULL_SIZE) return SYLLABLE_SIZE;
-  const scaled = Math.floor(((SYLLABLE_SIZE * tightest) / ROOM_AT_FULL_SIZE) * 2) / 2;
-  return Math.max(SMALLEST_SYLLABLE, scaled);
-}
-
 /**
  * Moves the syllables of a bar (all its slots, in time order) apart where they sit closer than
- * `gap`, as little as possible and within `startX`..`endX`: a slot whose notes the formatter set
- * tightly (a sixteenth beside a dotted eighth in another voice) still gets room for its syllable,
- * so silent syllables never run into their neighbours ("&a3"). Where the bar is too short for
- * `gap` everywhere, the syllables are spread evenly over it.
+ * `gap` (one distance for every neighbour pair, or one per pair: `gap[i]` between syllable i and
+ * i + 1), as little as possible and within `startX`..`endX`: a slot whose notes the formatter
+ * set tightly still gets room for its syllable, so silent syllables never run into their
+ * neighbours ("&a3"). Where the bar is too short for the gaps everywhere, the syllables are
+ * spread evenly over it.
  */
 export function spreadPositions(
   xs: readonly number[],
   startX: number,
   endX: number,
-  gap: number,
+  gap: number | readonly number[],
 ): number[] {
   if (xs.length === 0) return [];
-  if ((xs.length - 1) * gap > endX - startX)
+  const gapAfter = (i: number): number => (typeof gap === 'number' ? gap : (gap[i] ?? 0));
+  let needed = 0;
+  for (let i = 0; i + 1 < xs.length; i++) needed += gapAfter(i);
+  if (needed > endX - startX)
     return xs.map((_, i) => startX + ((endX - startX) * i) / Math.max(xs.length - 1, 1));
   const out = [...xs];
-  for (let i = 1; i < out.length; i++) out[i] = Math.max(out[i]!, out[i - 1]! + gap);
+  out[0] = Math.max(out[0]!, startX);
+  for (let i = 1; i < out.length; i++) out[i] = Math.max(out[i]!, out[i - 1]! + gapAfter(i - 1));
   out[out.length - 1] = Math.min(out[out.length - 1]!, endX);
-  for (let i = out.length - 2; i >= 0; i--) out[i] = Math.min(out[i]!, out[i + 1]! - gap);
+  for (let i = out.length - 2; i >= 0; i--) out[i] = Math.min(out[i]!, out[i + 1]! - gapAfter(i));
   return out;
+}
+
+/**
+ * Advance of a syllable's characters as a share of the font size (Academico, bold digits
+ * included; a safe over-estimate measured from the face's widest syllable characters, "&").
+ */
+const CHAR_ADVANCE = 0.62;
+/** Clear ink kept between two neighbouring syllables, in pixels. */
+export const SYLLABLE_GAP = 4;
+
+/** Width a syllable takes at `size` pixels. */
+export function syllableWidth(text: string, size: number): number {
+  return [...text].length * size * CHAR_ADVANCE;
+}
+
+/**
+ * Centre-to-centre room each neighbour pair of `texts` needs at `size`: half of each one's
+ * width and a clear gap, so one-letter syllables ("e", "a") may stand as close as their notes.
+ */
+export function syllableGaps(texts: readonly string[], size: number): number[] {
+  return texts
+    .slice(1)
+    .map((t, i) => (syllableWidth(texts[i]!, size) + syllableWidth(t, size)) / 2 + SYLLABLE_GAP);
+}
+
+/**
+ * The largest size (from `SYLLABLE_SIZE` down to 10 px, in half pixels) at which the syllables
+ * `texts`, set at `xs` (in order) and followed by a clear space of `tail` pixels to the bar
+ * line, all keep their gap without moving.
+ */
+export function fittingSyllableSize(
+  texts: readonly string[],
+  xs: readonly number[],
+  tail: number,
+): number {
+  for (let size = SYLLABLE_SIZE; size > SMALLEST_SYLLABLE; size -= 0.5) {
+    const gaps = syllableGaps(texts, size);
+    const fits = gaps.every((g, i) => xs[i + 1]! - xs[i]! >= g - 1e-9);
+    const last = texts[texts.length - 1];
+    if (fits && (last === undefined || tail >= syllableWidth(last, size) / 2)) return size;
+  }
+  return SMALLEST_SYLLABLE;
 }

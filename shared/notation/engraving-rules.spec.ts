@@ -78,6 +78,32 @@ describe('rests', () => {
 });
 
 describe('tuplets', () => {
+  it('combines the rests of a quintuplet and a septuplet by their own grid', () => {
+    const five = (slots: number[]) =>
+      feet(
+        drillOf(
+          [5],
+          slots.map((s) => hit(1, s, 'kick')),
+        ),
+      );
+    expect(five([0, 1])).toBe('16 16 r8 r16');
+    expect(five([0, 4])).toBe('16 r16 r8 16');
+    expect(five([0, 3])).toBe('16 r16 r16 16 r16');
+    expect(five([1, 2])).toBe('r16 16 16 r16 r16');
+    const seven = (slots: number[]) =>
+      feet(
+        drillOf(
+          [7],
+          slots.map((s) => hit(1, s, 'kick')),
+        ),
+      );
+    expect(seven([0, 1])).toBe('16 16 r8 r8 r16');
+    expect(seven([0, 6])).toBe('16 r16 r8 r8 16');
+    // A sextuplet keeps a rest a slot: its halves (3 + 3) stay visible (common practice).
+    const six = feet(drillOf([6], [hit(1, 0, 'kick'), hit(1, 1, 'kick')]));
+    expect(six).toBe('16 16 r16 r16 r16 r16');
+  });
+
   it('spells every quintuplet and septuplet beat in its grid value, a rest on every hole', () => {
     for (const id of ['quintuplets-hihat-1-3-4', 'quintuplets-hihat-1-3-5']) {
       const drill = generateDrill(parseRuleCard(preset(id).card), 'lesson-12');
@@ -86,23 +112,46 @@ describe('tuplets', () => {
         for (const layer of bar.layers) {
           for (const tuplet of layer.tuplets) {
             const events = tuplet.events.map((i) => layer.events[i]!);
-            expect(events).toHaveLength(tuplet.ratio.numNotes);
-            expect(events.every((e) => e.duration.value === 16 && !e.duration.dots)).toBe(true);
-            expect(events.map((e) => e.slot)).toEqual(events.map((_, slot) => slot));
+            // Every note in the grid value (a sixteenth under the 5), the rests between them
+            // combined: each starts on a multiple of its own length in sixteenths and no two
+            // neighbouring rests could be one (Gould, "Behind Bars", ch. "Tuplets"; from memory).
+            const sixteenths = (e: (typeof events)[number]) => 16 / e.duration.value;
+            let at = 0;
+            for (const [k, e] of events.entries()) {
+              expect(e.slot, `${id} bar ${bar.bar}`).toBe(at);
+              expect(e.duration.dots).toBe(0);
+              if (e.kind === 'note') expect(e.duration.value).toBe(16);
+              else expect(at % sixteenths(e)).toBe(0);
+              const next = events[k + 1];
+              if (e.kind === 'rest' && next?.kind === 'rest' && sixteenths(next) === sixteenths(e))
+                expect(at % (2 * sixteenths(e)), `${id} bar ${bar.bar}: rests to combine`).not.toBe(
+                  0,
+                );
+              at += sixteenths(e);
+            }
+            expect(at).toBe(tuplet.ratio.numNotes);
           }
         }
       }
     }
   });
 
-  it('writes a shuffle\'s "3" once, then "sim.", on one voice only', () => {
+  it('writes a shuffle\'s "3" once in each voice, then "sim."', () => {
     const drill = generateDrill(parseRuleCard(preset('shuffle-kick-upbeats').card), 'lesson-12');
-    const tuplets = buildNotation(drill).bars.flatMap((bar) =>
-      bar.layers.flatMap((layer) => layer.tuplets),
-    );
-    expect(tuplets.length).toBeGreaterThan(4);
-    expect(tuplets.filter((t) => t.shown)).toHaveLength(1);
-    expect(tuplets[0]).toMatchObject({ shown: true, simile: true });
+    const bars = buildNotation(drill).bars;
+    for (const name of ['hands', 'feet'] as const) {
+      const tuplets = bars.flatMap((bar) =>
+        bar.layers.filter((l) => l.layer === name).flatMap((layer) => layer.tuplets),
+      );
+      expect(tuplets.length, name).toBeGreaterThan(4);
+      // Gould, "Behind Bars", ch. "Tuplets" (from memory): the bracket is dropped once the
+      // pattern is established in the part; each voice is its own part here.
+      expect(
+        tuplets.filter((t) => t.shown),
+        name,
+      ).toHaveLength(1);
+      expect(tuplets[0], name).toMatchObject({ shown: true, simile: true });
+    }
   });
 
   it('keeps every bracket where tuplets come and go (a drill not in triplets throughout)', () => {

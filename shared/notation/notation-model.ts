@@ -179,29 +179,31 @@ export function buildNotation(drill: NotationSource): NotationModel {
 
 /**
  * A drill in triplets throughout (every beat in three: a shuffle or triplet feel) writes its
- * "3" once, on the first bracketed beat (the hands' where they have one in that bar), then
- * "sim.", rather than a bracket on every beat of both voices (E. Gould, "Behind Bars", Faber
- * Music 2011, ch. "Tuplets": once a tuplet pattern is established the brackets may be dropped,
- * with "sim." after the first ones; from memory). Other drills keep every bracket.
+ * "3" once in each voice, on that voice's first bracketed beat, then "sim.", rather than a
+ * bracket on every beat of both voices (E. Gould, "Behind Bars", Faber Music 2011, ch.
+ * "Tuplets": once a tuplet pattern is established in a part the brackets may be dropped, with
+ * "sim." after the first ones; from memory). Each voice is a part of its own here: a marking
+ * over the hands alone would say nothing of the kick. Other drills keep every bracket.
  */
 function simileTriplets(bars: NotationBar[]): NotationBar[] {
   const allTriplets = bars.every((bar) => bar.beats.every((beat) => beat.subdivision === 3));
   if (!allTriplets) return bars;
-  let done = false;
-  return bars.map((bar) => {
-    const first = done ? null : bar.layers.find((layer) => layer.tuplets.length > 0);
-    if (first) done = true;
-    return {
-      ...bar,
-      layers: bar.layers.map((layer) => ({
+  const done = new Set<string>();
+  return bars.map((bar) => ({
+    ...bar,
+    layers: bar.layers.map((layer) => {
+      const lead = !done.has(layer.layer) && layer.tuplets.length > 0;
+      if (lead) done.add(layer.layer);
+      return {
         ...layer,
-        tuplets: layer.tuplets.map((tuplet, i) => {
-          const lead = layer === first && i === 0;
-          return { ...tuplet, shown: lead, simile: lead };
-        }),
-      })),
-    };
-  });
+        tuplets: layer.tuplets.map((tuplet, i) => ({
+          ...tuplet,
+          shown: lead && i === 0,
+          simile: lead && i === 0,
+        })),
+      };
+    }),
+  }));
 }
 
 /** "2+2+3" for an uneven grouping; null where the meter says it (even groups, or none). */

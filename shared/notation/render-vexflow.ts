@@ -16,11 +16,12 @@ import {
   type SVGContext,
   type Tuplet,
 } from 'vexflow/core';
-import { drawBeatTexts, STICKING_LINE } from './beat-texts';
+import { countSize, drawBeatTexts, STICKING_LINE } from './beat-texts';
+import { SYLLABLE_SIZE } from './count-positions';
 import { countPositions } from './count-positions';
 import { EngravingContext, withFastEngraving } from './engraving-context';
 import { drawHeaderMarks, layoutHeaderMarks } from './header-marks';
-import { drawLegend, legendWidth } from './legend';
+import { drawLegend, legendHeight, legendLineWidth } from './legend';
 import { svgText } from './svg-text';
 import { drawPolyrhythmBrackets, type InstantBox, type SystemBand } from './polyrhythm-brackets';
 import {
@@ -44,6 +45,14 @@ export interface RenderOptions {
   /** Room left free under every system for the host (e.g. tension plots), in pixels. */
   readonly gapBelowSystem?: number;
   readonly maxBarsPerSystem?: number;
+  /**
+   * Least room per written note and per counted slot, in pixels (defaults 22 and 16, a
+   * screen's; print sets them closer, see `PRINT_LAYOUT`).
+   */
+  readonly noteRoom?: number;
+  readonly countRoom?: number;
+  /** Room beyond VexFlow's tightest setting of a bar, as a factor (default 1.2). */
+  readonly air?: number;
   /** Colour of everything drawn (default black; `currentColor` follows the page's text colour). */
   readonly ink?: string;
   /**
@@ -94,6 +103,7 @@ export interface BarBox {
 }
 
 export interface NotationLayout {
+  /** Width of the drawing: the width asked for, or more where a lone bar cannot fit its line. */
   readonly width: number;
   readonly height: number;
   readonly bars: readonly BarBox[];
@@ -101,10 +111,9 @@ export interface NotationLayout {
 }
 
 /**
- * Each system's drawing (its bars, their marks and the voice key beside the first) is one group
- * of this class, a direct child of the SVG in system order; what spans systems, the polyrhythm
- * brackets, is one group of BRACKETS_CLASS after them. Title, marks and keys above the first
- * system stay outside both.
+ * Each system's drawing (its bars and their marks) is one group of this class, a direct child of
+ * the SVG in system order; what spans systems, the polyrhythm brackets, is one group of
+ * BRACKETS_CLASS after them. Title, marks and keys above the first system stay outside both.
  */
 export const SYSTEM_CLASS = 'tensile-system';
 export const BRACKETS_CLASS = 'tensile-polyrhythms';
@@ -152,23 +161,20 @@ function engrave(
   const showCounts = options.showCounts ?? false;
   // Each bar's tightest setting, measured once (VexFlow formats the bar to measure it).
   const tightest = engravedBars.map(minimumBarWidth);
-  const barWidths = model.bars.map((bar, i) =>
-    naturalBarWidth(bar, tightest[i]!, model, showCounts),
-  );
+  const room = {
+    note: options.noteRoom ?? NOTE_ROOM,
+    count: showCounts ? (options.countRoom ?? COUNT_SLOT_ROOM) : 0,
+    air: options.air ?? 1.2,
+  };
+  const barWidths = model.bars.map((bar, i) => naturalBarWidth(bar, tightest[i]!, model, room));
   const systemStartWidth = systemStartWidths(model);
-  // The key stands beside the first system where the line still holds a bar beside it; on a
-  // narrow line (a phone) it gets a band of its own above, so the bars keep the whole width.
-  const keyWidth = showLegend ? legendWidth(model) : 0;
-  const keyBeside =
-    showLegend &&
-    options.width - 2 * MARGIN_X - keyWidth >= systemStartWidth(0) + (barWidths[0] ?? 0);
-  const legend = keyBeside ? keyWidth : 0;
-  const keyBand = showLegend && !keyBeside ? KEY_BAND : 0;
+  // The key has a band of its own above the first system (see legend.ts), so every system,
+  // the first too, gives its whole width to the bars.
   const plans = planSystems({
     barWidths,
     minBarWidths: model.bars.map((bar, i) => leastBarWidth(bar, tightest[i]!, model, showCounts)),
     systemStartWidth,
-    lineWidth: (i) => options.width - 2 * MARGIN_X - (i === 0 ? legend : 0),
+    lineWidth: () => options.width - 2 * MARGIN_X,
     maxBarsPerSystem: options.maxBarsPerSystem ?? 4,
   });
   // Two hands at once stack their letters: a second line of sticking where the drill has them.
@@ -181,16 +187,11 @@ function engrave(
   const gap = options.gapBelowSystem ?? 0;
   // Air between one system's counting and the next one's sticking, so each reads with its own.
   const separation = options.showSticking ? SYSTEM_SEPARATION : 0;
-  // The marks start over the first bar (the key, if drawn, stays to their left); a line too
-  // narrow for them all puts the swing marking on a line of its own.
+  // The marks start at the margin, over the first bar; a line too narrow for them all puts the
+  // swing marking on a line of its own.
   const shown = (options.showMarks ?? true) ? model.marks : { tempo: null, swing: null };
-  let marksX = MARGIN_X + legend;
-  let marks = layoutHeaderMarks(shown, options.width - MARGIN_X - marksX);
-  if (marks.width > options.width - MARGIN_X - marksX) {
-    // Not even one mark a line fits beside the key: start them at the margin instead.
-    marksX = MARGIN_X;
-    marks = layoutHeaderMarks(shown, options.width - 2 * MARGIN_X);
-  }
+  const marksX = MARGIN_X;
+  const marks = layoutHeaderMarks(shown, options.width - 2 * MARGIN_X);
   const boxes: BarBox[] = [];
   const title = drawTitle(ctx, options.title ?? null, options.width);
   drawHeaderMarks(ctx, shown, marks, marksX, title);
@@ -198,19 +199,31 @@ function engrave(
   const tensionKey = showTension ? TENSION_LEGEND_HEIGHT : 0;
   if (showTension)
     drawTensionLegend(ctx, marksX, title + marks.height + tensionKey - 8, TENSION_INK);
+  // The key stands at the right of the marks' line where both fit (as a part's key sits at the
+  // top right of its page; from memory), else in a band of its own under the marks.
+  const line = options.width - 2 * MARGIN_X;
+  const keyLine = showLegend ? legendLineWidth(model) : 0;
+  const keyBesideMarks = showLegend && !showTension && marks.width + KEY_GAP_X + keyLine <= line;
+  // One line of key when beside the marks (it fits the line), as many as it needs under them.
+  const keyHeight = showLegend ? legendHeight(model, line) : 0;
+  const keyBand = !showLegend
+    ? 0
+    : keyBesideMarks
+      ? Math.max(0, keyHeight - marks.height)
+      : keyHeight + KEY_GAP;
   const head = title + marks.height + tensionKey + keyBand;
-  if (keyBand > 0) drawLegend(ctx, model, MARGIN_X, head - keyBand + KEY_BAND_STAVE_Y, ink);
+  if (keyBesideMarks) drawLegend(ctx, model, options.width - MARGIN_X - keyLine, title, line, ink);
+  else if (showLegend) drawLegend(ctx, model, MARGIN_X, head - keyBand, line, ink);
   const instants = new Map<string, InstantBox>();
   const bands: SystemBand[] = [];
   const hasPolyrhythmAbove = model.polyrhythms.some((g) => !g.below);
-  plans.forEach((plan, systemIndex) => {
-    const systemTop = head + systemIndex * (systemHeight + gap + separation);
-    const topLineY = systemTop + sticking + HEADROOM;
-    let x = MARGIN_X + (systemIndex === 0 ? legend : 0);
-    // One group a system, so a host can show a system on its own (see SYSTEM_CLASS).
-    ctx.openGroup().setAttribute('class', SYSTEM_CLASS);
-    if (systemIndex === 0 && keyBeside)
-      drawLegend(ctx, model, MARGIN_X, topLineY - STAVE_TOP_OFFSET, ink);
+  const systemTopOf = (systemIndex: number) =>
+    head + systemIndex * (systemHeight + gap + separation);
+  // Every system is formatted before anything is drawn, so the whole score's counting can be set
+  // in one size (the smallest its bars need).
+  const systemStaves = plans.map((plan, systemIndex) => {
+    const topLineY = systemTopOf(systemIndex) + sticking + HEADROOM;
+    const x = MARGIN_X;
     // The system's bars are formatted first, so its tuplet brackets can share one line and its
     // sticking can sit just over its highest mark, close to its own staff.
     let staveX = x;
@@ -233,20 +246,39 @@ function engrave(
       formatBar(engravedBars[barIndex]!, stave);
       return stave;
     });
+    levelTuplets(plan.bars.map((barIndex) => engravedBars[barIndex]!));
+    return staves;
+  });
+  const syllableSize = showCounts
+    ? Math.min(
+        SYLLABLE_SIZE,
+        ...plans.flatMap((plan, s) =>
+          plan.bars.map((barIndex, i) =>
+            countSize(model.bars[barIndex]!, engravedBars[barIndex]!, systemStaves[s]![i]!),
+          ),
+        ),
+      )
+    : SYLLABLE_SIZE;
+  plans.forEach((plan, systemIndex) => {
+    const systemTop = systemTopOf(systemIndex);
+    const topLineY = systemTop + sticking + HEADROOM;
+    let x = MARGIN_X;
+    const staves = systemStaves[systemIndex]!;
     const systemBars = plan.bars.map((barIndex) => engravedBars[barIndex]!);
-    levelTuplets(systemBars);
     const ceiling = Math.min(
       highestMark(systemBars, topLineY),
       hasPolyrhythmAbove ? topLineY - POLYRHYTHM_ABOVE - POLYRHYTHM_LABEL : Infinity,
     );
     const stickingY = Math.max(topLineY - HEADROOM - 2, ceiling - STICKING_CLEARANCE);
+    // One group a system, so a host can show a system on its own (see SYSTEM_CLASS).
+    ctx.openGroup().setAttribute('class', SYSTEM_CLASS);
     plan.bars.forEach((barIndex, i) => {
       const bar = model.bars[barIndex]!;
       const width = plan.widths[i]!;
       const stave = staves[i]!;
       const engraved = engravedBars[barIndex]!;
       if (showTension) colourSyncopations(bar, engraved, TENSION_INK);
-      drawBar(ctx, bar, engraved, stave, options, topLineY, stickingY);
+      drawBar(ctx, bar, engraved, stave, options, topLineY, stickingY, syllableSize);
       if (showTension)
         drawTensionMarks(
           ctx,
@@ -284,13 +316,17 @@ function engrave(
   drawPolyrhythmBrackets(ctx, model.polyrhythms, instants, bands);
   ctx.closeGroup();
   const height = head + plans.length * (systemHeight + gap + separation) - separation;
-  ctx.resize(options.width, height);
-  svg.setAttribute('viewBox', `0 0 ${options.width} ${height}`);
+  // A bar alone on a line too narrow even for its tightest setting (a dense bar on a phone)
+  // widens the drawing rather than running off it; the host scrolls or scales it.
+  const right = Math.max(0, ...boxes.map((b) => b.x + b.width));
+  const width = Math.max(options.width, Math.ceil(right + MARGIN_X));
+  ctx.resize(width, height);
+  svg.setAttribute('viewBox', `0 0 ${width} ${height}`);
   // VexFlow's invisible hit areas: nothing here is clicked, and a ghost note's parenthesis gives
   // its area a bounding box that spans the system's start.
   for (const rect of [...svg.querySelectorAll('rect[opacity="0"]')]) rect.remove();
   container.replaceChildren(svg);
-  return { width: options.width, height, bars: boxes, svg };
+  return { width, height, bars: boxes, svg };
 }
 
 /** The polyrhythm brackets' lines: over the hands' stems and accents, under the feet's stems. */
@@ -381,7 +417,7 @@ function naturalBarWidth(
   bar: NotationBar,
   measured: number,
   model: NotationModel,
-  showCounts: boolean,
+  room: { readonly note: number; readonly count: number; readonly air: number },
 ): number {
   // Written events per beat (in whichever voice writes more there), summed over the bar.
   const notes = bar.beats.reduce(
@@ -390,12 +426,17 @@ function naturalBarWidth(
       Math.max(...bar.layers.map((l) => l.events.filter((e) => e.beat === beat.beat).length), 1),
     0,
   );
-  const counted = showCounts ? bar.beats.reduce((n, beat) => n + beat.subdivision, 0) : 0;
-  // Room to breathe beyond the tightest setting, never under ~22 px a note, and room for the count.
+  const counted = bar.beats.reduce((n, beat) => n + beat.subdivision, 0);
+  // Room to breathe beyond the tightest setting, never under the least room a note, and room
+  // for the count.
   return (
-    Math.max(measured * 1.2, notes * 22, counted * COUNT_SLOT_ROOM, model.meter.beats * 40) + 20
+    Math.max(measured * room.air, notes * room.note, counted * room.count, model.meter.beats * 40) +
+    20
   );
 }
+
+/** Least room per written note on a screen, in pixels. */
+const NOTE_ROOM = 22;
 
 /**
  * The least a bar may be set in when a line holds only it and it would not fit otherwise: its
@@ -415,9 +456,9 @@ function leastBarWidth(
 /** Least room per counted slot: a two-letter syllable at 10 px with a gap. */
 const LEAST_COUNT_ROOM = 14;
 
-/** The key's own band above the first system on a narrow line, and its stave's y in it. */
-const KEY_BAND = 176;
-const KEY_BAND_STAVE_Y = 6;
+/** Space between the key's band and the first system's band, and between the marks and the key. */
+const KEY_GAP = 8;
+const KEY_GAP_X = 24;
 
 /** Room for what opens a system: the clef on every system, the time signature on the first. */
 function systemStartWidths(model: NotationModel): (systemIndex: number) => number {
@@ -500,6 +541,7 @@ function drawBar(
   options: RenderOptions,
   topLineY: number,
   stickingY: number,
+  syllableSize: number,
 ): void {
   const group = ctx.openGroup();
   group.setAttribute('class', 'tensile-bar');
@@ -528,6 +570,7 @@ function drawBar(
   drawBeatTexts(ctx, bar, engraved, stave, {
     stickingY: options.showSticking ? stickingY : null,
     countsY: options.showCounts ? topLineY + 4 * STAVE_SPACE + FOOTROOM + 16 : null,
+    countSize: syllableSize,
   });
   ctx.closeGroup();
 }

@@ -98,15 +98,16 @@ describe('spellBeat: simplest readable spelling (common practice)', () => {
     [2, [1], 'r8 8'],
     [3, [0, 2], '4 8'],
     [3, [1], 'r8 4'],
-    // Quintuplets and septuplets in their grid value, a rest on every hole (E. Gould, "Behind
-    // Bars", Faber Music 2011, ch. "Tuplets"; from memory).
+    // Quintuplets and septuplets in their grid value, their neighbouring rests combined by the
+    // tuplet's own grid (E. Gould, "Behind Bars", Faber Music 2011, ch. "Tuplets"; from memory).
     [5, [0, 2, 4], '16 r16 16 r16 16'],
     [5, [0, 2, 3], '16 r16 16 16 r16'],
     [5, [1, 3], 'r16 16 r16 16 r16'],
     [6, [0, 3], '8 8'],
     [6, [0, 2, 4], '8 8 8'],
     [6, [0, 1, 2, 3, 4, 5], '16 16 16 16 16 16'],
-    [7, [0, 6], '16 r16 r16 r16 r16 r16 16'],
+    [7, [0, 6], '16 r16 r8 r8 16'],
+    [5, [0, 1], '16 16 r8 r16'],
     [6, [0, 1, 3], '16 16 r16 16 r16 r16'],
     [8, [0, 4], '8 8'],
     [8, [0, 3, 4, 6], '16d 32 16 16'],

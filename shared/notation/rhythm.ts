@@ -56,22 +56,36 @@ export function spellBeat(
   const base = binaryFloor(grid);
   const tuplet = grid === base ? null : { numNotes: grid, notesOccupied: base };
   const events: RhythmEvent[] = [];
-  // Quintuplets, sextuplets and septuplets are written in their grid value throughout, a rest
-  // on every silent slot, so the holes of the grid can be seen and counted (E. Gould, "Behind
-  // Bars", Faber Music 2011, ch. "Tuplets": a tuplet is written in its own note value, rests
-  // included; from memory). Triplets keep the long-short spelling (a quarter and an eighth under
-  // a 3) every reader knows.
+  // Quintuplets, sextuplets and septuplets are written in their grid value throughout, so the
+  // holes of the grid can be seen and counted (E. Gould, "Behind Bars", Faber Music 2011, ch.
+  // "Tuplets": a tuplet is written in its own note value, rests included; from memory). Triplets
+  // keep the long-short spelling (a quarter and an eighth under a 3) every reader knows.
   const spelledOut = tuplet !== null && grid !== 3;
   const first = slots[0];
   if (spelledOut) {
-    for (let slot = 0; slot < grid; slot++) {
-      const struck = slots.includes(slot);
-      events.push({
-        kind: struck ? 'note' : 'rest',
-        gridSlot: slot,
-        length: 1,
-        duration: writtenDuration(1, base, beatUnit),
-      });
+    // In a quintuplet or septuplet, neighbouring rests combine as they would in the plain
+    // grouping of the same values: each the longest binary value that starts on a multiple of
+    // itself in the tuplet's own grid (two sixteenth rests from an even slot are one eighth
+    // rest), as rests are combined in any beat (Gould, "Behind Bars", ch. "Tuplets" and
+    // "Rests"; from memory). A sextuplet's rests stay one a slot: its 3+3 halves would be
+    // hidden by an eighth rest across slots 2 and 3.
+    const combine = grid % 2 === 1;
+    let slot = 0;
+    while (slot < grid) {
+      if (slots.includes(slot)) {
+        events.push({
+          kind: 'note',
+          gridSlot: slot,
+          length: 1,
+          duration: writtenDuration(1, base, beatUnit),
+        });
+        slot++;
+        continue;
+      }
+      let end = slot + 1;
+      if (combine) while (end < grid && !slots.includes(end)) end++;
+      pushRests(events, slot, end, base, beatUnit);
+      slot = end;
     }
     return { grid, tuplet, events };
   }

@@ -61,7 +61,13 @@ export interface ScoreGeometry {
     readonly text: string;
     readonly size: number;
     readonly silent: boolean;
+    /** The slot the syllable counts. */
+    readonly bar: number;
+    readonly beat: number;
+    readonly slot: number;
   })[];
+  /** The voice key, if drawn: its box and whether it carries staff lines or a clef. */
+  readonly legend: (Box & { readonly heading: string; readonly staffLines: number }) | null;
   readonly bars: readonly BarGeometry[];
   readonly polyrhythms: readonly (Box & { readonly label: string; readonly notes: string })[];
   readonly title: (Box & { readonly text: string }) | null;
@@ -76,6 +82,8 @@ export interface ScoreGeometry {
   /** Ink of each "sim.". */
   readonly simileBoxes: readonly (Box & { readonly text: string })[];
   readonly shownTuplets: number;
+  /** Width of the drawing (its viewBox), which a bar too wide for a phone's line widens. */
+  readonly width: number;
 }
 
 /** The geometry of the score's SVG (the first `svg.tensile-notation` under `scope`). */
@@ -177,6 +185,7 @@ export async function readScore(page: Page, scope = 'body'): Promise<ScoreGeomet
         slot: Number(m.getAttribute('data-slot')),
       }));
       return {
+        width: (svg as SVGSVGElement).viewBox.baseVal.width,
         accents,
         stems,
         beamLines,
@@ -187,7 +196,20 @@ export async function readScore(page: Page, scope = 'body'): Promise<ScoreGeomet
           text: t.textContent ?? '',
           size: parseFloat(getComputedStyle(t).fontSize),
           silent: t.classList.contains('tensile-count-silent'),
+          bar: Number(t.closest('.tensile-bar')?.getAttribute('data-bar')),
+          beat: Number(t.getAttribute('data-beat')),
+          slot: Number(t.getAttribute('data-slot')),
         })),
+        legend: (() => {
+          const key = svg.querySelector('.tensile-legend');
+          if (!key) return null;
+          const heading = key.querySelector('.tensile-legend-heading');
+          // Long horizontal strokes: the lines of a staff (a bar's look).
+          const staffLines = [...key.querySelectorAll('path, line, rect')]
+            .map(bbox)
+            .filter((b) => b.bottom - b.top < 2 && b.right - b.left > 40).length;
+          return { ...bbox(key), heading: heading?.textContent ?? '', staffLines };
+        })(),
         bars,
         polyrhythms,
         title,

@@ -1,3 +1,4 @@
+import { PRINT_LAYOUT } from '../../../../shared/notation/print-layout';
 import {
   ChangeDetectionStrategy,
   ChangeDetectorRef,
@@ -48,11 +49,11 @@ const RESIZE_DEBOUNCE_MS = 150;
  */
 export const PRINT_WIDTH = 700;
 /**
- * The line the score is engraved on for print, whatever the screen: a desktop window's score
- * width, zoomed to PRINT_WIDTH on paper. A phone prints the same systems as a desktop instead of
- * its one bar a line.
+ * The line the score is engraved on for print, whatever the screen, zoomed to PRINT_WIDTH on
+ * paper: four bars of sixteenths a system (see PRINT_LAYOUT). A phone prints the same systems as
+ * a desktop instead of its one bar a line.
  */
-export const PRINT_ENGRAVING_WIDTH = 960;
+export const PRINT_ENGRAVING_WIDTH = PRINT_LAYOUT.width;
 let scoreIds = 0;
 /** The drawing's attributes that are its own, not ink its copies should inherit. */
 const OWN_ATTRIBUTES = new Set(['id', 'class', 'role', 'width', 'height', 'viewBox', 'style']);
@@ -357,10 +358,20 @@ export class DrillScore {
     width: number,
     shown: { showSticking: boolean; showCounts: boolean; showTension: boolean },
   ): void {
+    // On paper the notes stand closer, as engraved parts set them (see PRINT_LAYOUT).
+    const print = this.printing()
+      ? {
+          noteRoom: PRINT_LAYOUT.noteRoom,
+          countRoom: PRINT_LAYOUT.countRoom,
+          air: PRINT_LAYOUT.air,
+          maxBarsPerSystem: PRINT_LAYOUT.maxBarsPerSystem,
+        }
+      : {};
     const engrave = (lineWidth: number) =>
       renderNotation(this.canvas().nativeElement, model, {
         width: lineWidth,
         ...shown,
+        ...print,
         gapBelowSystem: PLOT_ROOM,
         ink: 'currentColor',
       });
