@@ -319,7 +319,9 @@ function engrave(
   // A bar alone on a line too narrow even for its tightest setting (a dense bar on a phone)
   // widens the drawing rather than running off it; the host scrolls or scales it.
   const right = Math.max(0, ...boxes.map((b) => b.x + b.width));
-  const width = Math.max(options.width, Math.ceil(right + MARGIN_X));
+  // (Bars that fit end on the line's edge up to float rounding.)
+  const width =
+    right + MARGIN_X > options.width + 0.5 ? Math.ceil(right + MARGIN_X) : options.width;
   ctx.resize(width, height);
   svg.setAttribute('viewBox', `0 0 ${width} ${height}`);
   // VexFlow's invisible hit areas: nothing here is clicked, and a ghost note's parenthesis gives
