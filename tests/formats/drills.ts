@@ -43,7 +43,9 @@ export const FORMAT_CARDS: Readonly<Record<string, unknown>> = {
     subdivision: [8, 7, 2],
     tempo: 120,
     voices: ['kick', 'snare', 'hihat', 'hihatOpen', 'rim', 'rideBell'],
+    ostinato: { voice: 'rideBell', slots: [0] },
     density: 0.5,
+    rules: [{ kind: 'fillHoles', voices: ['snare', 'hihat', 'hihatOpen', 'rim'] }],
   },
 };
 
