@@ -453,7 +453,8 @@ describe('engraving rules on the drawn score (Chromium)', () => {
           for (const tuplet of bar.layers[layer].tuplets) {
             // E. Gould, "Behind Bars", ch. "Tuplets" (from memory): a tuplet is written in its
             // own note value; neighbouring rests combine as in the plain grouping of those
-            // values, each starting on a multiple of its own length.
+            // values, each starting on a multiple of its own length, but only up to an eighth:
+            // a quarter rest under the 5 reads as a whole beat's rest (common practice).
             const events = bar.layers[layer].events.filter((e) => e.beat === tuplet.beat);
             expect(tuplet.n).toBe(5);
             const struck = new Set(
@@ -472,11 +473,11 @@ describe('engraving rules on the drawn score (Chromium)', () => {
                 expect(e.duration, what).toBe('16');
                 expect(struck.has(at), what).toBe(true);
               } else {
-                expect(['16', '8', '4'], what).toContain(e.duration);
+                expect(['16', '8'], what).toContain(e.duration);
                 expect(at % length(e), `${what}: rest on a multiple of itself`).toBe(0);
                 for (let s = at; s < at + length(e); s++) expect(struck.has(s), what).toBe(false);
                 const next = events[k + 1];
-                if (next?.kind === 'rest' && next.duration === e.duration)
+                if (next?.kind === 'rest' && next.duration === e.duration && e.duration === '16')
                   expect(at % (2 * length(e)), `${what}: rests left uncombined`).not.toBe(0);
               }
               at += length(e);
