@@ -101,9 +101,12 @@ export function barFormatter(): Formatter {
   return new Formatter({ globalSoftmax: true });
 }
 
-/** The narrowest width the bar's notes can be set in, before stretching. */
+/**
+ * The narrowest width the bar's notes can be set in, before stretching. Measured without the
+ * grid: its empty columns only take room when the bar is stretched to its line.
+ */
 export function minimumBarWidth(engraved: EngravedBar): number {
-  const voices = formattedVoices(engraved);
+  const voices = engraved.voices.map((v) => v.voice);
   return barFormatter().joinVoices(voices).preCalculateMinTotalWidth(voices);
 }
 
