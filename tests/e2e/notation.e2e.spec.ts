@@ -726,8 +726,10 @@ describe('engraving rules on the drawn score (Chromium)', () => {
       ['four-over-three', 'harbor-9'],
       ['quintuplets-hihat-1-3-4', 'lesson-3'],
     ] as const) {
-      const score = await engrave(presetDrill(id, seed), { width: 1100, ...FULL });
-      expect(unevenBeats(score, 1.5), `${id} ${seed}: uneven slots`).toEqual([]);
+      for (const width of [1100, 390]) {
+        const score = await engrave(presetDrill(id, seed), { width, ...FULL });
+        expect(unevenBeats(score, 1.5), `${id} ${seed} at ${width} px: uneven slots`).toEqual([]);
+      }
     }
   });
 
