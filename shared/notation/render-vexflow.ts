@@ -9,7 +9,6 @@
  */
 import {
   BarlineType,
-  Formatter,
   Stave,
   StaveModifierPosition,
   TimeSignature,
@@ -33,7 +32,14 @@ import {
 } from './tension-marks';
 import { groupingLabel, type NotationBar, type NotationModel } from './notation-model';
 import { planSystems } from './system-layout';
-import { engraveBar, minimumBarWidth, type EngravedBar, type EngravedNote } from './vexflow-bar';
+import {
+  barFormatter,
+  engraveBar,
+  formattedVoices,
+  minimumBarWidth,
+  type EngravedBar,
+  type EngravedNote,
+} from './vexflow-bar';
 
 export interface RenderOptions {
   /** Width of the drawing, in CSS pixels. */
@@ -517,8 +523,8 @@ function staveFor(
 }
 
 function formatBar(engraved: EngravedBar, stave: Stave): void {
-  const voices = engraved.voices.map((v) => v.voice);
-  new Formatter().joinVoices(voices).formatToStave(voices, stave);
+  const voices = formattedVoices(engraved);
+  barFormatter().joinVoices(voices).formatToStave(voices, stave);
   // Every voice keeps its own rests (hands' high, feet's low, as two-voice parts are written), so
   // each voice's values add up to its beat; VexFlow would draw one rest for two voices resting
   // together, leaving the feet's tuplet a value short.

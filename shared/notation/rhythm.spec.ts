@@ -108,6 +108,11 @@ describe('spellBeat: simplest readable spelling (common practice)', () => {
     [6, [0, 1, 2, 3, 4, 5], '16 16 16 16 16 16'],
     [7, [0, 6], '16 r16 r8 r8 16'],
     [5, [0, 1], '16 16 r8 r16'],
+    // Never a quarter rest under the 5 or the 7 (it would read as a whole beat): eighths at most.
+    [5, [4], 'r8 r8 16'],
+    [5, [], 'r4'],
+    [7, [4], 'r8 r8 16 r16 r16'],
+    [7, [0], '4'],
     [6, [0, 1, 3], '16 16 r16 16 r16 r16'],
     [8, [0, 4], '8 8'],
     [8, [0, 3, 4, 6], '16d 32 16 16'],

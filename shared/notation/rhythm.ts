@@ -40,6 +40,9 @@ export interface BeatRhythm {
   readonly events: readonly RhythmEvent[];
 }
 
+/** The longest rest inside a spelled-out tuplet beat, in slots: an eighth of sixteenths. */
+const TUPLET_REST_SLOTS = 2;
+
 /**
  * Spell one beat. `subdivision` is the drill's slots per beat (1–8), `onsets` the 0-based slots
  * where this layer strikes, `beatUnit` the meter's beat value (4 = quarter-note beats).
@@ -67,8 +70,10 @@ export function spellBeat(
     // grouping of the same values: each the longest binary value that starts on a multiple of
     // itself in the tuplet's own grid (two sixteenth rests from an even slot are one eighth
     // rest), as rests are combined in any beat (Gould, "Behind Bars", ch. "Tuplets" and
-    // "Rests"; from memory). A sextuplet's rests stay one a slot: its 3+3 halves would be
-    // hidden by an eighth rest across slots 2 and 3.
+    // "Rests"; from memory), but never past an eighth (two slots): a quarter rest under a
+    // "5" reads as a whole beat's rest and hides the grid the tuplet is counted in (common
+    // practice). A sextuplet's rests stay one a slot: its 3+3 halves would be hidden by an
+    // eighth rest across slots 2 and 3.
     const combine = grid % 2 === 1;
     let slot = 0;
     while (slot < grid) {
@@ -84,7 +89,7 @@ export function spellBeat(
       }
       let end = slot + 1;
       if (combine) while (end < grid && !slots.includes(end)) end++;
-      pushRests(events, slot, end, base, beatUnit);
+      pushRests(events, slot, end, base, beatUnit, TUPLET_REST_SLOTS);
       slot = end;
     }
     return { grid, tuplet, events };
@@ -267,17 +272,21 @@ function longestNoteLength(gap: number, base: number): number {
   return 1;
 }
 
-/** Rests from `from` to `to`, each the longest binary chunk that starts on a multiple of itself. */
+/**
+ * Rests from `from` to `to`, each the longest binary chunk (at most `longest` slots) that starts
+ * on a multiple of itself.
+ */
 function pushRests(
   events: RhythmEvent[],
   from: number,
   to: number,
   base: number,
   beatUnit: number,
+  longest = base,
 ): void {
   let at = from;
   while (at < to) {
-    let chunk = base;
+    let chunk = Math.min(base, longest);
     while (chunk > 1 && (at % chunk !== 0 || at + chunk > to)) chunk /= 2;
     events.push({
       kind: 'rest',

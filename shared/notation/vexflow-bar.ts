@@ -9,6 +9,7 @@ import {
   Beam,
   Dot,
   Formatter,
+  GhostNote,
   Modifier,
   ModifierPosition,
   Ornament,
@@ -60,6 +61,8 @@ export interface EngravedBar {
   readonly notes: readonly EngravedNote[];
   readonly beams: readonly { readonly beam: Beam; readonly layer: Layer }[];
   readonly tuplets: readonly EngravedTuplet[];
+  /** Silent voice with one tickable per slot of the drill's grid (see `gridVoice`); never drawn. */
+  readonly grid: Voice;
 }
 
 /** Build the voices, beams and tuplets of one bar. */
@@ -81,13 +84,51 @@ export function engraveBar(bar: NotationBar, model: NotationModel): EngravedBar 
     voice.addTickables(staveNotes);
     return { layer, voice };
   });
-  return { voices, notes, beams, tuplets };
+  return { voices, notes, beams, tuplets, grid: gridVoice(bar, model) };
 }
 
-/** The narrowest width the bar's notes can be set in, before stretching. */
+/** Every voice the formatter sets together: the layers and the grid. */
+export function formattedVoices(engraved: EngravedBar): Voice[] {
+  return [...engraved.voices.map((v) => v.voice), engraved.grid];
+}
+
+/**
+ * A formatter that spaces by one measure for every voice. VexFlow otherwise sizes each gap by
+ * the voice that spans it, normalised over that voice's own notes, so a kick alone on "e" and a
+ * hi-hat on "&" get unrelated gaps.
+ */
+export function barFormatter(): Formatter {
+  return new Formatter({ globalSoftmax: true });
+}
+
+/**
+ * The narrowest width the bar's notes can be set in, before stretching. Measured without the
+ * grid: its empty columns only take room when the bar is stretched to its line.
+ */
 export function minimumBarWidth(engraved: EngravedBar): number {
   const voices = engraved.voices.map((v) => v.voice);
-  return new Formatter().joinVoices(voices).preCalculateMinTotalWidth(voices);
+  return barFormatter().joinVoices(voices).preCalculateMinTotalWidth(voices);
+}
+
+/**
+ * One invisible note on every slot of each beat's subdivision. Both layers share one rhythmic
+ * grid, so every slot, sounding or not, becomes a column, and each column's gap to the next is
+ * one slot: equal slots get equal room whichever voice plays them (E. Gould, "Behind Bars",
+ * Faber Music 2011, ch. "Horizontal spacing": space in proportion to duration; from memory).
+ */
+function gridVoice(bar: NotationBar, model: NotationModel): Voice {
+  const voice = new Voice({ numBeats: model.meter.beats, beatValue: model.meter.unit });
+  voice.setMode(VoiceMode.SOFT);
+  for (const { subdivision } of bar.beats) {
+    let base = 1;
+    while (base * 2 <= subdivision) base *= 2;
+    for (let slot = 0; slot < subdivision; slot++) {
+      const ghost = new GhostNote({ duration: String(model.meter.unit * base) });
+      if (base !== subdivision) ghost.applyTickMultiplier(base, subdivision);
+      voice.addTickable(ghost);
+    }
+  }
+  return voice;
 }
 
 function addBeamsAndTuplets(

@@ -453,7 +453,8 @@ describe('engraving rules on the drawn score (Chromium)', () => {
           for (const tuplet of bar.layers[layer].tuplets) {
             // E. Gould, "Behind Bars", ch. "Tuplets" (from memory): a tuplet is written in its
             // own note value; neighbouring rests combine as in the plain grouping of those
-            // values, each starting on a multiple of its own length.
+            // values, each starting on a multiple of its own length, but only up to an eighth:
+            // a quarter rest under the 5 reads as a whole beat's rest (common practice).
             const events = bar.layers[layer].events.filter((e) => e.beat === tuplet.beat);
             expect(tuplet.n).toBe(5);
             const struck = new Set(
@@ -472,11 +473,11 @@ describe('engraving rules on the drawn score (Chromium)', () => {
                 expect(e.duration, what).toBe('16');
                 expect(struck.has(at), what).toBe(true);
               } else {
-                expect(['16', '8', '4'], what).toContain(e.duration);
+                expect(['16', '8'], what).toContain(e.duration);
                 expect(at % length(e), `${what}: rest on a multiple of itself`).toBe(0);
                 for (let s = at; s < at + length(e); s++) expect(struck.has(s), what).toBe(false);
                 const next = events[k + 1];
-                if (next?.kind === 'rest' && next.duration === e.duration)
+                if (next?.kind === 'rest' && next.duration === e.duration && e.duration === '16')
                   expect(at % (2 * length(e)), `${what}: rests left uncombined`).not.toBe(0);
               }
               at += length(e);
@@ -683,6 +684,54 @@ describe('engraving rules on the drawn score (Chromium)', () => {
       }
     });
   }
+
+  /**
+   * Within each beat, the x distances between neighbouring slots whose ratio (widest over
+   * narrowest) exceeds `most`, as "bar b beat n: gaps" for a readable failure. A slot's x is the
+   * centre of the heads struck on it (either voice), else of its counting syllable.
+   */
+  function unevenBeats(score: ScoreGeometry, most: number): string[] {
+    const heads = headsAt(score);
+    const uneven: string[] = [];
+    for (const bar of score.bars) {
+      const beats = new Set(score.counts.filter((c) => c.bar === bar.bar).map((c) => c.beat));
+      for (const beat of beats) {
+        const slots = score.counts
+          .filter((c) => c.bar === bar.bar && c.beat === beat)
+          .sort((a, b) => a.slot - b.slot)
+          .map((c) => {
+            const head = heads.get(`${bar.bar}:${beat}:${c.slot}`);
+            const box = head ?? c;
+            return (box.left + box.right) / 2;
+          });
+        if (slots.length < 3) continue;
+        const gaps = slots.slice(1).map((x, i) => x - slots[i]!);
+        if (Math.max(...gaps) > most * Math.min(...gaps))
+          uneven.push(`bar ${bar.bar} beat ${beat}: ${gaps.map((g) => g.toFixed(0)).join(' ')}`);
+      }
+    }
+    return uneven;
+  }
+
+  it('gives equal slots of a beat nearly equal room, whichever voice plays them', async () => {
+    // Both voices share one rhythmic grid: space follows duration, not which voice sounds
+    // (E. Gould, "Behind Bars", Faber Music 2011, ch. "Horizontal spacing"; from memory).
+    for (const [id, seed] of [
+      ['groove-and-fill', 'harbor-9'],
+      ['tension-and-release', 'lesson-3'],
+      ['late-backbeat', 'harbor-9'],
+      ['early-backbeat', 'harbor-9'],
+      ['three-off-land-on-four', 'harbor-9'],
+      ['four-over-three', 'lesson-12'],
+      ['four-over-three', 'harbor-9'],
+      ['quintuplets-hihat-1-3-4', 'lesson-3'],
+    ] as const) {
+      for (const width of [1100, 390]) {
+        const score = await engrave(presetDrill(id, seed), { width, ...FULL });
+        expect(unevenBeats(score, 1.5), `${id} ${seed} at ${width} px: uneven slots`).toEqual([]);
+      }
+    }
+  });
 
   it('sets the voice key apart from the music: a "Key" heading, no staff of its own', async () => {
     for (const [id, seed] of [
