@@ -98,7 +98,18 @@ export const PRESET_CHECKS = [
   'preset/compound-on-its-beats',
   'preset/landing-releases',
   'preset/no-repeated-rule',
+  'preset/landing-crash-on-the-leading-hand',
+  'preset/fill-does-not-cross-to-the-floor-tom',
 ] as const;
+
+/**
+ * Preset checks a teacher's review added whose engine fix is still open (issue 8, fill sticking):
+ * the specs assert they still fail somewhere, so they turn red once the engine is fixed.
+ */
+export const OPEN_PRESET_CHECKS: ReadonlySet<string> = new Set([
+  'preset/landing-crash-on-the-leading-hand',
+  'preset/fill-does-not-cross-to-the-floor-tom',
+]);
 
 export type CheckName = (typeof DRILL_CHECKS)[number] | (typeof PRESET_CHECKS)[number];
 
@@ -881,6 +892,30 @@ export function checkPreset(plan: Plan, drill: DrillLike): Violation[] {
           check: 'preset/landing-releases',
           message: `landing bar ${bar} measures ${tension.get(bar)}, tenser than the other bars' mean ${mean.toFixed(4)}`,
         });
+  }
+
+  // A phrase's landing crash is struck by the leading hand: a right-handed player leads the fill
+  // with the right hand and comes off it onto the crash with that hand (common practice).
+  const leading = card.hand === 'right' ? 'R' : 'L';
+  for (const h of hits)
+    if (h.source === 'phrase' && h.voice === 'crash' && h.hand !== leading)
+      out.push({
+        check: 'preset/landing-crash-on-the-leading-hand',
+        message: `the landing crash at ${grid.describe(h.index)} is struck by hand ${h.hand}, not the leading hand ${leading}`,
+      });
+
+  // A fill goes around the toms high to floor without crossing the arms: the floor tom is not
+  // played by the left hand (of a right-handed player; mirrored for a left-handed one) right
+  // after the right hand played a higher tom at the grid note before (common practice).
+  const higherTom = new Set(['tomHigh', 'tomMid']);
+  for (const h of hits) {
+    if (h.source !== 'phrase' || h.voice !== 'tomFloor' || h.hand !== crossing) continue;
+    const before = (h.index - 1 + n) % n;
+    if ((byIndex.get(before) ?? []).some((b) => b.hand === other && higherTom.has(b.voice)))
+      out.push({
+        check: 'preset/fill-does-not-cross-to-the-floor-tom',
+        message: `hand ${crossing} plays the floor tom at ${grid.describe(h.index)} right after hand ${other} played a higher tom: the arms cross`,
+      });
   }
 
   // A card says each rule once: the same rule twice is a slip (it changes nothing but reads as
