@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { cardVariant, drillDifficulty, generateDrill, parseRuleCard } from './index';
+import { findBuiltInPreset } from './presets/index';
 
 const groove = (over: Record<string, unknown>) =>
   parseRuleCard({
@@ -40,5 +41,53 @@ describe('drill difficulty', () => {
     expect([harder.tempo, harder.density]).toEqual([110, 0.45]);
     expect(easier.rules).toEqual(card.rules);
     expect(harder.ostinato).toEqual(card.ostinato);
+  });
+
+  // The first groove a student learns (common practice): eighths on the hi-hat, kick on 1 and 3,
+  // snare on 2 and 4, every note struck with the hi-hat. Nothing lies between the time's notes.
+  const rockBeat = parseRuleCard({
+    subdivision: 2,
+    tempo: 84,
+    voices: ['kick', 'snare', 'hihat'],
+    ostinato: { voice: 'hihat', slots: [0, 1] },
+    density: 0,
+    rules: [
+      { kind: 'backbeat', voice: 'snare', beats: [2, 4] },
+      { kind: 'backbeat', voice: 'kick', beats: [1, 3], dynamic: 'normal' },
+    ],
+  });
+
+  it('rates the first rock beat a student learns as beginner, with no independence asked', () => {
+    const { difficulty } = generateDrill(rockBeat, 'a');
+    expect(difficulty.factors.independence).toBe(0);
+    expect(difficulty.level).toBe('beginner');
+  });
+
+  it('counts the notes placed between the time as independence: a linear groove asks for it', () => {
+    const linear = parseRuleCard({
+      voices: ['kick', 'snare', 'hihat'],
+      tempo: 84,
+      ostinato: { voice: 'hihat', slots: [2] },
+      density: 0.5,
+      rules: [
+        { kind: 'linear', maxOverlaps: 0 },
+        { kind: 'backbeat', voice: 'snare', beats: [2, 4] },
+      ],
+    });
+    const { difficulty } = generateDrill(linear, 'a');
+    // No limb ever strikes with the hi-hat: every other note lies between its strokes.
+    expect(difficulty.factors.independence).toBe(1);
+    expect(difficulty.score).toBeGreaterThan(generateDrill(rockBeat, 'a').difficulty.score);
+  });
+
+  it('rates the first preset (kick off the one, quarter-note hi-hat) beginner at most seeds', () => {
+    const card = parseRuleCard(findBuiltInPreset('kick-off-the-one')?.card);
+    const scores = Array.from(
+      { length: 20 },
+      (_, i) => generateDrill(card, `s${i}`).difficulty.score,
+    ).sort((a, b) => a - b);
+    // Median beginner (below 3.5); never past the low end of intermediate.
+    expect(scores[10]).toBeLessThan(3.5);
+    expect(scores[19]).toBeLessThanOrEqual(4);
   });
 });

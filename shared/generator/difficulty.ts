@@ -17,7 +17,8 @@ export interface Difficulty {
     readonly density: number;
     /** Mean bar tension. */
     readonly syncopation: number;
-    /** Share of sounding instants where two or more limbs strike together. */
+    /** Share of the instants where something other than the time plays that fall between the
+     * time's notes (between the beats when nothing keeps time). */
     readonly independence: number;
   };
 }
@@ -79,18 +80,22 @@ export function drillDifficulty(drill: Omit<Drill, 'difficulty'>): Difficulty {
   };
   const handRate = rate((hit) => (hit.hand as Hand | null) ?? null);
   const footRate = rate((hit) => (FOOT_VOICES.has(hit.voice) ? hit.voice : null));
+  // Independence: notes the other limbs place between the strokes of the time (a kick on the
+  // "e" under a quarter-note hi-hat) ask more of a player than notes struck with it (kick and
+  // snare with the hi-hat, the first groove a student learns). Without a time layer the beats
+  // stand in for it.
   const moving = new Set<number>();
-  const limbsAt = new Map<number, Set<string>>();
+  const time = new Set<number>();
+  const hasTime = times.some(({ hit }) => hit.source === 'ostinato');
   for (const { t, hit } of times) {
     const key = Math.round(t * 1e6);
     if (hit.source !== 'ostinato') moving.add(key);
-    const limbs = limbsAt.get(key) ?? new Set<string>();
-    limbs.add(hit.hand ?? hit.voice);
-    limbsAt.set(key, limbs);
+    if (hasTime ? hit.source === 'ostinato' : hit.slot === 0) time.add(key);
   }
   const density = slots === 0 ? 0 : moving.size / slots;
-  const together = [...limbsAt.values()].filter((limbs) => limbs.size >= 2).length;
-  const independence = limbsAt.size === 0 ? 0 : together / limbsAt.size;
+  let between = 0;
+  for (const key of moving) if (!time.has(key)) between++;
+  const independence = moving.size === 0 ? 0 : between / moving.size;
   const syncopation =
     drill.bars.reduce((sum, bar) => sum + bar.tension, 0) / Math.max(1, drill.bars.length);
   const factors = { handRate, footRate, density, syncopation, independence };

@@ -9,6 +9,7 @@ import {
   HAND_LIMITS,
   instantTicks,
   paceOf,
+  runTicks,
   thresholdsOf,
   type Thresholds,
 } from './sticking/limits';
@@ -16,7 +17,9 @@ import {
 /**
  * The limbs' rates as the fill sees them, so it never places a stroke they cannot play next to
  * the card's own notes and its other fills in the bar: a foot stroke never too fast for a
- * double and never the third of a row faster than singles; a hand stroke never the third of
+ * double, never the third of a row faster than singles, and never the third of three grid
+ * notes in a row of a run (one foot does not play three sixteenths running unless the card
+ * asks: common practice); a hand stroke never the third of
  * three within one hand's single-stroke time (two hands, singles: some hand would need a
  * double). Fills of neighbouring bars are not seen (each bar is filled on its own); the
  * sticking stage removes the rare stroke that meets one round a bar line.
@@ -28,6 +31,8 @@ export interface LimbWindows {
   readonly obVoices: Uint16Array;
   readonly foot: Thresholds;
   readonly hand: Thresholds;
+  /** The longest gap (ticks) between two grid notes of a run. */
+  readonly run: number;
   /**
    * Per bar-local instant: the instant offsets (ascending) whose strokes a foot stroke there
    * meets, with their signed distances in ticks (the same in every bar).
@@ -85,7 +90,8 @@ export function limbWindows(card: RuleCard, grid: Grid, ob: Obligations): LimbWi
     obVoices,
     foot,
     hand,
-    footNear: near(2 * foot.single),
+    run: runTicks(pace),
+    footNear: near(Math.max(2 * foot.single, 2 * runTicks(pace))),
     handNear: card.sticking.doubles ? grid.beatOf.map(() => none) : near(hand.single),
   };
 }
@@ -102,13 +108,19 @@ export function limbsAllow(w: LimbWindows, f: BarStrokes, i: number, voice: Voic
   const start = f.bar * grid.slotsPerBar;
   const bit = bitOf(voice);
   const times: number[] = [];
+  // Per stroke in `times`: its bar-local instant offset from i (0 for the strokes here).
+  const offsets: number[] = [];
   let mine = -1;
   // Strokes already at this instant (hands only: a foot plays one voice), then the new one.
   const putHere = (): void => {
     const already = handed ? (f.hands[i] ?? 0) : 0;
-    for (let k = 0; k < already; k++) times.push(0);
+    for (let k = 0; k < already; k++) {
+      times.push(0);
+      offsets.push(0);
+    }
     mine = times.length;
     times.push(0);
+    offsets.push(0);
   };
   near.offsets.forEach((d, k) => {
     if (d > 0 && mine < 0) putHere();
@@ -121,10 +133,15 @@ export function limbsAllow(w: LimbWindows, f: BarStrokes, i: number, voice: Voic
       count =
         (inBar && ((f.mask[local] ?? 0) & bit) !== 0) || ((w.obVoices[j] ?? 0) & bit) !== 0 ? 1 : 0;
     const gap = near.ticks[k] ?? 0;
-    for (let c = 0; c < count; c++) times.push(gap);
+    for (let c = 0; c < count; c++) {
+      times.push(gap);
+      offsets.push(d);
+    }
   });
   if (mine < 0) putHere();
-  return handed ? handsCan(w.hand, times, mine) : footCan(w.foot, times, mine);
+  return handed
+    ? handsCan(w.hand, times, mine)
+    : footCan(w.foot, times, mine) && !footRun(w.run, times, offsets, mine);
 }
 
 /** No three hand strokes in a row within one hand's single-stroke time. */
@@ -132,6 +149,20 @@ function handsCan(limits: Thresholds, times: readonly number[], mine: number): b
   for (let a = Math.max(0, mine - 2); a <= mine && a + 2 < times.length; a++)
     if ((times[a + 2] ?? 0) - (times[a] ?? 0) <= limits.single) return false;
   return true;
+}
+
+/** True when the new stroke makes three grid notes in a row of a run on the foot. */
+function footRun(
+  run: number,
+  times: readonly number[],
+  offsets: readonly number[],
+  mine: number,
+): boolean {
+  const step = (k: number): boolean =>
+    (offsets[k + 1] ?? 0) - (offsets[k] ?? 0) === 1 && (times[k + 1] ?? 0) - (times[k] ?? 0) <= run;
+  for (let a = Math.max(0, mine - 2); a <= mine && a + 2 < times.length; a++)
+    if (step(a) && step(a + 1)) return true;
+  return false;
 }
 
 /** No gap too fast for a double next to the new stroke, and no triple faster than singles. */

@@ -100,16 +100,11 @@ export const PRESET_CHECKS = [
   'preset/no-repeated-rule',
   'preset/landing-crash-on-the-leading-hand',
   'preset/fill-does-not-cross-to-the-floor-tom',
+  'preset/fill-starts-on-the-leading-hand',
+  'preset/fill-goes-round-the-toms',
+  'preset/accents-apart-on-one-hand',
+  'preset/no-foot-three-in-a-row',
 ] as const;
-
-/**
- * Preset checks a teacher's review added whose engine fix is still open (issue 8, fill sticking):
- * the specs assert they still fail somewhere, so they turn red once the engine is fixed.
- */
-export const OPEN_PRESET_CHECKS: ReadonlySet<string> = new Set([
-  'preset/landing-crash-on-the-leading-hand',
-  'preset/fill-does-not-cross-to-the-floor-tom',
-]);
 
 export type CheckName = (typeof DRILL_CHECKS)[number] | (typeof PRESET_CHECKS)[number];
 
@@ -754,8 +749,11 @@ export function checkPreset(plan: Plan, drill: DrillLike): Violation[] {
   // take it only while the near hand strikes at the same instant, or hand to hand inside a run
   // that the near hand carries on on that side (the near hand at the grid note just before it,
   // and on that side at the grid note just after it: the L of R L R on the floor tom, or of
-  // tom R, floor L, floor R going round the kit). So a fill that ends on the floor tom ends on
-  // the near hand (common practice). Time and figure notes keep the hand their line needs.
+  // tom R, floor L, floor R going round the kit), or at a fill's last stroke when the near hand
+  // struck the note before and plays the phrase's landing (the crash) at the next grid note: a
+  // fill alternates R L to its end and the leading hand comes off it onto the crash, so the
+  // near hand is never free there (common practice). Time and figure notes keep the hand their
+  // line needs.
   for (const side of ['R', 'L'] as const) {
     const near = side === 'R' ? 'L' : 'R';
     const rightHandSide = card.hand === 'right' ? FAR_SIDE_FOR_LEFT_HAND : FAR_SIDE_FOR_RIGHT_HAND;
@@ -768,11 +766,21 @@ export function checkPreset(plan: Plan, drill: DrillLike): Violation[] {
       runFrom(i - 1) && at(i - 1).some((h) => h.hand === near);
     const nearAfter = (i: number): boolean =>
       runFrom(i) && at(i + 1).some((h) => h.hand === near && farSide.has(h.voice));
+    const landsAfter = (h: Placed): boolean =>
+      h.source === 'phrase' &&
+      runFrom(h.index) &&
+      at(h.index + 1).some(
+        (g) =>
+          g.hand === near &&
+          g.source === 'phrase' &&
+          plan.landingBars.has(g.bar) &&
+          g.index === grid.downbeat(g.bar),
+      );
     for (const h of hits) {
       if (h.hand !== side || !farSide.has(h.voice)) continue;
       if (['ostinato', 'polyrhythm', 'euclid'].includes(h.source)) continue;
       if (at(h.index).some((g) => g.hand === near)) continue;
-      if (nearBefore(h.index) && nearAfter(h.index)) continue;
+      if (nearBefore(h.index) && (nearAfter(h.index) || landsAfter(h))) continue;
       out.push({
         check: 'preset/far-side-on-the-near-hand',
         message: `hand ${side} crosses to the ${h.voice} at ${grid.describe(h.index)} while hand ${near} is free`,
@@ -917,6 +925,75 @@ export function checkPreset(plan: Plan, drill: DrillLike): Violation[] {
         message: `hand ${crossing} plays the floor tom at ${grid.describe(h.index)} right after hand ${other} played a higher tom: the arms cross`,
       });
   }
+
+  // A fill is led by the leading hand: its first stroke (the first hand note in the fill window)
+  // is the leading hand's, so the fill's R L R L puts that hand on each beat (common practice).
+  // And a fill whose voices include toms is carried by them: at least two thirds of its strokes
+  // (the notes the phrase places in the window) are tom notes, the snare opening it, not a token
+  // one or two toms after a run on the snare (common practice: a fill "around the kit"; the
+  // share is our reading of a teacher's review, not a published figure).
+  const fillRule = rulesOf(card, 'phrase')[0];
+  if (fillRule)
+    for (const bar of plan.fillBars) {
+      const inWindow = hits
+        .filter((h) => h.bar === bar && plan.fillWindow.has(h.index))
+        .sort((a, b) => a.index - b.index);
+      const first = inWindow.find((h) => h.hand !== null);
+      if (first && first.hand !== leading)
+        out.push({
+          check: 'preset/fill-starts-on-the-leading-hand',
+          message: `the fill of bar ${bar} starts with hand ${first.hand} (${first.voice} at ${grid.describe(first.index)}), not the leading hand ${leading}`,
+        });
+      const strokes = inWindow.filter((h) => h.source === 'phrase');
+      const toms = strokes.filter((h) => /^tom/.test(h.voice)).length;
+      if (fillRule.voices.some((v) => /^tom/.test(v)) && 3 * toms < 2 * strokes.length)
+        out.push({
+          check: 'preset/fill-goes-round-the-toms',
+          message: `the fill of bar ${bar} has ${toms} tom notes in ${strokes.length} strokes`,
+        });
+    }
+
+  // No hand plays accents on two grid notes in a row of a run (4 notes a second or more), as a
+  // backbeat followed by an accented ghost-note slot on the same hand (common practice: an
+  // accent is a full stroke from a raised stick, the note after it a tap on the way down; two in
+  // a row by one hand also blur the backbeat). Notes the card's rules place are left alone (the
+  // card asked for them); a fill note is in every pair this check reports.
+  for (let i = 0; i < n; i++) {
+    const j = (i + 1) % n;
+    if (n < 2 || grid.notesPerMinuteAt(i, card.tempo) < 240) continue;
+    for (const a of byIndex.get(i) ?? [])
+      for (const b of byIndex.get(j) ?? [])
+        if (
+          a.hand !== null &&
+          a.hand === b.hand &&
+          a.dynamic === 'accent' &&
+          b.dynamic === 'accent' &&
+          (a.source === 'fill' || b.source === 'fill')
+        )
+          out.push({
+            check: 'preset/accents-apart-on-one-hand',
+            message: `hand ${a.hand} accents the ${a.voice} at ${grid.describe(i)} and the ${b.voice} right after`,
+          });
+  }
+
+  // One foot does not play three grid notes in a row of a run (4 notes a second or more: three
+  // sixteenths running on one kick pedal at 72 BPM) unless the card's rules place all three: a
+  // foot cannot hand a note over as the hands do (common practice: a groove's kick plays
+  // singles and the odd double, "1 e"). Drills loop, so the check wraps.
+  for (const foot of ['kick', 'hihatFoot'])
+    for (let i = 0; i < n && n >= 3; i++) {
+      const three = [0, 1, 2].map((d) =>
+        (byIndex.get((i + d) % n) ?? []).find((h) => h.voice === foot),
+      );
+      if (three.some((h) => !h)) continue;
+      if (grid.notesPerMinuteAt(i, card.tempo) < 240) continue;
+      if (grid.notesPerMinuteAt((i + 1) % n, card.tempo) < 240) continue;
+      if (three.every((h) => h!.source !== 'fill')) continue;
+      out.push({
+        check: 'preset/no-foot-three-in-a-row',
+        message: `the ${foot} plays three grid notes in a row from ${grid.describe(i)} at ${card.tempo} BPM`,
+      });
+    }
 
   // A card says each rule once: the same rule twice is a slip (it changes nothing but reads as
   // if it did).

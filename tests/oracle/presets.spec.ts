@@ -1,6 +1,6 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { BUILT_IN_PRESETS } from '../../shared/generator/presets/index';
-import { DRILL_CHECKS, OPEN_PRESET_CHECKS, PRESET_CHECKS } from './checks';
+import { DRILL_CHECKS, PRESET_CHECKS } from './checks';
 import { failuresOf, report, runCard, type Outcome } from './run';
 
 /**
@@ -44,19 +44,7 @@ describe('rule oracle: presets at 20 seeds', () => {
     expect(report(impossible, 'Presets proved impossible'), '').toBeNull();
   });
 
-  it.each([...DRILL_CHECKS, ...PRESET_CHECKS].filter((c) => !OPEN_PRESET_CHECKS.has(c)))(
-    '%s holds on every preset drill',
-    (check) => {
-      expect(failuresOf(outcomes, check), '').toBeNull();
-    },
-  );
-
-  // Faults a teacher's review found and the engine does not fix yet: each is asserted to still
-  // show, so the test goes red (and the name moves back above) once the engine is fixed.
-  it.each(PRESET_CHECKS.filter((c) => OPEN_PRESET_CHECKS.has(c)))(
-    '%s still fails on some preset drill (open fault)',
-    (check) => {
-      expect(failuresOf(outcomes, check)).not.toBeNull();
-    },
-  );
+  it.each([...DRILL_CHECKS, ...PRESET_CHECKS])('%s holds on every preset drill', (check) => {
+    expect(failuresOf(outcomes, check), '').toBeNull();
+  });
 });

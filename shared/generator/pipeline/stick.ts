@@ -1,6 +1,7 @@
 import { RuleConflictError } from '../errors';
 import type { FillContext } from '../fill';
 import { positionOf, type Grid } from '../grid';
+import { frameOf } from '../sticking/streams';
 import { assignHandsRepairing, type WorkHit } from '../hands';
 import type { KeptBars } from '../keep';
 import { fitShares, keptShares, sharesConflict } from '../kept-shares';
@@ -135,5 +136,53 @@ function markEmbellishments(ctx: FillContext, cells: WorkHit[][], rng: Rng, kept
     free.forEach((hit, k) => {
       hit.dynamic = dynamics[k] ?? 'normal';
     });
+    separateAccents(ctx.grid, card.tempo, cells, free);
   });
+}
+
+/**
+ * No hand plays accents on two grid notes in a row of a run (common practice: an accent is a
+ * full stroke from a raised stick, and the note right after it is a tap as the stick comes
+ * down; the left hand's snare accent right after its backbeat blurs the backbeat). Where a free
+ * note's accent lies beside another accent of its hand, it trades its dynamic with a free note
+ * of the rule whose accent would lie beside none (a normal note first, then a ghost), so the
+ * rule's shares stay as they are; no draw of the seeded generator is spent.
+ */
+function separateAccents(grid: Grid, tempo: number, cells: WorkHit[][], free: WorkHit[]): void {
+  const { ticks, run, pace } = frameOf(grid, tempo);
+  const n = grid.instants;
+  const where = new Map<WorkHit, number>();
+  cells.forEach((cell, instant) => {
+    for (const hit of cell) where.set(hit, instant);
+  });
+  const step = (a: number, b: number): number => {
+    const gap = (ticks[b] ?? 0) - (ticks[a] ?? 0);
+    return gap > 0 ? gap : gap + pace.loop;
+  };
+  /** True when `hit`, accented, would sit beside another accent of its hand in a run. */
+  const crowded = (hit: WorkHit): boolean => {
+    const at = where.get(hit);
+    if (at === undefined || hit.hand === null) return false;
+    const before = (at + n - 1) % n;
+    const after = (at + 1) % n;
+    const accentOf = (i: number): boolean =>
+      (cells[i] ?? []).some((h) => h !== hit && h.hand === hit.hand && h.dynamic === 'accent');
+    return (
+      (n > 1 && step(before, at) <= run && accentOf(before)) ||
+      (n > 1 && step(at, after) <= run && accentOf(after))
+    );
+  };
+  for (const hit of free) {
+    if (hit.dynamic !== 'accent' || !crowded(hit)) continue;
+    hit.dynamic = 'normal';
+    const swap =
+      free.find((o) => o.dynamic === 'normal' && o !== hit && !crowded(o)) ??
+      free.find((o) => o.dynamic === 'ghost' && !crowded(o));
+    if (!swap) {
+      hit.dynamic = 'accent';
+      continue;
+    }
+    hit.dynamic = swap.dynamic;
+    swap.dynamic = 'accent';
+  }
 }

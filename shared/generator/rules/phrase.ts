@@ -84,9 +84,21 @@ export function placePhrase(
       overlaps++;
       return true;
     });
-    playable.forEach((instant, k) => {
-      const voice = rule.voices[Math.floor((k * rule.voices.length) / playable.length)];
-      if (voice) out.push({ instant, voice, source: 'phrase', dynamic: 'normal', rule: index });
+    const fill = new Set(playable);
+    // Around the kit in pairs of strokes (R L for a right-handed lead): the drum changes only
+    // on the first note of a pair, so each drum starts on the leading hand and that hand leads
+    // down the kit; a pair whose first note another rule holds stays on the drum before. Extra
+    // pairs go to the later voices (the toms), so the snare starts the fill and the toms carry
+    // it (common practice).
+    const pairs = Math.ceil(run.length / 2);
+    const count = rule.voices.length;
+    let voice: VoiceId | undefined;
+    run.forEach((instant, k) => {
+      const pair = Math.floor(k / 2);
+      const target = rule.voices[count - 1 - Math.floor(((pairs - 1 - pair) * count) / pairs)];
+      if (voice === undefined || (k % 2 === 0 && fill.has(instant))) voice = target;
+      if (voice && fill.has(instant))
+        out.push({ instant, voice, source: 'phrase', dynamic: 'normal', rule: index });
     });
     const landing = ((bar + 1) % grid.bars) * grid.slotsPerBar;
     for (const voice of landingVoices(card, rule)) {

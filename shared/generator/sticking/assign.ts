@@ -218,37 +218,53 @@ function footFailure(
   const handVoice = HAND_VOICE;
   // One pass: each foot's instants (feet get no hand).
   const feet = new Map<number, number[]>();
+  // Per foot instant: a fill stroke the repair may remove (not a kept bar's).
+  const looseAt = new Map<number, boolean[]>();
   for (let i = 0; i < n; i++) {
     for (let k = start[i] ?? 0; k < (start[i + 1] ?? 0); k++) {
       const v = voice[k] ?? 0;
       if (handVoice[v]) continue;
-      (notes[k] as WorkHit).hand = null;
+      const hit = notes[k] as WorkHit;
+      hit.hand = null;
+      const loose = hit.source === 'fill' && !hit.pinned;
       const list = feet.get(v);
-      if (list) list.push(i);
-      else feet.set(v, [i]);
+      if (list) {
+        list.push(i);
+        looseAt.get(v)?.push(loose);
+      } else {
+        feet.set(v, [i]);
+        looseAt.set(v, [loose]);
+      }
     }
   }
   const span = 2 * ctx.frame.foot.single;
   for (const name of ctx.card.voices) {
     const v = VOICE_INDEX[name];
     const instants = feet.get(v);
+    const loose = looseAt.get(v) ?? [];
     if (!instants) continue;
     for (;;) {
-      const trouble = footTrouble(ctx, instants);
+      const trouble = footTrouble(ctx, instants, loose);
       if (trouble < 0) break;
       const failure: HandFailure = { instant: trouble, reason: 'feet', voice: name };
       if (!cells) return failure;
       const emptied = dropNear(ctx, cells, trouble, v, span);
       if (emptied === null) return failure;
       if (dropped) dropped.feet++;
-      instants.splice(instants.indexOf(emptied), 1);
+      const at = instants.indexOf(emptied);
+      instants.splice(at, 1);
+      loose.splice(at, 1);
     }
   }
   return null;
 }
 
-/** The instant where a foot first breaks its rates (round the loop last), or -1. */
-function footTrouble(ctx: Ctx, instants: readonly number[]): number {
+/**
+ * The instant where a foot first breaks its rates (round the loop last), or -1; then the third
+ * of three notes in a row of a run on the foot when a fill stroke is among them (common
+ * practice: one foot does not play three grid notes running unless the card asks for them).
+ */
+function footTrouble(ctx: Ctx, instants: readonly number[], loose: readonly boolean[]): number {
   const count = instants.length;
   if (count === 0) return -1;
   const { ticks, foot } = ctx.frame;
@@ -267,6 +283,21 @@ function footTrouble(ctx: Ctx, instants: readonly number[]): number {
     const kind = kinds[at];
     const bad = kind === 2 || (kind === 1 && count > 1 && kinds[(at - 1 + count) % count] !== 0);
     if (bad) return instants[at === 0 ? count - 1 : at] ?? 0;
+  }
+  if (count < 3 || ctx.n < 3) return -1;
+  const { n } = ctx;
+  const runStep = (k: number): boolean => {
+    const a = instants[(k - 1 + count) % count] ?? 0;
+    const b = instants[k] ?? 0;
+    if ((b - a + n) % n !== 1) return false;
+    const gap = (ticks[b] ?? 0) - (ticks[a] ?? 0);
+    return (gap > 0 ? gap : gap + ctx.loop) <= ctx.frame.run;
+  };
+  for (let k = 0; k < count; k++) {
+    const k1 = (k + 1) % count;
+    const k2 = (k + 2) % count;
+    if (!runStep(k1) || !runStep(k2)) continue;
+    if (loose[k] || loose[k1] || loose[k2]) return instants[k2] ?? 0;
   }
   return -1;
 }
@@ -493,13 +524,19 @@ interface Event {
   readonly pin0: number;
   readonly pin1: number;
   /** 1 or 2: the natural hand of the position (the leading side on even positions). */
-  readonly natural: number;
+  natural: number;
+  /** The natural hand as a step of a run, and as a lone note (set again at the seam). */
+  readonly runNatural: number;
+  readonly loneNatural: number;
   /** With the previous event (round the loop for the first): a run step; within a beat. */
   runStep: boolean;
   nearStep: boolean;
   /** A note of a phrase fill, or the note right after one, inside its window (a hand may
    * repeat into or out of the fill). */
-  readonly fill: boolean;
+  fill: boolean;
+  /** Per note: a phrase's landing on a hand (the crash on the one after the fill). */
+  readonly landing0: boolean;
+  readonly landing1: boolean;
   /** Per note: a backbeat rule's note (it goes to the hand the time leaves free). */
   readonly beat0: boolean;
   readonly beat1: boolean;
@@ -546,6 +583,11 @@ function eventAt(
   const slot = frame.grid.slotOf[instant % frame.grid.slotsPerBar] ?? 0;
   const step = prev ? tick - prev.tick : 0;
   const runStep = !!prev && instant - prev.instant === 1 && step <= frame.run;
+  const runNatural = slot % 2 === 0 ? ctx.lead : 3 - ctx.lead;
+  const loneNatural = plan.timeHand ? 3 - plan.timeHand : runNatural;
+  // A backbeat inside a phrase's fill is one stroke of the fill's run: the time rests there,
+  // both hands are free and the run's alternation decides its hand.
+  const inFillRun = besideFillStroke(cells, instant, ctx.n);
   return {
     instant,
     tick,
@@ -560,18 +602,17 @@ function eventAt(
     pin1: b ? pinOf(b) : 0,
     // A lone note beside the time goes to the hand the time leaves free (the snare hand of a
     // groove); in runs the leading side takes the strong positions.
-    natural:
-      plan.timeHand && !runStep ? 3 - plan.timeHand : slot % 2 === 0 ? ctx.lead : 3 - ctx.lead,
+    natural: runStep ? runNatural : loneNatural,
+    runNatural,
+    loneNatural,
     runStep,
     nearStep: !!prev && step <= frame.pace.ticksPerBeat,
     // Groove fills stay out of a phrase's fill window: beside one, the run enters or leaves it.
-    fill:
-      !!prev &&
-      (fillStroke(a) || fillStroke(prev.a)) &&
-      a.source !== 'fill' &&
-      prev.a.source !== 'fill',
-    beat0: a.source === 'backbeat',
-    beat1: b?.source === 'backbeat',
+    fill: !!prev && fillStep(a, prev.a),
+    landing0: landingStroke(a),
+    landing1: !!b && landingStroke(b),
+    beat0: a.source === 'backbeat' && !inFillRun,
+    beat1: b?.source === 'backbeat' && !inFillRun,
     loose0: a.source === 'fill' && !a.pinned,
     loose1: !!b && b.source === 'fill' && !b.pinned,
     free: plan.timeHand ? 3 - plan.timeHand : 0,
@@ -590,6 +631,21 @@ function besideTime(ctx: Ctx, plan: Plan, instant: number): boolean {
 /** A phrase's fill stroke (its landing, kick and crash on the next one, is accented). */
 const fillStroke = (hit: WorkHit): boolean => hit.source === 'phrase' && hit.dynamic !== 'accent';
 
+/** A phrase's landing note on a hand (the crash). */
+const landingStroke = (hit: WorkHit): boolean =>
+  hit.source === 'phrase' && hit.dynamic === 'accent' && !!HAND_VOICE[VOICE_INDEX[hit.voice]];
+
+/** A step into, through or out of a phrase's fill (groove fills stay out of its window). */
+const fillStep = (a: WorkHit, prev: WorkHit): boolean =>
+  (fillStroke(a) || fillStroke(prev)) && a.source !== 'fill' && prev.source !== 'fill';
+
+/** True when a phrase's fill stroke sounds at the instant before or after (round the loop). */
+function besideFillStroke(cells: Cells, instant: number, n: number): boolean {
+  for (const at of [(instant + n - 1) % n, (instant + 1) % n])
+    for (const hit of cells[at] ?? []) if (fillStroke(hit)) return true;
+  return false;
+}
+
 const pinOf = (hit: WorkHit): number => (!hit.pinned ? 0 : hit.hand === 'R' ? 1 : 2);
 
 /** Sets the first event's steps as the second lap meets it: one on from the drill's last. */
@@ -598,6 +654,10 @@ function wrap(ctx: Ctx, first: Event, last: Event): void {
   const adjacent = (first.instant - last.instant + ctx.n) % ctx.n === 1;
   first.runStep = adjacent && step <= ctx.frame.run;
   first.nearStep = step <= ctx.frame.pace.ticksPerBeat;
+  // The first note met round the seam is what it is inside the loop: a run step takes the
+  // run's natural hand, and a fill's landing is the step out of the fill.
+  first.natural = first.runStep ? first.runNatural : first.loneNatural;
+  first.fill = fillStep(first.a, last.a);
 }
 
 /** 1 or 2 when the plan gives the voice (VOICE_IDS index) at the instant to R or L, else 0. */
@@ -729,8 +789,11 @@ function advance(
         }
         if (threeR) cost += COST.three;
         if (threeL) cost += COST.three;
-        if (f & CROSS_R && !(ev.runStep && ownNowL)) cost += COST.crossFree;
-        if (f & CROSS_L && !(ev.runStep && ownNowR)) cost += COST.crossFree;
+        // A crossing is met by the near hand on its side, or on the landing right after a fill.
+        const landR = firstHand === 1 ? ev.landing0 : ev.landing1;
+        const landL = firstHand === 1 ? ev.landing1 : ev.landing0;
+        if (f & CROSS_R && !(ev.runStep && (ownNowL || landL))) cost += COST.crossFree;
+        if (f & CROSS_L && !(ev.runStep && (ownNowR || landR))) cost += COST.crossFree;
         if (ev.free) {
           if (ev.beat0 && !ev.forced0 && firstHand !== ev.free) cost += COST.backbeat;
           if (ev.beat1 && !ev.forced1 && firstHand === ev.free) cost += COST.backbeat;
@@ -795,8 +858,9 @@ function advance(
         else cost += COST.crossFree;
       }
       // A crossing wedged at the note before needs the near hand (this one) on its side now.
-      if (f & CROSS_R && !(ev.runStep && !right && ownNow)) cost += COST.crossFree;
-      if (f & CROSS_L && !(ev.runStep && right && ownNow)) cost += COST.crossFree;
+      // Or by the near hand's landing crash right after the fill's last stroke.
+      if (f & CROSS_R && !(ev.runStep && !right && (ownNow || ev.landing0))) cost += COST.crossFree;
+      if (f & CROSS_L && !(ev.runStep && right && (ownNow || ev.landing0))) cost += COST.crossFree;
       const prevMine = (f & PREV) === (right ? PREV_R : PREV_L);
       const exempt = ev.forced0 !== 0;
       if (ctx.runs && third(f, hand, ev.runStep, exempt)) {
@@ -885,17 +949,40 @@ function keyAt(ctx: Ctx, lat: Lattice, j: number, end: number): string {
   return `${restR ? -1 : end - lastR}/${restL ? -1 : end - lastL}/${flags}`;
 }
 
-/** A lap's cost at state j, with a crossing still pending at its end charged (the next lap
- * meets it at its first note, which this lap does not count). */
-const endCost = (lat: Lattice, j: number): number =>
-  (lat.cost[j] ?? 0) + ((lat.flags[j] ?? 0) & (CROSS_R | CROSS_L) ? COST.crossFree : 0);
+/**
+ * A lap's cost at state j (after the lap's last event), with a crossing still pending at its end
+ * charged unless the lap's own first note meets it: drills loop, so that note comes next. `first`
+ * is the lap's first event and `back` the steps from j to the state after it (events − 1).
+ */
+function endCost(lat: Lattice, j: number, first: Event, back: number): number {
+  const cost = lat.cost[j] ?? 0;
+  const pending = (lat.flags[j] ?? 0) & (CROSS_R | CROSS_L);
+  if (!pending) return cost;
+  let k = j;
+  for (let s = 0; s < back; s++) k = lat.parent[k] ?? 0;
+  const flags = lat.flags[k] ?? 0;
+  const choice = lat.choice[k] ?? 0;
+  const landR = (first.landing0 && choice === 0) || (first.landing1 && choice === 1);
+  const landL = (first.landing0 && choice === 1) || (first.landing1 && choice === 0);
+  const metR = first.runStep && ((flags & OWN_L) !== 0 || landL);
+  const metL = first.runStep && ((flags & OWN_R) !== 0 || landR);
+  const unmet = (pending & CROSS_R && !metR) || (pending & CROSS_L && !metL);
+  return cost + (unmet ? COST.crossFree : 0);
+}
 
-/** The cheapest state of a layer (the first on ties). */
-function cheapest(lat: Lattice, layer: number): number {
+/** The cheapest state of a layer (the first on ties), by `endCost`. */
+function cheapest(lat: Lattice, layer: number, first: Event, back: number): number {
   const from = lat.begin[layer] ?? 0;
   const to = lat.begin[layer + 1] ?? 0;
   let best = from;
-  for (let j = from + 1; j < to; j++) if (endCost(lat, j) < endCost(lat, best)) best = j;
+  let bestCost = endCost(lat, best, first, back);
+  for (let j = from + 1; j < to; j++) {
+    const cost = endCost(lat, j, first, back);
+    if (cost < bestCost) {
+      best = j;
+      bestCost = cost;
+    }
+  }
   return best;
 }
 
@@ -998,7 +1085,7 @@ function secondLap(
     const ev = lap[e] as Event;
     if (advance(ctx, lat, E + e, ev, loop, why) === 0) return failureAt(ev, why);
   }
-  const best = cheapest(lat, 2 * E);
+  const best = cheapest(lat, 2 * E, first, E - 1);
   const start = writePath(lap, lat, best);
   if (keyAt(ctx, lat, start, loop) === keyAt(ctx, lat, best, 2 * loop)) return null;
   const holds = (): boolean => seamHolds(ctx, cells, skipFill);
@@ -1010,7 +1097,11 @@ function secondLap(
     [2 * E, 2 * loop],
   ] as const) {
     for (let j = lat.begin[layer] ?? 0; j < (lat.begin[layer + 1] ?? 0); j++)
-      candidates.push({ key: keyAt(ctx, lat, j, end), cost: endCost(lat, j), order: j });
+      candidates.push({
+        key: keyAt(ctx, lat, j, end),
+        cost: endCost(lat, j, first, E - 1),
+        order: j,
+      });
   }
   candidates.sort((a, b) => a.cost - b.cost || a.order - b.order);
   const seen = new Set<string>();
@@ -1028,7 +1119,8 @@ function secondLap(
     let pick = -1;
     for (let j = trial.begin[E] ?? 0; j < trial.size; j++) {
       if (keyAt(ctx, trial, j, 2 * loop) !== key) continue;
-      if (pick < 0 || endCost(trial, j) < endCost(trial, pick)) pick = j;
+      if (pick < 0 || endCost(trial, j, first, E - 1) < endCost(trial, pick, first, E - 1))
+        pick = j;
     }
     if (pick < 0) continue;
     writePath(lap, trial, pick);
