@@ -15,6 +15,7 @@ import {
   type NotationLayout,
   type RenderOptions,
 } from '../../shared/notation/render-vexflow';
+import { simplifyForPrint } from './print-svg';
 import { SvgDocument, type SvgNode } from './svg-document';
 
 const require = createRequire(import.meta.url);
@@ -41,10 +42,14 @@ export interface SvgRender {
   readonly layout: Omit<NotationLayout, 'svg'>;
 }
 
-/** Engrave a drill to an SVG document string. */
+/**
+ * Engrave a drill to an SVG document string. `forPrint` leaves out the app's hooks (classes,
+ * ids, data attributes) and the groups that only held them (see print-svg.ts).
+ */
 export function renderDrillSvg(
   drill: NotationSource,
   options: RenderOptions = { width: 1000, showSticking: true, showCounts: true },
+  { forPrint = false }: { readonly forPrint?: boolean } = {},
 ): SvgRender {
   prepareFonts();
   const document = new SvgDocument();
@@ -55,7 +60,9 @@ export function renderDrillSvg(
   try {
     const container = document.createElement('div') as unknown as HTMLElement;
     const { svg, ...layout } = renderNotation(container, buildNotation(drill), options);
-    return { svg: (svg as unknown as SvgNode).serialize(), layout };
+    const root = svg as unknown as SvgNode;
+    if (forPrint) simplifyForPrint(root);
+    return { svg: root.serialize(), layout };
   } finally {
     if (previous === undefined) delete global.document;
     else global.document = previous;

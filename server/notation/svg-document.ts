@@ -88,6 +88,14 @@ export class SvgNode {
     return this.attrs.get(name) ?? null;
   }
 
+  removeAttribute(name: string): void {
+    this.attrs.delete(name);
+  }
+
+  attributeNames(): string[] {
+    return [...this.attrs.keys()];
+  }
+
   readonly classList = {
     add: (...names: string[]): void => {
       const present = (this.getAttribute('class') ?? '').split(/\s+/).filter(Boolean);
@@ -152,26 +160,21 @@ export class SvgNode {
 
   /** The element as XML, as an XML serialiser writes a standalone SVG element. */
   serialize(): string {
-    const out: string[] = [];
-    this.write(out, null);
-    return out.join('');
+    return this.markup(null);
   }
 
-  private write(out: string[], inheritedNs: string | null): void {
-    out.push('<', this.nodeName);
+  // String concatenation: V8 joins the pieces as ropes, cheaper than collecting an array.
+  private markup(inheritedNs: string | null): string {
+    let out = '<' + this.nodeName;
     if (this.namespaceURI !== inheritedNs && this.namespaceURI !== null)
-      out.push(' xmlns="', escapeAttribute(this.namespaceURI), '"');
-    for (const [name, value] of this.attrs) out.push(' ', name, '="', escapeAttribute(value), '"');
-    if (this.childNodes.length === 0) {
-      out.push('/>');
-      return;
-    }
-    out.push('>');
-    for (const child of this.childNodes) {
-      if (child instanceof SvgTextNode) out.push(escapeText(child.data));
-      else child.write(out, this.namespaceURI);
-    }
-    out.push('</', this.nodeName, '>');
+      out += ' xmlns="' + escapeAttribute(this.namespaceURI) + '"';
+    for (const [name, value] of this.attrs) out += ' ' + name + '="' + escapeAttribute(value) + '"';
+    if (this.childNodes.length === 0) return out + '/>';
+    out += '>';
+    for (const child of this.childNodes)
+      out +=
+        child instanceof SvgTextNode ? escapeText(child.data) : child.markup(this.namespaceURI);
+    return out + '</' + this.nodeName + '>';
   }
 }
 
@@ -187,7 +190,11 @@ export class SvgDocument {
   }
 }
 
+const ATTRIBUTE_SPECIALS = /[&"<>\t\n\r]/;
+const TEXT_SPECIALS = /[&<>]/;
+
 function escapeAttribute(value: string): string {
+  if (!ATTRIBUTE_SPECIALS.test(value)) return value;
   return value
     .replace(/&/g, '&amp;')
     .replace(/"/g, '&quot;')
@@ -199,5 +206,6 @@ function escapeAttribute(value: string): string {
 }
 
 function escapeText(value: string): string {
+  if (!TEXT_SPECIALS.test(value)) return value;
   return value.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;');
 }

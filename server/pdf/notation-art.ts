@@ -48,14 +48,18 @@ function engrave(
   aids: PrintAids,
   width: number,
 ): NotationArt & { readonly systems: number } {
-  const { svg, layout } = renderDrillSvg(drill, {
-    width,
-    showSticking: aids.sticking,
-    showCounts: aids.counts,
-    showLegend: true,
-    showMarks: true,
-    ink: 'black',
-  });
+  const { svg, layout } = renderDrillSvg(
+    drill,
+    {
+      width,
+      showSticking: aids.sticking,
+      showCounts: aids.counts,
+      showLegend: true,
+      showMarks: true,
+      ink: 'black',
+    },
+    { forPrint: true },
+  );
   const systems = new Set(layout.bars.map((b) => b.system)).size;
   return { svg, width: layout.width, height: layout.height, systems };
 }
