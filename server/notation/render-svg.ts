@@ -1,13 +1,13 @@
 /**
  * Server-side engraving: a drill as a standalone SVG string (for PDF worksheets), drawn by the
- * same VexFlow code as the browser, in a jsdom document.
+ * same VexFlow code as the browser, into a minimal string-building SVG document (svg-document.ts;
+ * a spec checks it writes what a full DOM, jsdom, writes).
  *
- * jsdom cannot measure text, and VexFlow lays out by measured glyph widths, so the Bravura and
- * Academico fonts are registered with @napi-rs/canvas and VexFlow measures with that canvas.
+ * There is no DOM to measure text, and VexFlow lays out by measured glyph widths, so the Bravura
+ * and Academico fonts are registered with @napi-rs/canvas and VexFlow measures with that canvas.
  */
 import { createRequire } from 'node:module';
 import { createCanvas, GlobalFonts } from '@napi-rs/canvas';
-import { JSDOM } from 'jsdom';
 import { Element as VexElement } from 'vexflow/bravura';
 import { buildNotation, type NotationSource } from '../../shared/notation/notation-model';
 import {
@@ -15,6 +15,8 @@ import {
   type NotationLayout,
   type RenderOptions,
 } from '../../shared/notation/render-vexflow';
+import { simplifyForPrint } from './print-svg';
+import { SvgDocument, type SvgNode } from './svg-document';
 
 const require = createRequire(import.meta.url);
 let fontsReady = false;
@@ -40,26 +42,29 @@ export interface SvgRender {
   readonly layout: Omit<NotationLayout, 'svg'>;
 }
 
-/** Engrave a drill to an SVG document string. */
+/**
+ * Engrave a drill to an SVG document string. `forPrint` leaves out the app's hooks (classes,
+ * ids, data attributes) and the groups that only held them (see print-svg.ts).
+ */
 export function renderDrillSvg(
   drill: NotationSource,
   options: RenderOptions = { width: 1000, showSticking: true, showCounts: true },
+  { forPrint = false }: { readonly forPrint?: boolean } = {},
 ): SvgRender {
   prepareFonts();
-  const dom = new JSDOM('<!doctype html><html><body><div id="score"></div></body></html>');
-  const { document } = dom.window;
-  const global = globalThis as { document?: Document };
+  const document = new SvgDocument();
+  const global = globalThis as { document?: unknown };
   const previous = global.document;
   // VexFlow's SVG context creates its elements through the global `document`.
   global.document = document;
   try {
-    const container = document.getElementById('score') as HTMLElement;
+    const container = document.createElement('div') as unknown as HTMLElement;
     const { svg, ...layout } = renderNotation(container, buildNotation(drill), options);
-    // XMLSerializer writes the SVG namespace declaration (innerHTML would drop it).
-    return { svg: new dom.window.XMLSerializer().serializeToString(svg), layout };
+    const root = svg as unknown as SvgNode;
+    if (forPrint) simplifyForPrint(root);
+    return { svg: root.serialize(), layout };
   } finally {
     if (previous === undefined) delete global.document;
     else global.document = previous;
-    dom.window.close();
   }
 }

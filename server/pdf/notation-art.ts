@@ -1,3 +1,4 @@
+import { createHash } from 'node:crypto';
 import type { Drill } from '../../shared/generator/index';
 import { renderDrillSvg } from '../notation/render-svg';
 import type { PrintAids } from './worksheet-print';
@@ -27,6 +28,36 @@ export interface NotationArt {
  * and the page shrinks it less.
  */
 export function notationArt(drill: Drill, aids: PrintAids, maxAspect = Infinity): NotationArt {
+  // A drill is engraved from its own data alone: the same drill, aids and room draw the same.
+  const key = createHash('sha256')
+    .update(JSON.stringify([drill, aids, maxAspect, PRINT_ENGRAVING_WIDTH]))
+    .digest('base64');
+  const known = engraved.get(key);
+  if (known) {
+    // Most recently used last, so the oldest goes first when the cache is full.
+    engraved.delete(key);
+    engraved.set(key, known);
+    return known;
+  }
+  const art = engraveToFit(drill, aids, maxAspect);
+  engraved.set(key, art);
+  if (engraved.size > CACHED_DRAWINGS) engraved.delete(engraved.keys().next().value!);
+  return art;
+}
+
+/**
+ * Drawings kept for a worksheet exported again (a teacher re-prints after editing the notes or
+ * the ladder): a 16-bar drawing is 60–140 kB, so 64 of them stay under 10 MB.
+ */
+const CACHED_DRAWINGS = 64;
+const engraved = new Map<string, NotationArt>();
+
+/** Forget every kept drawing (the benchmark's cold runs). */
+export function clearNotationCache(): void {
+  engraved.clear();
+}
+
+function engraveToFit(drill: Drill, aids: PrintAids, maxAspect: number): NotationArt {
   const first = engrave(drill, aids, PRINT_ENGRAVING_WIDTH);
   const aspect = first.height / first.width;
   const perSystem = drill.bars.length / first.systems;
@@ -48,14 +79,18 @@ function engrave(
   aids: PrintAids,
   width: number,
 ): NotationArt & { readonly systems: number } {
-  const { svg, layout } = renderDrillSvg(drill, {
-    width,
-    showSticking: aids.sticking,
-    showCounts: aids.counts,
-    showLegend: true,
-    showMarks: true,
-    ink: 'black',
-  });
+  const { svg, layout } = renderDrillSvg(
+    drill,
+    {
+      width,
+      showSticking: aids.sticking,
+      showCounts: aids.counts,
+      showLegend: true,
+      showMarks: true,
+      ink: 'black',
+    },
+    { forPrint: true },
+  );
   const systems = new Set(layout.bars.map((b) => b.system)).size;
   return { svg, width: layout.width, height: layout.height, systems };
 }

@@ -4,7 +4,7 @@ import type { Drill } from '../../shared/generator/index';
 export const THUMBNAIL_BARS = 2;
 
 /**
- * Engraves with the server's VexFlow renderer, loaded on first use (jsdom and the font canvas
+ * Engraves with the server's VexFlow renderer, loaded on first use (VexFlow and the font canvas
  * are only needed once a thumbnail is missing from the cache), then outlines the glyphs so the
  * SVG shows as an `<img>` without the music font. Runs in the thumbnail worker thread.
  */

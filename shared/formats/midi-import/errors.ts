@@ -5,6 +5,7 @@ export const MIDI_IMPORT_REFUSALS = [
   'damaged',
   'unsupported_timing',
   'unsupported_meter',
+  'meter_change',
   'no_such_track',
   'no_notes',
   'no_drum_notes',

@@ -26,9 +26,10 @@ import {
   type PlainBar,
   type PlainHit,
 } from './infer-card';
-import { EARLY_MARGIN, fitBeat } from './quantise';
+import { fitBeat } from './quantise';
 import { readMidi, type MidiNote, type MidiTrackSummary } from './read-midi';
 import { byPlace, sourceOf, stickInstant } from './sources';
+import { Timeline, type Meter } from './timeline';
 
 /** Bars a groove may have: as many as a rule card. */
 export const MAX_BARS = 64;
@@ -106,30 +107,16 @@ export function importMidiGroove(bytes: Uint8Array, options: MidiImportOptions =
     );
   }
 
-  const meter = meterOf(file.meters, warnings);
-  const quarterBpm = tempoOf(file.tempos, warnings);
-  const unitBpm = (quarterBpm * meter.unit) / 4;
-  const tempo = Math.min(320, Math.max(20, Math.round(unitBpm)));
-  if (tempo !== Math.round(unitBpm)) {
-    warnings.push(`The tempo, ${round(unitBpm, 1)} beats a minute, is held to 20–320: ${tempo}.`);
-  }
-
-  // Each note's beat (an early note belongs to the next beat) and its place inside it.
-  const beatTicks = (file.ppq * 4) / meter.unit;
-  const placed = mapped.map((n) => {
-    const at = n.ticks / beatTicks;
-    const index = Math.floor(at + EARLY_MARGIN);
-    return { ...n, index, x: at - index };
-  });
+  const timeline = new Timeline(file.ppq, file.meters, file.tempos);
+  // Each note's bar and beat in the file (an early note belongs to the next beat).
+  const placed = mapped.map((n) => ({ ...n, ...timeline.place(n.ticks) }));
   // Loops, not Math.min(...): a 1 MB file can hold more notes than a call takes arguments.
-  let first = Infinity;
-  let last = -Infinity;
+  let firstBar = Infinity;
+  let lastBar = -Infinity;
   for (const n of placed) {
-    first = Math.min(first, n.index);
-    last = Math.max(last, n.index);
+    firstBar = Math.min(firstBar, n.bar);
+    lastBar = Math.max(lastBar, n.bar);
   }
-  const firstBar = Math.floor(first / meter.beats);
-  const lastBar = Math.floor(last / meter.beats);
   const barCount = lastBar - firstBar + 1;
   if (barCount > MAX_BARS) {
     throw new MidiImportError(
@@ -137,10 +124,26 @@ export function importMidiGroove(bytes: Uint8Array, options: MidiImportOptions =
       `The groove runs ${barCount} bars; a drill holds at most ${MAX_BARS}. Cut the file to ${MAX_BARS} bars or fewer.`,
     );
   }
+  const meter = checkedMeter(timeline.meterOf(firstBar, lastBar), file.meters.length, warnings);
+  const quarterBpm = grooveTempo(timeline, firstBar, lastBar, warnings);
+  const unitBpm = (quarterBpm * meter.unit) / 4;
+  const tempo = Math.min(320, Math.max(20, Math.round(unitBpm)));
+  if (tempo !== Math.round(unitBpm)) {
+    warnings.push(`The tempo, ${round(unitBpm, 1)} beats a minute, is held to 20–320: ${tempo}.`);
+  }
   if (firstBar > 0)
     warnings.push(`Left out ${plural(firstBar, 'empty bar')} before the first note.`);
+  // A beat's residual in milliseconds at the tempo in force where that beat starts.
+  const msPerBeat = (bar: number, beat: number): number => {
+    const start = timeline.barStart(firstBar + bar) + beat * timeline.beatTicksAt(firstBar + bar);
+    return 60_000 / ((timeline.tempoAt(start) * meter.unit) / 4);
+  };
+  const grooveNotes = placed.map((n) => ({
+    ...n,
+    index: (n.bar - firstBar) * meter.beats + n.beat,
+  }));
 
-  const { bars, residuals, merged } = quantise(placed, firstBar, barCount, meter.beats, unitBpm);
+  const { bars, residuals, merged } = quantise(grooveNotes, barCount, meter.beats, msPerBeat);
   if (merged > 0) {
     warnings.push(
       `${plural(merged, 'note')} fell on a slot its voice already played and merged with it.`,
@@ -198,45 +201,57 @@ function chooseNotes(
   return drums;
 }
 
-function meterOf(
-  meters: ReturnType<typeof readMidi>['meters'],
-  warnings: string[],
-): { beats: number; unit: number } {
-  const first = meters[0];
-  if (!first) {
+/** The groove's meter, if a drill can have it; says when the file gives none. */
+function checkedMeter(meter: Meter, events: number, warnings: string[]): Meter {
+  if (events === 0) {
     // Standard MIDI File 1.1: without a time-signature event a file is in 4/4.
     warnings.push('The file gives no time signature: read as 4/4, as the MIDI file standard says.');
-    return { beats: 4, unit: 4 };
   }
-  const { beats, unit } = first;
+  const { beats, unit } = meter;
   if (!(beats >= 1 && beats <= 15 && [2, 4, 8, 16].includes(unit))) {
     throw new MidiImportError(
       'unsupported_meter',
       `The groove is in ${beats}/${unit}; a drill has 1–15 beats of halves, quarters, eighths or sixteenths.`,
     );
   }
-  if (meters.some((m) => m.beats !== beats || m.unit !== unit)) {
-    warnings.push(`The time signature changes; the whole groove is read in ${beats}/${unit}.`);
-  }
-  return { beats, unit };
+  return meter;
 }
 
-function tempoOf(tempos: ReturnType<typeof readMidi>['tempos'], warnings: string[]): number {
-  const first = tempos[0];
-  if (!first || !(first.bpm > 0) || !Number.isFinite(first.bpm)) {
+/**
+ * The tempo of the groove's first bar, in quarter notes a minute: a drill has one tempo. Changes
+ * within the groove's bars are named in a warning.
+ */
+function grooveTempo(
+  timeline: Timeline,
+  firstBar: number,
+  lastBar: number,
+  warnings: string[],
+): number {
+  if (!timeline.hasTempo) {
     // Standard MIDI File 1.1: without a tempo event a file plays at 120 quarter notes a minute.
     warnings.push(
       'The file gives no tempo: read at 120 quarter notes a minute, as the MIDI file standard says.',
     );
     return 120;
   }
-  if (tempos.some((t) => Math.abs(t.bpm - first.bpm) > 0.01)) {
-    warnings.push(`The tempo changes; the whole groove is read at its first tempo.`);
+  const first = timeline.tempoAt(timeline.barStart(firstBar));
+  const changes = timeline
+    .tempoChanges(timeline.barStart(firstBar), timeline.barStart(lastBar + 1))
+    .filter((c, i, all) => Math.abs(c.bpm - (i === 0 ? first : all[i - 1]!.bpm)) > 0.01);
+  if (changes.length > 0) {
+    const listed = changes
+      .slice(0, 4)
+      .map((c) => `to ${round(c.bpm, 1)} at bar ${timeline.barAt(c.ticks) - firstBar + 1}`)
+      .join(', ');
+    warnings.push(
+      `The tempo changes (${listed}${changes.length > 4 ? ', …' : ''}, in quarter notes a minute); a drill has one tempo: it keeps ${round(first, 1)}, its first bar's.`,
+    );
   }
-  return first.bpm;
+  return first;
 }
 
 interface Placed {
+  /** The note's beat counted from the groove's first beat. */
   readonly index: number;
   readonly x: number;
   readonly voice: VoiceId;
@@ -245,10 +260,9 @@ interface Placed {
 
 function quantise(
   placed: readonly Placed[],
-  firstBar: number,
   barCount: number,
   beatsPerBar: number,
-  unitBpm: number,
+  msPerBeat: (bar: number, beat: number) => number,
 ): { bars: PlainBar[]; residuals: BeatResidual[]; merged: number } {
   const byBeat = new Map<number, Placed[]>();
   for (const n of placed) {
@@ -256,7 +270,6 @@ function quantise(
     if (notes) notes.push(n);
     else byBeat.set(n.index, [n]);
   }
-  const msPerBeat = 60_000 / unitBpm;
   const bars: PlainBar[] = [];
   const residuals: BeatResidual[] = [];
   let merged = 0;
@@ -264,7 +277,7 @@ function quantise(
     const beats: number[] = [];
     const hits = new Map<string, PlainHit & { velocity: number }>();
     for (let beat = 1; beat <= beatsPerBar; beat++) {
-      const notes = byBeat.get((firstBar + b) * beatsPerBar + beat - 1) ?? [];
+      const notes = byBeat.get(b * beatsPerBar + beat - 1) ?? [];
       const fit = fitBeat(notes.map((n) => n.x));
       beats.push(fit.slots);
       residuals.push({
@@ -273,7 +286,7 @@ function quantise(
         slots: fit.slots,
         notes: notes.length,
         beats: round(fit.error, 4),
-        ms: round(fit.error * msPerBeat, 1),
+        ms: round(fit.error * msPerBeat(b, beat - 1), 1),
       });
       notes.forEach((n, i) => {
         const slot = fit.slotOf[i]!;
@@ -307,6 +320,11 @@ function chooseCard(
   const voices = VOICE_IDS.filter((v) => bars.some((bar) => bar.hits.some((h) => h.voice === v)));
   const ostinato = inferOstinato(bars, grid);
   const backbeat = inferBackbeat(bars, meter.beats);
+  // The kick's default role anchors it on beat 1 of every bar; a groove that leaves beat 1
+  // without it gets a card that does not oblige it there.
+  const kickOnOne = bars.every((bar) =>
+    bar.hits.some((h) => h.voice === 'kick' && h.beat === 1 && h.slot === 0),
+  );
   const base: DraftCard = {
     meter,
     bars: bars.length,
@@ -316,6 +334,7 @@ function chooseCard(
     ...(ostinato ? { ostinato } : {}),
     density: 0,
     rules: backbeat ? [backbeat] : [],
+    ...(voices.includes('kick') && !kickOnOne ? { roles: { kick: 'embellishment' } } : {}),
   };
   const plain = parseRuleCard(base);
   const fills = fillRule(bars, plain);
@@ -338,25 +357,62 @@ function chooseCard(
     const { ostinato: _o, ...bare } = withFills;
     drafts.push([{ ...bare, rules: [] }, 'every rule and the ostinato']);
   }
+  // The fullest draft that generates variations and accepts the groove's own bars (pinned, as
+  // written on its grid), else the fullest that generates, else the plainest.
+  let generating: [RuleCard, string | null] | null = null;
   for (const [draft, without] of drafts) {
     const card = parseRuleCard(draft);
-    try {
-      generateDrill(card, IMPORT_SEED);
-    } catch (error) {
-      // A draft the engine refuses is not a card to hand the teacher; try the next, plainer one.
-      if (isRefusal(error)) continue;
-      throw error;
-    }
+    if (!engineAccepts(() => generateDrill(card, IMPORT_SEED))) continue;
+    generating ??= [card, without];
+    const own = barsOnGrid(finishBars(bars, card, []), card);
+    if (!own || !engineAccepts(() => generateDrill(card, IMPORT_SEED, { keep: own }))) continue;
     if (without)
       warnings.push(
-        `The inferred card leaves out ${without}: with it the engine could not generate variations.`,
+        `The inferred card leaves out ${without}: with it the engine could not generate variations that keep the groove's own bars.`,
       );
     return card;
+  }
+  if (generating) {
+    warnings.push(
+      "The inferred card does not take the groove's own bars as they are (its grid or its rules differ from some of them); it still generates variations.",
+    );
+    return generating[0];
   }
   warnings.push(
     'The engine could not generate variations from any card inferred from this groove.',
   );
   return plain;
+}
+
+/** Whether the engine runs `generate` without refusing (a refusal is an answer, not a fault). */
+function engineAccepts(generate: () => unknown): boolean {
+  try {
+    generate();
+    return true;
+  } catch (error) {
+    if (isRefusal(error)) return false;
+    throw error;
+  }
+}
+
+/**
+ * Bars rewritten on the card's grid (an eighth on a sixteenth grid is slot 2 of 4), or null when
+ * a hit has no slot there (a triplet on a sixteenth grid).
+ */
+export function barsOnGrid(bars: readonly DrillBar[], card: RuleCard): DrillBar[] | null {
+  const slotsAt = (beat: number) =>
+    typeof card.subdivision === 'number' ? card.subdivision : card.subdivision[beat - 1]!;
+  const out: DrillBar[] = [];
+  for (const bar of bars) {
+    const hits: DrillHit[] = [];
+    for (const hit of bar.hits) {
+      const slot = (hit.slot * slotsAt(hit.beat)) / bar.beats[hit.beat - 1]!;
+      if (!Number.isInteger(slot)) return null;
+      hits.push({ ...hit, slot });
+    }
+    out.push({ ...bar, beats: bar.beats.map((_, i) => slotsAt(i + 1)), hits });
+  }
+  return out;
 }
 
 const isRefusal = (error: unknown): boolean =>

@@ -29,6 +29,7 @@ export interface DraftCard {
   ostinato?: { voice: VoiceId; slots: number[]; dynamic: Dynamic };
   density: number;
   rules: Record<string, unknown>[];
+  roles?: Partial<Record<VoiceId, 'embellishment'>>;
 }
 
 const gcd = (a: number, b: number): number => (b === 0 ? a : gcd(b, a % b));

@@ -17,6 +17,15 @@ export interface GrooveFile {
   readonly meter?: readonly [number, number];
   readonly channel?: number;
   readonly notes: readonly GrooveNote[];
+  /**
+   * Tempo and time-signature events after the start, at `at` quarter notes from the start of the
+   * file (the notes' `at` stays in beats of the first meter's unit).
+   */
+  readonly changes?: readonly {
+    readonly at: number;
+    readonly bpm?: number;
+    readonly meter?: readonly [number, number];
+  }[];
   /** Another track's notes (channel 1, a piano part). */
   readonly melody?: readonly GrooveNote[];
 }
@@ -27,6 +36,11 @@ export function grooveFile(spec: GrooveFile): Uint8Array {
   const [beats, unit] = spec.meter ?? [4, 4];
   if (spec.bpm !== undefined) midi.header.setTempo(spec.bpm);
   if (spec.meter) midi.header.timeSignatures.push({ ticks: 0, timeSignature: [beats, unit] });
+  for (const change of spec.changes ?? []) {
+    const ticks = Math.round(change.at * midi.header.ppq);
+    if (change.bpm !== undefined) midi.header.tempos.push({ ticks, bpm: change.bpm });
+    if (change.meter) midi.header.timeSignatures.push({ ticks, timeSignature: [...change.meter] });
+  }
   midi.header.update();
   const beatTicks = (midi.header.ppq * 4) / unit;
   const track = midi.addTrack();
