@@ -48,49 +48,72 @@ const WEIGHT = {
 export function drillDifficulty(drill: Omit<Drill, 'difficulty'>): Difficulty {
   const card = drill.card;
   const secondsPerBeat = 60 / card.tempo;
-  const times: { t: number; hit: DrillHit }[] = [];
+  // Every hit's time in seconds, in the drill's order (the engine checks thousands a second:
+  // limbs are small numbers, not strings in maps and sets).
+  const times: number[] = [];
+  const hits: DrillHit[] = [];
   let slots = 0;
   drill.bars.forEach((bar, b) => {
     const beats = bar.beats.length;
     slots += bar.beats.reduce((a, n) => a + n, 0);
     for (const hit of bar.hits) {
       const beatsIn = b * beats + (hit.beat - 1) + hit.slot / (bar.beats[hit.beat - 1] ?? 1);
-      times.push({ t: beatsIn * secondsPerBeat, hit });
+      times.push(beatsIn * secondsPerBeat);
+      hits.push(hit);
     }
   });
   const loop = drill.bars.length * (drill.bars[0]?.beats.length ?? 1) * secondsPerBeat;
-  const rate = (picks: (hit: DrillHit) => string | null): number => {
-    const last = new Map<string, number>();
-    const first = new Map<string, number>();
+  // Each limb a number: the hands, then each voice heard without a hand (at most 14 in all).
+  const limbBits = new Map<string, number>();
+  const limbOf = (name: string): number => {
+    let bit = limbBits.get(name);
+    if (bit === undefined) {
+      bit = limbBits.size;
+      limbBits.set(name, bit);
+    }
+    return bit;
+  };
+  limbOf('R');
+  limbOf('L');
+  const rate = (picks: (hit: DrillHit) => number): number => {
+    const last: (number | undefined)[] = [];
+    const first: (number | undefined)[] = [];
     let gap = Infinity;
-    for (const { t, hit } of times) {
-      const limb = picks(hit);
-      if (limb === null) continue;
-      const before = last.get(limb);
+    for (let k = 0; k < times.length; k++) {
+      const limb = picks(hits[k] as DrillHit);
+      if (limb < 0) continue;
+      const t = times[k] ?? 0;
+      const before = last[limb];
       if (before !== undefined && t > before) gap = Math.min(gap, t - before);
-      if (!first.has(limb)) first.set(limb, t);
-      last.set(limb, t);
+      if (first[limb] === undefined) first[limb] = t;
+      last[limb] = t;
     }
-    for (const [limb, t] of last) {
-      const wrap = (first.get(limb) ?? t) + loop - t;
+    last.forEach((t, limb) => {
+      if (t === undefined) return;
+      const wrap = (first[limb] ?? t) + loop - t;
       if (wrap > 0) gap = Math.min(gap, wrap);
-    }
+    });
     return Number.isFinite(gap) ? 1 / gap : 0;
   };
-  const handRate = rate((hit) => (hit.hand as Hand | null) ?? null);
-  const footRate = rate((hit) => (FOOT_VOICES.has(hit.voice) ? hit.voice : null));
-  const moving = new Set<number>();
-  const limbsAt = new Map<number, Set<string>>();
-  for (const { t, hit } of times) {
-    const key = Math.round(t * 1e6);
-    if (hit.source !== 'ostinato') moving.add(key);
-    const limbs = limbsAt.get(key) ?? new Set<string>();
-    limbs.add(hit.hand ?? hit.voice);
-    limbsAt.set(key, limbs);
+  const handRate = rate((hit) => ((hit.hand ?? null) === null ? -1 : limbOf(hit.hand as Hand)));
+  const footRate = rate((hit) => (FOOT_VOICES.has(hit.voice) ? limbOf(hit.voice) : -1));
+  // Per sounding instant: bit 0 when something other than a time layer plays, then its limbs.
+  const instants = new Map<number, number>();
+  for (let k = 0; k < times.length; k++) {
+    const hit = hits[k] as DrillHit;
+    const key = Math.round((times[k] ?? 0) * 1e6);
+    const moves = hit.source !== 'ostinato' ? 1 : 0;
+    instants.set(key, (instants.get(key) ?? 0) | moves | (2 << limbOf(hit.hand ?? hit.voice)));
   }
-  const density = slots === 0 ? 0 : moving.size / slots;
-  const together = [...limbsAt.values()].filter((limbs) => limbs.size >= 2).length;
-  const independence = limbsAt.size === 0 ? 0 : together / limbsAt.size;
+  let moving = 0;
+  let together = 0;
+  for (const bits of instants.values()) {
+    moving += bits & 1;
+    const limbs = bits >> 1;
+    if ((limbs & (limbs - 1)) !== 0) together++;
+  }
+  const density = slots === 0 ? 0 : moving / slots;
+  const independence = instants.size === 0 ? 0 : together / instants.size;
   const syncopation =
     drill.bars.reduce((sum, bar) => sum + bar.tension, 0) / Math.max(1, drill.bars.length);
   const factors = { handRate, footRate, density, syncopation, independence };

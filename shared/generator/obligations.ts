@@ -94,11 +94,17 @@ function crashInstants(card: RuleCard, grid: Grid): Set<number> {
 }
 
 function merge(placements: readonly Placement[], grid: Grid): WorkHit[][] {
-  const cells: WorkHit[][] = Array.from({ length: grid.instants }, () => []);
+  const cells: WorkHit[][] = [];
+  for (let i = 0; i < grid.instants; i++) cells.push([]);
   for (const p of placements) {
     const cell = cells[p.instant];
-    if (!cell || cell.some((hit) => hit.voice === p.voice)) continue;
+    if (!cell || hasVoice(cell, p.voice)) continue;
     cell.push({ voice: p.voice, source: p.source, dynamic: p.dynamic, rule: p.rule, hand: null });
   }
   return cells;
+}
+
+function hasVoice(cell: readonly WorkHit[], voice: VoiceId): boolean {
+  for (const hit of cell) if (hit.voice === voice) return true;
+  return false;
 }
