@@ -43,52 +43,71 @@ const WEIGHT = {
 
 /**
  * The drill's difficulty: a weighted sum of its fastest hand and foot, how much of the grid it
- * fills, how syncopated it is and how often limbs strike together, each scaled to its reference
- * and capped, times 10. Pure: the drill alone decides it.
+ * fills, how syncopated it is and how much of it falls between the time's strokes, each scaled
+ * to its reference and capped, times 10. Pure: the drill alone decides it.
  */
 export function drillDifficulty(drill: Omit<Drill, 'difficulty'>): Difficulty {
   const card = drill.card;
   const secondsPerBeat = 60 / card.tempo;
-  const times: { t: number; hit: DrillHit }[] = [];
+  // Every hit's time in seconds, in the drill's order (the engine checks thousands a second:
+  // limbs are small numbers, not strings in maps and sets).
+  const times: number[] = [];
+  const hits: DrillHit[] = [];
   let slots = 0;
   drill.bars.forEach((bar, b) => {
     const beats = bar.beats.length;
     slots += bar.beats.reduce((a, n) => a + n, 0);
     for (const hit of bar.hits) {
       const beatsIn = b * beats + (hit.beat - 1) + hit.slot / (bar.beats[hit.beat - 1] ?? 1);
-      times.push({ t: beatsIn * secondsPerBeat, hit });
+      times.push(beatsIn * secondsPerBeat);
+      hits.push(hit);
     }
   });
   const loop = drill.bars.length * (drill.bars[0]?.beats.length ?? 1) * secondsPerBeat;
-  const rate = (picks: (hit: DrillHit) => string | null): number => {
-    const last = new Map<string, number>();
-    const first = new Map<string, number>();
+  // Each limb a number: the hands, then each voice heard without a hand (at most 14 in all).
+  const limbBits = new Map<string, number>();
+  const limbOf = (name: string): number => {
+    let bit = limbBits.get(name);
+    if (bit === undefined) {
+      bit = limbBits.size;
+      limbBits.set(name, bit);
+    }
+    return bit;
+  };
+  limbOf('R');
+  limbOf('L');
+  const rate = (picks: (hit: DrillHit) => number): number => {
+    const last: (number | undefined)[] = [];
+    const first: (number | undefined)[] = [];
     let gap = Infinity;
-    for (const { t, hit } of times) {
-      const limb = picks(hit);
-      if (limb === null) continue;
-      const before = last.get(limb);
+    for (let k = 0; k < times.length; k++) {
+      const limb = picks(hits[k] as DrillHit);
+      if (limb < 0) continue;
+      const t = times[k] ?? 0;
+      const before = last[limb];
       if (before !== undefined && t > before) gap = Math.min(gap, t - before);
-      if (!first.has(limb)) first.set(limb, t);
-      last.set(limb, t);
+      if (first[limb] === undefined) first[limb] = t;
+      last[limb] = t;
     }
-    for (const [limb, t] of last) {
-      const wrap = (first.get(limb) ?? t) + loop - t;
+    last.forEach((t, limb) => {
+      if (t === undefined) return;
+      const wrap = (first[limb] ?? t) + loop - t;
       if (wrap > 0) gap = Math.min(gap, wrap);
-    }
+    });
     return Number.isFinite(gap) ? 1 / gap : 0;
   };
-  const handRate = rate((hit) => (hit.hand as Hand | null) ?? null);
-  const footRate = rate((hit) => (FOOT_VOICES.has(hit.voice) ? hit.voice : null));
+  const handRate = rate((hit) => ((hit.hand ?? null) === null ? -1 : limbOf(hit.hand as Hand)));
+  const footRate = rate((hit) => (FOOT_VOICES.has(hit.voice) ? limbOf(hit.voice) : -1));
   // Independence: notes the other limbs place between the strokes of the time (a kick on the
   // "e" under a quarter-note hi-hat) ask more of a player than notes struck with it (kick and
   // snare with the hi-hat, the first groove a student learns). Without a time layer the beats
   // stand in for it.
   const moving = new Set<number>();
   const time = new Set<number>();
-  const hasTime = times.some(({ hit }) => hit.source === 'ostinato');
-  for (const { t, hit } of times) {
-    const key = Math.round(t * 1e6);
+  const hasTime = hits.some((hit) => hit.source === 'ostinato');
+  for (let k = 0; k < times.length; k++) {
+    const hit = hits[k] as DrillHit;
+    const key = Math.round((times[k] ?? 0) * 1e6);
     if (hit.source !== 'ostinato') moving.add(key);
     if (hasTime ? hit.source === 'ostinato' : hit.slot === 0) time.add(key);
   }

@@ -94,11 +94,22 @@ function crashInstants(card: RuleCard, grid: Grid): Set<number> {
 }
 
 function merge(placements: readonly Placement[], grid: Grid): WorkHit[][] {
-  const cells: WorkHit[][] = Array.from({ length: grid.instants }, () => []);
+  // A cell's array is made with its first hit: an empty array that is pushed to reserves room
+  // for 17, and most of a drill's instants hold none or one.
+  const cells: (WorkHit[] | undefined)[] = new Array<WorkHit[] | undefined>(grid.instants);
   for (const p of placements) {
+    if (p.instant < 0 || p.instant >= grid.instants) continue;
     const cell = cells[p.instant];
-    if (!cell || cell.some((hit) => hit.voice === p.voice)) continue;
-    cell.push({ voice: p.voice, source: p.source, dynamic: p.dynamic, rule: p.rule, hand: null });
+    if (cell && hasVoice(cell, p.voice)) continue;
+    const hit = { voice: p.voice, source: p.source, dynamic: p.dynamic, rule: p.rule, hand: null };
+    if (cell) cell.push(hit);
+    else cells[p.instant] = [hit];
   }
-  return cells;
+  for (let i = 0; i < grid.instants; i++) cells[i] ??= [];
+  return cells as WorkHit[][];
+}
+
+function hasVoice(cell: readonly WorkHit[], voice: VoiceId): boolean {
+  for (const hit of cell) if (hit.voice === voice) return true;
+  return false;
 }

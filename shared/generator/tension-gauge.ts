@@ -1,5 +1,5 @@
 import type { DrillBar, VoiceId } from './drill';
-import { barOnsets, lhlOnGrid, lhlRangeOnGrid, maxLhlOnGrid, metricalGrid } from './tension';
+import { barOnsets, lhlOnGrid, lhlRangeOnGrid, lhlRangeScratch, metricalGrid } from './tension';
 import type { LhlRange } from './tension';
 import {
   gridWeights,
@@ -84,7 +84,9 @@ export function createTensionGauge(
       reach: () => ({ least: 0, most }),
     };
   }
-  const most = maxLhlOnGrid(tree);
+  // The reach proof asks once per distinct bar: its work arrays are made once per gauge.
+  const scratch = lhlRangeScratch(tree);
+  const most = lhlRangeOnGrid(tree, undefined, undefined, scratch).most;
   const units = (onsets: readonly boolean[]): number => unitsOf(lhlOnGrid(tree, onsets), most);
   const unitsOfRaw = (raw: number): number => unitsOf(raw, most);
   return {
@@ -100,7 +102,7 @@ export function createTensionGauge(
       ),
     rawOfOnsets: (onsets) => lhlOnGrid(tree, onsets),
     ofBar: (bar) => fromUnits(units(barOnsets(bar, tree))),
-    reach: (forced, allowed) => lhlRangeOnGrid(tree, forced, allowed),
+    reach: (forced, allowed) => lhlRangeOnGrid(tree, forced, allowed, scratch),
   };
 }
 

@@ -8,7 +8,7 @@ import { listWords } from './words';
 import type { TensionGauge } from './tension-gauge';
 
 /** The raw syncopation range the fills of one bar can reach. */
-interface BarReach {
+export interface BarReach {
   readonly least: number;
   readonly most: number;
   /** Every raw value the bar's fills can reach, ascending, when few enough to list. */
@@ -25,16 +25,18 @@ interface BarReach {
  * syncopation over those patterns (exact, `lhlRangeOnGrid`). If even those ranges cannot be
  * stacked in the curve's order (each level strictly above the one below), no fill can. Both
  * sides are whole numbers of the measure's units, so strictly above means one more.
+ * `reach`: the bars' reaches when already worked out (`barReaches` with the same `listed`).
  */
 export function assertTensionReachable(
   ctx: FillContext,
   targets: readonly number[],
   gauge: TensionGauge,
   listed = gauge.measure !== 'lhl',
+  reach: readonly BarReach[] | null = null,
 ): void {
   const levels = tensionLevels(targets);
   if (levels.length <= 1) return;
-  const reach = barReaches(ctx, gauge, listed);
+  reach ??= barReaches(ctx, gauge, listed);
   let floor = Number.NEGATIVE_INFINITY;
   let floorBar = -1;
   for (let k = 0; k < levels.length; k++) {
@@ -79,18 +81,21 @@ export function giveUp(
 
 /**
  * The least and greatest raw syncopation any bar of this card can measure: the scale a tension
- * target is read on (0 = the calmest bar the card allows, 1 = the tensest).
+ * target is read on (0 = the calmest bar the card allows, 1 = the tensest), from each bar's
+ * reach (`barReaches`).
  */
-export function cardReach(ctx: FillContext, gauge: TensionGauge): BarReach {
-  const reach = barReaches(ctx, gauge);
+export function cardReach(reach: readonly BarReach[]): BarReach {
   return {
     least: Math.min(...reach.map((r) => r.least)),
     most: Math.max(...reach.map((r) => r.most)),
   };
 }
 
-/** Per bar, the syncopation range its fills can reach; bars alike in slots are worked out once. */
-function barReaches(ctx: FillContext, gauge: TensionGauge, listed = false): BarReach[] {
+/**
+ * Per bar, the syncopation range its fills can reach; bars alike in slots are worked out once.
+ * `listed`: each bar's reachable values are also listed where it has few enough fill patterns.
+ */
+export function barReaches(ctx: FillContext, gauge: TensionGauge, listed = false): BarReach[] {
   const { grid, ob } = ctx;
   const known = new Map<string, BarReach>();
   const out: BarReach[] = [];

@@ -5,7 +5,7 @@ import { createFillContext, type FillContext } from '../fill';
 import { readKeptBars, withKeptBars, type KeptBars } from '../keep';
 import { checkBarsAlone, type Violation } from '../rules/checker';
 import { tensionTargets } from '../rules/tension';
-import { assertTensionReachable, cardReach } from '../tension-reach';
+import { assertTensionReachable, barReaches, cardReach, type BarReach } from '../tension-reach';
 import { listWords } from '../words';
 import { barOf } from './bars';
 import type { Placed, Proven } from './stages';
@@ -21,13 +21,16 @@ export function prove(placed: Placed, keep: readonly DrillBar[]): Proven {
   const kept = readKeptBars(card, grid, keep);
   if (kept.size > 0) assertKeptBarsFit(placed, kept);
   const room = createFillContext(card, grid, ob);
-  const reach = cardReach(room, gauge);
+  const reaches = barReaches(room, gauge);
+  const reach = cardReach(reaches);
   const free =
     kept.size === 0
       ? room
       : createFillContext(card, grid, withKeptBars(ob, grid, kept), new Set(kept.keys()));
   const targets = tensionTargets(card, grid.bars);
-  if (targets) assertTensionReachableKeeping(placed, free, targets, kept);
+  // The LHL proof reads the same unlisted reaches when no bar is kept: worked out once.
+  const known = free === room && gauge.measure === 'lhl' ? reaches : null;
+  if (targets) assertTensionReachableKeeping(placed, free, targets, kept, known);
   // A target reads on what this card can reach: 0 its calmest bar, 1 its tensest.
   const goals =
     targets?.map((t) => gauge.unitsOfRaw(reach.least + t * (reach.most - reach.least))) ?? null;
@@ -82,9 +85,10 @@ function assertTensionReachableKeeping(
   free: FillContext,
   targets: readonly number[],
   kept: KeptBars,
+  known: readonly BarReach[] | null,
 ): void {
   try {
-    assertTensionReachable(free, targets, placed.gauge);
+    assertTensionReachable(free, targets, placed.gauge, placed.gauge.measure !== 'lhl', known);
   } catch (error) {
     if (!(error instanceof RuleConflictError) || kept.size === 0) throw error;
     const bars = [...kept.keys()].sort((a, b) => a - b).map((b) => b + 1);

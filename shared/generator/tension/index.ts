@@ -5,7 +5,13 @@
  */
 export { measureTension, tensionMeter, type TensionMeter } from './tension';
 export { lhlSyncopation, lhlOnGrid } from './lhl';
-export { lhlRangeOnGrid, maxLhlOnGrid, maxLhlSyncopation, type LhlRange } from './lhl-range';
+export {
+  lhlRangeOnGrid,
+  lhlRangeScratch,
+  maxLhlOnGrid,
+  maxLhlSyncopation,
+  type LhlRange,
+} from './lhl-range';
 export { weightedNoteToBeatDistance } from './wnbd';
 export { barOnsets } from './onsets';
 export {

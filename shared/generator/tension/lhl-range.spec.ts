@@ -1,7 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { lhlOnGrid } from './lhl';
-import { lhlRangeOnGrid } from './lhl-range';
+import { lhlRangeOnGrid, lhlRangeScratch } from './lhl-range';
 import { metricalGrid } from './metrical-grid';
 
 /** Every allowed pattern that sounds the forced pulses, measured one by one: the slow truth. */
@@ -73,6 +73,32 @@ describe('lhlRangeOnGrid', () => {
         expect(got).toEqual(exhaustiveRange(beats, forced, allowed, grouping));
       }),
       { numRuns: 150 },
+    );
+  });
+
+  it('gives the exhaustive ranges when one set of work arrays serves many asks on a grid', () => {
+    const caseOnGrid = fc.array(fc.boolean(), { minLength: 12, maxLength: 12 });
+    const asks = fc.array(fc.record({ forced: caseOnGrid, allowed: caseOnGrid }), {
+      minLength: 2,
+      maxLength: 6,
+    });
+    fc.assert(
+      fc.property(asks, (list) => {
+        const grid = metricalGrid([4, 4, 4]);
+        const scratch = lhlRangeScratch(grid);
+        for (const { forced, allowed } of list)
+          expect(lhlRangeOnGrid(grid, forced, allowed, scratch)).toEqual(
+            exhaustiveRange([4, 4, 4], forced, allowed),
+          );
+      }),
+      { numRuns: 60 },
+    );
+  });
+
+  it('refuses work arrays made for another grid', () => {
+    const scratch = lhlRangeScratch(metricalGrid([4, 4, 4]));
+    expect(() => lhlRangeOnGrid(metricalGrid([4, 4, 4, 4]), undefined, undefined, scratch)).toThrow(
+      RangeError,
     );
   });
 

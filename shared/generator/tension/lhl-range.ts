@@ -8,6 +8,32 @@ export interface LhlRange {
 }
 
 /**
+ * The work arrays of `lhlRangeOnGrid` for one grid. Allocating them costs several times the walk
+ * itself (a 16-slot bar reaches about a hundred states of its 3 264), so a caller that asks many
+ * times on one grid passes the same arrays; each call leaves them as it found them.
+ */
+export interface LhlRangeScratch {
+  readonly lows: Int32Array;
+  readonly highs: Int32Array;
+  readonly head: Int32Array;
+  readonly next: Int32Array;
+}
+
+/** Fresh work arrays for `lhlRangeOnGrid` on this grid. */
+export function lhlRangeScratch(grid: MetricalGrid): LhlRangeScratch {
+  const size = (grid.pulses + 1) * stateCount(grid);
+  return {
+    lows: new Int32Array(size).fill(-1),
+    highs: new Int32Array(size),
+    head: new Int32Array(grid.pulses + 1).fill(-1),
+    next: new Int32Array(size),
+  };
+}
+
+/** States per pulse: a note mask of depth + 1 levels times depth + 2 deadline codes. */
+const stateCount = (grid: MetricalGrid): number => (1 << (grid.depth + 1)) * (grid.depth + 2);
+
+/**
  * The exact range of Longuet-Higgins & Lee syncopation over every onset pattern of a bar that
  * sounds all `forced` pulses and nothing outside `allowed` (forced pulses count as allowed;
  * `undefined` = no pulse forced / every pulse allowed). The generator uses it to prove, without
@@ -21,18 +47,23 @@ export interface LhlRange {
  * survive are exactly the patterns asked about.
  *
  * Only reached states are visited (a few dozen per pulse at most), so the cost is linear in
- * pulses.
+ * pulses. `scratch`: work arrays made by `lhlRangeScratch` for this grid, to reuse.
  */
 export function lhlRangeOnGrid(
   grid: MetricalGrid,
   forced?: readonly boolean[],
   allowed?: readonly boolean[],
+  scratch: LhlRangeScratch = lhlRangeScratch(grid),
 ): LhlRange {
   const { pulses, level, nodeEnds, depth, ancestorEnd } = grid;
   const codes = depth + 2;
-  const forcedBefore = new Int32Array(pulses + 1);
-  for (let i = 0; i < pulses; i++)
-    forcedBefore[i + 1] = (forcedBefore[i] ?? 0) + (forced?.[i] === true ? 1 : 0);
+  // Plain arrays, not typed ones: a 16-slot bar's 17 counts would already be allocated outside
+  // V8's heap, which costs more than the walk.
+  const forcedBefore = [0];
+  for (let i = 0, count = 0; i < pulses; i++) {
+    if (forced?.[i] === true) count++;
+    forcedBefore.push(count);
+  }
   const mayStrike = (p: number): boolean =>
     allowed === undefined || allowed[p] === true || forced?.[p] === true;
   const silent = (from: number, to: number): boolean =>
@@ -40,11 +71,10 @@ export function lhlRangeOnGrid(
 
   // Best values by (pulse, state), and each pulse's reached states as a linked list, so only
   // those few are visited.
-  const column = (1 << (depth + 1)) * codes;
-  const lows = new Int32Array((pulses + 1) * column).fill(-1);
-  const highs = new Int32Array((pulses + 1) * column);
-  const head = new Int32Array(pulses + 1).fill(-1);
-  const next = new Int32Array((pulses + 1) * column);
+  const column = stateCount(grid);
+  const { lows, highs, head, next } = scratch;
+  if (lows.length !== (pulses + 1) * column || head.length !== pulses + 1)
+    throw new RangeError('The work arrays were made for another grid.');
 
   const relax = (at: number, state: number, low: number, high: number): void => {
     const i = at * column + state;
@@ -92,6 +122,11 @@ export function lhlRangeOnGrid(
     if ((i - pulses * column) % codes !== 0) continue;
     least = Math.min(least, lows[i] ?? 0);
     most = Math.max(most, highs[i] ?? 0);
+  }
+  // Back as found: only the reached states were written (highs and next are set on first reach).
+  for (let p = 0; p <= pulses; p++) {
+    for (let i = head[p] ?? -1; i >= 0; i = next[i] ?? -1) lows[i] = -1;
+    head[p] = -1;
   }
   // Unreachable for forced ⊆ allowed (the forced pulses alone are a pattern); kept total anyway.
   return Number.isFinite(most) ? { least, most } : { least: 0, most: 0 };

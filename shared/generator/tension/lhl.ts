@@ -57,10 +57,18 @@ export function lhlOnGrid(grid: MetricalGrid, onsets: readonly boolean[]): numbe
   return total;
 }
 
-/** Prefix counts: `counts[i]` = onsets before pulse i. */
-function onsetCounts(onsets: readonly boolean[], pulses: number): Int32Array {
-  const counts = new Int32Array(pulses + 1);
-  for (let i = 0; i < pulses; i++) counts[i + 1] = (counts[i] ?? 0) + (onsets[i] === true ? 1 : 0);
+/**
+ * Prefix counts: `counts[i]` = onsets before pulse i. A plain array: this runs for every bar the
+ * search measures, and a typed array of a 16-slot bar's 17 counts is past V8's in-heap size, so
+ * each call would allocate a buffer outside the heap.
+ */
+function onsetCounts(onsets: readonly boolean[], pulses: number): number[] {
+  const counts = [0];
+  let count = 0;
+  for (let i = 0; i < pulses; i++) {
+    if (onsets[i] === true) count++;
+    counts.push(count);
+  }
   return counts;
 }
 
