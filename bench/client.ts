@@ -139,6 +139,15 @@ try {
       ? 'Tone.js: not loaded before Play'
       : `Tone.js loaded early: ${audio.join(', ')}`,
   );
+  // The server generates the page's drill: the engine (and zod with it) has no place on the path.
+  const zod = routeScripts.filter((file) =>
+    readFileSync(join(BUILT_APP_DIR, file), 'utf8').includes('_zod'),
+  );
+  console.log(
+    zod.length === 0
+      ? 'Engine and zod: not loaded before the score'
+      : `zod loaded before the score: ${zod.join(', ')}`,
+  );
   console.log(
     `Client cold load: navigation to drawn score median ${median(drawn).toFixed(0)} ms ` +
       `(min ${sorted[0]!.toFixed(0)}, max ${sorted[sorted.length - 1]!.toFixed(0)}; ` +

@@ -1,6 +1,6 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { parseRuleCard } from '../../shared/generator/index';
+import { generateDrill, parseRuleCard } from '../../shared/generator/index';
 import { BUILT_IN_PRESETS, findBuiltInPreset } from '../../shared/generator/presets/index';
 import { createTestApp, type TestApp } from '../testing/test-app';
 import { BUILT_IN_CURATION } from './built-in-curation';
@@ -111,6 +111,39 @@ describe('GET /api/presets/:id', () => {
     expect(res.body).toEqual({
       error: { code: 'not_found', message: 'There is no preset rule card with that id.' },
     });
+  });
+});
+
+describe('GET /api/presets/:id/drill?seed=', () => {
+  it('answers the drill the engine gives the preset’s card at that seed, for any role', async () => {
+    const source = findBuiltInPreset('early-backbeat')!;
+    const expected = generateDrill(parseRuleCard(source.card), 'harbor-spark-21');
+    const other = generateDrill(parseRuleCard(source.card), 'quiet-river-7');
+    for (const role of ['student', 'teacher', 'admin'] as const) {
+      const agent = await t.signIn(role);
+      const res = await agent.get('/api/presets/early-backbeat/drill?seed=harbor-spark-21');
+      expect(res.status).toBe(200);
+      // Byte for byte what the browser would have generated itself.
+      expect(JSON.stringify(res.body.drill)).toBe(JSON.stringify(expected));
+    }
+    const agent = await t.signIn('student');
+    const res = await agent.get('/api/presets/early-backbeat/drill?seed=quiet-river-7');
+    expect(JSON.stringify(res.body.drill)).toBe(JSON.stringify(other));
+  });
+
+  it('refuses a missing or too long seed, an unknown preset, and anyone signed out', async () => {
+    const agent = await t.signIn('teacher');
+    const noSeed = await agent.get('/api/presets/early-backbeat/drill');
+    expect(noSeed.status).toBe(400);
+    expect(noSeed.body.error.details).toEqual([
+      expect.objectContaining({ path: expect.stringContaining('seed') }),
+    ]);
+    const long = await agent.get(`/api/presets/early-backbeat/drill?seed=${'a'.repeat(65)}`);
+    expect(long.status).toBe(400);
+    const unknown = await agent.get('/api/presets/no-such-preset/drill?seed=a');
+    expect(unknown.status).toBe(404);
+    const signedOut = await request(t.app).get('/api/presets/early-backbeat/drill?seed=a');
+    expect(signedOut.status).toBe(401);
   });
 });
 

@@ -1,6 +1,7 @@
 import { Router } from 'express';
 import { z } from 'zod';
 import { requireRole, requireSignIn } from '../auth/require-role';
+import { seedSchema } from '../drills/drill-schemas';
 import { queryBoolean } from '../paging';
 import { levelSchema, tagSchema, tagsSchema, titleSchema } from '../rule-cards/card-fields';
 import {
@@ -15,6 +16,8 @@ import type { PresetsService } from './presets-service';
 const presetParams = z.object({
   id: z.string().min(1).max(200, 'A preset id has at most 200 characters.'),
 });
+
+const drillQuery = z.object({ seed: seedSchema });
 
 const listSchema = z.object({
   all: queryBoolean.default(false),
@@ -47,7 +50,7 @@ const promoteSchema = z.strictObject({
 
 /**
  * `/api/presets`: published presets for everyone signed in (the admin also sees withdrawn ones
- * with `?all=true`), a cached thumbnail each, the admin's edits and promotions, and "start from
+ * with `?all=true`), a preset's drill at a seed, a cached thumbnail each, the admin's edits and promotions, and "start from
  * this" for teachers. See docs/api-authoring.md.
  */
 export function createPresetsRouter(service: PresetsService, engineVersion: string): Router {
@@ -83,6 +86,16 @@ export function createPresetsRouter(service: PresetsService, engineVersion: stri
   router.get('/:id', requireSignIn, validate({ params: presetParams }), async (req, res) => {
     res.json({ preset: await service.get(req.user!, idOf(req.params)) });
   });
+
+  router.get(
+    '/:id/drill',
+    requireSignIn,
+    validate({ params: presetParams, query: drillQuery }),
+    async (req, res) => {
+      const { seed } = req.query as unknown as z.output<typeof drillQuery>;
+      res.json({ drill: await service.drill(req.user!, idOf(req.params), seed) });
+    },
+  );
 
   router.get(
     '/:id/thumbnail.svg',

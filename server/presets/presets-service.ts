@@ -85,6 +85,15 @@ export class PresetsService {
     return toView(await this.visible(user, id));
   }
 
+  /**
+   * The preset's drill at `seed`, generated here so the drill page draws it without loading the
+   * engine (and zod) into the browser first; a card the engine refuses is a 400 in its words.
+   */
+  async drill(user: PublicUser, id: string, seed: string): Promise<Drill> {
+    const preset = await this.visible(user, id);
+    return generateOrRefuse(this.generate, checkCard(preset.card, 'card'), seed);
+  }
+
   /** The preset's first bars at its default seed (its id), engraved once and kept. */
   async thumbnail(user: PublicUser, id: string, engineVersion: string): Promise<string> {
     const preset = await this.visible(user, id);

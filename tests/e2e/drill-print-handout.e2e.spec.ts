@@ -12,12 +12,12 @@ import { execFileSync } from 'node:child_process';
 import { mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import type { Page } from 'playwright-core';
 import { describe, expect, it } from 'vitest';
 import { BUILT_IN_PRESETS } from '../../shared/generator/presets/index';
 import { PRINT_LAYOUT } from '../../shared/notation/print-layout';
 import { signIn } from '../support/browser';
 import { useServerAndBrowser } from '../support/browser-suite';
+import { servePresetWithBars } from '../support/preset-bars';
 import { DEMO_TEACHERS } from '../support/demo-accounts';
 import { collisions, crowded, overlaps, readScore } from './notation.geometry';
 
@@ -114,16 +114,6 @@ function rasterise(pdf: string, dir: string, prefix: string, png = false): strin
     .sort();
 }
 
-/** Serves the preset with another bar count. */
-async function withBars(page: Page, id: string, bars: number): Promise<void> {
-  await page.route(`**/api/presets/${id}`, async (route) => {
-    const response = await route.fetch();
-    const body = (await response.json()) as { preset: { card: Record<string, unknown> } };
-    body.preset.card = { ...body.preset.card, bars };
-    await route.fulfill({ response, json: body });
-  });
-}
-
 describe.each(VIEWPORTS)(
   'handing out the six acceptance drills, printed from the $name',
   (view) => {
@@ -157,7 +147,7 @@ describe.each(VIEWPORTS)(
             const page = await context.newPage();
             const teacher = DEMO_TEACHERS[0]!;
             await signIn(page, suite.server.url, teacher.email, teacher.password);
-            if (drill.bars) await withBars(page, drill.id, drill.bars);
+            if (drill.bars) await servePresetWithBars(page, drill.id, drill.bars);
             await page.goto(`${suite.server.url}/drills/${drill.id}?seed=${SEED}`);
             const heading = page.getByRole('heading', { level: 1 });
             await heading.waitFor();

@@ -16,10 +16,10 @@ import {
 } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import type { Page } from 'playwright-core';
 import { describe, expect, it } from 'vitest';
 import { signIn } from '../support/browser';
 import { useServerAndBrowser } from '../support/browser-suite';
+import { servePresetWithBars } from '../support/preset-bars';
 import { DEMO_TEACHERS } from '../support/demo-accounts';
 
 const CARD = 'early-backbeat';
@@ -34,16 +34,6 @@ const SIZES = [
 
 /** Bars per printed system, by screen size: print must not depend on the screen. */
 const printedSystems = new Map<string, number[]>();
-
-/** Serves the preset with more bars, so the drill runs over more than one page. */
-async function longerCard(page: Page, bars: number): Promise<void> {
-  await page.route(`**/api/presets/${CARD}`, async (route) => {
-    const response = await route.fetch();
-    const body = (await response.json()) as { preset: { card: Record<string, unknown> } };
-    body.preset.card = { ...body.preset.card, bars };
-    await route.fulfill({ response, json: body });
-  });
-}
 
 interface Raster {
   readonly width: number;
@@ -114,7 +104,7 @@ describe.each(SIZES)('printing a drill from the $name ($width px)', (size) => {
         const page = await context.newPage();
         const teacher = DEMO_TEACHERS[0]!;
         await signIn(page, suite.server.url, teacher.email, teacher.password);
-        await longerCard(page, size.bars);
+        await servePresetWithBars(page, CARD, size.bars);
         await page.goto(`${suite.server.url}/drills/${CARD}?seed=${SEED}`);
         await page.getByRole('heading', { level: 1, name: 'Early backbeat' }).waitFor();
         const bars = page.locator('tensile-drill-score svg.tensile-notation .tensile-bar');

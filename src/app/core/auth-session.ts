@@ -4,13 +4,16 @@ import {
   Observable,
   catchError,
   firstValueFrom,
+  from,
   map,
   of,
   shareReplay,
+  switchMap,
   tap,
   throwError,
 } from 'rxjs';
 
+import { takeEarlySession, type EarlySessionAnswer } from './early-session';
 import { SessionUser, isRole } from './user';
 
 /** Auth endpoints; the interceptor needs them to tell "not signed in yet" from "session expired". */
@@ -37,13 +40,12 @@ export class AuthSession {
 
   /** Resolves the session from the server the first time, then from memory. */
   ensureLoaded(): Promise<SessionUser | null> {
-    this.loading ??= this.http.get<unknown>(AUTH_ME_URL).pipe(
-      map(toSessionUser),
-      catchError((error: unknown) =>
-        error instanceof HttpErrorResponse && error.status === 401
-          ? of(null)
-          : throwError(() => error),
-      ),
+    // A check started before the app booted (main.ts) answers first when it has a clear answer.
+    this.loading ??= from(takeEarlySession()).pipe(
+      switchMap((early) => {
+        const known = earlyUser(early);
+        return known === undefined ? this.askServer() : of(known);
+      }),
       tap((user) => this.userState.set(user)),
       catchError(() => of(null)),
       shareReplay(1),
@@ -77,10 +79,32 @@ export class AuthSession {
     this.setUser(null);
   }
 
+  private askServer(): Observable<SessionUser | null> {
+    return this.http.get<unknown>(AUTH_ME_URL).pipe(
+      map(toSessionUser),
+      catchError((error: unknown) =>
+        error instanceof HttpErrorResponse && error.status === 401
+          ? of(null)
+          : throwError(() => error),
+      ),
+    );
+  }
+
   private setUser(user: SessionUser | null): void {
     this.userState.set(user);
     this.loading = of(user);
   }
+}
+
+/**
+ * The user an early session check found: null when it was answered 401 (signed out), undefined
+ * when there is no clear answer (none, or another error), so the app asks again through
+ * HttpClient and its interceptor reports the failure.
+ */
+function earlyUser(early: EarlySessionAnswer | null): SessionUser | null | undefined {
+  if (early === null) return undefined;
+  if (early.status === 401) return null;
+  return early.status >= 200 && early.status < 300 ? toSessionUser(early.body) : undefined;
 }
 
 /** Accepts `{ user: {...} }` or a bare user object; anything without a known role is no user. */

@@ -26,7 +26,7 @@ import {
   groupingLabel,
   type NotationModel,
 } from '../../../../shared/notation/notation-model';
-import { onCardScale, targetTension } from '../drill-result';
+import { onCardScale, targetTension } from '../drill-scale';
 import { TensionPlot } from '../tension-plot/tension-plot';
 import { loadMusicFonts } from './music-fonts';
 import {
