@@ -46,13 +46,13 @@ export class EngravingContext extends SVGContext {
 
   setDrawingState(text: string): void {
     const [state, attributes, font, background, groupAttributes, path, pen] = JSON.parse(text) as [
-      this['state'],
-      this['attributes'],
+      SVGContext['state'],
+      SVGContext['attributes'],
       string,
       string,
-      this['groupAttributes'],
+      SVGContext['attributes'][],
       string,
-      this['pen'],
+      SVGContext['pen'],
     ];
     Object.assign(this, {
       state,
