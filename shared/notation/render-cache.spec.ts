@@ -104,13 +104,16 @@ describe('the engraving cache', { timeout: 120_000 }, () => {
       const other = drillOf('quiet-river');
       const oneBar = withOneBarOf(first, other).drill;
       expect(JSON.stringify(tempo.bars)).toBe(JSON.stringify(first.bars));
-      const before = renderNotation(container(), buildNotation(first), { ...options, cache });
+      // One page for the cached passes, so each updates the last one's drawing in place.
+      const page = container();
+      const before = renderNotation(page, buildNotation(first), { ...options, cache });
       expect(text(before.svg)).toBe(
         text(renderNotation(container(), buildNotation(first), options).svg),
       );
       for (const drill of [tempo, oneBar, other, first]) {
         const model: NotationModel = buildNotation(drill);
-        const cached = renderNotation(container(), model, { ...options, cache });
+        const cached = renderNotation(page, model, { ...options, cache });
+        expect(page.childNodes.length === 1 && page.firstChild === cached.svg).toBe(true);
         const fresh = renderNotation(container(), model, options);
         expect(text(cached.svg)).toBe(text(fresh.svg));
         const { svg: _cachedSvg, ...cachedLayout } = cached;
@@ -143,6 +146,33 @@ describe('the engraving cache', { timeout: 120_000 }, () => {
     } finally {
       numbered.mockRestore();
     }
+  });
+});
+
+describe('the drawing on the page', () => {
+  it('is updated in place: the systems an edit left stay the same elements', () => {
+    const options = SCREENS[0]!;
+    const cache = new EngravingCache();
+    const page = container();
+    const systems = (svg: SVGSVGElement) => [...svg.querySelectorAll(':scope > .tensile-system')];
+    const first = drillOf('amber-fox');
+    const shown = renderNotation(page, buildNotation(first), { ...options, cache }).svg;
+    const before = systems(shown);
+    const tempo = renderNotation(page, buildNotation(drillOf('amber-fox', 80)), {
+      ...options,
+      cache,
+    });
+    expect(tempo.svg).toBe(shown);
+    expect(systems(tempo.svg).every((group, i) => group === before[i])).toBe(true);
+    expect(tempo.svg.querySelector('.tensile-marks')?.getAttribute('aria-label')).toContain('80');
+    const oneBar = withOneBarOf(first, drillOf('quiet-river'));
+    const after = systems(
+      renderNotation(page, buildNotation(oneBar.drill), { ...options, cache }).svg,
+    );
+    // A bar a system here: the changed bar's system alone is a new element.
+    expect(after.map((group, i) => group === before[i])).toEqual(
+      first.bars.map((bar) => bar.bar !== oneBar.bar),
+    );
   });
 });
 

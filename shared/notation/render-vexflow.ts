@@ -188,6 +188,8 @@ interface DrawnSystem {
   readonly group: Element;
   /** The drawing state the system left (see `EngravingContext.drawingState`). */
   readonly after: string;
+  /** The copy of `group` on the page, kept there while the system stays the same. */
+  shown: Element | null;
   readonly boxes: readonly BarBox[];
   readonly instants: readonly (readonly [string, InstantBox])[];
   readonly band: SystemBand;
@@ -228,6 +230,49 @@ export class EngravingCache {
     value: EngravingCacheEntry[K],
   ): void {
     (this.used[kind] as Map<string, EngravingCacheEntry[K]>).set(key, value);
+  }
+
+  /** The drawing this cache's last pass left on the page. */
+  private page: SVGSVGElement | null = null;
+
+  /**
+   * @internal Bring the drawing on the page (when it is the last pass's, still in `container`)
+   * up to `next` by changing only what differs: systems kept from that pass and parts drawn the
+   * same stay as they are, so the browser restyles and lays out only what changed. Returns the
+   * drawing now on the page, or `next` when there is none to update (the caller puts it there).
+   */
+  update(
+    container: HTMLElement,
+    next: SVGSVGElement,
+    reused: ReadonlyMap<Element, DrawnSystem>,
+  ): SVGSVGElement {
+    const page = this.page;
+    this.page = next;
+    if (!page || page.parentNode !== container || container.childNodes.length !== 1) return next;
+    const wanted = [...next.children].map((part, i) => {
+      const system = reused.get(part);
+      if (system) {
+        if (system.shown?.parentNode === page) return system.shown;
+        system.shown = part;
+        return part;
+      }
+      // Parts drawn anew (title, marks, key, brackets) stay when drawn the same; the host's
+      // names for them (ids) carry over, as the host gives them again.
+      const old = page.children[i];
+      if (old?.id && !part.id) part.id = old.id;
+      return old?.isEqualNode(part) ? old : part;
+    });
+    for (const name of next.getAttributeNames()) {
+      const value = next.getAttribute(name)!;
+      if (page.getAttribute(name) !== value) page.setAttribute(name, value);
+    }
+    wanted.forEach((part, i) => {
+      const at = page.children[i];
+      if (at !== part) page.insertBefore(part, at ?? null);
+    });
+    while (page.children.length > wanted.length) page.lastElementChild!.remove();
+    this.page = page;
+    return page;
   }
 
   /** @internal A pass is done: keep what it used or made, drop the rest. */
@@ -375,6 +420,8 @@ function* engrave(
   // Every system is formatted before anything is drawn, so the whole score's counting can be set
   // in one size (the smallest its bars need); a system is formatted when first needed.
   const systemStaves: Stave[][] = [];
+  /** Systems taken from the cache, by the copy put into this drawing. */
+  const reused = new Map<Element, DrawnSystem>();
   const formatted = (systemIndex: number): Stave[] => {
     const known = systemStaves[systemIndex];
     if (known) return known;
@@ -426,7 +473,9 @@ function* engrave(
     const drawKey = cache ? `${syllableSize}${ctx.drawingState()}${systemKeys[systemIndex]}` : '';
     const known = cache?.get('systems', drawKey);
     if (known) {
-      svg.append(known.group.cloneNode(true));
+      const copy = known.group.cloneNode(true) as Element;
+      reused.set(copy, known);
+      svg.append(copy);
       ctx.setDrawingState(known.after);
       boxes.push(...known.boxes);
       for (const [key, box] of known.instants) instants.set(key, box);
@@ -489,13 +538,15 @@ function* engrave(
     boxes.push(...systemBoxes);
     for (const [key, box] of systemInstants) instants.set(key, box);
     bands.push(band);
-    cache?.set('systems', drawKey, {
+    const drawn: DrawnSystem = {
       group: group.cloneNode(true) as Element,
       after: ctx.drawingState(),
+      shown: group,
       boxes: systemBoxes,
       instants: [...systemInstants],
       band,
-    });
+    };
+    cache?.set('systems', drawKey, drawn);
     yield;
   }
   ctx.openGroup().setAttribute('class', BRACKETS_CLASS);
@@ -513,9 +564,10 @@ function* engrave(
   // VexFlow's invisible hit areas: nothing here is clicked, and a ghost note's parenthesis gives
   // its area a bounding box that spans the system's start.
   for (const rect of [...svg.querySelectorAll('rect[opacity="0"]')]) rect.remove();
-  container.replaceChildren(svg);
+  const onPage = cache?.update(container, svg, reused) ?? svg;
+  if (onPage === svg) container.replaceChildren(svg);
   cache?.settle();
-  return { width, height, bars: boxes, svg };
+  return { width, height, bars: boxes, svg: onPage };
 }
 
 /** The polyrhythm brackets' lines: over the hands' stems and accents, under the feet's stems. */

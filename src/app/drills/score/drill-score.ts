@@ -252,7 +252,8 @@ export class DrillScore {
         use.setAttribute('href', `#${id}`);
         svg.append(use);
       }
-      slot.replaceChildren(svg);
+      // A strip that shows the same as before is left alone: the browser keeps its copy.
+      if (!slot.firstElementChild?.isEqualNode(svg)) slot.replaceChildren(svg);
     });
   }
 
@@ -449,14 +450,19 @@ export class DrillScore {
     { svg, ...layout }: NotationLayout,
     fit: { contentWidth: number; scale: number },
   ): void {
-    svg.setAttribute('aria-hidden', 'true');
-    svg.id = this.svgId;
+    // Names set only where they differ: a drawing updated in place keeps its unchanged parts
+    // untouched (see EngravingCache).
+    const name = (part: Element, id: string) => {
+      if (part.id !== id) part.id = id;
+    };
+    if (svg.getAttribute('aria-hidden') !== 'true') svg.setAttribute('aria-hidden', 'true');
+    name(svg, this.svgId);
     // Named, so each later strip can show its own system (see drawEchoes).
     svg.querySelectorAll(`:scope > .${SYSTEM_CLASS}`).forEach((group, system) => {
-      group.id = `${this.svgId}-system-${system}`;
+      name(group, `${this.svgId}-system-${system}`);
     });
     const brackets = svg.querySelector(`:scope > .${BRACKETS_CLASS}`);
-    if (brackets) brackets.id = `${this.svgId}-brackets`;
+    if (brackets) name(brackets, `${this.svgId}-brackets`);
     this.fit.set(fit);
     this.layout.set(layout);
     this.failure.set(null);
