@@ -1,6 +1,7 @@
 /**
- * Prints how long the rule-card editor takes from a field change (the tempo typed in) to the
- * preview showing the new drill, for a 16-bar, 4-voice card with every rule kind, in headless
+ * Prints how long the rule-card editor takes from a change to the preview showing the new drill,
+ * for a 16-bar, 4-voice card with every rule kind: a field change (the tempo typed in, which
+ * leaves the bars as they were) and a new seed (every bar new), interleaved; in headless
  * Chromium against the real server; and how long the page's main thread was blocked meanwhile
  * (typing waits for it): the longest main-thread task from a Chromium performance trace, and the
  * longest gap between animation frames.
@@ -42,11 +43,12 @@ try {
   await page.goto(`${server.url}/rule-cards/${id}`);
   await page.locator('tensile-card-preview .canvas svg').waitFor({ timeout: 60_000 });
 
-  // One change: type a tempo, then time until the preview's score is replaced, and the longest
-  // gap between animation frames from the keystroke to then.
-  const change = (tempo: number, run: number) =>
+  // One change, then the time until the preview's score is replaced, and the longest gap between
+  // animation frames from the change to then. A tempo typed in (the drill's bars stay as they
+  // were: only the mark above the score changes), or a new seed (every bar changes).
+  const change = (what: { tempo: number } | 'seed', mark: string) =>
     page.evaluate(
-      ({ value, run }) =>
+      ({ what, mark }) =>
         new Promise<{ latency: number; longestFrame: number }>((resolve, reject) => {
           const canvas = document.querySelector('tensile-card-preview .canvas');
           const input = [...document.querySelectorAll('tensile-card-basics input')].find(
@@ -54,8 +56,12 @@ try {
               el.closest('mat-form-field')?.querySelector('mat-label')?.textContent?.trim() ===
               'Tempo (BPM)',
           ) as HTMLInputElement | undefined;
-          if (!canvas || !input) return reject(new Error('the editor is not on the page'));
-          performance.mark(`edit-${run}-start`);
+          const reseed = [...document.querySelectorAll('tensile-card-preview button')].find((el) =>
+            el.textContent?.includes('New seed'),
+          ) as HTMLButtonElement | undefined;
+          if (!canvas || !input || !reseed)
+            return reject(new Error('the editor is not on the page'));
+          performance.mark(`${mark}-start`);
           let last = performance.now();
           let longest = 0;
           let watching = true;
@@ -76,44 +82,61 @@ try {
               const channel = new MessageChannel();
               channel.port1.onmessage = () => {
                 const latency = performance.now() - start;
-                performance.mark(`edit-${run}-end`);
+                performance.mark(`${mark}-end`);
                 resolve({ latency, longestFrame: longest });
               };
               channel.port2.postMessage(null);
             });
           });
           observer.observe(canvas, { childList: true, subtree: true });
-          input.value = String(value);
-          input.dispatchEvent(new Event('input', { bubbles: true }));
+          if (what === 'seed') {
+            reseed.click();
+          } else {
+            input.value = String(what.tempo);
+            input.dispatchEvent(new Event('input', { bubbles: true }));
+          }
           setTimeout(() => reject(new Error('the preview did not update in 30 s')), 30_000);
         }),
-      { value: tempo, run },
+      { what, mark },
     );
 
-  for (let i = 0; i < WARM_UP; i++) await change(90 - i, -1 - i);
-  const results = [];
+  for (let i = 0; i < WARM_UP; i++) await change({ tempo: 90 - i }, `edit-${-1 - i}`);
+  const tempo = [];
+  const seed = [];
   await browser.startTracing(page, { categories: TRACE_CATEGORIES });
-  for (let i = 0; i < RUNS; i++) results.push(await change(80 - i, i));
+  // Interleaved, so both series see the same load.
+  for (let i = 0; i < RUNS; i++) {
+    tempo.push(await change({ tempo: 80 - i }, `edit-${i}`));
+    seed.push(await change('seed', `seed-${i}`));
+  }
   const trace = JSON.parse((await browser.stopTracing()).toString('utf8'));
-  const tasks = longestTasks(trace, 'edit-');
-  const engine = [...longestTasks(trace, 'edit-', 'DedicatedWorker thread').values()].sort(
-    (a, b) => a - b,
-  );
-  const latencies = results.map((r) => r.latency).sort((a, b) => a - b);
-  const frames = results.map((r) => r.longestFrame).sort((a, b) => a - b);
-  const longest = [...tasks.values()].sort((a, b) => a - b);
-  console.log(
-    `Editor: field change to the new drill shown, 16 bars, 4 voices, every rule kind: median ` +
-      `${quantile(latencies, 0.5).toFixed(0)} ms (p90 ${quantile(latencies, 0.9).toFixed(0)} ms). ` +
-      `Longest main-thread task per change: median ${quantile(longest, 0.5).toFixed(0)} ms, ` +
-      `worst ${longest.at(-1)!.toFixed(0)} ms (${longest.length} changes traced). The engine's ` +
-      `run in the worker (its longest task): median ${quantile(engine, 0.5).toFixed(0)} ms. ` +
-      `Longest gap ` +
-      `between frames: median ${quantile(frames, 0.5).toFixed(0)} ms, worst ` +
-      `${frames.at(-1)!.toFixed(0)} ms (${RUNS} runs, headless Chromium; goal: median ≤ 50 ms, ` +
-      `nothing blocking over one 60 Hz frame, 17 ms). Load average at the end: ` +
-      `${loadavg()[0]!.toFixed(1)} on ${cpus().length} cores.`,
-  );
+  const report = (
+    results: readonly { latency: number; longestFrame: number }[],
+    prefix: string,
+    what: string,
+  ) => {
+    const tasks = longestTasks(trace, prefix);
+    const engine = [...longestTasks(trace, prefix, 'DedicatedWorker thread').values()].sort(
+      (a, b) => a - b,
+    );
+    const latencies = results.map((r) => r.latency).sort((a, b) => a - b);
+    const frames = results.map((r) => r.longestFrame).sort((a, b) => a - b);
+    const longest = [...tasks.values()].sort((a, b) => a - b);
+    console.log(
+      `Editor: ${what} to the new drill shown, 16 bars, 4 voices, every rule kind: median ` +
+        `${quantile(latencies, 0.5).toFixed(0)} ms (p90 ${quantile(latencies, 0.9).toFixed(0)} ms). ` +
+        `Longest main-thread task per change: median ${quantile(longest, 0.5).toFixed(0)} ms, ` +
+        `worst ${longest.at(-1)!.toFixed(0)} ms (${longest.length} changes traced). The engine's ` +
+        `run in the worker (its longest task): median ${quantile(engine, 0.5).toFixed(0)} ms. ` +
+        `Longest gap ` +
+        `between frames: median ${quantile(frames, 0.5).toFixed(0)} ms, worst ` +
+        `${frames.at(-1)!.toFixed(0)} ms (${RUNS} runs, headless Chromium; goal: median ≤ 50 ms, ` +
+        `nothing blocking over one 60 Hz frame, 17 ms).`,
+    );
+  };
+  report(tempo, 'edit-', 'a tempo typed in (the bars unchanged)');
+  report(seed, 'seed-', 'a new seed (every bar new)');
+  console.log(`Load average at the end: ${loadavg()[0]!.toFixed(1)} on ${cpus().length} cores.`);
 } finally {
   await browser.close();
   await server.stop();

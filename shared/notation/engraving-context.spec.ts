@@ -1,7 +1,7 @@
 import { JSDOM } from 'jsdom';
 import { Element, Metrics, SVGContext } from 'vexflow/bravura';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { EngravingContext, withFastEngraving } from './engraving-context';
+import { EngravingContext, fastEngravingPass, withFastEngraving } from './engraving-context';
 
 const dom = new JSDOM('<!doctype html><div id="a"></div><div id="b"></div>');
 const global = globalThis as { document?: Document };
@@ -105,5 +105,28 @@ describe('withFastEngraving', () => {
       }),
     ).toThrow('bad bar');
     expect(Metrics.getFontInfo).toBe(getFontInfo);
+  });
+});
+
+describe('fastEngravingPass', () => {
+  it('shares its measurements between steps and puts the library back after each', () => {
+    const previous = Element.getTextMeasurementCanvas();
+    const { calls, canvas } = countingCanvas();
+    Element.setTextMeasurementCanvas(canvas);
+    const { getFontInfo } = Metrics;
+    try {
+      const widthOf = () => new Element().setText('\uE0A4').getWidth();
+      const pass = fastEngravingPass();
+      const first = pass(widthOf);
+      expect(Metrics.getFontInfo).toBe(getFontInfo);
+      expect(Element.getTextMeasurementCanvas()).toBe(canvas);
+      const measured = calls.length;
+      // The same glyph in a later step of the pass is not measured again.
+      expect(pass(widthOf)).toBe(first);
+      expect(calls.length).toBe(measured);
+      expect(Metrics.getFontInfo).toBe(getFontInfo);
+    } finally {
+      if (previous) Element.setTextMeasurementCanvas(previous);
+    }
   });
 });

@@ -26,6 +26,42 @@ export class EngravingContext extends SVGContext {
     }
     return this;
   }
+
+  /**
+   * Everything of the drawing state that what is drawn next inherits (colours, font, stroke), as
+   * text: a system kept from an earlier pass is reused only after the state it was drawn in, and
+   * leaves the state it left then (see EngravingCache).
+   */
+  drawingState(): string {
+    return JSON.stringify([
+      this.state,
+      this.attributes,
+      this.fontCSSString,
+      this.backgroundFillStyle,
+      this.groupAttributes,
+      this.path,
+      this.pen,
+    ]);
+  }
+
+  setDrawingState(text: string): void {
+    const [state, attributes, font, background, groupAttributes, path, pen] = JSON.parse(text) as [
+      SVGContext['state'],
+      SVGContext['attributes'],
+      string,
+      string,
+      SVGContext['attributes'][],
+      string,
+      SVGContext['pen'],
+    ];
+    Object.assign(this, {
+      state,
+      attributes,
+      fontCSSString: font,
+      backgroundFillStyle: background,
+    });
+    Object.assign(this, { groupAttributes, path, pen });
+  }
 }
 
 type MeasuringCanvas = HTMLCanvasElement | OffscreenCanvas;
@@ -37,19 +73,37 @@ type MeasuringCanvas = HTMLCanvasElement | OffscreenCanvas;
  * next pass and other VexFlow users see the library unchanged.
  */
 export function withFastEngraving<T>(engrave: () => T): T {
+  return fastEngravingPass()(engrave);
+}
+
+/**
+ * One engraving pass run in several steps (the page draws a score a system at a time, giving the
+ * browser the main thread between steps): each step runs as `withFastEngraving` runs its
+ * callback, with the library put back between steps, but the caches are shared by the pass's
+ * steps, as they are within one call.
+ */
+export function fastEngravingPass(): <T>(step: () => T) => T {
   const { getFontInfo, getStyle } = Metrics;
-  Metrics.getFontInfo = copiedPerKey(getFontInfo.bind(Metrics));
-  Metrics.getStyle = copiedPerKey(getStyle.bind(Metrics));
-  const canvas = Element.getTextMeasurementCanvas();
-  const context = canvas?.getContext('2d') as CanvasRenderingContext2D | null | undefined;
-  if (canvas && context) Element.setTextMeasurementCanvas(cachingCanvas(context));
-  try {
-    return engrave();
-  } finally {
-    Metrics.getFontInfo = getFontInfo;
-    Metrics.getStyle = getStyle;
-    if (canvas && context) Element.setTextMeasurementCanvas(canvas);
-  }
+  const fastFontInfo = copiedPerKey(getFontInfo.bind(Metrics));
+  const fastStyle = copiedPerKey(getStyle.bind(Metrics));
+  let measuring: { canvas: MeasuringCanvas; caching: MeasuringCanvas } | null | undefined;
+  return (step) => {
+    if (measuring === undefined) {
+      const canvas = Element.getTextMeasurementCanvas();
+      const context = canvas?.getContext('2d') as CanvasRenderingContext2D | null | undefined;
+      measuring = canvas && context ? { canvas, caching: cachingCanvas(context) } : null;
+    }
+    Metrics.getFontInfo = fastFontInfo;
+    Metrics.getStyle = fastStyle;
+    if (measuring) Element.setTextMeasurementCanvas(measuring.caching);
+    try {
+      return step();
+    } finally {
+      Metrics.getFontInfo = getFontInfo;
+      Metrics.getStyle = getStyle;
+      if (measuring) Element.setTextMeasurementCanvas(measuring.canvas);
+    }
+  };
 }
 
 /**

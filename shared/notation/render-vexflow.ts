@@ -18,7 +18,7 @@ import {
 import { countSize, drawBeatTexts, STICKING_LINE } from './beat-texts';
 import { SYLLABLE_SIZE } from './count-positions';
 import { countPositions } from './count-positions';
-import { EngravingContext, withFastEngraving } from './engraving-context';
+import { EngravingContext, fastEngravingPass, withFastEngraving } from './engraving-context';
 import { drawHeaderMarks, layoutHeaderMarks } from './header-marks';
 import { drawLegend, legendHeight, legendLineWidth } from './legend';
 import { svgText } from './svg-text';
@@ -78,6 +78,11 @@ export interface RenderOptions {
    * groupings (6/8, 12/8) go without: the meter says them.
    */
   readonly showGrouping?: boolean;
+  /**
+   * Systems drawn by earlier passes with the same cache, reused where a system's bars, place and
+   * settings are the same (see `EngravingCache`); none by default.
+   */
+  readonly cache?: EngravingCache;
 }
 
 export interface BeatBox {
@@ -144,14 +149,152 @@ export function renderNotation(
   model: NotationModel,
   options: RenderOptions,
 ): NotationLayout {
-  return withFastEngraving(() => engrave(container, model, options));
+  return withFastEngraving(() => {
+    const steps = engrave(container, model, options);
+    for (;;) {
+      const step = steps.next();
+      if (step.done) return step.value;
+    }
+  });
 }
 
-function engrave(
+/**
+ * The same engraving in steps of about one bar or one system each, for a page that gives the
+ * browser its main thread between steps (typing must never wait for a whole score): each
+ * `step()` does one step and returns the layout once the drawing is done. The drawing is built
+ * off the page and put into `container` by the last step, whole, as `renderNotation` does.
+ */
+export function notationSteps(
   container: HTMLElement,
   model: NotationModel,
   options: RenderOptions,
-): NotationLayout {
+): { step(): NotationLayout | null } {
+  const pass = fastEngravingPass();
+  const steps = engrave(container, model, options);
+  return {
+    step: () =>
+      pass(() => {
+        const next = steps.next();
+        return next.done ? next.value : null;
+      }),
+  };
+}
+
+/**
+ * What one system's drawing came to, kept for the next pass: the system's group and everything
+ * the rest of the engraving reads from its bars.
+ */
+interface DrawnSystem {
+  readonly group: Element;
+  /** The drawing state the system left (see `EngravingContext.drawingState`). */
+  readonly after: string;
+  /** The copy of `group` on the page, kept there while the system stays the same. */
+  shown: Element | null;
+  readonly boxes: readonly BarBox[];
+  readonly instants: readonly (readonly [string, InstantBox])[];
+  readonly band: SystemBand;
+}
+
+/**
+ * Systems and bar measurements kept between passes of one score (the editor redraws its preview
+ * on every edit, and most edits leave most bars as they were). A system is reused only when
+ * everything it was drawn from is the same: its bars (the whole notation of each), its place on
+ * the page, the settings that shape it and the counting's size; and a bar's measurement only
+ * when the bar and the settings are. Only what the latest pass used is kept.
+ */
+export class EngravingCache {
+  private tightest = new Map<string, number>();
+  private countSizes = new Map<string, readonly number[]>();
+  private systems = new Map<string, DrawnSystem>();
+  private used = {
+    tightest: new Map<string, number>(),
+    countSizes: new Map<string, readonly number[]>(),
+    systems: new Map<string, DrawnSystem>(),
+  };
+
+  /** @internal */
+  get<K extends 'tightest' | 'countSizes' | 'systems'>(
+    kind: K,
+    key: string,
+  ): EngravingCacheEntry[K] | undefined {
+    const value = (this[kind] as Map<string, EngravingCacheEntry[K]>).get(key);
+    if (value !== undefined)
+      (this.used[kind] as Map<string, EngravingCacheEntry[K]>).set(key, value);
+    return value;
+  }
+
+  /** @internal */
+  set<K extends 'tightest' | 'countSizes' | 'systems'>(
+    kind: K,
+    key: string,
+    value: EngravingCacheEntry[K],
+  ): void {
+    (this.used[kind] as Map<string, EngravingCacheEntry[K]>).set(key, value);
+  }
+
+  /** The drawing this cache's last pass left on the page. */
+  private page: SVGSVGElement | null = null;
+
+  /**
+   * @internal Bring the drawing on the page (when it is the last pass's, still in `container`)
+   * up to `next` by changing only what differs: systems kept from that pass and parts drawn the
+   * same stay as they are, so the browser restyles and lays out only what changed. Returns the
+   * drawing now on the page, or `next` when there is none to update (the caller puts it there).
+   */
+  update(
+    container: HTMLElement,
+    next: SVGSVGElement,
+    reused: ReadonlyMap<Element, DrawnSystem>,
+  ): SVGSVGElement {
+    const page = this.page;
+    this.page = next;
+    if (!page || page.parentNode !== container || container.childNodes.length !== 1) return next;
+    const wanted = [...next.children].map((part, i) => {
+      const system = reused.get(part);
+      if (system) {
+        if (system.shown?.parentNode === page) return system.shown;
+        system.shown = part;
+        return part;
+      }
+      // Parts drawn anew (title, marks, key, brackets) stay when drawn the same; the host's
+      // names for them (ids) carry over, as the host gives them again.
+      const old = page.children[i];
+      if (old?.id && !part.id) part.id = old.id;
+      return old?.isEqualNode(part) ? old : part;
+    });
+    for (const name of next.getAttributeNames()) {
+      const value = next.getAttribute(name)!;
+      if (page.getAttribute(name) !== value) page.setAttribute(name, value);
+    }
+    wanted.forEach((part, i) => {
+      const at = page.children[i];
+      if (at !== part) page.insertBefore(part, at ?? null);
+    });
+    while (page.children.length > wanted.length) page.lastElementChild!.remove();
+    this.page = page;
+    return page;
+  }
+
+  /** @internal A pass is done: keep what it used or made, drop the rest. */
+  settle(): void {
+    this.tightest = this.used.tightest;
+    this.countSizes = this.used.countSizes;
+    this.systems = this.used.systems;
+    this.used = { tightest: new Map(), countSizes: new Map(), systems: new Map() };
+  }
+}
+
+interface EngravingCacheEntry {
+  tightest: number;
+  countSizes: readonly number[];
+  systems: DrawnSystem;
+}
+
+function* engrave(
+  container: HTMLElement,
+  model: NotationModel,
+  options: RenderOptions,
+): Generator<void, NotationLayout> {
   // Drawn off the page and attached once, so the page's style and layout are touched once.
   const ctx = new EngravingContext(container.ownerDocument.createElement('div'));
   const svg = ctx.svg as SVGSVGElement;
@@ -162,11 +305,48 @@ function engrave(
   svg.setAttribute('role', 'img');
   svg.classList.add('tensile-notation');
   const showLegend = options.showLegend ?? true;
-  // Engraved once: measured for line breaking, then formatted to their staves and drawn.
-  const engravedBars = model.bars.map((bar) => engraveBar(bar, model));
   const showCounts = options.showCounts ?? false;
-  // Each bar's tightest setting, measured once (VexFlow formats the bar to measure it).
-  const tightest = engravedBars.map(minimumBarWidth);
+  const cache = options.cache;
+  // What every bar's drawing depends on besides the bar itself and its place.
+  const settings = JSON.stringify([
+    model.meter,
+    model.layers,
+    model.voices,
+    model.bars.length,
+    model.polyrhythms.some((g) => !g.below),
+    options.showSticking ?? false,
+    showCounts,
+    options.showTension ?? false,
+    options.showGrouping ?? true,
+    options.ink ?? 'black',
+  ]);
+  const barKeys = cache ? model.bars.map((bar) => `${settings}${JSON.stringify(bar)}`) : [];
+  // Engraved once, when first needed: measured for line breaking (VexFlow formats the bar to
+  // measure it), then formatted to its stave and drawn. A bar whose system comes whole from the
+  // cache is never engraved.
+  const engravedBars: EngravedBar[] = [];
+  const measured: number[] = [];
+  const engraved = (barIndex: number): EngravedBar => {
+    let bar = engravedBars[barIndex];
+    if (bar === undefined) {
+      bar = engraveBar(model.bars[barIndex]!, model);
+      measured[barIndex] = minimumBarWidth(bar);
+      engravedBars[barIndex] = bar;
+    }
+    return bar;
+  };
+  const tightest: number[] = [];
+  for (let i = 0; i < model.bars.length; i++) {
+    const known = cache?.get('tightest', barKeys[i]!);
+    if (known !== undefined) {
+      tightest.push(known);
+      continue;
+    }
+    engraved(i);
+    tightest.push(measured[i]!);
+    cache?.set('tightest', barKeys[i]!, measured[i]!);
+    yield;
+  }
   const room = {
     note: options.noteRoom ?? NOTE_ROOM,
     count: showCounts ? (options.countRoom ?? COUNT_SLOT_ROOM) : 0,
@@ -225,14 +405,31 @@ function engrave(
   const hasPolyrhythmAbove = model.polyrhythms.some((g) => !g.below);
   const systemTopOf = (systemIndex: number) =>
     head + systemIndex * (systemHeight + gap + separation);
+  // Everything a system's drawing is made from besides the counting's size (see EngravingCache).
+  const systemKeys = cache
+    ? plans.map((plan, systemIndex) =>
+        JSON.stringify([
+          systemIndex,
+          systemTopOf(systemIndex),
+          systemHeight,
+          plan.widths,
+          plan.bars.map((barIndex) => barKeys[barIndex]),
+        ]),
+      )
+    : [];
   // Every system is formatted before anything is drawn, so the whole score's counting can be set
-  // in one size (the smallest its bars need).
-  const systemStaves = plans.map((plan, systemIndex) => {
+  // in one size (the smallest its bars need); a system is formatted when first needed.
+  const systemStaves: Stave[][] = [];
+  /** Systems taken from the cache, by the copy put into this drawing. */
+  const reused = new Map<Element, DrawnSystem>();
+  const formatted = (systemIndex: number): Stave[] => {
+    const known = systemStaves[systemIndex];
+    if (known) return known;
+    const plan = plans[systemIndex]!;
     const topLineY = systemTopOf(systemIndex) + sticking + HEADROOM;
-    const x = MARGIN_X;
     // The system's bars are formatted first, so its tuplet brackets can share one line and its
     // sticking can sit just over its highest mark, close to its own staff.
-    let staveX = x;
+    let staveX = MARGIN_X;
     const staves = plan.bars.map((barIndex, i) => {
       const bar = model.bars[barIndex]!;
       const width = plan.widths[i]!;
@@ -249,53 +446,75 @@ function engrave(
       // Full-strength lines (VexFlow's default is grey) so the staff reads from a music stand.
       stave.setStyle({ strokeStyle: ink, fillStyle: ink });
       stave.setDefaultLedgerLineStyle({ strokeStyle: ink, lineWidth: 2 });
-      formatBar(engravedBars[barIndex]!, stave);
+      formatBar(engraved(barIndex), stave);
       return stave;
     });
-    levelTuplets(plan.bars.map((barIndex) => engravedBars[barIndex]!));
+    levelTuplets(plan.bars.map((barIndex) => engraved(barIndex)));
+    systemStaves[systemIndex] = staves;
     return staves;
-  });
-  const syllableSize = showCounts
-    ? Math.min(
-        SYLLABLE_SIZE,
-        ...plans.flatMap((plan, s) =>
-          plan.bars.map((barIndex, i) =>
-            countSize(model.bars[barIndex]!, engravedBars[barIndex]!, systemStaves[s]![i]!),
-          ),
-        ),
-      )
-    : SYLLABLE_SIZE;
-  plans.forEach((plan, systemIndex) => {
+  };
+  let syllableSize = SYLLABLE_SIZE;
+  for (const [systemIndex, plan] of plans.entries()) {
+    let sizes = showCounts ? cache?.get('countSizes', systemKeys[systemIndex]!) : [];
+    // Without a cache every system is formatted here, before any is drawn, as it always was.
+    if (sizes === undefined || !cache) {
+      const staves = formatted(systemIndex);
+      sizes = showCounts
+        ? plan.bars.map((barIndex, i) =>
+            countSize(model.bars[barIndex]!, engraved(barIndex), staves[i]!),
+          )
+        : [];
+      if (showCounts) cache?.set('countSizes', systemKeys[systemIndex]!, sizes);
+      yield;
+    }
+    syllableSize = Math.min(syllableSize, ...sizes);
+  }
+  for (const [systemIndex, plan] of plans.entries()) {
+    const drawKey = cache ? `${syllableSize}${ctx.drawingState()}${systemKeys[systemIndex]}` : '';
+    const known = cache?.get('systems', drawKey);
+    if (known) {
+      const copy = known.group.cloneNode(true) as Element;
+      reused.set(copy, known);
+      svg.append(copy);
+      ctx.setDrawingState(known.after);
+      boxes.push(...known.boxes);
+      for (const [key, box] of known.instants) instants.set(key, box);
+      bands.push(known.band);
+      continue;
+    }
     const systemTop = systemTopOf(systemIndex);
     const topLineY = systemTop + sticking + HEADROOM;
     let x = MARGIN_X;
-    const staves = systemStaves[systemIndex]!;
-    const systemBars = plan.bars.map((barIndex) => engravedBars[barIndex]!);
+    const staves = formatted(systemIndex);
+    const systemBars = plan.bars.map((barIndex) => engraved(barIndex));
     const ceiling = Math.min(
       highestMark(systemBars, topLineY),
       hasPolyrhythmAbove ? topLineY - POLYRHYTHM_ABOVE - POLYRHYTHM_LABEL : Infinity,
     );
     const stickingY = Math.max(topLineY - HEADROOM - 2, ceiling - STICKING_CLEARANCE);
+    const systemBoxes: BarBox[] = [];
+    const systemInstants = new Map<string, InstantBox>();
     // One group a system, so a host can show a system on its own (see SYSTEM_CLASS).
-    ctx.openGroup().setAttribute('class', SYSTEM_CLASS);
+    const group = ctx.openGroup();
+    group.setAttribute('class', SYSTEM_CLASS);
     plan.bars.forEach((barIndex, i) => {
       const bar = model.bars[barIndex]!;
       const width = plan.widths[i]!;
       const stave = staves[i]!;
-      const engraved = engravedBars[barIndex]!;
-      if (showTension) colourSyncopations(bar, engraved, TENSION_INK);
-      drawBar(ctx, bar, engraved, stave, options, topLineY, stickingY, syllableSize);
+      const engravedBar = engraved(barIndex);
+      if (showTension) colourSyncopations(bar, engravedBar, TENSION_INK);
+      drawBar(ctx, bar, engravedBar, stave, options, topLineY, stickingY, syllableSize);
       if (showTension)
         drawTensionMarks(
           ctx,
           bar,
-          engraved,
+          engravedBar,
           topLineY + 4 * STAVE_SPACE + FOOTROOM - 10,
           TENSION_INK,
         );
       if (barIndex === 0 && (options.showGrouping ?? true))
         drawGrouping(ctx, model, stave, topLineY);
-      boxes.push({
+      systemBoxes.push({
         bar: bar.bar,
         system: systemIndex,
         x,
@@ -304,20 +523,32 @@ function engrave(
         bottomLineY: topLineY + 4 * STAVE_SPACE,
         systemTop,
         systemBottom: systemTop + systemHeight,
-        beats: beatBoxes(bar, engraved, stave),
+        beats: beatBoxes(bar, engravedBar, stave),
       });
-      recordInstants(instants, bar.bar, engraved, systemIndex);
+      recordInstants(systemInstants, bar.bar, engravedBar, systemIndex);
       x += width;
     });
     ctx.closeGroup();
-    const bandLeft = boxes.find((b) => b.system === systemIndex)!;
-    bands.push({
-      left: bandLeft.x,
+    const band = {
+      left: systemBoxes[0]!.x,
       right: x,
       aboveY: topLineY - POLYRHYTHM_ABOVE,
       belowY: topLineY + 4 * STAVE_SPACE + POLYRHYTHM_BELOW,
-    });
-  });
+    };
+    boxes.push(...systemBoxes);
+    for (const [key, box] of systemInstants) instants.set(key, box);
+    bands.push(band);
+    const drawn: DrawnSystem = {
+      group: group.cloneNode(true) as Element,
+      after: ctx.drawingState(),
+      shown: group,
+      boxes: systemBoxes,
+      instants: [...systemInstants],
+      band,
+    };
+    cache?.set('systems', drawKey, drawn);
+    yield;
+  }
   ctx.openGroup().setAttribute('class', BRACKETS_CLASS);
   drawPolyrhythmBrackets(ctx, model.polyrhythms, instants, bands);
   ctx.closeGroup();
@@ -333,8 +564,10 @@ function engrave(
   // VexFlow's invisible hit areas: nothing here is clicked, and a ghost note's parenthesis gives
   // its area a bounding box that spans the system's start.
   for (const rect of [...svg.querySelectorAll('rect[opacity="0"]')]) rect.remove();
-  container.replaceChildren(svg);
-  return { width, height, bars: boxes, svg };
+  const onPage = cache?.update(container, svg, reused) ?? svg;
+  if (onPage === svg) container.replaceChildren(svg);
+  cache?.settle();
+  return { width, height, bars: boxes, svg: onPage };
 }
 
 /** The polyrhythm brackets' lines: over the hands' stems and accents, under the feet's stems. */

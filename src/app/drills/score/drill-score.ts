@@ -26,6 +26,11 @@ import {
   groupingLabel,
   type NotationModel,
 } from '../../../../shared/notation/notation-model';
+import type {
+  EngravingCache,
+  NotationLayout,
+  RenderOptions,
+} from '../../../../shared/notation/render-vexflow';
 import { onCardScale, targetTension } from '../drill-scale';
 import { TensionPlot } from '../tension-plot/tension-plot';
 import { loadMusicFonts } from './music-fonts';
@@ -247,7 +252,8 @@ export class DrillScore {
         use.setAttribute('href', `#${id}`);
         svg.append(use);
       }
-      slot.replaceChildren(svg);
+      // A strip that shows the same as before is left alone: the browser keeps its copy.
+      if (!slot.firstElementChild?.isEqualNode(svg)) slot.replaceChildren(svg);
     });
   }
 
@@ -340,24 +346,62 @@ export class DrillScore {
       ]);
       if (token !== this.renderToken) return;
       this.engraver = engraver;
-      this.draw(engraver, model, width, shown);
+      // A system at a time, the browser's turn between (typing never waits for a whole score);
+      // the drawing shows once it is whole. A newer drill ends this pass at its next step.
+      const current = () => token === this.renderToken && !this.printing();
+      const engrave = async (lineWidth: number) => {
+        const steps = engraver.notationSteps(
+          this.canvas().nativeElement,
+          model,
+          this.engravingOptions(lineWidth, shown, this.cacheFor(engraver, lineWidth)),
+        );
+        let slice = performance.now();
+        for (;;) {
+          const layout = steps.step();
+          if (layout) return layout;
+          if (performance.now() - slice < SLICE_MS) continue;
+          await nextTask();
+          if (!current()) return null;
+          slice = performance.now();
+        }
+      };
+      let drawn = await engrave(width);
+      if (!drawn) return;
+      const fit = fitToWidth(drawn, width);
+      // A bar ran past the line: engrave again on a line that holds it (see draw).
+      if (fit.contentWidth > width) drawn = await engrave(fit.contentWidth);
+      if (!drawn) return;
+      this.publish(engraver, drawn, fit);
     } catch (error) {
       if (token !== this.renderToken) return;
       this.failure.set(error instanceof Error ? error.message : String(error));
     }
   }
 
-  /** Engrave `model` on a line of `width` pixels and publish its layout (synchronous). */
-  private draw(
-    {
-      renderNotation,
-      SYSTEM_CLASS,
-      BRACKETS_CLASS,
-    }: typeof import('../../../../shared/notation/render-vexflow'),
-    model: NotationModel,
-    width: number,
+  /**
+   * Systems kept from the last passes at each line width (two: the host's, and the wider line a
+   * bar too wide for it asks for), so an edit redraws only the systems it changed.
+   */
+  private readonly caches = new Map<number, EngravingCache>();
+
+  private cacheFor(
+    engraver: typeof import('../../../../shared/notation/render-vexflow'),
+    lineWidth: number,
+  ): EngravingCache {
+    let cache = this.caches.get(lineWidth);
+    if (!cache) {
+      cache = new engraver.EngravingCache();
+      this.caches.set(lineWidth, cache);
+      for (const width of [...this.caches.keys()].slice(0, -2)) this.caches.delete(width);
+    }
+    return cache;
+  }
+
+  private engravingOptions(
+    lineWidth: number,
     shown: { showSticking: boolean; showCounts: boolean; showTension: boolean },
-  ): void {
+    cache?: EngravingCache,
+  ): RenderOptions {
     // On paper the notes stand closer, as engraved parts set them (see PRINT_LAYOUT).
     const print = this.printing()
       ? {
@@ -367,31 +411,74 @@ export class DrillScore {
           maxBarsPerSystem: PRINT_LAYOUT.maxBarsPerSystem,
         }
       : {};
+    return {
+      width: lineWidth,
+      ...shown,
+      ...print,
+      gapBelowSystem: PLOT_ROOM,
+      ink: 'currentColor',
+      ...(cache ? { cache } : {}),
+    };
+  }
+
+  /** Engrave `model` on a line of `width` pixels and publish its layout (synchronous: print). */
+  private draw(
+    engraver: typeof import('../../../../shared/notation/render-vexflow'),
+    model: NotationModel,
+    width: number,
+    shown: { showSticking: boolean; showCounts: boolean; showTension: boolean },
+  ): void {
     const engrave = (lineWidth: number) =>
-      renderNotation(this.canvas().nativeElement, model, {
-        width: lineWidth,
-        ...shown,
-        ...print,
-        gapBelowSystem: PLOT_ROOM,
-        ink: 'currentColor',
-      });
-    let { svg, ...layout } = engrave(width);
-    const fit = fitToWidth(layout, width);
+      engraver.renderNotation(
+        this.canvas().nativeElement,
+        model,
+        this.engravingOptions(lineWidth, shown),
+      );
+    let drawn = engrave(width);
+    const fit = fitToWidth(drawn, width);
     if (fit.contentWidth > width) {
       // A bar ran past the line: engrave again on a line that holds it, so every system fills
       // the same wider sheet, which the template scales down to the host as one.
-      ({ svg, ...layout } = engrave(fit.contentWidth));
+      drawn = engrave(fit.contentWidth);
     }
-    svg.setAttribute('aria-hidden', 'true');
-    svg.id = this.svgId;
+    this.publish(engraver, drawn, fit);
+  }
+
+  /** Name the drawing's parts for the strips (see drawEchoes) and publish its layout. */
+  private publish(
+    { SYSTEM_CLASS, BRACKETS_CLASS }: typeof import('../../../../shared/notation/render-vexflow'),
+    { svg, ...layout }: NotationLayout,
+    fit: { contentWidth: number; scale: number },
+  ): void {
+    // Names set only where they differ: a drawing updated in place keeps its unchanged parts
+    // untouched (see EngravingCache).
+    const name = (part: Element, id: string) => {
+      if (part.id !== id) part.id = id;
+    };
+    if (svg.getAttribute('aria-hidden') !== 'true') svg.setAttribute('aria-hidden', 'true');
+    name(svg, this.svgId);
     // Named, so each later strip can show its own system (see drawEchoes).
     svg.querySelectorAll(`:scope > .${SYSTEM_CLASS}`).forEach((group, system) => {
-      group.id = `${this.svgId}-system-${system}`;
+      name(group, `${this.svgId}-system-${system}`);
     });
     const brackets = svg.querySelector(`:scope > .${BRACKETS_CLASS}`);
-    if (brackets) brackets.id = `${this.svgId}-brackets`;
+    if (brackets) name(brackets, `${this.svgId}-brackets`);
     this.fit.set(fit);
     this.layout.set(layout);
     this.failure.set(null);
   }
+}
+
+/** Longest run of engraving steps before the browser gets the main thread back, in ms. */
+const SLICE_MS = 8;
+
+/** Resolves in a later task, after the browser has had its turn (input, rendering). */
+function nextTask(): Promise<void> {
+  const scheduler = (globalThis as { scheduler?: { yield?: () => Promise<void> } }).scheduler;
+  if (typeof scheduler?.yield === 'function') return scheduler.yield();
+  return new Promise((resolve) => {
+    const channel = new MessageChannel();
+    channel.port1.onmessage = () => resolve();
+    channel.port2.postMessage(null);
+  });
 }

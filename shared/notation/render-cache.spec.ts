@@ -1,0 +1,199 @@
+/**
+ * The engraving cache and the engraving in steps must never change the drawing: every pass with
+ * a cache is compared with a pass without one (the oracle), for edits that change nothing in the
+ * bars, one bar, or all of them; and the cache must actually spare the systems an edit leaves.
+ */
+import { createRequire } from 'node:module';
+import { createCanvas, GlobalFonts } from '@napi-rs/canvas';
+import { JSDOM } from 'jsdom';
+import { Element as VexElement } from 'vexflow/bravura';
+import { Stave } from 'vexflow/core';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import type { Drill } from '../generator/drill';
+import { generateDrill, parseRuleCard } from '../generator/index';
+import { buildNotation, type NotationModel } from './notation-model';
+import {
+  EngravingCache,
+  notationSteps,
+  renderNotation,
+  type RenderOptions,
+} from './render-vexflow';
+
+const require = createRequire(import.meta.url);
+const dom = new JSDOM('<!doctype html><html><body></body></html>');
+const global = globalThis as { document?: Document };
+let previous: Document | undefined;
+
+beforeAll(() => {
+  GlobalFonts.registerFromPath(require.resolve('@vexflow-fonts/bravura/bravura.otf'), 'Bravura');
+  GlobalFonts.registerFromPath(
+    require.resolve('@vexflow-fonts/academico/academico.otf'),
+    'Academico',
+  );
+  VexElement.setTextMeasurementCanvas(createCanvas(400, 200) as unknown as HTMLCanvasElement);
+  previous = global.document;
+  // VexFlow's SVG context creates its elements through the global `document`.
+  global.document = dom.window.document;
+});
+
+afterAll(() => {
+  if (previous === undefined) delete global.document;
+  else global.document = previous;
+});
+
+/** A heavy card of every rule kind (invented for this test). */
+const CARD = {
+  meter: { beats: 4, unit: 4 },
+  bars: 8,
+  subdivision: 4,
+  tempo: 96,
+  voices: ['kick', 'snare', 'hihat', 'tomHigh'],
+  ostinato: { voice: 'hihat', slots: [2], dynamic: 'normal' },
+  density: 0.3,
+  rules: [
+    { kind: 'backbeat', voice: 'snare', beats: [2, 4] },
+    { kind: 'avoidDownbeat', voice: 'kick', resolveEvery: 4 },
+    { kind: 'phrase', every: 4, fillBeats: 2, voices: ['snare', 'tomHigh'] },
+    { kind: 'fillHoles', voices: ['snare'], ghost: 0.5, accent: 0 },
+    { kind: 'linear', maxOverlaps: 12 },
+    { kind: 'polyrhythm', voices: ['tomHigh'], against: 4, span: 3 },
+    { kind: 'euclid', voice: 'kick', pulses: 3, steps: 8, rotation: 1 },
+  ],
+};
+
+function drillOf(seed: string, tempo = 96): Drill {
+  return generateDrill(parseRuleCard({ ...CARD, tempo }), seed);
+}
+
+function container(): HTMLElement {
+  return dom.window.document.createElement('div');
+}
+
+/** The drawing as text, without VexFlow's running element numbers (they count every pass). */
+function text(svg: SVGSVGElement): string {
+  return svg.outerHTML.replace(/ id="vf-[^"]*"/g, '');
+}
+
+/** `drill` with one bar (the first that differs) taken from `other`. */
+function withOneBarOf(drill: Drill, other: Drill): { drill: Drill; bar: number } {
+  const index = drill.bars.findIndex(
+    (bar, i) => JSON.stringify(bar.hits) !== JSON.stringify(other.bars[i]!.hits),
+  );
+  expect(index).toBeGreaterThanOrEqual(0);
+  const bars = drill.bars.map((bar, i) =>
+    i === index ? { ...other.bars[i]!, bar: bar.bar } : bar,
+  );
+  return { drill: { ...drill, bars }, bar: drill.bars[index]!.bar };
+}
+
+const SCREENS: readonly RenderOptions[] = [
+  // The editor's narrow preview (a bar a system) and a wide page (several bars a system).
+  { width: 420, showSticking: true, showCounts: true, showTension: true, ink: 'currentColor' },
+  { width: 1100, showSticking: true, showCounts: true },
+  { width: 1100, showSticking: false, showCounts: false },
+];
+
+// Several full engravings a test: generous for a busy machine.
+describe('the engraving cache', { timeout: 120_000 }, () => {
+  for (const options of SCREENS) {
+    it(`draws what a pass without it draws, at ${options.width} px, counts ${options.showCounts}`, () => {
+      const cache = new EngravingCache();
+      const first = drillOf('amber-fox');
+      // Same bars at another tempo (only the mark above the first system changes).
+      const tempo = drillOf('amber-fox', 80);
+      const other = drillOf('quiet-river');
+      const oneBar = withOneBarOf(first, other).drill;
+      expect(JSON.stringify(tempo.bars)).toBe(JSON.stringify(first.bars));
+      // One page for the cached passes, so each updates the last one's drawing in place.
+      const page = container();
+      const before = renderNotation(page, buildNotation(first), { ...options, cache });
+      expect(text(before.svg)).toBe(
+        text(renderNotation(container(), buildNotation(first), options).svg),
+      );
+      for (const drill of [tempo, oneBar, other, first]) {
+        const model: NotationModel = buildNotation(drill);
+        const cached = renderNotation(page, model, { ...options, cache });
+        expect(page.childNodes.length === 1 && page.firstChild === cached.svg).toBe(true);
+        const fresh = renderNotation(container(), model, options);
+        expect(text(cached.svg)).toBe(text(fresh.svg));
+        const { svg: _cachedSvg, ...cachedLayout } = cached;
+        const { svg: _freshSvg, ...freshLayout } = fresh;
+        expect(cachedLayout).toEqual(freshLayout);
+      }
+    });
+  }
+
+  it('engraves afresh only the bars of systems an edit changed', () => {
+    const options = SCREENS[0]!;
+    const cache = new EngravingCache();
+    const first = drillOf('amber-fox');
+    const other = drillOf('quiet-river');
+    // Every bar engraved gets its stave numbered; a bar taken whole from the cache does not.
+    const numbered = vi.spyOn(Stave.prototype, 'setMeasure');
+    const engravedBars = (drill: Drill) => {
+      numbered.mockClear();
+      renderNotation(container(), buildNotation(drill), { ...options, cache });
+      return numbered.mock.calls.map(([bar]) => bar);
+    };
+    try {
+      expect(engravedBars(first)).toEqual(first.bars.map((bar) => bar.bar));
+      // The tempo leaves every bar as it was.
+      expect(engravedBars(drillOf('amber-fox', 80))).toEqual([]);
+      const oneBar = withOneBarOf(first, other);
+      // A bar a system on this narrow line: only the changed bar's system is new (these bars
+      // keep the counting's size, which would otherwise change every system).
+      expect(engravedBars(oneBar.drill)).toEqual([oneBar.bar]);
+    } finally {
+      numbered.mockRestore();
+    }
+  });
+});
+
+describe('the drawing on the page', () => {
+  it('is updated in place: the systems an edit left stay the same elements', () => {
+    const options = SCREENS[0]!;
+    const cache = new EngravingCache();
+    const page = container();
+    const systems = (svg: SVGSVGElement) => [...svg.querySelectorAll(':scope > .tensile-system')];
+    const first = drillOf('amber-fox');
+    const shown = renderNotation(page, buildNotation(first), { ...options, cache }).svg;
+    const before = systems(shown);
+    const tempo = renderNotation(page, buildNotation(drillOf('amber-fox', 80)), {
+      ...options,
+      cache,
+    });
+    expect(tempo.svg).toBe(shown);
+    expect(systems(tempo.svg).every((group, i) => group === before[i])).toBe(true);
+    expect(tempo.svg.querySelector('.tensile-marks')?.getAttribute('aria-label')).toContain('80');
+    const oneBar = withOneBarOf(first, drillOf('quiet-river'));
+    const after = systems(
+      renderNotation(page, buildNotation(oneBar.drill), { ...options, cache }).svg,
+    );
+    // A bar a system here: the changed bar's system alone is a new element.
+    expect(after.map((group, i) => group === before[i])).toEqual(
+      first.bars.map((bar) => bar.bar !== oneBar.bar),
+    );
+  });
+});
+
+describe('the engraving in steps', () => {
+  it('takes several steps, leaves the page alone until the last, and draws the same', () => {
+    const options = SCREENS[0]!;
+    const model = buildNotation(drillOf('amber-fox'));
+    const target = container();
+    const old = dom.window.document.createElement('p');
+    target.append(old);
+    const steps = notationSteps(target, model, options);
+    let count = 0;
+    let layout = steps.step();
+    while (layout === null) {
+      count++;
+      expect(target.firstChild).toBe(old);
+      layout = steps.step();
+    }
+    // At least a step a bar for measuring and a step a system for drawing.
+    expect(count).toBeGreaterThanOrEqual(2 * model.bars.length);
+    expect(target.firstChild).toBe(layout.svg);
+    expect(text(layout.svg)).toBe(text(renderNotation(container(), model, options).svg));
+  });
+});
