@@ -13,7 +13,7 @@ import { generateDrill, parseRuleCard, type Drill } from '../../shared/generator
 import { BUILT_IN_PRESETS } from '../../shared/generator/presets/index';
 import { PRINT_LAYOUT } from '../../shared/notation/print-layout';
 import { buildNotation, type NotationSource } from '../../shared/notation/notation-model';
-import type { RenderOptions } from '../../shared/notation/render-vexflow';
+import type { RenderOptions as AllRenderOptions } from '../../shared/notation/render-vexflow';
 import {
   bundleForBrowser,
   launchChromium,
@@ -328,6 +328,10 @@ describe('engraving rules on the drawn score (Chromium)', () => {
   afterAll(async () => {
     await browser?.close();
   });
+
+  // Options cross into the page as plain data: the cache (live DOM) stays out, and keeping it out
+  // of the type spares the compiler from unboxing the whole DOM through page.evaluate.
+  type RenderOptions = Omit<AllRenderOptions, 'cache'>;
 
   type Entry = {
     __bundle: {
