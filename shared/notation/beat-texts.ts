@@ -36,8 +36,10 @@ function instantX(engraved: EngravedBar): Map<string, number> {
 export interface TextRows {
   readonly stickingY: number | null;
   readonly countsY: number | null;
-  /** The counting syllables' size (see `countSize`). */
+  /** The counting syllables' size (see `CountLayout.size`). */
   readonly countSize: number;
+  /** The bar's count as `layoutCounts` placed it, when the count is shown. */
+  readonly counts: CountLayout | null;
 }
 
 /** Sticking over the notes and the count under them, for one engraved and formatted bar. */
@@ -48,10 +50,10 @@ export function drawBeatTexts(
   stave: Stave,
   rows: TextRows,
 ): void {
-  const xs = instantX(engraved);
-  const { stickingY, countsY, countSize } = rows;
-  if (stickingY !== null) drawSticking(ctx, bar, xs, stickingY);
-  if (countsY !== null) drawCounts(ctx, bar, engraved, stave, countsY, countSize);
+  const { stickingY, countsY, countSize, counts } = rows;
+  if (stickingY !== null) drawSticking(ctx, bar, counts?.xs ?? instantX(engraved), stickingY);
+  if (countsY !== null)
+    drawCounts(ctx, bar, counts ?? layoutCounts(bar, engraved, stave), stave, countsY, countSize);
 }
 
 /** Sticking letters' size where they have room, and the smallest they shrink to. */
@@ -101,16 +103,23 @@ function drawSticking(
   }
 }
 
-interface CountLayout {
+/** Where a formatted bar's counting syllables go; measured once, for sizing and for drawing. */
+export interface CountLayout {
+  /** Centre x of each struck instant (see `instantX`). */
+  readonly xs: ReadonlyMap<string, number>;
   /** The syllables' raw x in time order (slot by slot, beat by beat) and their texts. */
   readonly raw: readonly number[];
   readonly texts: readonly string[];
   readonly positions: readonly (readonly number[])[];
-  /** The largest size at which the bar's syllables keep their gaps without moving. */
+  /**
+   * The largest size at which the bar's syllables keep their gaps without moving; a score sets
+   * all its syllables in the smallest of its bars' sizes, so the count reads as one line.
+   */
   readonly size: number;
 }
 
-function layoutCounts(bar: NotationBar, engraved: EngravedBar, stave: Stave): CountLayout {
+/** Place a formatted bar's counting syllables. */
+export function layoutCounts(bar: NotationBar, engraved: EngravedBar, stave: Stave): CountLayout {
   const xs = instantX(engraved);
   const anchors = bar.beats.map((beat) => {
     const written = new Map<number, number>();
@@ -131,15 +140,7 @@ function layoutCounts(bar: NotationBar, engraved: EngravedBar, stave: Stave): Co
   const raw = positions.flat();
   const barLine = stave.getX() + stave.getWidth();
   const size = fittingSyllableSize(texts, raw, barLine - BAR_LINE_CLEARANCE - (raw.at(-1) ?? 0));
-  return { raw, texts, positions, size };
-}
-
-/**
- * The size a bar's counting syllables can be set in where they stay under their notes; a score
- * sets all its syllables in the smallest of its bars' sizes, so the count reads as one line.
- */
-export function countSize(bar: NotationBar, engraved: EngravedBar, stave: Stave): number {
-  return layoutCounts(bar, engraved, stave).size;
+  return { xs, raw, texts, positions, size };
 }
 
 /**
@@ -152,12 +153,12 @@ export function countSize(bar: NotationBar, engraved: EngravedBar, stave: Stave)
 function drawCounts(
   ctx: SVGContext,
   bar: NotationBar,
-  engraved: EngravedBar,
+  counts: CountLayout,
   stave: Stave,
   y: number,
   size: number,
 ): void {
-  const { raw, texts, positions } = layoutCounts(bar, engraved, stave);
+  const { raw, texts, positions } = counts;
   const barLine = stave.getX() + stave.getWidth();
   const lastHalf = syllableWidth(texts.at(-1) ?? '', size) / 2;
   const firstHalf = syllableWidth(texts[0] ?? '', size) / 2;

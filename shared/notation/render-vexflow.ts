@@ -15,7 +15,7 @@ import {
   type SVGContext,
   type Tuplet,
 } from 'vexflow/core';
-import { countSize, drawBeatTexts, STICKING_LINE } from './beat-texts';
+import { drawBeatTexts, layoutCounts, STICKING_LINE, type CountLayout } from './beat-texts';
 import { SYLLABLE_SIZE } from './count-positions';
 import { countPositions } from './count-positions';
 import { EngravingContext, withFastEngraving } from './engraving-context';
@@ -36,6 +36,7 @@ import {
   barFormatter,
   engraveBar,
   formattedVoices,
+  GridVoices,
   minimumBarWidth,
   type EngravedBar,
   type EngravedNote,
@@ -227,6 +228,7 @@ function engrave(
     head + systemIndex * (systemHeight + gap + separation);
   // Every system is formatted before anything is drawn, so the whole score's counting can be set
   // in one size (the smallest its bars need).
+  const grids = new GridVoices(model.meter);
   const systemStaves = plans.map((plan, systemIndex) => {
     const topLineY = systemTopOf(systemIndex) + sticking + HEADROOM;
     const x = MARGIN_X;
@@ -249,22 +251,24 @@ function engrave(
       // Full-strength lines (VexFlow's default is grey) so the staff reads from a music stand.
       stave.setStyle({ strokeStyle: ink, fillStyle: ink });
       stave.setDefaultLedgerLineStyle({ strokeStyle: ink, lineWidth: 2 });
-      formatBar(engravedBars[barIndex]!, stave);
+      formatBar(engravedBars[barIndex]!, stave, grids);
       return stave;
     });
     levelTuplets(plan.bars.map((barIndex) => engravedBars[barIndex]!));
     return staves;
   });
-  const syllableSize = showCounts
-    ? Math.min(
-        SYLLABLE_SIZE,
-        ...plans.flatMap((plan, s) =>
-          plan.bars.map((barIndex, i) =>
-            countSize(model.bars[barIndex]!, engravedBars[barIndex]!, systemStaves[s]![i]!),
-          ),
+  // Each bar's count placed once: its size sets the score's, and it is drawn as placed.
+  const countLayouts = new Map<number, CountLayout>();
+  if (showCounts)
+    plans.forEach((plan, s) =>
+      plan.bars.forEach((barIndex, i) =>
+        countLayouts.set(
+          barIndex,
+          layoutCounts(model.bars[barIndex]!, engravedBars[barIndex]!, systemStaves[s]![i]!),
         ),
-      )
-    : SYLLABLE_SIZE;
+      ),
+    );
+  const syllableSize = Math.min(SYLLABLE_SIZE, ...[...countLayouts.values()].map((c) => c.size));
   plans.forEach((plan, systemIndex) => {
     const systemTop = systemTopOf(systemIndex);
     const topLineY = systemTop + sticking + HEADROOM;
@@ -284,7 +288,10 @@ function engrave(
       const stave = staves[i]!;
       const engraved = engravedBars[barIndex]!;
       if (showTension) colourSyncopations(bar, engraved, TENSION_INK);
-      drawBar(ctx, bar, engraved, stave, options, topLineY, stickingY, syllableSize);
+      drawBar(ctx, bar, engraved, stave, options, topLineY, stickingY, {
+        size: syllableSize,
+        layout: countLayouts.get(barIndex) ?? null,
+      });
       if (showTension)
         drawTensionMarks(
           ctx,
@@ -522,8 +529,8 @@ function staveFor(
   return stave;
 }
 
-function formatBar(engraved: EngravedBar, stave: Stave): void {
-  const voices = formattedVoices(engraved);
+function formatBar(engraved: EngravedBar, stave: Stave, grids: GridVoices): void {
+  const voices = formattedVoices(engraved, grids);
   barFormatter().joinVoices(voices).formatToStave(voices, stave);
   // Every voice keeps its own rests (hands' high, feet's low, as two-voice parts are written), so
   // each voice's values add up to its beat; VexFlow would draw one rest for two voices resting
@@ -549,7 +556,7 @@ function drawBar(
   options: RenderOptions,
   topLineY: number,
   stickingY: number,
-  syllableSize: number,
+  counts: { readonly size: number; readonly layout: CountLayout | null },
 ): void {
   const group = ctx.openGroup();
   group.setAttribute('class', 'tensile-bar');
@@ -560,7 +567,7 @@ function drawBar(
     layerGroup.setAttribute('class', 'tensile-voice');
     layerGroup.setAttribute('data-voice', layer);
     for (const engravedNote of engraved.notes.filter((n) => n.layer === layer)) {
-      drawNote(ctx, engravedNote, stave);
+      drawNote(ctx, engravedNote);
     }
     for (const { beam } of engraved.beams.filter((b) => b.layer === layer))
       beam.setContext(ctx).draw();
@@ -578,7 +585,8 @@ function drawBar(
   drawBeatTexts(ctx, bar, engraved, stave, {
     stickingY: options.showSticking ? stickingY : null,
     countsY: options.showCounts ? topLineY + 4 * STAVE_SPACE + FOOTROOM + 16 : null,
-    countSize: syllableSize,
+    countSize: counts.size,
+    counts: counts.layout,
   });
   ctx.closeGroup();
 }
@@ -597,7 +605,7 @@ function drawSimile(ctx: SVGContext, tuplet: Tuplet, layer: string): void {
   label.setAttribute('font-style', 'italic');
 }
 
-function drawNote(ctx: SVGContext, engraved: EngravedNote, stave: Stave): void {
+function drawNote(ctx: SVGContext, engraved: EngravedNote): void {
   const { note, event, beat } = engraved;
   const group = ctx.openGroup();
   group.setAttribute('class', event.kind === 'rest' ? 'tensile-rest' : 'tensile-note');
@@ -609,7 +617,8 @@ function drawNote(ctx: SVGContext, engraved: EngravedNote, stave: Stave): void {
     group.setAttribute('data-instruments', event.heads.map((h) => h.voice).join(' '));
     group.setAttribute('data-positions', event.heads.map((h) => h.position).join(' '));
   }
-  note.setStave(stave).setContext(ctx).drawWithStyle();
+  // (The note has its stave since the bar was formatted.)
+  note.setContext(ctx).drawWithStyle();
   ctx.closeGroup();
 }
 
