@@ -6,6 +6,7 @@ import type { Stave, SVGContext } from 'vexflow/core';
 import {
   countPositions,
   fittingSyllableSize,
+  SMALLEST_TEXT,
   spreadPositions,
   SYLLABLE_GAP,
   syllableGaps,
@@ -40,6 +41,8 @@ export interface TextRows {
   readonly countSize: number;
   /** The bar's count as `layoutCounts` placed it, when the count is shown. */
   readonly counts: CountLayout | null;
+  /** The smallest the sticking letters may shrink to (default `SMALLEST_TEXT`). */
+  readonly leastSize?: number;
 }
 
 /** Sticking over the notes and the count under them, for one engraved and formatted bar. */
@@ -51,18 +54,19 @@ export function drawBeatTexts(
   rows: TextRows,
 ): void {
   const { stickingY, countsY, countSize, counts } = rows;
-  if (stickingY !== null) drawSticking(ctx, bar, counts?.xs ?? instantX(engraved), stickingY);
+  const least = rows.leastSize ?? SMALLEST_TEXT;
+  if (stickingY !== null)
+    drawSticking(ctx, bar, counts?.xs ?? instantX(engraved), stickingY, least);
   if (countsY !== null)
     drawCounts(ctx, bar, counts ?? layoutCounts(bar, engraved, stave), stave, countsY, countSize);
 }
 
-/** Sticking letters' size where they have room, and the smallest they shrink to. */
+/** Sticking letters' size where they have room. */
 const STICKING_SIZE = 15;
-const SMALLEST_STICKING = 10;
 /** Width of a bold capital R or L as a share of the font size (Academico; a safe over-estimate). */
-const LETTER_WIDTH = 0.72;
+export const LETTER_WIDTH = 0.72;
 /** Space kept between neighbouring letters, in pixels. */
-const LETTER_GAP = 2;
+export const LETTER_GAP = 2;
 /** Baseline distance between the two letters of a stack. */
 export const STICKING_LINE = 14;
 
@@ -71,13 +75,15 @@ export const STICKING_LINE = 14;
  * voice higher on the staff on top (R over L), so an instant never takes more than one letter's
  * width and neighbours never run into each other ("R+L" written inline collides in dense bars).
  * Where instants sit closer than a letter's width, the bar's letters are set smaller (down to
- * 10 px). Stacked sticking for simultaneous hands is common practice in drum-set parts.
+ * `least`, 10 px on a screen). Stacked sticking for simultaneous hands is common practice in
+ * drum-set parts.
  */
 function drawSticking(
   ctx: SVGContext,
   bar: NotationBar,
   xs: ReadonlyMap<string, number>,
   y: number,
+  least: number,
 ): void {
   const placed = bar.beats.flatMap((beat) =>
     beat.sticking.flatMap(({ slot, hands }) => {
@@ -90,7 +96,7 @@ function drawSticking(
   for (let i = 1; i < sorted.length; i++)
     tightest = Math.min(tightest, sorted[i]! - sorted[i - 1]!);
   const fits = Math.floor((tightest - LETTER_GAP) / LETTER_WIDTH);
-  const size = Math.max(SMALLEST_STICKING, Math.min(STICKING_SIZE, fits));
+  const size = Math.max(least, Math.min(Math.max(STICKING_SIZE, least), fits));
   if (placed.length === 0) return;
   const letters = new SvgTextRow(ctx, 'tensile-sticking-row', { size, weight: 'bold' });
   for (const { x, hands, beat, slot } of placed) {
@@ -118,8 +124,13 @@ export interface CountLayout {
   readonly size: number;
 }
 
-/** Place a formatted bar's counting syllables. */
-export function layoutCounts(bar: NotationBar, engraved: EngravedBar, stave: Stave): CountLayout {
+/** Place a formatted bar's counting syllables, set no smaller than `least` pixels. */
+export function layoutCounts(
+  bar: NotationBar,
+  engraved: EngravedBar,
+  stave: Stave,
+  least = SMALLEST_TEXT,
+): CountLayout {
   const xs = instantX(engraved);
   const anchors = bar.beats.map((beat) => {
     const written = new Map<number, number>();
@@ -139,7 +150,8 @@ export function layoutCounts(bar: NotationBar, engraved: EngravedBar, stave: Sta
   );
   const raw = positions.flat();
   const barLine = stave.getX() + stave.getWidth();
-  const size = fittingSyllableSize(texts, raw, barLine - BAR_LINE_CLEARANCE - (raw.at(-1) ?? 0));
+  const tail = barLine - BAR_LINE_CLEARANCE - (raw.at(-1) ?? 0);
+  const size = fittingSyllableSize(texts, raw, tail, least);
   return { xs, raw, texts, positions, size };
 }
 

@@ -15,8 +15,15 @@ import {
   type SVGContext,
   type Tuplet,
 } from 'vexflow/core';
-import { drawBeatTexts, layoutCounts, STICKING_LINE, type CountLayout } from './beat-texts';
-import { SYLLABLE_SIZE } from './count-positions';
+import {
+  drawBeatTexts,
+  layoutCounts,
+  LETTER_GAP,
+  LETTER_WIDTH,
+  STICKING_LINE,
+  type CountLayout,
+} from './beat-texts';
+import { SYLLABLE_SIZE, syllableRowWidth } from './count-positions';
 import { countPositions } from './count-positions';
 import { EngravingContext, withFastEngraving } from './engraving-context';
 import { drawHeaderMarks, layoutHeaderMarks } from './header-marks';
@@ -60,6 +67,12 @@ export interface RenderOptions {
   readonly countRoom?: number;
   /** Room beyond VexFlow's tightest setting of a bar, as a factor (default 1.2). */
   readonly air?: number;
+  /**
+   * The smallest the sticking letters and counting syllables may be set, in pixels (default 10,
+   * a screen's). When given, every bar is also set wide enough for its text rows at this size,
+   * so paper can promise a readable size.
+   */
+  readonly leastTextSize?: number;
   /** Colour of everything drawn (default black; `currentColor` follows the page's text colour). */
   readonly ink?: string;
   /**
@@ -172,6 +185,9 @@ function engrave(
     note: options.noteRoom ?? NOTE_ROOM,
     count: showCounts ? (options.countRoom ?? COUNT_SLOT_ROOM) : 0,
     air: options.air ?? 1.2,
+    text: options.leastTextSize ?? null,
+    sticking: options.showSticking ?? false,
+    counts: showCounts,
   };
   const barWidths = model.bars.map((bar, i) => naturalBarWidth(bar, tightest[i]!, model, room));
   const systemStartWidth = systemStartWidths(model);
@@ -264,11 +280,19 @@ function engrave(
       plan.bars.forEach((barIndex, i) =>
         countLayouts.set(
           barIndex,
-          layoutCounts(model.bars[barIndex]!, engravedBars[barIndex]!, systemStaves[s]![i]!),
+          layoutCounts(
+            model.bars[barIndex]!,
+            engravedBars[barIndex]!,
+            systemStaves[s]![i]!,
+            options.leastTextSize,
+          ),
         ),
       ),
     );
-  const syllableSize = Math.min(SYLLABLE_SIZE, ...[...countLayouts.values()].map((c) => c.size));
+  const syllableSize = Math.min(
+    Math.max(SYLLABLE_SIZE, options.leastTextSize ?? 0),
+    ...[...countLayouts.values()].map((c) => c.size),
+  );
   plans.forEach((plan, systemIndex) => {
     const systemTop = systemTopOf(systemIndex);
     const topLineY = systemTop + sticking + HEADROOM;
@@ -432,7 +456,15 @@ function naturalBarWidth(
   bar: NotationBar,
   measured: number,
   model: NotationModel,
-  room: { readonly note: number; readonly count: number; readonly air: number },
+  room: {
+    readonly note: number;
+    readonly count: number;
+    readonly air: number;
+    /** The text rows' least size when the bar must hold them at it (print), else null. */
+    readonly text: number | null;
+    readonly sticking: boolean;
+    readonly counts: boolean;
+  },
 ): number {
   // Written events per beat (in whichever voice writes more there), summed over the bar.
   const notes = bar.beats.reduce(
@@ -445,9 +477,37 @@ function naturalBarWidth(
   // Room to breathe beyond the tightest setting, never under the least room a note, and room
   // for the count.
   return (
-    Math.max(measured * room.air, notes * room.note, counted * room.count, model.meter.beats * 40) +
-    20
+    Math.max(
+      measured * room.air,
+      notes * room.note,
+      counted * room.count,
+      // Some room per beat even where a beat holds one note (40 px on a screen, closer on
+      // paper, in step with the least room per note).
+      model.meter.beats * 40 * (room.note / NOTE_ROOM),
+      textRowsWidth(bar, room),
+    ) + 20
   );
+}
+
+/**
+ * Room the bar's text rows take at their least size, where the host asks for one (print): every
+ * counting syllable with its gap, and a sticking letter with its gap over every struck instant.
+ */
+function textRowsWidth(
+  bar: NotationBar,
+  room: { readonly text: number | null; readonly sticking: boolean; readonly counts: boolean },
+): number {
+  if (room.text === null) return 0;
+  const size = room.text;
+  const counts = room.counts
+    ? syllableRowWidth(
+        bar.beats.flatMap((beat) => beat.counts.map((c) => c.text)),
+        size,
+      )
+    : 0;
+  const struck = bar.beats.reduce((n, beat) => n + beat.sticking.length, 0);
+  const sticking = room.sticking ? struck * (size * LETTER_WIDTH + LETTER_GAP) : 0;
+  return Math.max(counts, sticking);
 }
 
 /** Least room per written note on a screen, in pixels. */
@@ -587,6 +647,7 @@ function drawBar(
     countsY: options.showCounts ? topLineY + 4 * STAVE_SPACE + FOOTROOM + 16 : null,
     countSize: counts.size,
     counts: counts.layout,
+    ...(options.leastTextSize === undefined ? {} : { leastSize: options.leastTextSize }),
   });
   ctx.closeGroup();
 }
