@@ -168,6 +168,9 @@ function engrave(
 ): NotationLayout {
   // Drawn off the page and attached once, so the page's style and layout are touched once.
   const ctx = new EngravingContext(container.ownerDocument.createElement('div'));
+  // No invisible hit areas: nothing here is clicked, and a ghost note's parenthesis gives its
+  // area a bounding box that spans the system's start.
+  ctx.hitAreas = false;
   const svg = ctx.svg as SVGSVGElement;
   const ink = options.ink ?? 'black';
   ctx.setFillStyle(ink).setStrokeStyle(ink);
@@ -361,9 +364,6 @@ function engrave(
     right + MARGIN_X > options.width + 0.5 ? Math.ceil(right + MARGIN_X) : options.width;
   ctx.resize(width, height);
   svg.setAttribute('viewBox', `0 0 ${width} ${height}`);
-  // VexFlow's invisible hit areas: nothing here is clicked, and a ghost note's parenthesis gives
-  // its area a bounding box that spans the system's start.
-  for (const rect of [...svg.querySelectorAll('rect[opacity="0"]')]) rect.remove();
   container.replaceChildren(svg);
   return { width, height, bars: boxes, svg };
 }
