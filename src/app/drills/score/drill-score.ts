@@ -42,8 +42,8 @@ import {
 
 /** Room under each system for the tension plots, in pixels. */
 const PLOT_ROOM = 52;
-/** On paper: two lines of larger labels under the meter (see tension-plot.scss). */
-const PRINT_PLOT_ROOM = 62;
+/** On paper: up to three lines of larger labels under the meter (see tension-plot.scss). */
+const PRINT_PLOT_ROOM = 78;
 const RESIZE_DEBOUNCE_MS = 150;
 /** The printable width of A4 or US Letter, in CSS pixels (see PRINT_PAGE_WIDTH). */
 export const PRINT_WIDTH = PRINT_PAGE_WIDTH;
@@ -189,7 +189,9 @@ export class DrillScore {
       const width = this.printing() ? PRINT_ENGRAVING_WIDTH : this.width();
       const showSticking = this.showSticking();
       const showCounts = this.showCounts();
-      const showTension = this.showTension();
+      // Paper goes without the tension marks (a screen aid): drawn without them, so no copy of
+      // the drawing (the later strips' <use>) can carry their colour onto the page.
+      const showTension = this.showTension() && !this.printing();
       if (width > 0) void this.render(model, width, { showSticking, showCounts, showTension });
     });
     afterRenderEffect(() => {
@@ -321,7 +323,7 @@ export class DrillScore {
     return {
       showSticking: this.showSticking(),
       showCounts: this.showCounts(),
-      showTension: this.showTension(),
+      showTension: this.showTension() && !this.printing(),
     };
   }
 
