@@ -6,6 +6,7 @@ import type { Stave, SVGContext } from 'vexflow/core';
 import {
   countPositions,
   fittingSyllableSize,
+  SMALLEST_TEXT,
   spreadPositions,
   SYLLABLE_GAP,
   syllableGaps,
@@ -36,8 +37,12 @@ function instantX(engraved: EngravedBar): Map<string, number> {
 export interface TextRows {
   readonly stickingY: number | null;
   readonly countsY: number | null;
-  /** The counting syllables' size (see `countSize`). */
+  /** The counting syllables' size (see `CountLayout.size`). */
   readonly countSize: number;
+  /** The bar's count as `layoutCounts` placed it, when the count is shown. */
+  readonly counts: CountLayout | null;
+  /** The smallest the sticking letters may shrink to (default `SMALLEST_TEXT`). */
+  readonly leastSize?: number;
 }
 
 /** Sticking over the notes and the count under them, for one engraved and formatted bar. */
@@ -48,19 +53,20 @@ export function drawBeatTexts(
   stave: Stave,
   rows: TextRows,
 ): void {
-  const xs = instantX(engraved);
-  const { stickingY, countsY, countSize } = rows;
-  if (stickingY !== null) drawSticking(ctx, bar, xs, stickingY);
-  if (countsY !== null) drawCounts(ctx, bar, engraved, stave, countsY, countSize);
+  const { stickingY, countsY, countSize, counts } = rows;
+  const least = rows.leastSize ?? SMALLEST_TEXT;
+  if (stickingY !== null)
+    drawSticking(ctx, bar, counts?.xs ?? instantX(engraved), stickingY, least);
+  if (countsY !== null)
+    drawCounts(ctx, bar, counts ?? layoutCounts(bar, engraved, stave), stave, countsY, countSize);
 }
 
-/** Sticking letters' size where they have room, and the smallest they shrink to. */
+/** Sticking letters' size where they have room. */
 const STICKING_SIZE = 15;
-const SMALLEST_STICKING = 10;
 /** Width of a bold capital R or L as a share of the font size (Academico; a safe over-estimate). */
-const LETTER_WIDTH = 0.72;
+export const LETTER_WIDTH = 0.72;
 /** Space kept between neighbouring letters, in pixels. */
-const LETTER_GAP = 2;
+export const LETTER_GAP = 2;
 /** Baseline distance between the two letters of a stack. */
 export const STICKING_LINE = 14;
 
@@ -69,13 +75,15 @@ export const STICKING_LINE = 14;
  * voice higher on the staff on top (R over L), so an instant never takes more than one letter's
  * width and neighbours never run into each other ("R+L" written inline collides in dense bars).
  * Where instants sit closer than a letter's width, the bar's letters are set smaller (down to
- * 10 px). Stacked sticking for simultaneous hands is common practice in drum-set parts.
+ * `least`, 10 px on a screen). Stacked sticking for simultaneous hands is common practice in
+ * drum-set parts.
  */
 function drawSticking(
   ctx: SVGContext,
   bar: NotationBar,
   xs: ReadonlyMap<string, number>,
   y: number,
+  least: number,
 ): void {
   const placed = bar.beats.flatMap((beat) =>
     beat.sticking.flatMap(({ slot, hands }) => {
@@ -88,7 +96,7 @@ function drawSticking(
   for (let i = 1; i < sorted.length; i++)
     tightest = Math.min(tightest, sorted[i]! - sorted[i - 1]!);
   const fits = Math.floor((tightest - LETTER_GAP) / LETTER_WIDTH);
-  const size = Math.max(SMALLEST_STICKING, Math.min(STICKING_SIZE, fits));
+  const size = Math.max(least, Math.min(Math.max(STICKING_SIZE, least), fits));
   if (placed.length === 0) return;
   const letters = new SvgTextRow(ctx, 'tensile-sticking-row', { size, weight: 'bold' });
   for (const { x, hands, beat, slot } of placed) {
@@ -101,16 +109,28 @@ function drawSticking(
   }
 }
 
-interface CountLayout {
+/** Where a formatted bar's counting syllables go; measured once, for sizing and for drawing. */
+export interface CountLayout {
+  /** Centre x of each struck instant (see `instantX`). */
+  readonly xs: ReadonlyMap<string, number>;
   /** The syllables' raw x in time order (slot by slot, beat by beat) and their texts. */
   readonly raw: readonly number[];
   readonly texts: readonly string[];
   readonly positions: readonly (readonly number[])[];
-  /** The largest size at which the bar's syllables keep their gaps without moving. */
+  /**
+   * The largest size at which the bar's syllables keep their gaps without moving; a score sets
+   * all its syllables in the smallest of its bars' sizes, so the count reads as one line.
+   */
   readonly size: number;
 }
 
-function layoutCounts(bar: NotationBar, engraved: EngravedBar, stave: Stave): CountLayout {
+/** Place a formatted bar's counting syllables, set no smaller than `least` pixels. */
+export function layoutCounts(
+  bar: NotationBar,
+  engraved: EngravedBar,
+  stave: Stave,
+  least = SMALLEST_TEXT,
+): CountLayout {
   const xs = instantX(engraved);
   const anchors = bar.beats.map((beat) => {
     const written = new Map<number, number>();
@@ -130,16 +150,9 @@ function layoutCounts(bar: NotationBar, engraved: EngravedBar, stave: Stave): Co
   );
   const raw = positions.flat();
   const barLine = stave.getX() + stave.getWidth();
-  const size = fittingSyllableSize(texts, raw, barLine - BAR_LINE_CLEARANCE - (raw.at(-1) ?? 0));
-  return { raw, texts, positions, size };
-}
-
-/**
- * The size a bar's counting syllables can be set in where they stay under their notes; a score
- * sets all its syllables in the smallest of its bars' sizes, so the count reads as one line.
- */
-export function countSize(bar: NotationBar, engraved: EngravedBar, stave: Stave): number {
-  return layoutCounts(bar, engraved, stave).size;
+  const tail = barLine - BAR_LINE_CLEARANCE - (raw.at(-1) ?? 0);
+  const size = fittingSyllableSize(texts, raw, tail, least);
+  return { xs, raw, texts, positions, size };
 }
 
 /**
@@ -152,12 +165,12 @@ export function countSize(bar: NotationBar, engraved: EngravedBar, stave: Stave)
 function drawCounts(
   ctx: SVGContext,
   bar: NotationBar,
-  engraved: EngravedBar,
+  counts: CountLayout,
   stave: Stave,
   y: number,
   size: number,
 ): void {
-  const { raw, texts, positions } = layoutCounts(bar, engraved, stave);
+  const { raw, texts, positions } = counts;
   const barLine = stave.getX() + stave.getWidth();
   const lastHalf = syllableWidth(texts.at(-1) ?? '', size) / 2;
   const firstHalf = syllableWidth(texts[0] ?? '', size) / 2;

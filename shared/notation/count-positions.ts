@@ -64,7 +64,8 @@ function interpolate(points: readonly Point[], t: number): number {
 
 /** Size of the syllables after the beat number, in pixels, when there is room. */
 export const SYLLABLE_SIZE = 13;
-const SMALLEST_SYLLABLE = 10;
+/** The smallest the text rows shrink to on a screen, in pixels (print sets its own floor). */
+export const SMALLEST_TEXT = 10;
 /**
  * Moves the syllables of a bar (all its slots, in time order) apart where they sit closer than
  * `gap` (one distance for every neighbour pair, or one per pair: `gap[i]` between syllable i and
@@ -117,20 +118,27 @@ export function syllableGaps(texts: readonly string[], size: number): number[] {
 }
 
 /**
- * The largest size (from `SYLLABLE_SIZE` down to 10 px, in half pixels) at which the syllables
- * `texts`, set at `xs` (in order) and followed by a clear space of `tail` pixels to the bar
- * line, all keep their gap without moving.
+ * The largest size (from `SYLLABLE_SIZE` down to `least`, in half pixels) at which the
+ * syllables `texts`, set at `xs` (in order) and followed by a clear space of `tail` pixels to
+ * the bar line, all keep their gap without moving; `least` where none does (the syllables are
+ * then moved apart, see `spreadPositions`).
  */
 export function fittingSyllableSize(
   texts: readonly string[],
   xs: readonly number[],
   tail: number,
+  least = SMALLEST_TEXT,
 ): number {
-  for (let size = SYLLABLE_SIZE; size > SMALLEST_SYLLABLE; size -= 0.5) {
+  for (let size = Math.max(SYLLABLE_SIZE, least); size > least; size -= 0.5) {
     const gaps = syllableGaps(texts, size);
     const fits = gaps.every((g, i) => xs[i + 1]! - xs[i]! >= g - 1e-9);
     const last = texts[texts.length - 1];
     if (fits && (last === undefined || tail >= syllableWidth(last, size) / 2)) return size;
   }
-  return SMALLEST_SYLLABLE;
+  return least;
+}
+
+/** Room a row of syllables needs at `size`: each one's width and a clear gap after it. */
+export function syllableRowWidth(texts: readonly string[], size: number): number {
+  return texts.reduce((sum, text) => sum + syllableWidth(text, size) + SYLLABLE_GAP, 0);
 }

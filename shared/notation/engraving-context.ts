@@ -13,6 +13,17 @@ import { Element, Metrics, SVGContext } from 'vexflow/core';
 
 /** An SVG context whose save/restore copy the (flat) drawing state without `structuredClone`. */
 export class EngravingContext extends SVGContext {
+  /**
+   * Whether VexFlow's invisible hit areas (a transparent `<rect>` over every note and tuplet,
+   * VexFlow's default) are drawn; a drawing that has no use for them skips creating them.
+   */
+  hitAreas = true;
+
+  override pointerRect(x: number, y: number, width: number, height: number): this {
+    if (this.hitAreas) super.pointerRect(x, y, width, height);
+    return this;
+  }
+
   override save(): this {
     this.stateStack.push({ state: { ...this.state }, attributes: { ...this.attributes } });
     return this;

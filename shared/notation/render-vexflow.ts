@@ -15,8 +15,15 @@ import {
   type SVGContext,
   type Tuplet,
 } from 'vexflow/core';
-import { countSize, drawBeatTexts, STICKING_LINE } from './beat-texts';
-import { SYLLABLE_SIZE } from './count-positions';
+import {
+  drawBeatTexts,
+  layoutCounts,
+  LETTER_GAP,
+  LETTER_WIDTH,
+  STICKING_LINE,
+  type CountLayout,
+} from './beat-texts';
+import { SYLLABLE_SIZE, syllableRowWidth } from './count-positions';
 import { countPositions } from './count-positions';
 import { EngravingContext, fastEngravingPass, withFastEngraving } from './engraving-context';
 import { drawHeaderMarks, layoutHeaderMarks } from './header-marks';
@@ -36,6 +43,7 @@ import {
   barFormatter,
   engraveBar,
   formattedVoices,
+  GridVoices,
   minimumBarWidth,
   type EngravedBar,
   type EngravedNote,
@@ -59,6 +67,12 @@ export interface RenderOptions {
   readonly countRoom?: number;
   /** Room beyond VexFlow's tightest setting of a bar, as a factor (default 1.2). */
   readonly air?: number;
+  /**
+   * The smallest the sticking letters and counting syllables may be set, in pixels (default 10,
+   * a screen's). When given, every bar is also set wide enough for its text rows at this size,
+   * so paper can promise a readable size.
+   */
+  readonly leastTextSize?: number;
   /** Colour of everything drawn (default black; `currentColor` follows the page's text colour). */
   readonly ink?: string;
   /**
@@ -297,6 +311,9 @@ function* engrave(
 ): Generator<void, NotationLayout> {
   // Drawn off the page and attached once, so the page's style and layout are touched once.
   const ctx = new EngravingContext(container.ownerDocument.createElement('div'));
+  // No invisible hit areas: nothing here is clicked, and a ghost note's parenthesis gives its
+  // area a bounding box that spans the system's start.
+  ctx.hitAreas = false;
   const svg = ctx.svg as SVGSVGElement;
   const ink = options.ink ?? 'black';
   ctx.setFillStyle(ink).setStrokeStyle(ink);
@@ -319,6 +336,7 @@ function* engrave(
     options.showTension ?? false,
     options.showGrouping ?? true,
     options.ink ?? 'black',
+    options.leastTextSize ?? 0,
   ]);
   const barKeys = cache ? model.bars.map((bar) => `${settings}${JSON.stringify(bar)}`) : [];
   // Engraved once, when first needed: measured for line breaking (VexFlow formats the bar to
@@ -351,6 +369,9 @@ function* engrave(
     note: options.noteRoom ?? NOTE_ROOM,
     count: showCounts ? (options.countRoom ?? COUNT_SLOT_ROOM) : 0,
     air: options.air ?? 1.2,
+    text: options.leastTextSize ?? null,
+    sticking: options.showSticking ?? false,
+    counts: showCounts,
   };
   const barWidths = model.bars.map((bar, i) => naturalBarWidth(bar, tightest[i]!, model, room));
   const systemStartWidth = systemStartWidths(model);
@@ -419,6 +440,7 @@ function* engrave(
     : [];
   // Every system is formatted before anything is drawn, so the whole score's counting can be set
   // in one size (the smallest its bars need); a system is formatted when first needed.
+  const grids = new GridVoices(model.meter);
   const systemStaves: Stave[][] = [];
   /** Systems taken from the cache, by the copy put into this drawing. */
   const reused = new Map<Element, DrawnSystem>();
@@ -446,23 +468,36 @@ function* engrave(
       // Full-strength lines (VexFlow's default is grey) so the staff reads from a music stand.
       stave.setStyle({ strokeStyle: ink, fillStyle: ink });
       stave.setDefaultLedgerLineStyle({ strokeStyle: ink, lineWidth: 2 });
-      formatBar(engraved(barIndex), stave);
+      formatBar(engraved(barIndex), stave, grids);
       return stave;
     });
     levelTuplets(plan.bars.map((barIndex) => engraved(barIndex)));
     systemStaves[systemIndex] = staves;
     return staves;
   };
-  let syllableSize = SYLLABLE_SIZE;
+  // Each bar's count placed once: its size sets the score's, and it is drawn as placed.
+  const countLayouts = new Map<number, CountLayout>();
+  const countLayout = (barIndex: number, stave: Stave): CountLayout => {
+    let layout = countLayouts.get(barIndex);
+    if (!layout) {
+      layout = layoutCounts(
+        model.bars[barIndex]!,
+        engraved(barIndex),
+        stave,
+        options.leastTextSize,
+      );
+      countLayouts.set(barIndex, layout);
+    }
+    return layout;
+  };
+  let syllableSize = Math.max(SYLLABLE_SIZE, options.leastTextSize ?? 0);
   for (const [systemIndex, plan] of plans.entries()) {
     let sizes = showCounts ? cache?.get('countSizes', systemKeys[systemIndex]!) : [];
     // Without a cache every system is formatted here, before any is drawn, as it always was.
     if (sizes === undefined || !cache) {
       const staves = formatted(systemIndex);
       sizes = showCounts
-        ? plan.bars.map((barIndex, i) =>
-            countSize(model.bars[barIndex]!, engraved(barIndex), staves[i]!),
-          )
+        ? plan.bars.map((barIndex, i) => countLayout(barIndex, staves[i]!).size)
         : [];
       if (showCounts) cache?.set('countSizes', systemKeys[systemIndex]!, sizes);
       yield;
@@ -503,7 +538,10 @@ function* engrave(
       const stave = staves[i]!;
       const engravedBar = engraved(barIndex);
       if (showTension) colourSyncopations(bar, engravedBar, TENSION_INK);
-      drawBar(ctx, bar, engravedBar, stave, options, topLineY, stickingY, syllableSize);
+      drawBar(ctx, bar, engravedBar, stave, options, topLineY, stickingY, {
+        size: syllableSize,
+        layout: showCounts ? countLayout(barIndex, stave) : null,
+      });
       if (showTension)
         drawTensionMarks(
           ctx,
@@ -561,9 +599,6 @@ function* engrave(
     right + MARGIN_X > options.width + 0.5 ? Math.ceil(right + MARGIN_X) : options.width;
   ctx.resize(width, height);
   svg.setAttribute('viewBox', `0 0 ${width} ${height}`);
-  // VexFlow's invisible hit areas: nothing here is clicked, and a ghost note's parenthesis gives
-  // its area a bounding box that spans the system's start.
-  for (const rect of [...svg.querySelectorAll('rect[opacity="0"]')]) rect.remove();
   const onPage = cache?.update(container, svg, reused) ?? svg;
   if (onPage === svg) container.replaceChildren(svg);
   cache?.settle();
@@ -658,7 +693,15 @@ function naturalBarWidth(
   bar: NotationBar,
   measured: number,
   model: NotationModel,
-  room: { readonly note: number; readonly count: number; readonly air: number },
+  room: {
+    readonly note: number;
+    readonly count: number;
+    readonly air: number;
+    /** The text rows' least size when the bar must hold them at it (print), else null. */
+    readonly text: number | null;
+    readonly sticking: boolean;
+    readonly counts: boolean;
+  },
 ): number {
   // Written events per beat (in whichever voice writes more there), summed over the bar.
   const notes = bar.beats.reduce(
@@ -671,9 +714,37 @@ function naturalBarWidth(
   // Room to breathe beyond the tightest setting, never under the least room a note, and room
   // for the count.
   return (
-    Math.max(measured * room.air, notes * room.note, counted * room.count, model.meter.beats * 40) +
-    20
+    Math.max(
+      measured * room.air,
+      notes * room.note,
+      counted * room.count,
+      // Some room per beat even where a beat holds one note (40 px on a screen, closer on
+      // paper, in step with the least room per note).
+      model.meter.beats * 40 * (room.note / NOTE_ROOM),
+      textRowsWidth(bar, room),
+    ) + 20
   );
+}
+
+/**
+ * Room the bar's text rows take at their least size, where the host asks for one (print): every
+ * counting syllable with its gap, and a sticking letter with its gap over every struck instant.
+ */
+function textRowsWidth(
+  bar: NotationBar,
+  room: { readonly text: number | null; readonly sticking: boolean; readonly counts: boolean },
+): number {
+  if (room.text === null) return 0;
+  const size = room.text;
+  const counts = room.counts
+    ? syllableRowWidth(
+        bar.beats.flatMap((beat) => beat.counts.map((c) => c.text)),
+        size,
+      )
+    : 0;
+  const struck = bar.beats.reduce((n, beat) => n + beat.sticking.length, 0);
+  const sticking = room.sticking ? struck * (size * LETTER_WIDTH + LETTER_GAP) : 0;
+  return Math.max(counts, sticking);
 }
 
 /** Least room per written note on a screen, in pixels. */
@@ -755,8 +826,8 @@ function staveFor(
   return stave;
 }
 
-function formatBar(engraved: EngravedBar, stave: Stave): void {
-  const voices = formattedVoices(engraved);
+function formatBar(engraved: EngravedBar, stave: Stave, grids: GridVoices): void {
+  const voices = formattedVoices(engraved, grids);
   barFormatter().joinVoices(voices).formatToStave(voices, stave);
   // Every voice keeps its own rests (hands' high, feet's low, as two-voice parts are written), so
   // each voice's values add up to its beat; VexFlow would draw one rest for two voices resting
@@ -782,7 +853,7 @@ function drawBar(
   options: RenderOptions,
   topLineY: number,
   stickingY: number,
-  syllableSize: number,
+  counts: { readonly size: number; readonly layout: CountLayout | null },
 ): void {
   const group = ctx.openGroup();
   group.setAttribute('class', 'tensile-bar');
@@ -793,7 +864,7 @@ function drawBar(
     layerGroup.setAttribute('class', 'tensile-voice');
     layerGroup.setAttribute('data-voice', layer);
     for (const engravedNote of engraved.notes.filter((n) => n.layer === layer)) {
-      drawNote(ctx, engravedNote, stave);
+      drawNote(ctx, engravedNote);
     }
     for (const { beam } of engraved.beams.filter((b) => b.layer === layer))
       beam.setContext(ctx).draw();
@@ -811,7 +882,9 @@ function drawBar(
   drawBeatTexts(ctx, bar, engraved, stave, {
     stickingY: options.showSticking ? stickingY : null,
     countsY: options.showCounts ? topLineY + 4 * STAVE_SPACE + FOOTROOM + 16 : null,
-    countSize: syllableSize,
+    countSize: counts.size,
+    counts: counts.layout,
+    ...(options.leastTextSize === undefined ? {} : { leastSize: options.leastTextSize }),
   });
   ctx.closeGroup();
 }
@@ -830,7 +903,7 @@ function drawSimile(ctx: SVGContext, tuplet: Tuplet, layer: string): void {
   label.setAttribute('font-style', 'italic');
 }
 
-function drawNote(ctx: SVGContext, engraved: EngravedNote, stave: Stave): void {
+function drawNote(ctx: SVGContext, engraved: EngravedNote): void {
   const { note, event, beat } = engraved;
   const group = ctx.openGroup();
   group.setAttribute('class', event.kind === 'rest' ? 'tensile-rest' : 'tensile-note');
@@ -842,7 +915,8 @@ function drawNote(ctx: SVGContext, engraved: EngravedNote, stave: Stave): void {
     group.setAttribute('data-instruments', event.heads.map((h) => h.voice).join(' '));
     group.setAttribute('data-positions', event.heads.map((h) => h.position).join(' '));
   }
-  note.setStave(stave).setContext(ctx).drawWithStyle();
+  // (The note has its stave since the bar was formatted.)
+  note.setContext(ctx).drawWithStyle();
   ctx.closeGroup();
 }
 

@@ -61,8 +61,8 @@ export interface EngravedBar {
   readonly notes: readonly EngravedNote[];
   readonly beams: readonly { readonly beam: Beam; readonly layer: Layer }[];
   readonly tuplets: readonly EngravedTuplet[];
-  /** Silent voice with one tickable per slot of the drill's grid (see `gridVoice`); never drawn. */
-  readonly grid: Voice;
+  /** The bar's beat subdivisions, from which its grid voice is set (see `GridVoices`). */
+  readonly subdivisions: readonly number[];
 }
 
 /** Build the voices, beams and tuplets of one bar. */
@@ -84,12 +84,13 @@ export function engraveBar(bar: NotationBar, model: NotationModel): EngravedBar 
     voice.addTickables(staveNotes);
     return { layer, voice };
   });
-  return { voices, notes, beams, tuplets, grid: gridVoice(bar, model) };
+  const subdivisions = bar.beats.map((beat) => beat.subdivision);
+  return { voices, notes, beams, tuplets, subdivisions };
 }
 
 /** Every voice the formatter sets together: the layers and the grid. */
-export function formattedVoices(engraved: EngravedBar): Voice[] {
-  return [...engraved.voices.map((v) => v.voice), engraved.grid];
+export function formattedVoices(engraved: EngravedBar, grids: GridVoices): Voice[] {
+  return [...engraved.voices.map((v) => v.voice), grids.of(engraved.subdivisions)];
 }
 
 /**
@@ -115,15 +116,38 @@ export function minimumBarWidth(engraved: EngravedBar): number {
  * grid, so every slot, sounding or not, becomes a column, and each column's gap to the next is
  * one slot: equal slots get equal room whichever voice plays them (E. Gould, "Behind Bars",
  * Faber Music 2011, ch. "Horizontal spacing": space in proportion to duration; from memory).
+ *
+ * Bars with the same subdivisions share one grid voice for the length of a render: its ghost
+ * notes carry no modifiers and are never drawn, and each bar is formatted to the end before the
+ * next one takes the voice over, so building a few hundred invisible notes per bar is saved.
  */
-function gridVoice(bar: NotationBar, model: NotationModel): Voice {
-  const voice = new Voice({ numBeats: model.meter.beats, beatValue: model.meter.unit });
+export class GridVoices {
+  private readonly built = new Map<string, Voice>();
+
+  constructor(private readonly meter: { readonly beats: number; readonly unit: number }) {}
+
+  of(subdivisions: readonly number[]): Voice {
+    const key = subdivisions.join(',');
+    let voice = this.built.get(key);
+    if (!voice) {
+      voice = gridVoice(subdivisions, this.meter);
+      this.built.set(key, voice);
+    }
+    return voice;
+  }
+}
+
+function gridVoice(
+  subdivisions: readonly number[],
+  meter: { readonly beats: number; readonly unit: number },
+): Voice {
+  const voice = new Voice({ numBeats: meter.beats, beatValue: meter.unit });
   voice.setMode(VoiceMode.SOFT);
-  for (const { subdivision } of bar.beats) {
+  for (const subdivision of subdivisions) {
     let base = 1;
     while (base * 2 <= subdivision) base *= 2;
     for (let slot = 0; slot < subdivision; slot++) {
-      const ghost = new GhostNote({ duration: String(model.meter.unit * base) });
+      const ghost = new GhostNote({ duration: String(meter.unit * base) });
       if (base !== subdivision) ghost.applyTickMultiplier(base, subdivision);
       voice.addTickable(ghost);
     }

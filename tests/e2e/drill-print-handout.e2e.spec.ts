@@ -24,19 +24,19 @@ import { collisions, crowded, overlaps, readScore } from './notation.geometry';
 const REVIEW_DIR = process.env['TENSILE_REVIEW_DIR'] ?? '/tmp/engraving-review';
 const SEED = 'handout-1';
 
-/** The acceptance drills: preset, and bars when the card's own count is changed. */
 /**
  * The acceptance drills: preset, bars when the card's own count is changed, and the least bars
- * the fullest printed system holds: four of sixteenths or of a compound or odd meter's eighths
- * (common practice on A4 or Letter), three of a 4:3, two of quintuplets (twenty notes a bar).
+ * the fullest printed system holds at a part's staff size (7-7.5 mm): four of a compound or odd
+ * meter's eighths, three of a 4:3, two of sixteenths with accents and ghost notes (a four-bar
+ * drill prints as two even systems) and of quintuplets (twenty notes and syllables a bar).
  */
 const DRILLS = [
-  { id: 'early-backbeat', bars: null, perSystem: 4 },
+  { id: 'early-backbeat', bars: null, perSystem: 2 },
   { id: 'quintuplets-hihat-1-3-4', bars: null, perSystem: 2 },
   { id: 'six-eight-groove', bars: null, perSystem: 4 },
   { id: 'seven-eight-two-two-three', bars: null, perSystem: 4 },
   { id: 'four-over-three', bars: null, perSystem: 3 },
-  { id: 'tension-and-release', bars: 16, perSystem: 4 },
+  { id: 'tension-and-release', bars: 16, perSystem: 3 },
 ] as const;
 
 const VIEWPORTS = [

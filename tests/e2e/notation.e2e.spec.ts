@@ -11,7 +11,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { isHandVoice } from '../../shared/generator/drill';
 import { generateDrill, parseRuleCard, type Drill } from '../../shared/generator/index';
 import { BUILT_IN_PRESETS } from '../../shared/generator/presets/index';
-import { PRINT_LAYOUT } from '../../shared/notation/print-layout';
+import { PRINT_LAYOUT, printedMm, printedPt } from '../../shared/notation/print-layout';
 import { buildNotation, type NotationSource } from '../../shared/notation/notation-model';
 import type { RenderOptions as AllRenderOptions } from '../../shared/notation/render-vexflow';
 import {
@@ -766,7 +766,7 @@ describe('engraving rules on the drawn score (Chromium)', () => {
     }
   });
 
-  it('sets four bars of sixteenths on each printed system, justified, none squeezed', async () => {
+  it('sets bars of sixteenths on printed systems of a part-sized staff, justified, none squeezed, text at 7 pt', async () => {
     const drill = presetDrill('early-backbeat', 'harbor-spark-21', 24);
     const score = await engrave(drill, { ...PRINT_LAYOUT, ...FULL });
     const { width } = PRINT_LAYOUT;
@@ -775,8 +775,21 @@ describe('engraving rules on the drawn score (Chromium)', () => {
     const systems = [...new Set(score.bars.map((b) => b.topLineY))].map((y) =>
       score.bars.filter((b) => b.topLineY === y),
     );
-    // Common practice: four bars of sixteenths to a system on A4 or US Letter.
-    expect(systems.map((s) => s.length)).toEqual([4, 4, 4, 4, 4, 4]);
+    // At a part's staff size (7-7.5 mm: E. Gould, "Behind Bars", Faber Music 2011, ch. "Staff
+    // sizes"; from memory) the notes of this drill, accented and ghosted, take three bars a line
+    // of A4 (VexFlow's tightest setting of each is about 22-30 staff spaces); every line alike.
+    // Four spaces of VexFlow's default 10 px, as every stave here is drawn.
+    const staffMm = printedMm(40);
+    expect(staffMm).toBeGreaterThanOrEqual(7);
+    expect(staffMm).toBeLessThanOrEqual(7.5);
+    expect(systems.map((s) => s.length)).toEqual([3, 3, 3, 3, 3, 3, 3, 3]);
+    // Sticking and counting print at 7 pt or more (read from a music stand; common practice).
+    const sizes = await page.$$eval(
+      '#score .tensile-count-row, #score .tensile-sticking-row',
+      (rows) => rows.map((row) => Number(row.getAttribute('font-size'))),
+    );
+    expect(sizes.length).toBeGreaterThan(0);
+    for (const size of sizes) expect(printedPt(size)).toBeGreaterThanOrEqual(7);
     // Systems fill the line alike: every one ends at the same right edge, inside the page.
     const rights = systems.map((s) => Math.max(...s.map((b) => b.right)));
     expect(Math.max(...rights) - Math.min(...rights)).toBeLessThan(1);
@@ -798,15 +811,24 @@ describe('engraving rules on the drawn score (Chromium)', () => {
     expect(collisions(score.counts)).toEqual([]);
     expect(crowded(score.counts, 2)).toEqual([]);
     expect(collisions(score.sticking)).toEqual([]);
-    // A four-bar drill prints on one system, whatever its seed (time signature included).
+    // A four-bar drill prints on two even systems, whatever its seed (never three and one).
     for (const seed of ['handout-1', 'lesson-12', 'harbor-spark-21', 'print-check']) {
       const short = await engrave(presetDrill('early-backbeat', seed), {
         ...PRINT_LAYOUT,
         ...FULL,
       });
-      expect(new Set(short.bars.map((b) => b.topLineY)).size, seed).toBe(1);
-      expect(short.bars).toHaveLength(4);
+      const lines = [...new Set(short.bars.map((b) => b.topLineY))];
+      expect(
+        lines.map((y) => short.bars.filter((b) => b.topLineY === y).length),
+        seed,
+      ).toEqual([2, 2]);
     }
+    // Bars of eighths (6/8) still go four to a printed system.
+    const compound = await engrave(presetDrill('six-eight-groove', 'handout-1'), {
+      ...PRINT_LAYOUT,
+      ...FULL,
+    });
+    expect(new Set(compound.bars.map((b) => b.topLineY)).size).toBe(1);
   });
 
   it('prints the title and the tempo mark above the first system of a 16-bar drill', async () => {

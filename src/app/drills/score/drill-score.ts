@@ -1,4 +1,4 @@
-import { PRINT_LAYOUT } from '../../../../shared/notation/print-layout';
+import { PRINT_LAYOUT, PRINT_PAGE_WIDTH } from '../../../../shared/notation/print-layout';
 import {
   ChangeDetectionStrategy,
   ChangeDetectorRef,
@@ -47,12 +47,11 @@ import {
 
 /** Room under each system for the tension plots, in pixels. */
 const PLOT_ROOM = 52;
+/** On paper: up to three lines of larger labels under the meter (see tension-plot.scss). */
+const PRINT_PLOT_ROOM = 78;
 const RESIZE_DEBOUNCE_MS = 150;
-/**
- * The printable width, in CSS pixels, of A4 or US Letter inside 12 mm margins (the narrower, A4:
- * 186 mm at 96 px to the inch): the score is zoomed to it in print.
- */
-export const PRINT_WIDTH = 700;
+/** The printable width of A4 or US Letter, in CSS pixels (see PRINT_PAGE_WIDTH). */
+export const PRINT_WIDTH = PRINT_PAGE_WIDTH;
 /**
  * The line the score is engraved on for print, whatever the screen, zoomed to PRINT_WIDTH on
  * paper: four bars of sixteenths a system (see PRINT_LAYOUT). A phone prints the same systems as
@@ -163,7 +162,7 @@ export class DrillScore {
     const signature = `${meter.beats}/${meter.unit}${grouping ? ` (${grouping})` : ''}`;
     return `Drum notation: ${bars.length} bars of ${signature}. Left and right arrows step through the beats.`;
   });
-  protected readonly plotRoom = PLOT_ROOM;
+  protected readonly plotRoom = computed(() => (this.printing() ? PRINT_PLOT_ROOM : PLOT_ROOM));
   /** The system (line) the cursor is on: changes only when the cursor moves to another line. */
   private readonly cursorSystem = computed(() => {
     const layout = this.layout();
@@ -195,7 +194,9 @@ export class DrillScore {
       const width = this.printing() ? PRINT_ENGRAVING_WIDTH : this.width();
       const showSticking = this.showSticking();
       const showCounts = this.showCounts();
-      const showTension = this.showTension();
+      // Paper goes without the tension marks (a screen aid): drawn without them, so no copy of
+      // the drawing (the later strips' <use>) can carry their colour onto the page.
+      const showTension = this.showTension() && !this.printing();
       if (width > 0) void this.render(model, width, { showSticking, showCounts, showTension });
     });
     afterRenderEffect(() => {
@@ -328,7 +329,7 @@ export class DrillScore {
     return {
       showSticking: this.showSticking(),
       showCounts: this.showCounts(),
-      showTension: this.showTension(),
+      showTension: this.showTension() && !this.printing(),
     };
   }
 
@@ -409,13 +410,14 @@ export class DrillScore {
           countRoom: PRINT_LAYOUT.countRoom,
           air: PRINT_LAYOUT.air,
           maxBarsPerSystem: PRINT_LAYOUT.maxBarsPerSystem,
+          leastTextSize: PRINT_LAYOUT.leastTextSize,
         }
       : {};
     return {
       width: lineWidth,
       ...shown,
       ...print,
-      gapBelowSystem: PLOT_ROOM,
+      gapBelowSystem: this.plotRoom(),
       ink: 'currentColor',
       ...(cache ? { cache } : {}),
     };
