@@ -576,15 +576,15 @@ function* engrave(
     boxes.push(...systemBoxes);
     for (const [key, box] of systemInstants) instants.set(key, box);
     bands.push(band);
-    const drawn: DrawnSystem = {
+    // Kept only where a cache asks (the server's light document has no cloneNode).
+    cache?.set('systems', drawKey, {
       group: group.cloneNode(true) as Element,
       after: ctx.drawingState(),
       shown: group,
       boxes: systemBoxes,
       instants: [...systemInstants],
       band,
-    };
-    cache?.set('systems', drawKey, drawn);
+    });
     yield;
   }
   ctx.openGroup().setAttribute('class', BRACKETS_CLASS);
