@@ -41,15 +41,23 @@ export class AuthSession {
   /** Resolves the session from the server the first time, then from memory. */
   ensureLoaded(): Promise<SessionUser | null> {
     // A check started before the app booted (main.ts) answers first when it has a clear answer.
-    this.loading ??= from(takeEarlySession()).pipe(
-      switchMap((early) => {
-        const known = earlyUser(early);
-        return known === undefined ? this.askServer() : of(known);
-      }),
-      tap((user) => this.userState.set(user)),
-      catchError(() => of(null)),
-      shareReplay(1),
-    );
+    if (!this.loading) {
+      const early = takeEarlySession();
+      const answer =
+        early === null
+          ? this.askServer()
+          : from(early).pipe(
+              switchMap((taken) => {
+                const known = earlyUser(taken);
+                return known === undefined ? this.askServer() : of(known);
+              }),
+            );
+      this.loading = answer.pipe(
+        tap((user) => this.userState.set(user)),
+        catchError(() => of(null)),
+        shareReplay(1),
+      );
+    }
     return firstValueFrom(this.loading);
   }
 

@@ -22,16 +22,11 @@ export function startEarlySession(url: string): void {
 }
 
 /**
- * The early answer, once; null when there was none or it failed on the network (the caller
- * then asks itself).
+ * The early answer, once, or null when none was started (the caller then asks at once, in the
+ * same turn, as it always did); an early request that failed on the network answers null.
  */
-export async function takeEarlySession(): Promise<EarlySessionAnswer | null> {
+export function takeEarlySession(): Promise<EarlySessionAnswer | null> | null {
   const taken = early;
   early = null;
-  if (taken === null) return null;
-  try {
-    return await taken;
-  } catch {
-    return null;
-  }
+  return taken === null ? null : taken.catch(() => null);
 }
