@@ -75,7 +75,8 @@ describe('editor journey: grouping, voice roles and time layers', () => {
     // The snare keeps time: it plays its backbeat and nothing else.
     await page.getByRole('combobox', { name: 'Snare role' }).click();
     await page.getByRole('option', { name: 'Time (keeps its pattern)' }).click();
-    expect(await selectText(page, 'Snare role')).toBe('Time (keeps its pattern)');
+    // Polled: the closing panel's options stay inside the select for its animation.
+    await expect.poll(() => selectText(page, 'Snare role')).toBe('Time (keeps its pattern)');
     const offBackbeat = (notes: readonly ShownNote[]) =>
       notes.filter((n) => n.voices.includes('snare') && !(n.slot === 0 && [2, 4].includes(n.beat)));
     await expect
