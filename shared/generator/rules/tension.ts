@@ -7,7 +7,9 @@ import type { RuleCard } from '../schema';
 export function tensionTargets(card: RuleCard, bars: number): number[] | null {
   const rule = card.rules.find((r) => r.kind === 'tension');
   if (!rule || rule.kind !== 'tension') return null;
-  return Array.from({ length: bars }, (_, i) => rule.curve[i % rule.curve.length] ?? 0);
+  const targets: number[] = [];
+  for (let i = 0; i < bars; i++) targets.push(rule.curve[i % rule.curve.length] ?? 0);
+  return targets;
 }
 
 /** Bars (0-based) grouped by equal target, from the lowest target to the highest. */
