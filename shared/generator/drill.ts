@@ -31,7 +31,8 @@ export type VoiceId = (typeof VOICE_IDS)[number];
 export const FOOT_VOICES: ReadonlySet<VoiceId> = new Set<VoiceId>(['kick', 'hihatFoot']);
 
 export function isHandVoice(voice: VoiceId): boolean {
-  return !FOOT_VOICES.has(voice);
+  // The two feet of FOOT_VOICES, compared directly: the engine asks this on every note.
+  return voice !== 'kick' && voice !== 'hihatFoot';
 }
 
 /** Hits at one instant are ordered by voice id, as plain strings. */

@@ -63,18 +63,16 @@ export function createFillContext(
       // A slot another rule has taken is not free; the ostinato alone leaves it free.
       const free =
         !fixed.has(bar) && cell.every((hit) => hit.source === 'ostinato') && !ob.inFill[instant];
+      const here: VoiceId[] = [];
+      perInstant.push(here);
+      if (!free) continue;
       const hole = !ostinatoPlaysAt(card, grid, instant);
-      perInstant.push(
-        !free
-          ? []
-          : voices.filter((v) =>
-              isHandVoice(v) && busy[instant]
-                ? false
-                : embellishing.has(v)
-                  ? hole && !keptFree.has(instant) && !cell.some((hit) => hit.voice === v)
-                  : !ob.avoided.get(v)?.has(instant) && !cell.some((hit) => hit.voice === v),
-            ),
-      );
+      for (const v of voices) {
+        if (isHandVoice(v) && busy[instant]) continue;
+        if (hasVoice(cell, v)) continue;
+        if (embellishing.has(v) ? hole && !keptFree.has(instant) : !ob.avoided.get(v)?.has(instant))
+          here.push(v);
+      }
     }
     options.push(perInstant);
   }
@@ -82,6 +80,11 @@ export function createFillContext(
   const weightsByLean = Array.from({ length: grid.bars }, () => new Map<number, number[]>());
   const limbs = limbWindows(card, grid, ob);
   return { card, grid, ob, budget: overlapBudget(card), options, strength, weightsByLean, limbs };
+}
+
+function hasVoice(cell: readonly { voice: VoiceId }[], voice: VoiceId): boolean {
+  for (const hit of cell) if (hit.voice === voice) return true;
+  return false;
 }
 
 /**

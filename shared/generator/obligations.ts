@@ -57,14 +57,16 @@ export function collectObligations(card: RuleCard, grid: Grid): Obligations {
         break;
     }
   });
-  const ruled = new Set(placements.filter((p) => p.source !== 'ostinato').map((p) => p.instant));
+  const ruled = new Set<number>();
+  for (const p of placements) if (p.source !== 'ostinato') ruled.add(p.instant);
+  for (const kept of avoided.values()) for (const instant of kept.keys()) ruled.add(instant);
   const before = merge(placements, grid);
   placements.push(
     ...placePhrase(
       card,
       grid,
       // The fill leaves out the slots other rules hold and the downbeats kept free.
-      (instant) => ruled.has(instant) || [...avoided.values()].some((kept) => kept.has(instant)),
+      (instant) => ruled.has(instant),
       (instant) => before[instant]?.length ?? 0,
     ),
   );

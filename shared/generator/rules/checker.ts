@@ -238,7 +238,7 @@ function checkFill(
           ...where(l),
         });
       }
-      if (embellishing.has(l.hit.voice)) checkEmbellishment(card, grid, l, keptFree, out);
+      if (embellishing.has(l.hit.voice)) checkEmbellishment(card, grid, l, keptFree, owners, out);
       if (owner === undefined) continue;
       const mine = perRule.get(owner) ?? [];
       mine.push(l.hit);
@@ -266,6 +266,7 @@ function checkEmbellishment(
   grid: Grid,
   l: Located,
   keptFree: ReadonlySet<number>,
+  owners: ReadonlyMap<VoiceId, number>,
   out: Violation[],
 ): void {
   const voice = voiceWord(l.hit.voice);
@@ -281,7 +282,7 @@ function checkEmbellishment(
       message: `A ${voice} embellishment lands on a downbeat the card keeps free.`,
       ...where(l),
     });
-  if (!fillHolesOwners(card).has(l.hit.voice) && l.hit.dynamic !== 'ghost')
+  if (!owners.has(l.hit.voice) && l.hit.dynamic !== 'ghost')
     out.push({
       code: 'fill',
       message: `A ${voice} embellishment is not a ghost note.`,
