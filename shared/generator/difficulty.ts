@@ -96,8 +96,23 @@ export function drillDifficulty(drill: Omit<Drill, 'difficulty'>): Difficulty {
     });
     return Number.isFinite(gap) ? 1 / gap : 0;
   };
-  const handRate = rate((hit) => ((hit.hand ?? null) === null ? -1 : limbOf(hit.hand as Hand)));
-  const footRate = rate((hit) => (FOOT_VOICES.has(hit.voice) ? limbOf(hit.voice) : -1));
+  // The common limbs without a map look-up (any other name still gets its own number).
+  const handOf = (hit: DrillHit): number => {
+    const hand = hit.hand ?? null;
+    return hand === null ? -1 : hand === 'R' ? 0 : hand === 'L' ? 1 : limbOf(hand as Hand);
+  };
+  const kick = limbOf('kick');
+  const hihatFoot = limbOf('hihatFoot');
+  const footOf = (hit: DrillHit): number =>
+    hit.voice === 'kick'
+      ? kick
+      : hit.voice === 'hihatFoot'
+        ? hihatFoot
+        : FOOT_VOICES.has(hit.voice)
+          ? limbOf(hit.voice)
+          : -1;
+  const handRate = rate(handOf);
+  const footRate = rate(footOf);
   // Independence: notes the other limbs place between the strokes of the time (a kick on the
   // "e" under a quarter-note hi-hat) ask more of a player than notes struck with it (kick and
   // snare with the hi-hat, the first groove a student learns). Without a time layer the beats

@@ -30,5 +30,7 @@ export function bjorklund(pulses: number, steps: number): boolean[] {
     trailing = leading.length > paired ? leading.slice(paired) : trailing.slice(paired);
     leading = merged;
   } while (trailing.length > 1);
-  return leading.concat(trailing).flat();
+  const out: boolean[] = [];
+  for (const group of leading.concat(trailing)) for (const step of group) out.push(step);
+  return out;
 }

@@ -104,6 +104,13 @@ export function checkBarsAlone(
   return out.filter((v) => v.bar !== undefined && only.has(v.bar - 1));
 }
 
+/** Where a hit lies, for a violation's message (made only when one is found). */
+const at = (b: number, hit: DrillHit): { bar: number; beat: number; slot: number } => ({
+  bar: b + 1,
+  beat: hit.beat,
+  slot: hit.slot,
+});
+
 const DYNAMICS: ReadonlySet<string> = new Set(['ghost', 'normal', 'accent']);
 
 function checkShape(
@@ -122,7 +129,6 @@ function checkShape(
       out.push({ code: 'grid', message: `Bar ${b + 1} has the wrong beats.`, bar: b + 1 });
     let previous: DrillHit | null = null;
     for (const hit of bar.hits) {
-      const at = { bar: b + 1, beat: hit.beat, slot: hit.slot };
       const slots = grid.beats[hit.beat - 1];
       if (
         !Number.isInteger(hit.beat) ||
@@ -131,24 +137,28 @@ function checkShape(
         hit.slot < 0 ||
         hit.slot >= slots
       ) {
-        out.push({ code: 'grid', message: `A ${hit.voice} hit lies outside the grid.`, ...at });
+        out.push({
+          code: 'grid',
+          message: `A ${hit.voice} hit lies outside the grid.`,
+          ...at(b, hit),
+        });
         continue;
       }
       if (!voices.has(hit.voice))
         out.push({
           code: 'voices',
           message: `The ${voiceWord(hit.voice)} is not a card voice.`,
-          ...at,
+          ...at(b, hit),
         });
       if (!HIT_SOURCES.includes(hit.source))
-        out.push({ code: 'drill', message: `Unknown source ${hit.source}.`, ...at });
+        out.push({ code: 'drill', message: `Unknown source ${hit.source}.`, ...at(b, hit) });
       if (!DYNAMICS.has(hit.dynamic))
-        out.push({ code: 'drill', message: `Unknown dynamic ${hit.dynamic}.`, ...at });
+        out.push({ code: 'drill', message: `Unknown dynamic ${hit.dynamic}.`, ...at(b, hit) });
       if (previous && compareHits(previous, hit) >= 0)
         out.push({
           code: 'order',
           message: 'Hits are not sorted by beat, slot and voice, or repeat a voice at one instant.',
-          ...at,
+          ...at(b, hit),
         });
       previous = hit;
       const instant = instantOf(grid, b + 1, hit.beat, hit.slot);

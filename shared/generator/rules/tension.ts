@@ -15,7 +15,9 @@ export function tensionTargets(card: RuleCard, bars: number): number[] | null {
 /** Bars (0-based) grouped by equal target, from the lowest target to the highest. */
 export function tensionLevels(targets: readonly number[]): number[][] {
   const values = [...new Set(targets)].sort((a, b) => a - b);
-  return values.map((value) => targets.flatMap((t, bar) => (t === value ? [bar] : [])));
+  const levels: number[][] = values.map(() => []);
+  targets.forEach((t, bar) => levels[values.indexOf(t)]?.push(bar));
+  return levels;
 }
 
 /**
