@@ -13,6 +13,7 @@ import {
   thresholdsOf,
   type Thresholds,
 } from './sticking/limits';
+import { arrayOf } from './arrays';
 
 /**
  * The limbs' rates as the fill sees them, so it never places a stroke they cannot play next to
@@ -61,7 +62,7 @@ export function limbWindows(card: RuleCard, grid: Grid, ob: Obligations): LimbWi
   const ticks = instantTicks(grid);
   const barTicks = pace.ticksPerBeat * grid.beatsPerBar;
   const near = (reach: number): Near[] =>
-    Array.from({ length: grid.slotsPerBar }, (_, i) => {
+    arrayOf(grid.slotsPerBar, (i) => {
       const offsets: number[] = [];
       const gaps: number[] = [];
       for (let d = -grid.slotsPerBar; d <= grid.slotsPerBar; d++) {

@@ -8,6 +8,7 @@ import { embellishmentVoices, fillVoices } from './rules/fill-holes';
 import { overlapBudget } from './rules/linear';
 import { ostinatoPlaysAt } from './rules/ostinato';
 import type { RuleCard } from './schema';
+import { arrayOf } from './arrays';
 
 /** What the fill of every bar shares: the card, its grid, the obligations and the limits. */
 export interface FillContext {
@@ -77,7 +78,7 @@ export function createFillContext(
     options.push(perInstant);
   }
   const strength = metricalStrength(grid, card.meter.grouping);
-  const weightsByLean = Array.from({ length: grid.bars }, () => new Map<number, number[]>());
+  const weightsByLean = arrayOf(grid.bars, () => new Map<number, number[]>());
   const limbs = limbWindows(card, grid, ob);
   return { card, grid, ob, budget: overlapBudget(card), options, strength, weightsByLean, limbs };
 }

@@ -12,6 +12,7 @@ import {
 import type { TensionGauge } from './tension-gauge';
 import type { Rng } from './random';
 import { tensionLevels } from './rules/tension';
+import { arrayOf } from './arrays';
 
 /** Rounds of neighbour search after which the closest order found so far is kept. */
 const MAX_ROUNDS = 64;
@@ -51,7 +52,7 @@ export function drawFills(
   targets: readonly number[] | null,
   landings: ReadonlySet<number> = new Set(),
 ): BarFill[] {
-  return Array.from({ length: ctx.grid.bars }, (_, bar) =>
+  return arrayOf(ctx.grid.bars, (bar) =>
     targets
       ? initialFill(ctx, bar, rng, targets[bar] ?? 0.5, targets[bar] ?? 0.5)
       : landings.has(bar)
@@ -151,7 +152,7 @@ function busierPeaks(
 ): void {
   if (levels.length < 2) return;
   const { grid, ob } = ctx;
-  const fixed = Array.from({ length: grid.bars }, (_, bar) => {
+  const fixed = arrayOf(grid.bars, (bar) => {
     let n = 0;
     for (let i = 0; i < grid.slotsPerBar; i++)
       for (const hit of ob.cells[bar * grid.slotsPerBar + i] ?? [])
@@ -225,8 +226,8 @@ function aims(
 function candidateMeter(ctx: FillContext, gauge: TensionGauge): (fill: BarFill) => Candidate {
   const { grid, ob } = ctx;
   if (gauge.measure !== 'lhl') {
-    const fixed = Array.from({ length: grid.bars }, (_, bar) =>
-      Array.from({ length: grid.slotsPerBar }, (_, i) =>
+    const fixed = arrayOf(grid.bars, (bar) =>
+      arrayOf(grid.slotsPerBar, (i) =>
         (ob.cells[bar * grid.slotsPerBar + i] ?? []).map((hit) => ({
           voice: hit.voice,
           time: hit.source === 'ostinato',
@@ -239,8 +240,8 @@ function candidateMeter(ctx: FillContext, gauge: TensionGauge): (fill: BarFill) 
       return { fill, units: gauge.unitsOfVoices(voices) };
     };
   }
-  const fixed = Array.from({ length: grid.bars }, (_, bar) =>
-    Array.from({ length: grid.slotsPerBar }, (_, i) =>
+  const fixed = arrayOf(grid.bars, (bar) =>
+    arrayOf(grid.slotsPerBar, (i) =>
       (ob.cells[bar * grid.slotsPerBar + i] ?? []).some((hit) => hit.source !== 'ostinato'),
     ),
   );

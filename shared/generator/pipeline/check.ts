@@ -5,11 +5,12 @@ import { checkDrillWith } from '../rules/checker';
 import { ENGINE_VERSION } from '../version';
 import { barOf } from './bars';
 import type { Stuck } from './stages';
+import { arrayOf } from '../arrays';
 
 /** The drill's bars, each with its measured tension. */
 export function barsOf(stuck: Stuck): DrillBar[] {
   const { grid, cells, gauge } = stuck;
-  return Array.from({ length: grid.bars }, (_, b) => {
+  return arrayOf(grid.bars, (b) => {
     const bar = barOf(grid, b, cells, 0);
     return { ...bar, tension: gauge.ofBar(bar) };
   });

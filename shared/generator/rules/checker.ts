@@ -22,6 +22,7 @@ import { embellishmentVoices, fillHolesOwners, fillVoices, shareCounts } from '.
 import { countOverlaps, overlapBudget } from './linear';
 import { ostinatoPlaysAt } from './ostinato';
 import { rankOrderBreaks, tensionTargets } from './tension';
+import { arrayOf } from '../arrays';
 
 /** One broken rule or invariant in a drill, with where it happened when that applies. */
 export interface Violation {
@@ -79,7 +80,10 @@ export function checkDrillWith(
   checkHands(card, grid, cells, out);
   checkTension(card, drill, measure, out);
   const difficulty = known?.difficulty ?? drillDifficulty(drill);
-  if (JSON.stringify(drill.difficulty) !== JSON.stringify(difficulty))
+  if (
+    drill.difficulty !== difficulty &&
+    JSON.stringify(drill.difficulty) !== JSON.stringify(difficulty)
+  )
     out.push({ code: 'drill', message: 'The difficulty does not match the drill.' });
   return out;
 }
@@ -119,7 +123,7 @@ function checkShape(
   bars: readonly DrillBar[],
   out: Violation[],
 ): Located[][] {
-  const cells: Located[][] = Array.from({ length: grid.instants }, () => []);
+  const cells: Located[][] = arrayOf(grid.instants, () => []);
   const voices = new Set<string>(card.voices);
   const beats = grid.beats.join();
   bars.forEach((bar, b) => {

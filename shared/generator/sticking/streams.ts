@@ -30,7 +30,7 @@ export interface Frame {
   readonly grid: Grid;
   readonly pace: Pace;
   /** Ticks of each instant from the drill's start; `ticks[instants]` is the loop. */
-  readonly ticks: Float64Array;
+  readonly ticks: readonly number[];
   readonly hand: Thresholds;
   readonly foot: Thresholds;
   /** The longest gap between two grid notes of a run. */
@@ -54,6 +54,8 @@ export const VOICE_INDEX: Readonly<Record<VoiceId, number>> = Object.fromEntries
   VOICE_IDS.map((voice, i) => [voice, i]),
 ) as Record<VoiceId, number>;
 export const HAND_VOICE: readonly boolean[] = VOICE_IDS.map(isHandVoice);
+/** VOICE_INDEX as a map: faster to read with a voice that varies, as `tabulate` does. */
+const VOICE_NUMBER: ReadonlyMap<VoiceId, number> = new Map(VOICE_IDS.map((voice, i) => [voice, i]));
 
 /** Where a note came from, as sticking distinguishes it. */
 export const FROM_FILL = 0;
@@ -91,7 +93,7 @@ export function tabulate<N extends NoteLike>(
   const from = new Uint8Array(notes.length);
   for (let k = 0; k < notes.length; k++) {
     const note = notes[k] as N;
-    voice[k] = VOICE_INDEX[note.voice];
+    voice[k] = VOICE_NUMBER.get(note.voice) ?? 0;
     const source = note.source;
     from[k] =
       source === 'fill'
