@@ -254,6 +254,10 @@ function tangleFaults(
   const onFarL = (i: number): boolean => ((who[i] ?? 0) & 2) !== 0 && !!farL[voiceL[i] ?? 0];
   const both = (i: number): string =>
     `the right hand plays the ${word(voiceR[i] ?? 0)} and the left hand the ${word(voiceL[i] ?? 0)}`;
+  const sides = [
+    [1, voiceR],
+    [2, voiceL],
+  ] as const;
   for (let i = 0; i < n; i++) {
     if (onFarR(i) && onFarL(i)) {
       const message = `${capital(both(i))} at once: the arms cross both ways.`;
@@ -267,10 +271,7 @@ function tangleFaults(
       out.push(fault('hands', 'crossing', j, message));
     }
     // A leap: one hand from one side of the kit to the other between two run notes.
-    for (const [bit, voices] of [
-      [1, voiceR],
-      [2, voiceL],
-    ] as const) {
+    for (const [bit, voices] of sides) {
       if (!((who[i] ?? 0) & bit) || !((who[j] ?? 0) & bit)) continue;
       const a = voices[i] ?? 0;
       const b = voices[j] ?? 0;

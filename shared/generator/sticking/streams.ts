@@ -69,11 +69,11 @@ export const FROM_OSTINATO = 4;
  * reads numbers): the notes of instant i are `start[i]` to `start[i + 1] - 1`.
  */
 export interface NoteTable<N extends NoteLike = NoteLike> {
-  readonly start: Int32Array;
+  readonly start: readonly number[];
   /** VOICE_IDS index of each note. */
-  readonly voice: Uint8Array;
+  readonly voice: readonly number[];
   /** FROM_FILL, FROM_POLYRHYTHM, FROM_EUCLID, FROM_OSTINATO (the time layers) or FROM_RULE. */
-  readonly from: Uint8Array;
+  readonly from: readonly number[];
   readonly notes: readonly N[];
 }
 
@@ -81,21 +81,23 @@ export function tabulate<N extends NoteLike>(
   cells: readonly (readonly N[] | undefined)[],
   instants: number,
 ): NoteTable<N> {
-  const start = new Int32Array(instants + 1);
+  // Plain arrays: typed ones this long are made outside V8's heap, slowly, and this runs
+  // several times a drill.
+  const start: number[] = [];
   const notes: N[] = [];
   for (let i = 0; i < instants; i++) {
-    start[i] = notes.length;
+    start.push(notes.length);
     const cell = cells[i];
     if (cell) for (let k = 0; k < cell.length; k++) notes.push(cell[k] as N);
   }
-  start[instants] = notes.length;
-  const voice = new Uint8Array(notes.length);
-  const from = new Uint8Array(notes.length);
+  start.push(notes.length);
+  const voice: number[] = [];
+  const from: number[] = [];
   for (let k = 0; k < notes.length; k++) {
     const note = notes[k] as N;
-    voice[k] = VOICE_NUMBER.get(note.voice) ?? 0;
+    voice.push(VOICE_NUMBER.get(note.voice) ?? 0);
     const source = note.source;
-    from[k] =
+    from.push(
       source === 'fill'
         ? FROM_FILL
         : source === 'polyrhythm'
@@ -104,7 +106,8 @@ export function tabulate<N extends NoteLike>(
             ? FROM_EUCLID
             : source === 'ostinato'
               ? FROM_OSTINATO
-              : FROM_RULE;
+              : FROM_RULE,
+    );
   }
   return { start, voice, from, notes };
 }
