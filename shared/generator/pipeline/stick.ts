@@ -154,7 +154,8 @@ function markEmbellishments(ctx: FillContext, cells: WorkHit[][], rng: Rng, kept
  * down; the left hand's snare accent right after its backbeat blurs the backbeat). Where a free
  * note's accent lies beside another accent of its hand, it trades its dynamic with a free note
  * of the rule whose accent would lie beside none (a normal note first, then a ghost), so the
- * rule's shares stay as they are; no draw of the seeded generator is spent.
+ * rule's shares stay as they are; no draw of the seeded generator is spent. `freeAt`: each free
+ * note's instant.
  */
 function separateAccents(
   grid: Grid,

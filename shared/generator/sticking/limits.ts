@@ -99,12 +99,9 @@ export function runTicks(pace: Pace): number {
   return Math.floor(pace.beatTicks / (60 * RUN_NOTES_PER_SECOND));
 }
 
-/**
- * Ticks from the drill's start to each instant, and the loop's length at index `instants`. A
- * plain array: a typed one this long is made outside V8's heap, slowly, several times a drill.
- */
-export function instantTicks(grid: Grid): number[] {
-  const ticks = new Array<number>(grid.instants + 1).fill(0);
+/** Ticks from the drill's start to each instant, and the loop's length at index `instants`. */
+export function instantTicks(grid: Grid): Float64Array {
+  const ticks = new Float64Array(grid.instants + 1);
   const barTicks = grid.beatsPerBar * grid.ticksPerBeat;
   let i = 0;
   for (let bar = 0; bar < grid.bars; bar++) {

@@ -30,7 +30,7 @@ export interface Frame {
   readonly grid: Grid;
   readonly pace: Pace;
   /** Ticks of each instant from the drill's start; `ticks[instants]` is the loop. */
-  readonly ticks: readonly number[];
+  readonly ticks: Float64Array;
   readonly hand: Thresholds;
   readonly foot: Thresholds;
   /** The longest gap between two grid notes of a run. */
@@ -69,11 +69,11 @@ export const FROM_OSTINATO = 4;
  * reads numbers): the notes of instant i are `start[i]` to `start[i + 1] - 1`.
  */
 export interface NoteTable<N extends NoteLike = NoteLike> {
-  readonly start: readonly number[];
+  readonly start: Int32Array;
   /** VOICE_IDS index of each note. */
-  readonly voice: readonly number[];
+  readonly voice: Uint8Array;
   /** FROM_FILL, FROM_POLYRHYTHM, FROM_EUCLID, FROM_OSTINATO (the time layers) or FROM_RULE. */
-  readonly from: readonly number[];
+  readonly from: Uint8Array;
   readonly notes: readonly N[];
 }
 
@@ -81,23 +81,21 @@ export function tabulate<N extends NoteLike>(
   cells: readonly (readonly N[] | undefined)[],
   instants: number,
 ): NoteTable<N> {
-  // Plain arrays: typed ones this long are made outside V8's heap, slowly, and this runs
-  // several times a drill.
-  const start: number[] = [];
+  const start = new Int32Array(instants + 1);
   const notes: N[] = [];
   for (let i = 0; i < instants; i++) {
-    start.push(notes.length);
+    start[i] = notes.length;
     const cell = cells[i];
     if (cell) for (let k = 0; k < cell.length; k++) notes.push(cell[k] as N);
   }
-  start.push(notes.length);
-  const voice: number[] = [];
-  const from: number[] = [];
+  start[instants] = notes.length;
+  const voice = new Uint8Array(notes.length);
+  const from = new Uint8Array(notes.length);
   for (let k = 0; k < notes.length; k++) {
     const note = notes[k] as N;
-    voice.push(VOICE_NUMBER.get(note.voice) ?? 0);
+    voice[k] = VOICE_NUMBER.get(note.voice) ?? 0;
     const source = note.source;
-    from.push(
+    from[k] =
       source === 'fill'
         ? FROM_FILL
         : source === 'polyrhythm'
@@ -106,8 +104,7 @@ export function tabulate<N extends NoteLike>(
             ? FROM_EUCLID
             : source === 'ostinato'
               ? FROM_OSTINATO
-              : FROM_RULE,
-    );
+              : FROM_RULE;
   }
   return { start, voice, from, notes };
 }
