@@ -14,7 +14,9 @@ export function tensionTargets(card: RuleCard, bars: number): number[] | null {
 
 /** Bars (0-based) grouped by equal target, from the lowest target to the highest. */
 export function tensionLevels(targets: readonly number[]): number[][] {
-  const values = [...new Set(targets)].sort((a, b) => a - b);
+  const values: number[] = [];
+  for (const t of targets) if (!values.includes(t)) values.push(t);
+  values.sort((a, b) => a - b);
   const levels: number[][] = values.map(() => []);
   targets.forEach((t, bar) => levels[values.indexOf(t)]?.push(bar));
   return levels;
