@@ -13,6 +13,7 @@ import {
   type OracleCard,
   type Voice,
 } from './card';
+import { checkGrooves, GROOVE_CHECKS } from './groove-checks';
 import { key, PRECEDENCE, type Plan, type Source } from './plan';
 import { measuredTension, measuredWitek } from './tension';
 
@@ -104,6 +105,7 @@ export const PRESET_CHECKS = [
   'preset/fill-goes-round-the-toms',
   'preset/accents-apart-on-one-hand',
   'preset/no-foot-three-in-a-row',
+  ...GROOVE_CHECKS,
 ] as const;
 
 export type CheckName = (typeof DRILL_CHECKS)[number] | (typeof PRESET_CHECKS)[number];
@@ -994,6 +996,8 @@ export function checkPreset(plan: Plan, drill: DrillLike): Violation[] {
         message: `the ${foot} plays three grid notes in a row from ${grid.describe(i)} at ${card.tempo} BPM`,
       });
     }
+
+  out.push(...checkGrooves(plan, hits));
 
   // A card says each rule once: the same rule twice is a slip (it changes nothing but reads as
   // if it did).
