@@ -54,6 +54,7 @@ export function createFillContext(
   const keptFree = new Set<number>();
   for (const instants of ob.avoided.values())
     for (const instant of instants.keys()) keptFree.add(instant);
+  const middle = shuffleMiddles(card, grid, ob);
   const options: VoiceId[][][] = [];
   for (let bar = 0; bar < grid.bars; bar++) {
     const perInstant: VoiceId[][] = [];
@@ -72,7 +73,9 @@ export function createFillContext(
                 ? false
                 : embellishing.has(v)
                   ? hole && !keptFree.has(instant) && !cell.some((hit) => hit.voice === v)
-                  : !ob.avoided.get(v)?.has(instant) && !cell.some((hit) => hit.voice === v),
+                  : !ob.avoided.get(v)?.has(instant) &&
+                    !cell.some((hit) => hit.voice === v) &&
+                    !middle.has(instant),
             ),
       );
     }
@@ -82,6 +85,29 @@ export function createFillContext(
   const weightsByLean = Array.from({ length: grid.bars }, () => new Map<number, number[]>());
   const limbs = limbWindows(card, grid, ob);
   return { card, grid, ob, budget: overlapBudget(card), options, strength, weightsByLean, limbs };
+}
+
+/**
+ * The silent middle notes of a shuffle: where the hands' time plays the first and the last note
+ * of every triplet (the slots of a triplet beat, or the eighths of a compound meter's dotted
+ * quarter) and never the middle one, the anchor (the kick) favours the beat and the last
+ * triplet and leaves the middle one out (common practice). Empty for any other time.
+ */
+function shuffleMiddles(card: RuleCard, grid: Grid, ob: Obligations): Set<number> {
+  const grouping = card.meter.grouping;
+  const compound =
+    !!grouping?.length && grouping.every((g) => g === 3) && grid.beats.every((b) => b === 1);
+  const starts: number[] = [];
+  for (let i = 0; i < grid.instants; i++) {
+    const b = grid.beatOf[i] ?? 0;
+    if (compound ? i % 3 === 0 : grid.slotOf[i] === 0 && grid.beats[b] === 3) starts.push(i);
+  }
+  const time = (i: number): boolean =>
+    (ob.cells[i] ?? []).some((h) => h.source === 'ostinato' && isHandVoice(h.voice));
+  const shuffle =
+    starts.length > 0 &&
+    starts.every((i) => !time(i + 1) && (ob.inFill[i] || (time(i) && time(i + 2))));
+  return new Set(shuffle ? starts.map((i) => i + 1) : []);
 }
 
 /**

@@ -2,6 +2,7 @@ import { RuleConflictError } from '../errors';
 import type { FillContext } from '../fill';
 import { positionOf, type Grid } from '../grid';
 import { frameOf } from '../sticking/streams';
+import { quietBeforeAccents } from '../sticking/into-accents';
 import { assignHandsRepairing, type WorkHit } from '../hands';
 import type { KeptBars } from '../keep';
 import { fitShares, keptShares, sharesConflict } from '../kept-shares';
@@ -15,7 +16,8 @@ import type { Attempt, Shaped, Stuck } from './stages';
 /**
  * Stage 6: the sticking. The fills join the obligations; every hand note gets R or L as a
  * teacher would write it (fill strokes the limbs cannot play are removed); then the dynamics of
- * the embellishments (ghost notes, a fillHoles rule's shares).
+ * the embellishments (ghost notes, a fillHoles rule's shares), with no full fill stroke right
+ * before an accent of its hand (traded for a ghost, or removed and the hands assigned again).
  */
 export function stick(shaped: Shaped, attempt: Attempt): Stuck {
   const { fills, ...proven } = shaped;
@@ -36,7 +38,12 @@ export function stick(shaped: Shaped, attempt: Attempt): Stuck {
   // Around kept notes, a fillHoles rule's shares may need fewer (or more) free notes.
   for (let k = 0; k < 2 && fitShares(free, cells, kept, attempt.rng); k++)
     repairHands(card, grid, cells, kept);
-  markEmbellishments(free, cells, attempt.rng, kept);
+  const owners = fillHolesOwners(card);
+  for (let k = 0; ; k++) {
+    markEmbellishments(free, cells, attempt.rng, kept);
+    if (k === 3 || !quietBeforeAccents(grid, card.tempo, cells, owners)) break;
+    repairHands(card, grid, cells, kept);
+  }
   return { ...proven, cells };
 }
 
