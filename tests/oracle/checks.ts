@@ -793,9 +793,25 @@ export function checkPreset(plan: Plan, drill: DrillLike): Violation[] {
   // A backbeat goes to the hand the time leaves free (common practice: the right hand rides the
   // hi-hat, the left plays the snare on 2 and 4), wherever the backbeat is moved to; a voice on
   // the free hand's far side is left to the crossing check, and in a phrase's fill window the
-  // time rests, so both hands are free and the fill's sticking rules.
+  // time rests, so both hands are free and the fill's sticking rules. The one exception: the free
+  // hand accents within half a second of it, so the backbeat would be its second accent in a row
+  // (preset/no-accent-after-accent-on-one-hand: the late backbeat on the "&" of 1 right before
+  // the one on 2).
   if (timeHand && card.ostinato && isHand(card.ostinato.voice)) {
     const freeHand = timeHand === 'R' ? 'L' : 'R';
+    const seconds = (from: number, to: number): number => {
+      let t = 0;
+      for (let i = from; i !== to; i = (i + 1) % n) t += 60 / grid.notesPerMinuteAt(i, card.tempo);
+      return t;
+    };
+    const freeAccentBeside = (index: number): boolean =>
+      hits.some(
+        (g) =>
+          g.hand === freeHand &&
+          g.dynamic === 'accent' &&
+          g.index !== index &&
+          Math.min(seconds(g.index, index), seconds(index, g.index)) < 0.5 - 1e-9,
+      );
     const farForFree =
       (freeHand === 'L') === (card.hand === 'right')
         ? FAR_SIDE_FOR_LEFT_HAND
@@ -807,7 +823,8 @@ export function checkPreset(plan: Plan, drill: DrillLike): Violation[] {
         isHand(h.voice as Voice) &&
         h.voice !== card.ostinato.voice &&
         !farForFree.has(h.voice) &&
-        h.hand !== freeHand
+        h.hand !== freeHand &&
+        !freeAccentBeside(h.index)
       )
         out.push({
           check: 'preset/backbeat-on-the-free-hand',

@@ -41,7 +41,10 @@ const RIGHT_PAST_MIDDLE = new Set(['tomMid', 'tomFloor', 'ride', 'rideBell']);
 const LEFT_FAR = new Set(['tomFloor', 'ride', 'rideBell']);
 const LEFT_PAST_MIDDLE = new Set(['hihat', 'hihatOpen', 'snare', 'rim', 'crash']);
 
-export function checkGrooves(plan: Plan, hits: readonly Hit[]): { check: GrooveCheck; message: string }[] {
+export function checkGrooves(
+  plan: Plan,
+  hits: readonly Hit[],
+): { check: GrooveCheck; message: string }[] {
   const out: { check: GrooveCheck; message: string }[] = [];
   const { grid, card } = plan;
   const n = grid.totalSlots;
@@ -49,7 +52,8 @@ export function checkGrooves(plan: Plan, hits: readonly Hit[]): { check: GrooveC
   for (const h of hits) at.set(h.index, [...(at.get(h.index) ?? []), h]);
   const cell = (i: number): Hit[] => at.get(((i % n) + n) % n) ?? [];
   /** Seconds from slot i to the next slot. */
-  const slotSeconds = (i: number): number => 60 / grid.notesPerMinuteAt(((i % n) + n) % n, card.tempo);
+  const slotSeconds = (i: number): number =>
+    60 / grid.notesPerMinuteAt(((i % n) + n) % n, card.tempo);
   /** A run: the grid moves at 4 notes a second or more there (docs/engine.md, "Runs"). */
   const runStep = (i: number): boolean => slotSeconds(i) <= 0.25 + 1e-9;
 
@@ -58,8 +62,7 @@ export function checkGrooves(plan: Plan, hits: readonly Hit[]): { check: GrooveC
   // is one of the two, the other hand could have taken it, or the slot stayed empty (common
   // practice: a hand moves a drum or two in a sixteenth, not across the kit).
   const mirrored = card.hand === 'left';
-  const farOf = (side: string): Set<string> =>
-    (side === 'R') !== mirrored ? RIGHT_FAR : LEFT_FAR;
+  const farOf = (side: string): Set<string> => ((side === 'R') !== mirrored ? RIGHT_FAR : LEFT_FAR);
   const pastOf = (side: string): Set<string> =>
     (side === 'R') !== mirrored ? RIGHT_PAST_MIDDLE : LEFT_PAST_MIDDLE;
   for (let i = 0; i < n && n > 1; i++) {
@@ -135,7 +138,8 @@ export function checkGrooves(plan: Plan, hits: readonly Hit[]): { check: GrooveC
           const i = grid.index(bar, beat, 0);
           triples.push([i, i + 1, i + 2]);
         }
-  const time = (i: number): boolean => cell(i).some((h) => h.source === 'ostinato' && h.hand !== null);
+  const time = (i: number): boolean =>
+    cell(i).some((h) => h.source === 'ostinato' && h.hand !== null);
   const shuffle =
     triples.length > 0 &&
     triples.every(([a, m, b]) => !time(m!) && (plan.fillWindow.has(a!) || (time(a!) && time(b!))));
@@ -155,9 +159,7 @@ export function checkGrooves(plan: Plan, hits: readonly Hit[]): { check: GrooveC
   // (common practice: an accent is a full stroke from a raised stick). Two notes of one line (an
   // accented ride) are the line's.
   for (const side of ['R', 'L']) {
-    const strokes = hits
-      .filter((h) => h.hand === side)
-      .sort((a, b) => a.index - b.index);
+    const strokes = hits.filter((h) => h.hand === side).sort((a, b) => a.index - b.index);
     const k = strokes.length;
     for (let s = 0; s < k && k >= 2; s++) {
       const a = strokes[s]!;
@@ -165,7 +167,8 @@ export function checkGrooves(plan: Plan, hits: readonly Hit[]): { check: GrooveC
       if (a.dynamic !== 'accent' || b.dynamic !== 'accent') continue;
       if (LINE.has(a.source) && LINE.has(b.source)) continue;
       let seconds = 0;
-      for (let i = a.index; i !== b.index || seconds === 0; i = (i + 1) % n) seconds += slotSeconds(i);
+      for (let i = a.index; i !== b.index || seconds === 0; i = (i + 1) % n)
+        seconds += slotSeconds(i);
       if (seconds < 0.5 - 1e-9)
         out.push({
           check: 'preset/no-accent-after-accent-on-one-hand',

@@ -2,7 +2,8 @@ import { RuleConflictError } from '../errors';
 import type { FillContext } from '../fill';
 import { positionOf, type Grid } from '../grid';
 import { frameOf } from '../sticking/streams';
-import { quietBeforeAccents } from '../sticking/into-accents';
+import { homeBackbeats, quietBeforeAccents } from '../sticking/into-accents';
+import { spreadAccents } from '../sticking/spread-accents';
 import { assignHandsRepairing, type WorkHit } from '../hands';
 import type { KeptBars } from '../keep';
 import { fitShares, keptShares, sharesConflict } from '../kept-shares';
@@ -17,7 +18,8 @@ import type { Attempt, Shaped, Stuck } from './stages';
  * Stage 6: the sticking. The fills join the obligations; every hand note gets R or L as a
  * teacher would write it (fill strokes the limbs cannot play are removed); then the dynamics of
  * the embellishments (ghost notes, a fillHoles rule's shares), with no full fill stroke right
- * before an accent of its hand (traded for a ghost, or removed and the hands assigned again).
+ * before an accent of its hand (traded for a ghost, or removed and the hands assigned again), and
+ * no two accents in a row on one hand within half a second where the other hand can take one.
  */
 export function stick(shaped: Shaped, attempt: Attempt): Stuck {
   const { fills, ...proven } = shaped;
@@ -41,7 +43,9 @@ export function stick(shaped: Shaped, attempt: Attempt): Stuck {
   const owners = fillHolesOwners(card);
   for (let k = 0; ; k++) {
     markEmbellishments(free, cells, attempt.rng, kept);
-    if (k === 3 || !quietBeforeAccents(grid, card.tempo, cells, owners)) break;
+    spreadAccents(card, grid, cells);
+    const quieted = quietBeforeAccents(grid, card.tempo, cells, owners);
+    if (k === 3 || !(homeBackbeats(card, cells) || quieted)) break;
     repairHands(card, grid, cells, kept);
   }
   return { ...proven, cells };

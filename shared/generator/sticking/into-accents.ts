@@ -1,6 +1,8 @@
+import { isHandVoice } from '../drill';
 import type { Grid } from '../grid';
 import type { WorkHit } from './assign';
-import { frameOf } from './streams';
+import { handOf } from './kit';
+import { frameOf, type StickingCard } from './streams';
 
 /**
  * A fill stroke at full strength does not sit on the grid note right before an accent of its own
@@ -54,6 +56,37 @@ export function quietBeforeAccents(
       }
       cell.splice(k, 1);
       removed = true;
+    }
+  });
+  return removed;
+}
+
+/**
+ * A backbeat stays on the hand the time leaves free (the left hand's snare under a right-hand
+ * hi-hat): where the sticking could only keep its other rules by giving it to the time hand, a
+ * fill stroke right beside it (the note before first) is removed instead and the slot stays
+ * empty. A backbeat moved on purpose (`steer`, two accents in a row) and one inside a phrase's
+ * fill stay as they are. Returns true when it removed a stroke.
+ */
+export function homeBackbeats(card: StickingCard, cells: WorkHit[][]): boolean {
+  const lead = card.sticking.lead;
+  if (lead === 'alternate' || !card.ostinato || !isHandVoice(card.ostinato.voice)) return false;
+  const timeHand = handOf(lead);
+  const n = cells.length;
+  if (n < 3) return false;
+  let removed = false;
+  cells.forEach((cell, at) => {
+    const beat = cell.find((h) => h.source === 'backbeat' && h.hand === timeHand && !h.steer);
+    if (!beat || !isHandVoice(beat.voice)) return;
+    const around = [(at + n - 1) % n, (at + 1) % n];
+    if (around.some((i) => (cells[i] ?? []).some((h) => h.source === 'phrase'))) return;
+    for (const i of around) {
+      const near = cells[i] ?? [];
+      const k = near.findIndex((h) => h.source === 'fill' && !h.pinned && h.hand !== null);
+      if (k < 0) continue;
+      near.splice(k, 1);
+      removed = true;
+      return;
     }
   });
   return removed;
