@@ -26,9 +26,9 @@ export interface Obligations {
 /**
  * Places every obligatory hit of the card and merges them by precedence: time layers, the
  * rules, the phrase fill (on what the rules leave free), then the anchors (kick on one, colour
- * crash) where nothing keeps them off.
+ * crash) where nothing keeps them off. The seed varies the phrase's fill (see `placePhrase`).
  */
-export function collectObligations(card: RuleCard, grid: Grid): Obligations {
+export function collectObligations(card: RuleCard, grid: Grid, seed?: string): Obligations {
   const inFill = fillWindow(card, grid);
   const crashed = crashInstants(card, grid);
   const placements: Placement[] = placeTimeLayers(card, grid, inFill, crashed);
@@ -66,6 +66,7 @@ export function collectObligations(card: RuleCard, grid: Grid): Obligations {
       // The fill leaves out the slots other rules hold and the downbeats kept free.
       (instant) => ruled.has(instant) || [...avoided.values()].some((kept) => kept.has(instant)),
       (instant) => before[instant]?.length ?? 0,
+      seed,
     ),
   );
   const cells = merge(placements, grid);

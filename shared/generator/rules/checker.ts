@@ -68,7 +68,7 @@ export function checkDrillWith(
     });
   const cells = checkShape(grid, card, drill.bars, out);
   if (out.length > 0) return out;
-  const ob = known?.ob ?? collectObligations(card, grid);
+  const ob = known?.ob ?? collectObligations(card, grid, drill.seed);
   checkObligations(card, grid, ob, cells, out);
   checkFill(card, grid, ob, cells, out);
   checkLinear(card, grid, cells, out);

@@ -4,6 +4,7 @@ import { slotsIn, type Grid } from '../grid';
 import type { PhraseRule, RuleCard } from '../schema';
 import { countOverlaps, overlapBudget } from './linear';
 import type { Placement } from './placement';
+import { createRng, type Rng } from '../random';
 
 /** The card's phrase rule and its index, if it has one. */
 export function phraseOf(card: RuleCard): { rule: PhraseRule; index: number } | null {
@@ -53,16 +54,20 @@ function fillStep(grid: Grid, tempo: number, slots: number): number {
  * The fill's hits and the landing: a run in the card's grid over the fill beats, moving through
  * the fill voices in equal stretches (snare, then the toms high to low: "around the kit"), on
  * every instant no other rule has taken; then the kick, and the crash when asked, on beat 1 of
- * the next phrase. Deterministic: the checker rebuilds it from the card alone.
+ * the next phrase. How many pairs each tom takes varies with the seed (`pairVoices`); the
+ * checker rebuilds it from the card and the drill's seed.
  */
 export function placePhrase(
   card: RuleCard,
   grid: Grid,
   taken: (instant: number) => boolean,
   voicesAt: (instant: number) => number,
+  seed?: string,
 ): Placement[] {
   const phrase = phraseOf(card);
   if (!phrase) return [];
+  // A generator of its own, so the fill's draw leaves the drill's other draws as they were.
+  const rng = seed === undefined ? null : createRng(`${seed}/phrase`);
   const { rule, index } = phrase;
   const out: Placement[] = [];
   const firstBeat = grid.beatsPerBar - rule.fillBeats;
@@ -92,10 +97,14 @@ export function placePhrase(
     // it (common practice).
     const pairs = Math.ceil(run.length / 2);
     const count = rule.voices.length;
+    let held = -1;
+    run.forEach((instant, k) => {
+      if (!fill.has(instant)) held = Math.floor(k / 2);
+    });
+    const voiceOfPair = pairVoices(pairs, count, rng, held);
     let voice: VoiceId | undefined;
     run.forEach((instant, k) => {
-      const pair = Math.floor(k / 2);
-      const target = rule.voices[count - 1 - Math.floor(((pairs - 1 - pair) * count) / pairs)];
+      const target = rule.voices[voiceOfPair[Math.floor(k / 2)] ?? count - 1];
       if (voice === undefined || (k % 2 === 0 && fill.has(instant))) voice = target;
       if (voice && fill.has(instant))
         out.push({ instant, voice, source: 'phrase', dynamic: 'normal', rule: index });
@@ -105,6 +114,42 @@ export function placePhrase(
       out.push({ instant: landing, voice, source: 'phrase', dynamic: 'accent', rule: index });
     }
   }
+  return out;
+}
+
+/**
+ * The voice (index in the fill's voices) of each pair of strokes, high to low. The first voice
+ * (the snare) opens with its fair share or, where there are more pairs than voices, by the seed
+ * none (the fill opens on the high tom); the seed shares the rest among the later voices (the
+ * toms), each at least one pair, so the fill changes from seed to seed and phrase to phrase
+ * (common practice: a teacher writes more than one fill). A shared-out fill reaches its last
+ * voice (the floor tom) only after the last pair `held` by another rule (a backbeat), so the
+ * hands never come back up from it. With no seed the extra pairs go to the last voices.
+ */
+function pairVoices(pairs: number, count: number, rng: Rng | null, held: number): number[] {
+  const fair = Array.from(
+    { length: pairs },
+    (_, pair) => count - 1 - Math.floor(((pairs - 1 - pair) * count) / pairs),
+  );
+  if (!rng || count < 3 || pairs <= count) return fair;
+  const first = rng.int(2) === 0 ? fair.filter((v) => v === 0).length : 0;
+  const shares: number[][] = [];
+  const share = (left: number, parts: number, so: number[]): void => {
+    if (parts === 1) {
+      if (left >= 1) shares.push([...so, left]);
+      return;
+    }
+    for (let k = 1; k < left; k++) share(left - k, parts - 1, [...so, k]);
+  };
+  share(pairs - first, count - 1, []);
+  // The pair where the last voice starts: after every held pair.
+  const fits = shares.filter((p) => first + p.reduce((a, b) => a + b, 0) - (p.at(-1) ?? 0) > held);
+  if (fits.length === 0) return fair;
+  const pick = fits[rng.int(fits.length)] ?? [];
+  const out: number[] = new Array<number>(first).fill(0);
+  pick.forEach((n, k) => {
+    for (let j = 0; j < n; j++) out.push(k + 1);
+  });
   return out;
 }
 
