@@ -43,7 +43,7 @@ export function spreadAccents(card: StickingCard, grid: Grid, cells: WorkHit[][]
 /** The first two accents in a row on one hand less than half a second apart, or null. */
 function crowdedPair(
   cells: readonly WorkHit[][],
-  ticks: readonly number[],
+  ticks: ArrayLike<number>,
   loop: number,
   beatTicks: number,
   n: number,
