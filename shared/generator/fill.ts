@@ -352,9 +352,15 @@ export function initialFill(
   rng: Rng,
   lean: number,
   target: number | null = null,
+  landing = false,
 ): BarFill {
   const f = emptyFill(ctx, bar);
-  const count = fillCount(ctx, bar, target);
+  // A landing keeps at least one note on the beat when the groove's bars have one (a kick on 3
+  // under a sparse groove), so it does not hang on the backbeat's syncopation.
+  const count = Math.max(
+    landing ? Math.min(1, fillCount(ctx, bar, null)) : 0,
+    fillCount(ctx, bar, target),
+  );
   // Additions only close instants: the one just taken, and every lone hit once the linear
   // budget is spent. So the live weights are kept up to date instead of rebuilt per hit.
   const weights = liveWeights(ctx, f, instantWeights(ctx, bar, lean));

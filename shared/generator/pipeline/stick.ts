@@ -44,8 +44,9 @@ export function stick(shaped: Shaped, attempt: Attempt): Stuck {
   for (let k = 0; ; k++) {
     markEmbellishments(free, cells, attempt.rng, kept);
     spreadAccents(card, grid, cells);
+    if (k === 3) break;
     const quieted = quietBeforeAccents(grid, card.tempo, cells, owners);
-    if (k === 3 || !(homeBackbeats(card, cells) || quieted)) break;
+    if (!(homeBackbeats(card, cells) || quieted)) break;
     repairHands(card, grid, cells, kept);
   }
   return { ...proven, cells };
