@@ -153,9 +153,10 @@ function markEmbellishments(ctx: FillContext, cells: WorkHit[][], rng: Rng, kept
 }
 
 /**
- * No hand plays accents on two grid notes in a row of a run (common practice: an accent is a
- * full stroke from a raised stick, and the note right after it is a tap as the stick comes
- * down; the left hand's snare accent right after its backbeat blurs the backbeat). Where a free
+ * No hand plays accents on two grid notes in a row of a run, nor on two strokes in a row less
+ * than half a second apart (common practice: an accent is a full stroke from a raised stick, and
+ * the note right after it is a tap as the stick comes down; the left hand's snare accent right
+ * after its backbeat blurs the backbeat). Where a free
  * note's accent lies beside another accent of its hand, it trades its dynamic with a free note
  * of the rule whose accent would lie beside none (a normal note first, then a ghost), so the
  * rule's shares stay as they are; no draw of the seeded generator is spent.
@@ -171,18 +172,28 @@ function separateAccents(grid: Grid, tempo: number, cells: WorkHit[][], free: Wo
     const gap = (ticks[b] ?? 0) - (ticks[a] ?? 0);
     return gap > 0 ? gap : gap + pace.loop;
   };
-  /** True when `hit`, accented, would sit beside another accent of its hand in a run. */
+  // Half a second in ticks (`t` ticks last 60 t / beatTicks seconds).
+  const half = pace.beatTicks / 120;
+  /** True when `hit`, accented, would sit beside another accent of its hand in a run, or its
+   * hand's stroke before or after it, less than half a second away, is an accent. */
   const crowded = (hit: WorkHit): boolean => {
     const at = where.get(hit);
-    if (at === undefined || hit.hand === null) return false;
-    const before = (at + n - 1) % n;
-    const after = (at + 1) % n;
+    if (at === undefined || hit.hand === null || n < 2) return false;
     const accentOf = (i: number): boolean =>
       (cells[i] ?? []).some((h) => h !== hit && h.hand === hit.hand && h.dynamic === 'accent');
-    return (
-      (n > 1 && step(before, at) <= run && accentOf(before)) ||
-      (n > 1 && step(at, after) <= run && accentOf(after))
-    );
+    const strikes = (i: number): boolean =>
+      (cells[i] ?? []).some((h) => h !== hit && h.hand === hit.hand);
+    for (const dir of [-1, 1]) {
+      for (let d = 1; d < n; d++) {
+        const i = (at + dir * d + n * d) % n;
+        const gap = dir < 0 ? step(i, at) : step(at, i);
+        if (d > 1 && gap >= half) break;
+        if (d === 1 && gap > run && gap >= half) break;
+        if (accentOf(i)) return true;
+        if (strikes(i)) break;
+      }
+    }
+    return false;
   };
   for (const hit of free) {
     if (hit.dynamic !== 'accent' || !crowded(hit)) continue;

@@ -4,7 +4,7 @@ import { slotsIn, type Grid } from '../grid';
 import type { PhraseRule, RuleCard } from '../schema';
 import { countOverlaps, overlapBudget } from './linear';
 import type { Placement } from './placement';
-import { createRng } from '../random';
+import { createRng, type Rng } from '../random';
 
 /** The card's phrase rule and its index, if it has one. */
 export function phraseOf(card: RuleCard): { rule: PhraseRule; index: number } | null {
@@ -67,8 +67,10 @@ export function placePhrase(
 ): Placement[] {
   const phrase = phraseOf(card);
   if (!phrase) return [];
-  // A generator of its own, so the fill's draw leaves the drill's other draws as they were.
-  const rng = seed === undefined ? null : createRng(`${seed}/phrase`);
+  // A generator of its own, so the fill's draw leaves the drill's other draws as they were;
+  // made only when a fill has a choice (making one costs more than the rest of this stage).
+  let made: Rng | null = null;
+  const rng = (): Rng => (made ??= createRng(`${seed}/phrase`));
   const { rule, index } = phrase;
   const out: Placement[] = [];
   const firstBeat = grid.beatsPerBar - rule.fillBeats;
@@ -102,12 +104,12 @@ export function placePhrase(
     run.forEach((instant, k) => {
       if (!fill.has(instant)) held = Math.floor(k / 2);
     });
-    const fills = (rng ? pairChoices(pairs, count, held) : [fairPairs(pairs, count)]).map(
-      (choice) => runVoices(run, fill, choice, rule.voices),
-    );
+    const fills = (
+      seed !== undefined ? pairChoices(pairs, count, held) : [fairPairs(pairs, count)]
+    ).map((choice) => runVoices(run, fill, choice, rule.voices));
     // A kept (or checked) bar keeps the allowed fill it has; otherwise the seed picks one.
     const mine = given?.(bar);
-    const drawn = rng ? rng.int(fills.length) : 0;
+    const drawn = fills.length > 1 ? rng().int(fills.length) : 0;
     const match = mine ? fills.find((f) => [...f].every(([i, v]) => mine.get(i) === v)) : undefined;
     const chosen = match ?? fills[drawn] ?? new Map<number, VoiceId>();
     for (const [instant, voice] of chosen)

@@ -27,13 +27,14 @@ export function spreadAccents(card: StickingCard, grid: Grid, cells: WorkHit[][]
       tried.add(hit);
       const to = otherHand(hit.hand);
       if ((cells[at] ?? []).some((h) => h !== hit && h.hand === to)) continue;
+      const hands = cells.map((cell) => cell.map((h) => h.hand));
       hit.steer = to;
       if (assignHands(card, grid, cells) === null) {
         done = moved = true;
         break;
       }
       hit.steer = undefined;
-      assignHands(card, grid, cells);
+      cells.forEach((cell, at) => cell.forEach((h, k) => (h.hand = hands[at]?.[k] ?? null)));
     }
     if (!done) for (const { hit } of pair) tried.add(hit);
   }
