@@ -125,6 +125,8 @@ export function drillDifficulty(drill: Omit<Drill, 'difficulty'>): Difficulty {
     const key = Math.round((times[k] ?? 0) * 1e6);
     if (hit.source !== 'ostinato') moving.add(key);
     if (hasTime ? hit.source === 'ostinato' : hit.slot === 0) time.add(key);
+    // A phrase's fill is a run of the hands alone while the time rests: nothing to coordinate.
+    if (hit.source === 'phrase' && hit.dynamic !== 'accent') time.add(key);
   }
   const density = slots === 0 ? 0 : moving.size / slots;
   let between = 0;

@@ -20,7 +20,8 @@ import { arrayOf } from './arrays';
  * the card's own notes and its other fills in the bar: a foot stroke never too fast for a
  * double, never the third of a row faster than singles, and never the third of three grid
  * notes in a row of a run (one foot does not play three sixteenths running unless the card
- * asks: common practice); a hand stroke never the third of
+ * asks: common practice), nor the third within less than a beat (a dotted quarter in compound
+ * meters: 1-e-a on the kick is too busy for a groove); a hand stroke never the third of
  * three within one hand's single-stroke time (two hands, singles: some hand would need a
  * double). Fills of neighbouring bars are not seen (each bar is filled on its own); the
  * sticking stage removes the rare stroke that meets one round a bar line.
@@ -34,6 +35,8 @@ export interface LimbWindows {
   readonly hand: Thresholds;
   /** The longest gap (ticks) between two grid notes of a run. */
   readonly run: number;
+  /** A beat (a dotted-quarter group in a compound meter), in ticks: a foot's busiest span. */
+  readonly pulse: number;
   /**
    * Per bar-local instant: the instant offsets (ascending) whose strokes a foot stroke there
    * meets, with their signed distances in ticks (the same in every bar).
@@ -61,6 +64,8 @@ export function limbWindows(card: RuleCard, grid: Grid, ob: Obligations): LimbWi
   const hand = thresholdsOf(pace, HAND_LIMITS);
   const ticks = instantTicks(grid);
   const barTicks = pace.ticksPerBeat * grid.beatsPerBar;
+  const grouping = card.meter.grouping;
+  const pulse = pace.ticksPerBeat * (grouping?.length && grouping.every((g) => g === 3) ? 3 : 1);
   const near = (reach: number): Near[] =>
     arrayOf(grid.slotsPerBar, (i) => {
       const offsets: number[] = [];
@@ -92,7 +97,8 @@ export function limbWindows(card: RuleCard, grid: Grid, ob: Obligations): LimbWi
     foot,
     hand,
     run: runTicks(pace),
-    footNear: near(Math.max(2 * foot.single, 2 * runTicks(pace))),
+    pulse,
+    footNear: near(Math.max(2 * foot.single, 2 * runTicks(pace), pulse)),
     handNear: card.sticking.doubles ? grid.beatOf.map(() => none) : near(hand.single),
   };
 }
@@ -142,7 +148,19 @@ export function limbsAllow(w: LimbWindows, f: BarStrokes, i: number, voice: Voic
   if (mine < 0) putHere();
   return handed
     ? handsCan(w.hand, times, mine)
-    : footCan(w.foot, times, mine) && !footRun(w.run, times, offsets, mine);
+    : footCan(w.foot, times, mine) &&
+        !footRun(w.run, times, offsets, mine) &&
+        !footBusy(w.pulse, times, mine);
+}
+
+/**
+ * True when the new stroke makes three foot strokes within less than a beat (1-e-a on the kick,
+ * a kick triplet under a 12/8 shuffle): too busy for a groove's kick (common practice).
+ */
+function footBusy(pulse: number, times: readonly number[], mine: number): boolean {
+  for (let a = Math.max(0, mine - 2); a <= mine && a + 2 < times.length; a++)
+    if ((times[a + 2] ?? 0) - (times[a] ?? 0) < pulse) return true;
+  return false;
 }
 
 /** No three hand strokes in a row within one hand's single-stroke time. */

@@ -55,6 +55,7 @@ export function createFillContext(
   const keptFree = new Set<number>();
   for (const instants of ob.avoided.values())
     for (const instant of instants.keys()) keptFree.add(instant);
+  const middle = shuffleMiddles(card, grid, ob);
   const options: VoiceId[][][] = [];
   for (let bar = 0; bar < grid.bars; bar++) {
     const perInstant: VoiceId[][] = [];
@@ -71,7 +72,11 @@ export function createFillContext(
       for (const v of voices) {
         if (isHandVoice(v) && busy[instant]) continue;
         if (hasVoice(cell, v)) continue;
-        if (embellishing.has(v) ? hole && !keptFree.has(instant) : !ob.avoided.get(v)?.has(instant))
+        if (
+          embellishing.has(v)
+            ? hole && !keptFree.has(instant)
+            : !ob.avoided.get(v)?.has(instant) && !middle.has(instant)
+        )
           here.push(v);
       }
     }
@@ -86,6 +91,29 @@ export function createFillContext(
 function hasVoice(cell: readonly { voice: VoiceId }[], voice: VoiceId): boolean {
   for (const hit of cell) if (hit.voice === voice) return true;
   return false;
+}
+
+/**
+ * The silent middle notes of a shuffle: where the hands' time plays the first and the last note
+ * of every triplet (the slots of a triplet beat, or the eighths of a compound meter's dotted
+ * quarter) and never the middle one, the anchor (the kick) favours the beat and the last
+ * triplet and leaves the middle one out (common practice). Empty for any other time.
+ */
+function shuffleMiddles(card: RuleCard, grid: Grid, ob: Obligations): Set<number> {
+  const grouping = card.meter.grouping;
+  const compound =
+    !!grouping?.length && grouping.every((g) => g === 3) && grid.beats.every((b) => b === 1);
+  const starts: number[] = [];
+  for (let i = 0; i < grid.instants; i++) {
+    const b = grid.beatOf[i] ?? 0;
+    if (compound ? i % 3 === 0 : grid.slotOf[i] === 0 && grid.beats[b] === 3) starts.push(i);
+  }
+  const time = (i: number): boolean =>
+    (ob.cells[i] ?? []).some((h) => h.source === 'ostinato' && isHandVoice(h.voice));
+  const shuffle =
+    starts.length > 0 &&
+    starts.every((i) => !time(i + 1) && (ob.inFill[i] || (time(i) && time(i + 2))));
+  return new Set(shuffle ? starts.map((i) => i + 1) : []);
 }
 
 /**
@@ -330,9 +358,15 @@ export function initialFill(
   rng: Rng,
   lean: number,
   target: number | null = null,
+  landing = false,
 ): BarFill {
   const f = emptyFill(ctx, bar);
-  const count = fillCount(ctx, bar, target);
+  // A landing keeps at least one note on the beat when the groove's bars have one (a kick on 3
+  // under a sparse groove), so it does not hang on the backbeat's syncopation.
+  const count = Math.max(
+    landing ? Math.min(1, fillCount(ctx, bar, null)) : 0,
+    fillCount(ctx, bar, target),
+  );
   // Additions only close instants: the one just taken, and every lone hit once the linear
   // budget is spent. So the live weights are kept up to date instead of rebuilt per hit.
   const weights = liveWeights(ctx, f, instantWeights(ctx, bar, lean));

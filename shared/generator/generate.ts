@@ -24,7 +24,7 @@ import type { Attempt } from './pipeline/stages';
  * around them. A kept bar that does not fit the card is refused with a RuleCardError naming it.
  */
 export function generateDrill(input: RuleCard, seed: string, options: GenerateOptions = {}): Drill {
-  const proven = prove(place(frame(input, seed)), options.keep ?? []);
+  const proven = prove(place(frame(input, seed), options.keep), options.keep ?? []);
   const attempt: Attempt = { rng: createRng(seed), budget: { left: SEARCH_WORK_BUDGET } };
   // Fresh fills are tried, while the work budget lasts, when the strokes the limbs cannot play
   // were removed and that broke the tension order.

@@ -5,7 +5,7 @@ import { colourCrashes, placeAnchors } from './rules/anchor';
 import { planAvoidDownbeat } from './rules/avoid-downbeat';
 import { placeBackbeat } from './rules/backbeat';
 import { placeEuclid } from './rules/euclid';
-import { fillBars, fillWindow, phraseOf, placePhrase } from './rules/phrase';
+import { fillBars, fillWindow, phraseOf, placePhrase, type GivenFill } from './rules/phrase';
 import { SOURCE_RANK, type Placement } from './rules/placement';
 import { placePolyrhythm } from './rules/polyrhythm';
 import { placeTimeLayers } from './rules/time-layers';
@@ -26,9 +26,15 @@ export interface Obligations {
 /**
  * Places every obligatory hit of the card and merges them by precedence: time layers, the
  * rules, the phrase fill (on what the rules leave free), then the anchors (kick on one, colour
- * crash) where nothing keeps them off.
+ * crash) where nothing keeps them off. The seed varies the phrase's fill (see `placePhrase`); a
+ * fill bar `given` (kept, or being checked) keeps the allowed fill it has.
  */
-export function collectObligations(card: RuleCard, grid: Grid): Obligations {
+export function collectObligations(
+  card: RuleCard,
+  grid: Grid,
+  seed?: string,
+  given?: GivenFill,
+): Obligations {
   const inFill = fillWindow(card, grid);
   const crashed = crashInstants(card, grid);
   const placements: Placement[] = placeTimeLayers(card, grid, inFill, crashed);
@@ -68,6 +74,8 @@ export function collectObligations(card: RuleCard, grid: Grid): Obligations {
       // The fill leaves out the slots other rules hold and the downbeats kept free.
       (instant) => ruled.has(instant),
       (instant) => before[instant]?.length ?? 0,
+      seed,
+      given,
     ),
   );
   const cells = merge(placements, grid);

@@ -57,7 +57,7 @@ export function drawFills(
       ? initialFill(ctx, bar, rng, targets[bar] ?? 0.5, targets[bar] ?? 0.5)
       : landings.has(bar)
         ? // A landing releases: few fill notes, on the strong positions (common practice).
-          initialFill(ctx, bar, rng, LANDING_LEAN, 0)
+          initialFill(ctx, bar, rng, LANDING_LEAN, 0, true)
         : initialFill(ctx, bar, rng, 0.5),
   );
 }

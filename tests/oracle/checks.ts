@@ -13,6 +13,7 @@ import {
   type OracleCard,
   type Voice,
 } from './card';
+import { checkGrooves, GROOVE_CHECKS } from './groove-checks';
 import { key, PRECEDENCE, type Plan, type Source } from './plan';
 import { measuredTension, measuredWitek } from './tension';
 
@@ -104,6 +105,7 @@ export const PRESET_CHECKS = [
   'preset/fill-goes-round-the-toms',
   'preset/accents-apart-on-one-hand',
   'preset/no-foot-three-in-a-row',
+  ...GROOVE_CHECKS,
 ] as const;
 
 export type CheckName = (typeof DRILL_CHECKS)[number] | (typeof PRESET_CHECKS)[number];
@@ -791,9 +793,25 @@ export function checkPreset(plan: Plan, drill: DrillLike): Violation[] {
   // A backbeat goes to the hand the time leaves free (common practice: the right hand rides the
   // hi-hat, the left plays the snare on 2 and 4), wherever the backbeat is moved to; a voice on
   // the free hand's far side is left to the crossing check, and in a phrase's fill window the
-  // time rests, so both hands are free and the fill's sticking rules.
+  // time rests, so both hands are free and the fill's sticking rules. The one exception: the free
+  // hand accents within half a second of it, so the backbeat would be its second accent in a row
+  // (preset/no-accent-after-accent-on-one-hand: the late backbeat on the "&" of 1 right before
+  // the one on 2).
   if (timeHand && card.ostinato && isHand(card.ostinato.voice)) {
     const freeHand = timeHand === 'R' ? 'L' : 'R';
+    const seconds = (from: number, to: number): number => {
+      let t = 0;
+      for (let i = from; i !== to; i = (i + 1) % n) t += 60 / grid.notesPerMinuteAt(i, card.tempo);
+      return t;
+    };
+    const freeAccentBeside = (index: number): boolean =>
+      hits.some(
+        (g) =>
+          g.hand === freeHand &&
+          g.dynamic === 'accent' &&
+          g.index !== index &&
+          Math.min(seconds(g.index, index), seconds(index, g.index)) < 0.5 - 1e-9,
+      );
     const farForFree =
       (freeHand === 'L') === (card.hand === 'right')
         ? FAR_SIDE_FOR_LEFT_HAND
@@ -805,7 +823,8 @@ export function checkPreset(plan: Plan, drill: DrillLike): Violation[] {
         isHand(h.voice as Voice) &&
         h.voice !== card.ostinato.voice &&
         !farForFree.has(h.voice) &&
-        h.hand !== freeHand
+        h.hand !== freeHand &&
+        !freeAccentBeside(h.index)
       )
         out.push({
           check: 'preset/backbeat-on-the-free-hand',
@@ -994,6 +1013,8 @@ export function checkPreset(plan: Plan, drill: DrillLike): Violation[] {
         message: `the ${foot} plays three grid notes in a row from ${grid.describe(i)} at ${card.tempo} BPM`,
       });
     }
+
+  out.push(...checkGrooves(plan, hits));
 
   // A card says each rule once: the same rule twice is a slip (it changes nothing but reads as
   // if it did).

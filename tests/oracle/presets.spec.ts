@@ -1,6 +1,9 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { BUILT_IN_PRESETS } from '../../shared/generator/presets/index';
+import { generateDrill, parseRuleCard } from '../../shared/generator/index';
+import { readCard, rulesOf } from './card';
 import { DRILL_CHECKS, PRESET_CHECKS } from './checks';
+import { planOf } from './plan';
 import { failuresOf, report, runCard, type Outcome } from './run';
 
 /**
@@ -46,5 +49,33 @@ describe('rule oracle: presets at 20 seeds', () => {
 
   it.each([...DRILL_CHECKS, ...PRESET_CHECKS])('%s holds on every preset drill', (check) => {
     expect(failuresOf(outcomes, check), '').toBeNull();
+  });
+
+  // A phrase's fill varies with the seed where its window holds more strokes than two for each of
+  // its voices (common practice: a teacher hands out more than one fill for a groove; the order
+  // high to low and the pairs stay, how many pairs each drum takes may change).
+  it('phrase fills vary with the seed where the window leaves room', () => {
+    const same: string[] = [];
+    for (const preset of BUILT_IN_PRESETS) {
+      const parsed = parseRuleCard(preset.card);
+      const plan = planOf(readCard(preset.card, parsed));
+      const phrase = rulesOf(plan.card, 'phrase')[0];
+      if (!phrase) continue;
+      const perBar = plan.fillWindow.size / Math.max(1, plan.fillBars.length);
+      if (perBar <= 2 * phrase.voices.length) continue;
+      const fills = new Set(
+        SEEDS.map((seed) =>
+          JSON.stringify(
+            generateDrill(parsed, seed).bars.flatMap((b) =>
+              b.hits
+                .filter((h) => h.source === 'phrase')
+                .map((h) => `${b.bar}.${h.beat}.${h.slot}.${h.voice}`),
+            ),
+          ),
+        ),
+      );
+      if (fills.size < 2) same.push(preset.id);
+    }
+    expect(same, 'presets whose fill is the same at every seed').toEqual([]);
   });
 });

@@ -9,6 +9,7 @@ import { assertTensionReachable, barReaches, cardReach, type BarReach } from '..
 import { listWords } from '../words';
 import { barOf } from './bars';
 import type { Placed, Proven } from './stages';
+import { phraseVaries } from '../rules/phrase';
 
 /**
  * Stage 3: refuses, by proof, cards whose rules cannot all hold (colliding obligations, too
@@ -102,11 +103,12 @@ function assertTensionReachableKeeping(
 /**
  * True when every seed gives the same drill: no bar has a fill to choose (the density rounds to
  * nothing, or to every free slot with one voice each) and nothing else is drawn (no tension
- * search, no ghost/accent shares to arrange).
+ * search, no ghost/accent shares to arrange, no phrase fill to vary).
  */
 function allowsOneDrill(ctx: FillContext): boolean {
   const { card, grid } = ctx;
   if (card.rules.some((r) => r.kind === 'tension')) return false;
+  if (phraseVaries(card, grid)) return false;
   if (card.rules.some((r) => r.kind === 'fillHoles' && r.ghost > 0 && r.ghost + r.accent < 1))
     return false;
   for (let bar = 0; bar < grid.bars; bar++) {

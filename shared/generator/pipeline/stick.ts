@@ -2,6 +2,8 @@ import { RuleConflictError } from '../errors';
 import type { FillContext } from '../fill';
 import { positionOf, type Grid } from '../grid';
 import { frameOf } from '../sticking/streams';
+import { homeBackbeats, quietBeforeAccents } from '../sticking/into-accents';
+import { spreadAccents } from '../sticking/spread-accents';
 import { assignHandsRepairing, type WorkHit } from '../hands';
 import type { KeptBars } from '../keep';
 import { fitShares, keptShares, sharesConflict } from '../kept-shares';
@@ -15,7 +17,9 @@ import type { Attempt, Shaped, Stuck } from './stages';
 /**
  * Stage 6: the sticking. The fills join the obligations; every hand note gets R or L as a
  * teacher would write it (fill strokes the limbs cannot play are removed); then the dynamics of
- * the embellishments (ghost notes, a fillHoles rule's shares).
+ * the embellishments (ghost notes, a fillHoles rule's shares), with no full fill stroke right
+ * before an accent of its hand (traded for a ghost, or removed and the hands assigned again), and
+ * no two accents in a row on one hand within half a second where the other hand can take one.
  */
 export function stick(shaped: Shaped, attempt: Attempt): Stuck {
   const { fills, ...proven } = shaped;
@@ -36,7 +40,15 @@ export function stick(shaped: Shaped, attempt: Attempt): Stuck {
   // Around kept notes, a fillHoles rule's shares may need fewer (or more) free notes.
   for (let k = 0; k < 2 && fitShares(free, cells, kept, attempt.rng); k++)
     repairHands(card, grid, cells, kept);
-  markEmbellishments(free, cells, attempt.rng, kept);
+  const owners = fillHolesOwners(card);
+  for (let k = 0; ; k++) {
+    markEmbellishments(free, cells, attempt.rng, kept);
+    spreadAccents(card, grid, cells);
+    if (k === 3) break;
+    const quieted = quietBeforeAccents(grid, card.tempo, cells, owners);
+    if (!(homeBackbeats(card, cells) || quieted)) break;
+    repairHands(card, grid, cells, kept);
+  }
   return { ...proven, cells };
 }
 
@@ -149,9 +161,10 @@ function markEmbellishments(ctx: FillContext, cells: WorkHit[][], rng: Rng, kept
 }
 
 /**
- * No hand plays accents on two grid notes in a row of a run (common practice: an accent is a
- * full stroke from a raised stick, and the note right after it is a tap as the stick comes
- * down; the left hand's snare accent right after its backbeat blurs the backbeat). Where a free
+ * No hand plays accents on two grid notes in a row of a run, nor on two strokes in a row less
+ * than half a second apart (common practice: an accent is a full stroke from a raised stick, and
+ * the note right after it is a tap as the stick comes down; the left hand's snare accent right
+ * after its backbeat blurs the backbeat). Where a free
  * note's accent lies beside another accent of its hand, it trades its dynamic with a free note
  * of the rule whose accent would lie beside none (a normal note first, then a ghost), so the
  * rule's shares stay as they are; no draw of the seeded generator is spent. `freeAt`: each free
@@ -172,19 +185,29 @@ function separateAccents(
     const gap = (ticks[b] ?? 0) - (ticks[a] ?? 0);
     return gap > 0 ? gap : gap + pace.loop;
   };
-  /** True when free note `k`, accented, would sit beside another accent of its hand in a run. */
+  // Half a second in ticks (`t` ticks last 60 t / beatTicks seconds).
+  const half = pace.beatTicks / 120;
+  /** True when free note `k`, accented, would sit beside another accent of its hand in a run, or
+   * its hand's stroke before or after it, less than half a second away, is an accent. */
   const crowded = (k: number): boolean => {
     const hit = free[k] as WorkHit;
     const at = freeAt[k];
-    if (at === undefined || hit.hand === null) return false;
-    const before = (at + n - 1) % n;
-    const after = (at + 1) % n;
+    if (at === undefined || hit.hand === null || n < 2) return false;
     const accentOf = (i: number): boolean =>
       (cells[i] ?? []).some((h) => h !== hit && h.hand === hit.hand && h.dynamic === 'accent');
-    return (
-      (n > 1 && step(before, at) <= run && accentOf(before)) ||
-      (n > 1 && step(at, after) <= run && accentOf(after))
-    );
+    const strikes = (i: number): boolean =>
+      (cells[i] ?? []).some((h) => h !== hit && h.hand === hit.hand);
+    for (const dir of [-1, 1]) {
+      for (let d = 1; d < n; d++) {
+        const i = (at + dir * d + n * d) % n;
+        const gap = dir < 0 ? step(i, at) : step(at, i);
+        if (d > 1 && gap >= half) break;
+        if (d === 1 && gap > run && gap >= half) break;
+        if (accentOf(i)) return true;
+        if (strikes(i)) break;
+      }
+    }
+    return false;
   };
   const find = (dynamic: WorkHit['dynamic'], not: number): WorkHit | undefined => {
     for (let k = 0; k < free.length; k++)

@@ -12,6 +12,7 @@ import { where, type Located } from './located';
 import { measureTension } from '../tension';
 import { createTensionGauge } from '../tension-gauge';
 import { collectObligations, type Obligations } from '../obligations';
+import { givenFillOf } from './phrase';
 import type { RuleCard } from '../schema';
 import { fromUnits, tensionUnits } from '../tension/scale';
 import { ENGINE_VERSION } from '../version';
@@ -73,7 +74,7 @@ export function checkDrillWith(
     });
   const cells = checkShape(grid, card, drill.bars, out);
   if (out.length > 0) return out;
-  const ob = known?.ob ?? collectObligations(card, grid);
+  const ob = known?.ob ?? collectObligations(card, grid, drill.seed, givenFillOf(grid, drill.bars));
   checkObligations(card, grid, ob, cells, out);
   checkFill(card, grid, ob, cells, out);
   checkLinear(card, grid, cells, out);

@@ -1,4 +1,11 @@
-import { VOICE_IDS, type Dynamic, type Hand, type HitSource, type VoiceId } from '../drill';
+import {
+  isHandVoice,
+  VOICE_IDS,
+  type Dynamic,
+  type Hand,
+  type HitSource,
+  type VoiceId,
+} from '../drill';
 import type { Grid } from '../grid';
 import { faultsOf } from '../rules/check-hands';
 import { handOf, onFarSide, placeOf } from './kit';
@@ -27,6 +34,8 @@ export interface WorkHit {
   hand: Hand | null;
   /** A note of a kept bar: its hand and dynamic stay as given, and it is never removed. */
   readonly pinned?: boolean;
+  /** The hand this note must take (a constraint only, like a kept bar's hand). */
+  steer?: Hand;
 }
 
 /** Why the limbs cannot play the notes, and where the trouble shows. */
@@ -117,11 +126,16 @@ interface Ctx {
   /** The shortest double of a hand (ticks). */
   readonly doubleTicks: number;
   readonly width: number;
+  /** A beat in ticks (a dotted-quarter group in a compound meter): a foot's busiest span. */
+  readonly pulse: number;
   /** Three-in-a-row runs can be avoided only on loops of three instants or more. */
   readonly runs: boolean;
   /** Per VOICE_IDS index: bit 1 far side for the right hand, bit 2 for the left; its place. */
   readonly far: Uint8Array;
   readonly place: Int8Array;
+  /** Per VOICE_IDS index: bit 1 past the middle for the right hand (the mid tom and on), bit 2
+   * for the left (the snare and on): out of one quick note's reach from that hand's far side. */
+  readonly past: Uint8Array;
 }
 
 function contextOf(card: StickingCard, grid: Grid): Ctx {
@@ -129,7 +143,10 @@ function contextOf(card: StickingCard, grid: Grid): Ctx {
   const lead = card.sticking.lead;
   const far = new Uint8Array(VOICE_IDS.length);
   const place = new Int8Array(VOICE_IDS.length);
+  const past = new Uint8Array(VOICE_IDS.length);
   VOICE_IDS.forEach((voice, v) => {
+    const x = isHandVoice(voice) ? placeOf(voice, card.hand) : 0;
+    past[v] = isHandVoice(voice) ? (x >= 1 ? 1 : 0) | (x <= -1 ? 2 : 0) : 0;
     far[v] =
       (onFarSide(voice, 'R', card.hand) ? 1 : 0) | (onFarSide(voice, 'L', card.hand) ? 2 : 0);
     place[v] = placeOf(voice, card.hand);
@@ -145,9 +162,13 @@ function contextOf(card: StickingCard, grid: Grid): Ctx {
     memory: frame.hand.single,
     doubleTicks: frame.hand.double,
     width: frame.hand.single + 2,
+    pulse:
+      frame.pace.ticksPerBeat *
+      (card.meter?.grouping?.length && card.meter.grouping.every((g) => g === 3) ? 3 : 1),
     runs: grid.instants >= 3,
     far,
     place,
+    past,
   };
 }
 
@@ -237,7 +258,7 @@ function footFailure(
       }
     }
   }
-  const span = 2 * ctx.frame.foot.single;
+  const span = Math.max(2 * ctx.frame.foot.single, ctx.pulse);
   for (const name of ctx.card.voices) {
     const v = VOICE_INDEX[name];
     const instants = feet.get(v);
@@ -261,8 +282,9 @@ function footFailure(
 
 /**
  * The instant where a foot first breaks its rates (round the loop last), or -1; then the third
- * of three notes in a row of a run on the foot when a fill stroke is among them (common
- * practice: one foot does not play three grid notes running unless the card asks for them).
+ * of three notes within less than a beat, or in a row of a run, on the foot when a fill stroke is
+ * among them (common practice: one foot does not play three grid notes running, nor 1-e-a,
+ * unless the card asks for them).
  */
 function footTrouble(ctx: Ctx, instants: readonly number[], loose: readonly boolean[]): number {
   const count = instants.length;
@@ -285,6 +307,14 @@ function footTrouble(ctx: Ctx, instants: readonly number[], loose: readonly bool
     if (bad) return instants[at === 0 ? count - 1 : at] ?? 0;
   }
   if (count < 3 || ctx.n < 3) return -1;
+  // Three strokes within less than a beat, a fill stroke among them (1-e-a on the kick).
+  const tickOf = (k: number): number => ticks[instants[k % count] ?? 0] ?? 0;
+  for (let k = 0; k < count; k++) {
+    const k2 = k + 2;
+    const width = tickOf(k2) - tickOf(k) + (k2 >= count ? ctx.loop : 0);
+    if (width < ctx.pulse && (loose[k] || loose[(k + 1) % count] || loose[k2 % count]))
+      return instants[k2 % count] ?? 0;
+  }
   const { n } = ctx;
   const runStep = (k: number): boolean => {
     const a = instants[(k - 1 + count) % count] ?? 0;
@@ -443,7 +473,9 @@ const LS_R = 1 << 23; // the right hand's stroke at the previous note was a loos
 const LS_L = 1 << 24;
 const LX_R = 1 << 25; // of the right hand's previous two strokes, one was a loose fill stroke
 const LX_L = 1 << 26;
-const FLAGS = 1 << 27;
+const PAST_R = 1 << 27; // at the previous note the right hand played past the middle (see `past`)
+const PAST_L = 1 << 28;
+const FLAGS = 1 << 29;
 
 /** The search's states, layer after layer, in flat arrays: layer L is begin[L]..begin[L+1]-1. */
 interface Lattice {
@@ -646,7 +678,10 @@ function besideFillStroke(cells: Cells, instant: number, n: number): boolean {
   return false;
 }
 
-const pinOf = (hit: WorkHit): number => (!hit.pinned ? 0 : hit.hand === 'R' ? 1 : 2);
+const pinOf = (hit: WorkHit): number => {
+  const hand = hit.pinned ? hit.hand : hit.steer;
+  return !hand ? 0 : hand === 'R' ? 1 : 2;
+};
 
 /** Sets the first event's steps as the second lap meets it: one on from the drill's last. */
 function wrap(ctx: Ctx, first: Event, last: Event): void {
@@ -693,12 +728,14 @@ function advance(
   const to = lat.begin[layer + 1] ?? 0;
   const base = lat.size;
   const T = ev.tick + offset;
-  const { memory, width, doubles, doubleTicks, lead, far, place } = ctx;
+  const { memory, width, doubles, doubleTicks, lead, far, place, past } = ctx;
   const two = ev.b !== null;
   // Far sides (bit 1 the right hand's, bit 2 the left's); time and figure notes never count
   // as crossing, but do for arms crossed both ways (raw).
   const rawFar0 = far[ev.va] ?? 0;
   const rawFar1 = two ? (far[ev.vb] ?? 0) : 0;
+  const past0 = past[ev.va] ?? 0;
+  const past1 = two ? (past[ev.vb] ?? 0) : 0;
   const far0 = ev.forced0 ? 0 : rawFar0;
   const far1 = ev.forced1 ? 0 : rawFar1;
   const crossedIfFirstR = two && (place[ev.va] ?? 0) < (place[ev.vb] ?? 0);
@@ -775,6 +812,19 @@ function advance(
           why.other = true;
           continue;
         }
+        const pastNowR = firstHand === 1 ? past0 & 1 : past1 & 1;
+        const pastNowL = firstHand === 1 ? past1 & 2 : past0 & 2;
+        const looseR = firstHand === 1 ? ev.loose0 : ev.loose1;
+        const looseL = firstHand === 1 ? ev.loose1 : ev.loose0;
+        // A fill stroke never takes a hand from its far side past the middle in one quick note.
+        if (
+          ev.runStep &&
+          ((((farNowR && f & PAST_R) || (pastNowR && f & FAR_R)) && (looseR || f & LS_R)) ||
+            (((farNowL && f & PAST_L) || (pastNowL && f & FAR_L)) && (looseL || f & LS_L)))
+        ) {
+          why.other = true;
+          continue;
+        }
         // Soft: third notes of a run in a row, a pending crossing left unmet, backbeats.
         const exR = (firstHand === 1 ? ev.forced0 : ev.forced1) !== 0;
         const exL = (firstHand === 1 ? ev.forced1 : ev.forced0) !== 0;
@@ -807,6 +857,8 @@ function advance(
           (farNowL ? FAR_L : 0) |
           (ownNowR ? OWN_R : 0) |
           (ownNowL ? OWN_L : 0) |
+          (pastNowR ? PAST_R : 0) |
+          (pastNowL ? PAST_L : 0) |
           strikeBits(f, 1, ev.runStep, exR, lsR) |
           strikeBits(f, 2, ev.runStep, exL, lsL);
         put(lat, base, flags, T, T, flags, cost, p, firstHand === 1 ? 0 : 1);
@@ -840,6 +892,16 @@ function advance(
       if (
         ev.runStep &&
         ((farNow && f & (right ? OWN_R : OWN_L)) || (ownNow && f & (right ? FAR_R : FAR_L)))
+      ) {
+        why.other = true;
+        continue;
+      }
+      // Nor does a fill stroke take it from its far side past the middle in one quick note.
+      const pastNow = past0 & hand;
+      if (
+        ev.runStep &&
+        (ev.loose0 || f & (right ? LS_R : LS_L)) &&
+        ((farNow && f & (right ? PAST_R : PAST_L)) || (pastNow && f & (right ? FAR_R : FAR_L)))
       ) {
         why.other = true;
         continue;
@@ -897,7 +959,9 @@ function advance(
       }
       const keep = f & (right ? DBL_L : DBL_R);
       const farBit =
-        (farNow ? (right ? FAR_R : FAR_L) : 0) | (ownNow ? (right ? OWN_R : OWN_L) : 0);
+        (farNow ? (right ? FAR_R : FAR_L) : 0) |
+        (ownNow ? (right ? OWN_R : OWN_L) : 0) |
+        (pastNow ? (right ? PAST_R : PAST_L) : 0);
       const flags =
         keep |
         dbl |

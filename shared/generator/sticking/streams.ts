@@ -23,7 +23,8 @@ export interface NoteLike {
 export type StickingCard = Pick<
   RuleCard,
   'voices' | 'roles' | 'ostinato' | 'layers' | 'sticking' | 'hand' | 'tempo'
->;
+> &
+  Partial<Pick<RuleCard, 'meter'>>;
 
 /** A card's grid and tempo with what every sticking test needs, worked out once. */
 export interface Frame {
