@@ -68,19 +68,49 @@ describe('renderDrillSvg (Node, jsdom + @napi-rs/canvas)', () => {
     }
   });
 
-  it('brackets every quintuplet beat that has off-beat notes with a 5', () => {
-    for (const [voice, hand] of [
-      ['hands', true],
-      ['feet', false],
-    ] as const) {
-      const brackets = [...doc.querySelectorAll(`[data-voice="${voice}"] [data-tuplet]`)];
-      expect(brackets.length).toBe(offBeatBeats(drill, 5, hand));
-      for (const bracket of brackets) {
-        expect(bracket.getAttribute('data-tuplet')).toBe('5');
-        expect(bracket.querySelector('.vf-tuplet text')?.textContent).toBe(tupletGlyph(5));
-      }
+  // E. Gould, "Behind Bars", Faber Music 2011, ch. "Tuplets" (from memory): once a tuplet
+  // pattern is established the numbers may be dropped, "sim." after the first.
+  it('writes one "5" in each voice, followed by "sim.", in a drill in quintuplets throughout', () => {
+    for (const voice of ['hands', 'feet'] as const) {
+      const numbers = [...doc.querySelectorAll(`[data-voice="${voice}"] [data-tuplet]`)];
+      expect(numbers, voice).toHaveLength(1);
+      expect(numbers[0]!.getAttribute('data-tuplet')).toBe('5');
+      expect(numbers[0]!.querySelector('.vf-tuplet text')?.textContent).toBe(tupletGlyph(5));
+      expect(doc.querySelectorAll(`[data-voice="${voice}"] .tensile-simile`), voice).toHaveLength(
+        1,
+      );
     }
-    expect(offBeatBeats(drill, 5, true)).toBeGreaterThan(0);
+    expect(offBeatBeats(drill, 5, true)).toBeGreaterThan(4);
+  });
+
+  // Gould, "Behind Bars", ch. "Tuplets" (from memory): where one beam spans exactly the
+  // tuplet's notes the number stands alone; a group with a rest at an end keeps its bracket.
+  it('draws the bracket line only where the beam does not span the whole group', () => {
+    const quintupletDrill = (slots: number[]): Drill => ({
+      ...drill,
+      bars: drill.bars.slice(0, 1).map((bar) => ({
+        ...bar,
+        hits: slots.map((slot) => ({
+          beat: 1,
+          slot,
+          voice: 'hihat' as const,
+          dynamic: 'normal' as const,
+          hand: 'R' as const,
+          source: 'fill' as const,
+        })),
+      })),
+    });
+    const bracketLines = (slots: number[]) => {
+      const one = parse(renderDrillSvg(quintupletDrill(slots), { width: 1100 }).svg);
+      const numbers = [...one.querySelectorAll('[data-voice="hands"] .vf-tuplet')];
+      expect(numbers).toHaveLength(1);
+      expect(numbers[0]!.querySelector('text')?.textContent).toBe(tupletGlyph(5));
+      // VexFlow draws a bracket's lines (two level, two hooks) as thin rectangles.
+      return numbers[0]!.querySelectorAll('rect').length;
+    };
+    expect(bracketLines([0, 2, 4])).toBe(0);
+    expect(bracketLines([0, 1, 2, 3, 4])).toBe(0);
+    expect(bracketLines([0, 2, 3])).toBe(4);
   });
 
   it('sets every notehead on the line or space the drum-set convention gives its voice', () => {

@@ -170,7 +170,7 @@ function addBeamsAndTuplets(
     if (breaks.length > 0) beam.breakSecondaryAt([...breaks]);
     beams.push({ beam, layer: layerBar.layer });
   }
-  for (const { ratio, events, shown, simile } of layerBar.tuplets) {
+  for (const { ratio, events, shown, simile, bracketed } of layerBar.tuplets) {
     const accented = events.some((i) => layerBar.events[i]?.accent);
     const tuplet = new LevelTuplet(
       events.map((i) => staveNotes[i]!),
@@ -178,7 +178,7 @@ function addBeamsAndTuplets(
         numNotes: ratio.numNotes,
         notesOccupied: ratio.notesOccupied,
         ratioed: false,
-        bracketed: true,
+        bracketed,
         location: layerBar.layer === 'hands' ? Tuplet.LOCATION_TOP : Tuplet.LOCATION_BOTTOM,
         // Outside the accents (VexFlow sets the bracket just past the stems, where an accent
         // at a stem's tip already is).
