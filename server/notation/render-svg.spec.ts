@@ -409,6 +409,38 @@ describe('renderDrillSvg: grouped eighth meters', () => {
     }
   });
 
+  // Common practice (an irregular meter is read pulse by pulse): in 7/8 as 2+2+3, counted
+  // "1 2, 1 2, 1 2 3", a note either lasts whole eighths from an eighth or stays inside one, so
+  // every counted eighth starts with a note or a rest and the beams show 2+2+3.
+  it('never lets a note or rest of 7/8 cross an eighth unless it lasts whole eighths', () => {
+    const seven = BUILT_IN_PRESETS.find((p) => p.id === 'seven-eight-two-two-three')!;
+    let checked = 0;
+    for (const seed of ['lesson-12', 'seed-1', '7', 'c']) {
+      const doc = parse(renderDrillSvg(generateDrill(parseRuleCard(seven.card), seed)).svg);
+      for (const voice of doc.querySelectorAll('.tensile-bar [data-voice]')) {
+        for (const event of voice.querySelectorAll('.tensile-note, .tensile-rest')) {
+          const written = event.getAttribute('data-duration')!;
+          if (written === '1') continue;
+          // In sixteenths: 16ths of this drill's two slots per eighth.
+          const value = Number(written.replace('d', ''));
+          const length = (16 / value) * (written.endsWith('d') ? 1.5 : 1);
+          const start =
+            (Number(event.getAttribute('data-beat')) - 1) * 2 +
+            Number(event.getAttribute('data-slot'));
+          const end = start + length;
+          const crosses = Math.floor(start / 2) !== Math.floor((end - 1) / 2);
+          if (crosses)
+            expect(
+              [start % 2, end % 2],
+              `${seed}: ${written} at beat ${event.getAttribute('data-beat')}`,
+            ).toEqual([0, 0]);
+          checked++;
+        }
+      }
+    }
+    expect(checked).toBeGreaterThan(50);
+  });
+
   it('keeps a cursor box for every beat, even one that a dotted quarter covers', () => {
     const drill = generateDrill(eighthsCard(6), 'boxes');
     const { layout } = renderDrillSvg(drill, { width: 1100 });

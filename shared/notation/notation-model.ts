@@ -274,12 +274,15 @@ function notateBar(
     return { beat, subdivision, counts, sticking };
   });
   const spans = beamSpans(bar.beats, meter);
+  // An uneven meter (7/8 as 2+2+3) is counted eighth by eighth, 6/8 and 9/8 by the dotted
+  // quarter (see `countBar`).
+  const countedByBeat = meter.grouping !== null && meter.grouping.some((size) => size !== 3);
   const layerBars = layers.map((layer) =>
     notateLayer(
       layer,
       bar,
       spans,
-      meter.unit,
+      { unit: meter.unit, countedByBeat },
       bar.hits.filter((h) => STAFF_PLACEMENTS[h.voice].layer === layer),
     ),
   );
@@ -327,7 +330,7 @@ function notateLayer(
   layer: Layer,
   bar: DrillBar,
   spans: readonly Span[],
-  unit: number,
+  { unit, countedByBeat }: { readonly unit: number; readonly countedByBeat: boolean },
   hits: readonly DrillHit[],
 ): LayerBar {
   const events: NotationEvent[] = [];
@@ -371,6 +374,7 @@ function notateLayer(
         slots,
         inSpan.map((hit) => (hit.beat - 1 - span.first) * slots + hit.slot),
         unit,
+        countedByBeat,
       );
       const toSlot = slots / rhythm.grid;
       for (const event of rhythm.events) {
