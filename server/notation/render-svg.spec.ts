@@ -113,6 +113,44 @@ describe('renderDrillSvg (Node, jsdom + @napi-rs/canvas)', () => {
     expect(bracketLines([0, 2, 3])).toBe(4);
   });
 
+  // E. Gould, "Behind Bars", Faber Music 2011, ch. "Articulation" (from memory): an articulation
+  // on a chord applies to all its notes; one meant for a single note is written where it can
+  // belong to that note alone.
+  it('writes the accent of an accented snare under an unaccented cymbal at the snare', () => {
+    const accentGlyphs = new Set([0xe4a0, 0xe4a1]);
+    let mixed = 0;
+    let whole = 0;
+    for (const [b, bar] of [...doc.querySelectorAll('.tensile-bar')].entries()) {
+      for (const note of bar.querySelectorAll('[data-voice="hands"] .tensile-note')) {
+        const beat = Number(note.getAttribute('data-beat'));
+        const slot = Number(note.getAttribute('data-slot'));
+        const hits = drill.bars[b]!.hits.filter(
+          (h) => h.beat === beat && h.slot === slot && isHandVoice(h.voice),
+        );
+        const accented = hits.filter((h) => h.dynamic === 'accent');
+        if (accented.length === 0) continue;
+        const texts = [...note.querySelectorAll('text')];
+        const accents = texts.filter((t) => accentGlyphs.has(t.textContent!.codePointAt(0)!));
+        expect(accents).toHaveLength(1);
+        const y = Number(accents[0]!.getAttribute('y'));
+        const heads = [...note.querySelectorAll('.vf-notehead')].map((h) =>
+          Number(h.querySelector('text')!.getAttribute('y')),
+        );
+        if (accented.length === hits.length) {
+          // The whole chord: at the stem's tip, above every head.
+          expect(y).toBeLessThan(Math.min(...heads));
+          whole++;
+          continue;
+        }
+        expect(accented.map((h) => h.voice)).toEqual(['snare']);
+        // Under the lowest head (the snare), not over the cymbal's stem.
+        expect(y, `bar ${b + 1} beat ${beat}`).toBeGreaterThan(Math.max(...heads));
+        mixed++;
+      }
+    }
+    expect(mixed).toBeGreaterThan(0);
+  });
+
   it('sets every notehead on the line or space the drum-set convention gives its voice', () => {
     let checked = 0;
     for (const bar of doc.querySelectorAll('.tensile-bar')) {
