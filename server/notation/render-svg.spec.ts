@@ -119,7 +119,6 @@ describe('renderDrillSvg (Node, jsdom + @napi-rs/canvas)', () => {
   it('writes the accent of an accented snare under an unaccented cymbal at the snare', () => {
     const accentGlyphs = new Set([0xe4a0, 0xe4a1]);
     let mixed = 0;
-    let whole = 0;
     for (const [b, bar] of [...doc.querySelectorAll('.tensile-bar')].entries()) {
       for (const note of bar.querySelectorAll('[data-voice="hands"] .tensile-note')) {
         const beat = Number(note.getAttribute('data-beat'));
@@ -139,7 +138,6 @@ describe('renderDrillSvg (Node, jsdom + @napi-rs/canvas)', () => {
         if (accented.length === hits.length) {
           // The whole chord: at the stem's tip, above every head.
           expect(y).toBeLessThan(Math.min(...heads));
-          whole++;
           continue;
         }
         expect(accented.map((h) => h.voice)).toEqual(['snare']);
