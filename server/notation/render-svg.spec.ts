@@ -1,3 +1,4 @@
+import { createCanvas } from '@napi-rs/canvas';
 import { JSDOM } from 'jsdom';
 import { describe, expect, it } from 'vitest';
 import { isHandVoice, type VoiceId } from '../../shared/generator/drill';
@@ -485,5 +486,72 @@ describe('renderDrillSvg: grouped eighth meters', () => {
       for (let i = 1; i < bar.beats.length; i++)
         expect(bar.beats[i]!.x).toBeGreaterThan(bar.beats[i - 1]!.x);
     }
+  });
+});
+
+describe('renderDrillSvg: sticking letters', () => {
+  const measure = createCanvas(10, 10).getContext('2d');
+
+  /** Clear space between neighbouring letters of each sticking line, with the letters' size. */
+  function letterGaps(svg: string): { gap: number; size: number; where: string }[] {
+    const doc = parse(svg);
+    const gaps: { gap: number; size: number; where: string }[] = [];
+    for (const row of doc.querySelectorAll('.tensile-sticking-row')) {
+      const size = Number(row.getAttribute('font-size'));
+      // The letters' ink as the font draws it (Academico bold, registered by the renderer).
+      measure.font = `bold ${size}px Academico`;
+      const lines = new Map<string, { left: number; right: number; text: string }[]>();
+      for (const span of row.querySelectorAll('tspan')) {
+        const text = span.textContent ?? '';
+        const m = measure.measureText(text);
+        const x = Number(span.getAttribute('x')) - m.width / 2;
+        const line = lines.get(span.getAttribute('y')!) ?? [];
+        line.push({
+          left: x - m.actualBoundingBoxLeft,
+          right: x + m.actualBoundingBoxRight,
+          text: `${text}@${span.getAttribute('data-beat')}.${span.getAttribute('data-slot')}`,
+        });
+        lines.set(span.getAttribute('y')!, line);
+      }
+      for (const line of lines.values()) {
+        line.sort((a, b) => a.left - b.left);
+        for (let i = 1; i < line.length; i++)
+          gaps.push({
+            gap: line[i]!.left - line[i - 1]!.right,
+            size,
+            where: `${line[i - 1]!.text} ${line[i]!.text}`,
+          });
+      }
+    }
+    return gaps;
+  }
+
+  // Sticking is read letter by letter: two letters need clearly more than a word space (about a
+  // quarter of an em; common practice) between them, or "L R" reads as one word "LR". The least
+  // gap is set at half the letters' size.
+  it('keeps half the letter size between neighbouring letters of 4:3 sticking', () => {
+    const poly = BUILT_IN_PRESETS.find((p) => p.id === 'four-over-three')!;
+    let checked = 0;
+    for (const bars of [4, 16]) {
+      for (const seed of ['lesson-12', 'seed-1', '7']) {
+        const drill = generateDrill(parseRuleCard({ ...(poly.card as object), bars }), seed);
+        for (const width of [1100, 1000, 800, 500, 390]) {
+          const { svg } = renderDrillSvg(drill, {
+            width,
+            showSticking: true,
+            showCounts: true,
+            showLegend: true,
+          });
+          const gaps = letterGaps(svg);
+          const tight = gaps.filter((g) => g.gap < g.size / 2);
+          expect(
+            tight.map((g) => `${g.where}: ${g.gap.toFixed(1)}`),
+            `${seed} ${bars} bars ${width}`,
+          ).toEqual([]);
+          checked += gaps.length;
+        }
+      }
+    }
+    expect(checked).toBeGreaterThan(100);
   });
 });
