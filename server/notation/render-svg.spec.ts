@@ -1,3 +1,4 @@
+import { createCanvas } from '@napi-rs/canvas';
 import { JSDOM } from 'jsdom';
 import { describe, expect, it } from 'vitest';
 import { isHandVoice, type VoiceId } from '../../shared/generator/drill';
@@ -68,19 +69,85 @@ describe('renderDrillSvg (Node, jsdom + @napi-rs/canvas)', () => {
     }
   });
 
-  it('brackets every quintuplet beat that has off-beat notes with a 5', () => {
-    for (const [voice, hand] of [
-      ['hands', true],
-      ['feet', false],
-    ] as const) {
-      const brackets = [...doc.querySelectorAll(`[data-voice="${voice}"] [data-tuplet]`)];
-      expect(brackets.length).toBe(offBeatBeats(drill, 5, hand));
-      for (const bracket of brackets) {
-        expect(bracket.getAttribute('data-tuplet')).toBe('5');
-        expect(bracket.querySelector('.vf-tuplet text')?.textContent).toBe(tupletGlyph(5));
+  // E. Gould, "Behind Bars", Faber Music 2011, ch. "Tuplets" (from memory): once a tuplet
+  // pattern is established the numbers may be dropped, "sim." after the first.
+  it('writes one "5" in each voice, followed by "sim.", in a drill in quintuplets throughout', () => {
+    for (const voice of ['hands', 'feet'] as const) {
+      const numbers = [...doc.querySelectorAll(`[data-voice="${voice}"] [data-tuplet]`)];
+      expect(numbers, voice).toHaveLength(1);
+      expect(numbers[0]!.getAttribute('data-tuplet')).toBe('5');
+      expect(numbers[0]!.querySelector('.vf-tuplet text')?.textContent).toBe(tupletGlyph(5));
+      expect(doc.querySelectorAll(`[data-voice="${voice}"] .tensile-simile`), voice).toHaveLength(
+        1,
+      );
+    }
+    expect(offBeatBeats(drill, 5, true)).toBeGreaterThan(4);
+  });
+
+  // Gould, "Behind Bars", ch. "Tuplets" (from memory): where one beam spans exactly the
+  // tuplet's notes the number stands alone; a group with a rest at an end keeps its bracket.
+  it('draws the bracket line only where the beam does not span the whole group', () => {
+    const quintupletDrill = (slots: number[]): Drill => ({
+      ...drill,
+      bars: drill.bars.slice(0, 1).map((bar) => ({
+        ...bar,
+        hits: slots.map((slot) => ({
+          beat: 1,
+          slot,
+          voice: 'hihat' as const,
+          dynamic: 'normal' as const,
+          hand: 'R' as const,
+          source: 'fill' as const,
+        })),
+      })),
+    });
+    const bracketLines = (slots: number[]) => {
+      const one = parse(renderDrillSvg(quintupletDrill(slots), { width: 1100 }).svg);
+      const numbers = [...one.querySelectorAll('[data-voice="hands"] .vf-tuplet')];
+      expect(numbers).toHaveLength(1);
+      expect(numbers[0]!.querySelector('text')?.textContent).toBe(tupletGlyph(5));
+      // VexFlow draws a bracket's lines (two level, two hooks) as thin rectangles.
+      return numbers[0]!.querySelectorAll('rect').length;
+    };
+    expect(bracketLines([0, 2, 4])).toBe(0);
+    expect(bracketLines([0, 1, 2, 3, 4])).toBe(0);
+    expect(bracketLines([0, 2, 3])).toBe(4);
+  });
+
+  // E. Gould, "Behind Bars", Faber Music 2011, ch. "Articulation" (from memory): an articulation
+  // on a chord applies to all its notes; one meant for a single note is written where it can
+  // belong to that note alone.
+  it('writes the accent of an accented snare under an unaccented cymbal at the snare', () => {
+    const accentGlyphs = new Set([0xe4a0, 0xe4a1]);
+    let mixed = 0;
+    for (const [b, bar] of [...doc.querySelectorAll('.tensile-bar')].entries()) {
+      for (const note of bar.querySelectorAll('[data-voice="hands"] .tensile-note')) {
+        const beat = Number(note.getAttribute('data-beat'));
+        const slot = Number(note.getAttribute('data-slot'));
+        const hits = drill.bars[b]!.hits.filter(
+          (h) => h.beat === beat && h.slot === slot && isHandVoice(h.voice),
+        );
+        const accented = hits.filter((h) => h.dynamic === 'accent');
+        if (accented.length === 0) continue;
+        const texts = [...note.querySelectorAll('text')];
+        const accents = texts.filter((t) => accentGlyphs.has(t.textContent!.codePointAt(0)!));
+        expect(accents).toHaveLength(1);
+        const y = Number(accents[0]!.getAttribute('y'));
+        const heads = [...note.querySelectorAll('.vf-notehead')].map((h) =>
+          Number(h.querySelector('text')!.getAttribute('y')),
+        );
+        if (accented.length === hits.length) {
+          // The whole chord: at the stem's tip, above every head.
+          expect(y).toBeLessThan(Math.min(...heads));
+          continue;
+        }
+        expect(accented.map((h) => h.voice)).toEqual(['snare']);
+        // Under the lowest head (the snare), not over the cymbal's stem.
+        expect(y, `bar ${b + 1} beat ${beat}`).toBeGreaterThan(Math.max(...heads));
+        mixed++;
       }
     }
-    expect(offBeatBeats(drill, 5, true)).toBeGreaterThan(0);
+    expect(mixed).toBeGreaterThan(0);
   });
 
   it('sets every notehead on the line or space the drum-set convention gives its voice', () => {
@@ -379,6 +446,38 @@ describe('renderDrillSvg: grouped eighth meters', () => {
     }
   });
 
+  // Common practice (an irregular meter is read pulse by pulse): in 7/8 as 2+2+3, counted
+  // "1 2, 1 2, 1 2 3", a note either lasts whole eighths from an eighth or stays inside one, so
+  // every counted eighth starts with a note or a rest and the beams show 2+2+3.
+  it('never lets a note or rest of 7/8 cross an eighth unless it lasts whole eighths', () => {
+    const seven = BUILT_IN_PRESETS.find((p) => p.id === 'seven-eight-two-two-three')!;
+    let checked = 0;
+    for (const seed of ['lesson-12', 'seed-1', '7', 'c']) {
+      const doc = parse(renderDrillSvg(generateDrill(parseRuleCard(seven.card), seed)).svg);
+      for (const voice of doc.querySelectorAll('.tensile-bar [data-voice]')) {
+        for (const event of voice.querySelectorAll('.tensile-note, .tensile-rest')) {
+          const written = event.getAttribute('data-duration')!;
+          if (written === '1') continue;
+          // In sixteenths: 16ths of this drill's two slots per eighth.
+          const value = Number(written.replace('d', ''));
+          const length = (16 / value) * (written.endsWith('d') ? 1.5 : 1);
+          const start =
+            (Number(event.getAttribute('data-beat')) - 1) * 2 +
+            Number(event.getAttribute('data-slot'));
+          const end = start + length;
+          const crosses = Math.floor(start / 2) !== Math.floor((end - 1) / 2);
+          if (crosses)
+            expect(
+              [start % 2, end % 2],
+              `${seed}: ${written} at beat ${event.getAttribute('data-beat')}`,
+            ).toEqual([0, 0]);
+          checked++;
+        }
+      }
+    }
+    expect(checked).toBeGreaterThan(50);
+  });
+
   it('keeps a cursor box for every beat, even one that a dotted quarter covers', () => {
     const drill = generateDrill(eighthsCard(6), 'boxes');
     const { layout } = renderDrillSvg(drill, { width: 1100 });
@@ -387,5 +486,72 @@ describe('renderDrillSvg: grouped eighth meters', () => {
       for (let i = 1; i < bar.beats.length; i++)
         expect(bar.beats[i]!.x).toBeGreaterThan(bar.beats[i - 1]!.x);
     }
+  });
+});
+
+describe('renderDrillSvg: sticking letters', () => {
+  const measure = createCanvas(10, 10).getContext('2d');
+
+  /** Clear space between neighbouring letters of each sticking line, with the letters' size. */
+  function letterGaps(svg: string): { gap: number; size: number; where: string }[] {
+    const doc = parse(svg);
+    const gaps: { gap: number; size: number; where: string }[] = [];
+    for (const row of doc.querySelectorAll('.tensile-sticking-row')) {
+      const size = Number(row.getAttribute('font-size'));
+      // The letters' ink as the font draws it (Academico bold, registered by the renderer).
+      measure.font = `bold ${size}px Academico`;
+      const lines = new Map<string, { left: number; right: number; text: string }[]>();
+      for (const span of row.querySelectorAll('tspan')) {
+        const text = span.textContent ?? '';
+        const m = measure.measureText(text);
+        const x = Number(span.getAttribute('x')) - m.width / 2;
+        const line = lines.get(span.getAttribute('y')!) ?? [];
+        line.push({
+          left: x - m.actualBoundingBoxLeft,
+          right: x + m.actualBoundingBoxRight,
+          text: `${text}@${span.getAttribute('data-beat')}.${span.getAttribute('data-slot')}`,
+        });
+        lines.set(span.getAttribute('y')!, line);
+      }
+      for (const line of lines.values()) {
+        line.sort((a, b) => a.left - b.left);
+        for (let i = 1; i < line.length; i++)
+          gaps.push({
+            gap: line[i]!.left - line[i - 1]!.right,
+            size,
+            where: `${line[i - 1]!.text} ${line[i]!.text}`,
+          });
+      }
+    }
+    return gaps;
+  }
+
+  // Sticking is read letter by letter: two letters need clearly more than a word space (about a
+  // quarter of an em; common practice) between them, or "L R" reads as one word "LR". The least
+  // gap is set at half the letters' size.
+  it('keeps half the letter size between neighbouring letters of 4:3 sticking', () => {
+    const poly = BUILT_IN_PRESETS.find((p) => p.id === 'four-over-three')!;
+    let checked = 0;
+    for (const bars of [4, 16]) {
+      for (const seed of ['lesson-12', 'seed-1', '7']) {
+        const drill = generateDrill(parseRuleCard({ ...(poly.card as object), bars }), seed);
+        for (const width of [1100, 1000, 800, 500, 390]) {
+          const { svg } = renderDrillSvg(drill, {
+            width,
+            showSticking: true,
+            showCounts: true,
+            showLegend: true,
+          });
+          const gaps = letterGaps(svg);
+          const tight = gaps.filter((g) => g.gap < g.size / 2);
+          expect(
+            tight.map((g) => `${g.where}: ${g.gap.toFixed(1)}`),
+            `${seed} ${bars} bars ${width}`,
+          ).toEqual([]);
+          checked += gaps.length;
+        }
+      }
+    }
+    expect(checked).toBeGreaterThan(100);
   });
 });

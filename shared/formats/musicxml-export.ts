@@ -160,7 +160,7 @@ function layerNotes(layer: LayerBar, divisions: number, bar: number): string[] {
   const stem = layer.layer === 'hands' ? 'up' : 'down';
   const tupletOf = new Map<
     number,
-    { ratio: TupletRatio; start: boolean; stop: boolean; shown: boolean }
+    { ratio: TupletRatio; start: boolean; stop: boolean; shown: boolean; bracketed: boolean }
   >();
   for (const tuplet of layer.tuplets) {
     tuplet.events.forEach((index, i) =>
@@ -169,6 +169,7 @@ function layerNotes(layer: LayerBar, divisions: number, bar: number): string[] {
         start: i === 0,
         stop: i === tuplet.events.length - 1,
         shown: tuplet.shown,
+        bracketed: tuplet.bracketed,
       }),
     );
   }
@@ -196,7 +197,13 @@ interface NoteParts {
   readonly voice: number;
   readonly stem: string;
   readonly event: NotationEvent;
-  readonly tuplet: { ratio: TupletRatio; start: boolean; stop: boolean; shown: boolean } | null;
+  readonly tuplet: {
+    ratio: TupletRatio;
+    start: boolean;
+    stop: boolean;
+    shown: boolean;
+    bracketed: boolean;
+  } | null;
   readonly beams: readonly string[];
 }
 
@@ -266,11 +273,13 @@ function timeModification(ratio: TupletRatio | null): string {
   );
 }
 
-function tupletNotation(tuplet: { start: boolean; stop: boolean; shown: boolean } | null): string {
+function tupletNotation(
+  tuplet: { start: boolean; stop: boolean; shown: boolean; bracketed: boolean } | null,
+): string {
   if (!tuplet) return '';
-  const shown = tuplet.shown
-    ? 'bracket="yes" show-number="actual"'
-    : 'bracket="no" show-number="none"';
+  const shown = !tuplet.shown
+    ? 'bracket="no" show-number="none"'
+    : `bracket="${tuplet.bracketed ? 'yes' : 'no'}" show-number="actual"`;
   return (
     (tuplet.start ? `<tuplet type="start" ${shown}/>` : '') +
     (tuplet.stop ? '<tuplet type="stop"/>' : '')

@@ -56,7 +56,7 @@ export function drawBeatTexts(
   const { stickingY, countsY, countSize, counts } = rows;
   const least = rows.leastSize ?? SMALLEST_TEXT;
   if (stickingY !== null)
-    drawSticking(ctx, bar, counts?.xs ?? instantX(engraved), stickingY, least);
+    drawSticking(ctx, bar, counts?.xs ?? instantX(engraved), stickingY, least, stave);
   if (countsY !== null)
     drawCounts(ctx, bar, counts ?? layoutCounts(bar, engraved, stave), stave, countsY, countSize);
 }
@@ -65,8 +65,15 @@ export function drawBeatTexts(
 const STICKING_SIZE = 15;
 /** Width of a bold capital R or L as a share of the font size (Academico; a safe over-estimate). */
 export const LETTER_WIDTH = 0.72;
-/** Space kept between neighbouring letters, in pixels. */
+/** Space kept between neighbouring letters, in pixels, before they are set smaller. */
 export const LETTER_GAP = 2;
+/**
+ * The least clear space between two sticking letters, as a share of their size: half an em, twice
+ * a word space, so neighbouring hands never read as one word ("LR") however tight the notes.
+ */
+export const STICKING_GAP = 0.5;
+/** Ink width of the wider letter, a bold R, as a share of the size (Academico bold: 12 px at 15). */
+const LETTER_INK = 0.8;
 /** Baseline distance between the two letters of a stack. */
 export const STICKING_LINE = 14;
 
@@ -84,6 +91,7 @@ function drawSticking(
   xs: ReadonlyMap<string, number>,
   y: number,
   least: number,
+  stave: Stave,
 ): void {
   const placed = bar.beats.flatMap((beat) =>
     beat.sticking.flatMap(({ slot, hands }) => {
@@ -98,8 +106,23 @@ function drawSticking(
   const fits = Math.floor((tightest - LETTER_GAP) / LETTER_WIDTH);
   const size = Math.max(least, Math.min(Math.max(STICKING_SIZE, least), fits));
   if (placed.length === 0) return;
+  // Letters still closer than a letter and the least gap move apart, as little as they can and
+  // inside the bar (as the counting syllables do): each stays nearest its own note.
+  placed.sort((a, b) => a.x - b.x);
+  const half = (size * LETTER_INK) / 2;
+  const pitch = size * (LETTER_INK + STICKING_GAP);
+  const spread = spreadPositions(
+    centredApart(
+      placed.map((p) => p.x),
+      pitch,
+    ),
+    stave.getX() + half,
+    stave.getX() + stave.getWidth() - half,
+    pitch,
+  );
   const letters = new SvgTextRow(ctx, 'tensile-sticking-row', { size, weight: 'bold' });
-  for (const { x, hands, beat, slot } of placed) {
+  for (const [i, { hands, beat, slot }] of placed.entries()) {
+    const x = spread[i]!;
     hands.forEach((hand, i) => {
       const row = hands.length - 1 - i;
       const label = letters.add(hand, x, y - row * STICKING_LINE, 'tensile-sticking');
@@ -107,6 +130,34 @@ function drawSticking(
       label.setAttribute('data-slot', String(slot));
     });
   }
+}
+
+/**
+ * `xs` (ascending) moved so that neighbours stand at least `pitch` apart, each as near its own x
+ * as the others allow (least squares): a crowded pair moves apart about its middle, rather than
+ * the later letter alone leaving its note. Pools runs of crowded points into blocks, each at the
+ * mean of its points' wishes.
+ */
+function centredApart(xs: readonly number[], pitch: number): number[] {
+  // With point i shifted back by i pitches, the rule is "never decreasing".
+  const blocks: { first: number; count: number; at: number }[] = [];
+  xs.forEach((x, i) => {
+    let block = { first: i, count: 1, at: x - i * pitch };
+    while (blocks.length > 0 && blocks[blocks.length - 1]!.at > block.at) {
+      const prev = blocks.pop()!;
+      const count = prev.count + block.count;
+      block = {
+        first: prev.first,
+        count,
+        at: (prev.at * prev.count + block.at * block.count) / count,
+      };
+    }
+    blocks.push(block);
+  });
+  const out: number[] = [];
+  for (const block of blocks)
+    for (let k = 0; k < block.count; k++) out.push(block.at + (block.first + k) * pitch);
+  return out;
 }
 
 /** Where a formatted bar's counting syllables go; measured once, for sizing and for drawing. */

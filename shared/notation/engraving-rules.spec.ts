@@ -164,6 +164,43 @@ describe('tuplets', () => {
     }
   });
 
+  it('writes a quintuplet drill\'s "5" once in each voice, then "sim."', () => {
+    for (const id of ['quintuplets-hihat-1-3-4', 'quintuplets-hihat-1-3-5']) {
+      const drill = generateDrill(parseRuleCard(preset(id).card), 'lesson-12');
+      const bars = buildNotation(drill).bars;
+      for (const name of ['hands', 'feet'] as const) {
+        const tuplets = bars.flatMap((bar) =>
+          bar.layers.filter((l) => l.layer === name).flatMap((layer) => layer.tuplets),
+        );
+        expect(tuplets.length, `${id} ${name}`).toBeGreaterThan(4);
+        // Gould, "Behind Bars", ch. "Tuplets" (from memory): once the pattern is established
+        // the numbers may be dropped, "sim." after the first.
+        expect(tuplets.filter((t) => t.shown).length, `${id} ${name}`).toBe(1);
+        expect(tuplets[0], `${id} ${name}`).toMatchObject({ shown: true, simile: true });
+      }
+    }
+  });
+
+  // Gould, "Behind Bars", ch. "Tuplets" (from memory): where one beam joins exactly the tuplet's
+  // notes the number stands alone; a bracket is kept where the beam does not show the group.
+  it('leaves out the bracket line only where one beam spans exactly the group', () => {
+    const bracketed = (slots: number[]) =>
+      buildNotation(
+        drillOf(
+          [5],
+          slots.map((s) => hit(1, s, 'hihat')),
+        ),
+      ).bars[0]!.layers[0]!.tuplets.map((t) => t.bracketed);
+    // Notes at both ends, one beam over them, rests inside: the number alone.
+    expect(bracketed([0, 1, 2, 3, 4])).toEqual([false]);
+    expect(bracketed([0, 2, 4])).toEqual([false]);
+    // A rest at either end: the beam stops short of the group, so the bracket stays.
+    expect(bracketed([0, 2, 3])).toEqual([true]);
+    expect(bracketed([1, 2, 4])).toEqual([true]);
+    // A lone note has no beam at all.
+    expect(bracketed([2])).toEqual([true]);
+  });
+
   it('keeps every bracket where tuplets come and go (a drill not in triplets throughout)', () => {
     const model = buildNotation(drillOf([3, 4, 3, 4], [hit(1, 1, 'snare'), hit(3, 2, 'snare')]));
     const tuplets = model.bars[0]!.layers[0]!.tuplets;

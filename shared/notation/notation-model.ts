@@ -95,6 +95,11 @@ export interface NotationTuplet {
   readonly shown: boolean;
   /** "sim." follows this bracket: the ones after it are understood. */
   readonly simile: boolean;
+  /**
+   * Whether the bracket line is drawn with the number. A group whose one beam spans exactly its
+   * notes, from its first event to its last, shows the number alone (see `bracketedTuplet`).
+   */
+  readonly bracketed: boolean;
 }
 
 /** One voice layer of one bar. */
@@ -171,23 +176,28 @@ export function buildNotation(drill: NotationSource): NotationModel {
     meter,
     layers,
     voices,
-    bars: simileTriplets(bars),
+    bars: simileTuplets(bars),
     marks: headerMarks(drill.card),
     polyrhythms: polyrhythmGroups(drill.card.rules ?? [], drill.bars, beats),
   };
 }
 
 /**
- * A drill in triplets throughout (every beat in three: a shuffle or triplet feel) writes its
- * "3" once in each voice, on that voice's first bracketed beat, then "sim.", rather than a
- * bracket on every beat of both voices (E. Gould, "Behind Bars", Faber Music 2011, ch.
- * "Tuplets": once a tuplet pattern is established in a part the brackets may be dropped, with
- * "sim." after the first ones; from memory). Each voice is a part of its own here: a marking
- * over the hands alone would say nothing of the kick. Other drills keep every bracket.
+ * A drill in one tuplet throughout (every beat in three, as a shuffle, or every beat in five)
+ * writes its number once in each voice, on that voice's first bracketed beat, then "sim.",
+ * rather than a number on every beat of both voices (E. Gould, "Behind Bars", Faber Music 2011,
+ * ch. "Tuplets": once a tuplet pattern is established in a part the numbers may be dropped, with
+ * "sim." after the first ones; from memory). "Sim." rather than a number at the start of each
+ * system: the model knows no systems, and the screen, the phone and the page break the same
+ * drill differently, so one marking read once serves all three. Each voice is a part of its own
+ * here: a marking over the hands alone would say nothing of the kick. Other drills keep every
+ * number.
  */
-function simileTriplets(bars: NotationBar[]): NotationBar[] {
-  const allTriplets = bars.every((bar) => bar.beats.every((beat) => beat.subdivision === 3));
-  if (!allTriplets) return bars;
+function simileTuplets(bars: NotationBar[]): NotationBar[] {
+  const first = bars[0]?.beats[0]?.subdivision ?? 1;
+  const tuplet = (first & (first - 1)) !== 0;
+  const uniform = bars.every((bar) => bar.beats.every((beat) => beat.subdivision === first));
+  if (!tuplet || !uniform) return bars;
   const done = new Set<string>();
   return bars.map((bar) => ({
     ...bar,
@@ -204,6 +214,29 @@ function simileTriplets(bars: NotationBar[]): NotationBar[] {
       };
     }),
   }));
+}
+
+/**
+ * Whether a tuplet needs its bracket line: not where one beam joins exactly its notes and the
+ * group starts and ends with a note of one value, since the beam then shows the group and the
+ * number alone names it (E. Gould, "Behind Bars", Faber Music 2011, ch. "Tuplets": a bracket is
+ * needed only where a beam does not show the tuplet's extent; from memory). Rests at either end,
+ * mixed values or notes split over beams keep the bracket.
+ */
+function bracketedTuplet(
+  events: readonly NotationEvent[],
+  indices: readonly number[],
+  beams: readonly NotationBeam[],
+): boolean {
+  const firstEvent = events[indices[0]!];
+  const lastEvent = events[indices[indices.length - 1]!];
+  if (firstEvent?.kind !== 'note' || lastEvent?.kind !== 'note') return true;
+  const notes = indices.filter((i) => events[i]!.kind === 'note');
+  const value = events[notes[0]!]!.duration;
+  if (notes.some((i) => events[i]!.duration.value !== value.value || events[i]!.duration.dots))
+    return true;
+  const beam = beams.find((b) => b.notes.includes(notes[0]!));
+  return !beam || beam.notes.length !== notes.length || beam.notes.some((n, i) => n !== notes[i]);
 }
 
 /** "2+2+3" for an uneven grouping; null where the meter says it (even groups, or none). */
@@ -241,12 +274,15 @@ function notateBar(
     return { beat, subdivision, counts, sticking };
   });
   const spans = beamSpans(bar.beats, meter);
+  // An uneven meter (7/8 as 2+2+3) is counted eighth by eighth, 6/8 and 9/8 by the dotted
+  // quarter (see `countBar`).
+  const countedByBeat = meter.grouping !== null && meter.grouping.some((size) => size !== 3);
   const layerBars = layers.map((layer) =>
     notateLayer(
       layer,
       bar,
       spans,
-      meter.unit,
+      { unit: meter.unit, countedByBeat },
       bar.hits.filter((h) => STAFF_PLACEMENTS[h.voice].layer === layer),
     ),
   );
@@ -294,7 +330,7 @@ function notateLayer(
   layer: Layer,
   bar: DrillBar,
   spans: readonly Span[],
-  unit: number,
+  { unit, countedByBeat }: { readonly unit: number; readonly countedByBeat: boolean },
   hits: readonly DrillHit[],
 ): LayerBar {
   const events: NotationEvent[] = [];
@@ -312,6 +348,7 @@ function notateLayer(
   for (let s = 0; s < spans.length; s++) {
     const span = spans[s]!;
     const from = events.length;
+    let ratio: TupletRatio | null = null;
     if (halfBarRest(span, bar.beats, unit, silent)) {
       // Two silent beats making a half of a 4/4 bar (beats 1–2 or 3–4) take one half rest; never
       // across the middle of the bar (E. Gould, "Behind Bars", ch. "Rests", from memory; common
@@ -337,6 +374,7 @@ function notateLayer(
         slots,
         inSpan.map((hit) => (hit.beat - 1 - span.first) * slots + hit.slot),
         unit,
+        countedByBeat,
       );
       const toSlot = slots / rhythm.grid;
       for (const event of rhythm.events) {
@@ -356,12 +394,15 @@ function notateLayer(
       const toSlot = subdivision / rhythm.grid;
       for (const event of rhythm.events)
         events.push(eventOf(event, beat, event.gridSlot * toSlot, inBeat));
-      if (rhythm.tuplet) {
-        const indices = Array.from({ length: events.length - from }, (_, i) => from + i);
-        tuplets.push({ ratio: rhythm.tuplet, events: indices, shown: true, simile: false });
-      }
+      ratio = rhythm.tuplet;
     }
-    beams.push(...beamsOf(events, from, span.count === 3 || span.count === 4));
+    const spanBeams = beamsOf(events, from, span.count === 3 || span.count === 4);
+    beams.push(...spanBeams);
+    if (ratio) {
+      const indices = Array.from({ length: events.length - from }, (_, i) => from + i);
+      const bracketed = bracketedTuplet(events, indices, spanBeams);
+      tuplets.push({ ratio, events: indices, shown: true, simile: false, bracketed });
+    }
   }
   return { layer, events, beams, tuplets };
 }

@@ -192,4 +192,20 @@ describe('spellGroup: a group of a grouped eighth meter as one unit', () => {
       expect(spelled(spellGroup(beats, slots, onsets, 8))).toBe(expected);
     },
   );
+
+  // Common practice: a meter counted eighth by eighth (7/8 as 2+2+3) shows every counted eighth,
+  // so a note crossing one is split with a rest (drum notes do not sustain, so no tie).
+  it.each([
+    [2, 2, [0, 3], '8 r16 16'],
+    [3, 2, [0, 3], '8 r16 16 r8'],
+    [3, 2, [0, 5], '4 r16 16'],
+    [2, 2, [0], '4'],
+    [3, 2, [0], '4d'],
+    [3, 2, [0, 4], '4 8'],
+  ] as [number, number, number[], string][])(
+    'counted by the eighth, a group of %i beats of %i, hits on %j → %s',
+    (beats, slots, onsets, expected) => {
+      expect(spelled(spellGroup(beats, slots, onsets, 8, true))).toBe(expected);
+    },
+  );
 });

@@ -131,13 +131,18 @@ export interface GroupRhythm {
  *   beat, binary rests that start on a multiple of their own length, as in `spellBeat`.
  * `beats` is the group's size (1–4), `slots` its slots per beat (1, 2, 4 or 8, the same for every
  * beat), `onsets` the struck slots counted over the whole group (beat × slots + slot), `beatUnit`
- * the meter's unit (8 or 16).
+ * the meter's unit (8 or 16). With `countedByBeat` (an uneven meter such as 7/8 as 2+2+3, counted
+ * "1 2, 1 2, 1 2 3" eighth by eighth), a note that does not last whole beats never crosses a
+ * beat: the eighth after a dotted eighth starts with a rest, so each counted eighth can be seen
+ * (common practice: in an irregular meter every counted pulse starts with a note or a rest, and
+ * drum notes, which do not sustain, are split with rests rather than ties).
  */
 export function spellGroup(
   beats: number,
   slots: number,
   onsets: readonly number[],
   beatUnit: number,
+  countedByBeat = false,
 ): GroupRhythm {
   const sorted = [...new Set(onsets)].sort((a, b) => a - b);
   let reduction = slots;
@@ -149,7 +154,7 @@ export function spellGroup(
   pushGroupRests(events, 0, at[0] ?? total, grid, beats, beatUnit);
   at.forEach((start, i) => {
     const next = at[i + 1] ?? total;
-    const length = groupNoteLength(start, next - start, grid, beats);
+    const length = groupNoteLength(start, next - start, grid, beats, countedByBeat);
     events.push({
       kind: 'note',
       gridSlot: start,
@@ -174,22 +179,36 @@ function noteSpanFits(k: number, span: number, beats: number): boolean {
   return true;
 }
 
-function groupNoteLength(start: number, gap: number, grid: number, beats: number): number {
+function groupNoteLength(
+  start: number,
+  gap: number,
+  grid: number,
+  beats: number,
+  countedByBeat: boolean,
+): number {
   for (let length = Math.min(gap, beats * grid); length > 1; length--) {
-    if (isValue(length) && noteFits(start, length, grid, beats)) return length;
+    if (isValue(length) && noteFits(start, length, grid, beats, countedByBeat)) return length;
   }
   return 1;
 }
 
 /** Whether a note of `length` slots from group slot `start` keeps the group's beats readable. */
-function noteFits(start: number, length: number, grid: number, beats: number): boolean {
+function noteFits(
+  start: number,
+  length: number,
+  grid: number,
+  beats: number,
+  countedByBeat: boolean,
+): boolean {
   const offset = start % grid;
   // Off the beat: never past its beat.
   if (offset !== 0) return length <= grid - offset;
   // On a beat, inside it.
   if (length <= grid) return true;
-  // From the group's start any value that fits (a dotted eighth in 6/8 sixteenths included).
-  if (start === 0) return length % grid !== 0 || noteSpanFits(0, length / grid, beats);
+  // From the group's start any value that fits (a dotted eighth in 6/8 sixteenths included),
+  // but only whole beats where the meter is counted beat by beat.
+  if (start === 0)
+    return length % grid !== 0 ? !countedByBeat : noteSpanFits(0, length / grid, beats);
   // From a later beat, whole beats only.
   return length % grid === 0 && noteSpanFits(start / grid, length / grid, beats);
 }

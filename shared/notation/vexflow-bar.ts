@@ -170,7 +170,7 @@ function addBeamsAndTuplets(
     if (breaks.length > 0) beam.breakSecondaryAt([...breaks]);
     beams.push({ beam, layer: layerBar.layer });
   }
-  for (const { ratio, events, shown, simile } of layerBar.tuplets) {
+  for (const { ratio, events, shown, simile, bracketed } of layerBar.tuplets) {
     const accented = events.some((i) => layerBar.events[i]?.accent);
     const tuplet = new LevelTuplet(
       events.map((i) => staveNotes[i]!),
@@ -178,7 +178,7 @@ function addBeamsAndTuplets(
         numNotes: ratio.numNotes,
         notesOccupied: ratio.notesOccupied,
         ratioed: false,
-        bracketed: true,
+        bracketed,
         location: layerBar.layer === 'hands' ? Tuplet.LOCATION_TOP : Tuplet.LOCATION_BOTTOM,
         // Outside the accents (VexFlow sets the bracket just past the stems, where an accent
         // at a stem's tip already is).
@@ -205,10 +205,11 @@ function staveNoteOf(event: NotationEvent, layer: Layer): StaveNote {
   });
   if (event.duration.dots) Dot.buildAndAttach([note], { all: true });
   if (rest) return note;
-  const below = layer === 'feet';
   if (event.accent) {
     note.addModifier(
-      new Articulation('a>').setPosition(below ? ModifierPosition.BELOW : ModifierPosition.ABOVE),
+      new Articulation('a>').setPosition(
+        accentBelow(event, layer) ? ModifierPosition.BELOW : ModifierPosition.ABOVE,
+      ),
     );
   }
   addGhostParentheses(note, event);
@@ -216,6 +217,24 @@ function staveNoteOf(event: NotationEvent, layer: Layer): StaveNote {
     note.addModifier(new Ornament('plungerOpen').setPosition(Modifier.Position.ABOVE));
   }
   return note;
+}
+
+/**
+ * Where a chord's accent goes. An accent on every head goes at the stem's tip, outside the beam
+ * (the hands' above, the feet's below). An accent on some heads only goes at the end of the
+ * chord nearest them: under a stem-up chord whose accented heads are its lowest (an accented
+ * snare under an unaccented hi-hat), so it is read with the snare, not over the cymbal's stem
+ * where it would read as the whole chord's (E. Gould, "Behind Bars", Faber Music 2011, ch.
+ * "Articulation": an articulation on a chord applies to all its notes, and one meant for a single
+ * note is written where it can only belong to that note; from memory).
+ */
+function accentBelow(event: NotationEvent, layer: Layer): boolean {
+  const heads = event.heads;
+  const partial = heads.some((h) => !h.accent);
+  // Heads are lowest first: a stem-up chord's notehead end is its first head, stem-down's last.
+  const noteheadEnd = layer === 'hands' ? heads[0] : heads[heads.length - 1];
+  const atNoteheads = partial && noteheadEnd?.accent === true;
+  return layer === 'feet' ? !atNoteheads : atNoteheads;
 }
 
 /** Ghost notes in parentheses: the whole chord when all heads are ghosts, else just those heads. */
