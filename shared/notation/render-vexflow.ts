@@ -280,11 +280,14 @@ export class EngravingCache {
       const value = next.getAttribute(name)!;
       if (page.getAttribute(name) !== value) page.setAttribute(name, value);
     }
+    // The parts going first, so no kept part is moved: a move restyles and lays it out again,
+    // and rebuilds every strip's copy of it.
+    const keep = new Set(wanted);
+    for (const part of [...page.children]) if (!keep.has(part)) part.remove();
     wanted.forEach((part, i) => {
       const at = page.children[i];
       if (at !== part) page.insertBefore(part, at ?? null);
     });
-    while (page.children.length > wanted.length) page.lastElementChild!.remove();
     this.page = page;
     return page;
   }
