@@ -181,6 +181,13 @@ describe('the drawing on the page', () => {
     expect(after.map((group, i) => group === before[i])).toEqual(
       first.bars.map((bar) => bar.bar !== oneBar.bar),
     );
+    // Drawn into another container, the kept systems are copies: the page keeps its own, and
+    // the copy draws what a pass without the cache draws.
+    const model = buildNotation(oneBar.drill);
+    const elsewhere = renderNotation(container(), model, { ...options, cache }).svg;
+    expect(systems(elsewhere).some((group) => after.includes(group))).toBe(false);
+    expect(after.every((group) => group.parentNode === page.firstChild)).toBe(true);
+    expect(text(elsewhere)).toBe(text(renderNotation(container(), model, options).svg));
   });
 });
 
