@@ -158,12 +158,20 @@ describe('the drawing on the page', () => {
     const first = drillOf('amber-fox');
     const shown = renderNotation(page, buildNotation(first), { ...options, cache }).svg;
     const before = systems(shown);
+    const moved = new dom.window.MutationObserver(() => undefined);
+    moved.observe(shown, { childList: true });
     const tempo = renderNotation(page, buildNotation(drillOf('amber-fox', 80)), {
       ...options,
       cache,
     });
     expect(tempo.svg).toBe(shown);
     expect(systems(tempo.svg).every((group, i) => group === before[i])).toBe(true);
+    // Nor is a kept system taken out and put back (a move costs the browser as much as a new one).
+    const touched = moved.takeRecords().flatMap((r) => [...r.addedNodes, ...r.removedNodes]);
+    moved.disconnect();
+    expect(touched.filter((node) => before.includes(node as Element))).toEqual([]);
+    // (The marks were replaced, so the watch did see the change.)
+    expect(touched.length).toBeGreaterThan(0);
     expect(tempo.svg.querySelector('.tensile-marks')?.getAttribute('aria-label')).toContain('80');
     const oneBar = withOneBarOf(first, drillOf('quiet-river'));
     const after = systems(
@@ -173,6 +181,13 @@ describe('the drawing on the page', () => {
     expect(after.map((group, i) => group === before[i])).toEqual(
       first.bars.map((bar) => bar.bar !== oneBar.bar),
     );
+    // Drawn into another container, the kept systems are copies: the page keeps its own, and
+    // the copy draws what a pass without the cache draws.
+    const model = buildNotation(oneBar.drill);
+    const elsewhere = renderNotation(container(), model, { ...options, cache }).svg;
+    expect(systems(elsewhere).some((group) => after.includes(group))).toBe(false);
+    expect(after.every((group) => group.parentNode === page.firstChild)).toBe(true);
+    expect(text(elsewhere)).toBe(text(renderNotation(container(), model, options).svg));
   });
 });
 

@@ -251,7 +251,8 @@ export class EngravingCache {
 
   /**
    * @internal Bring the drawing on the page (when it is the last pass's, still in `container`)
-   * up to `next` by changing only what differs: systems kept from that pass and parts drawn the
+   * up to `next`, whose kept systems are stand-ins (the keys of `reused`), by changing only what
+   * differs: systems kept from that pass and parts drawn the
    * same stay as they are, so the browser restyles and lays out only what changed. Returns the
    * drawing now on the page, or `next` when there is none to update (the caller puts it there).
    */
@@ -262,14 +263,17 @@ export class EngravingCache {
   ): SVGSVGElement {
     const page = this.page;
     this.page = next;
-    if (!page || page.parentNode !== container || container.childNodes.length !== 1) return next;
+    const copy = (system: DrawnSystem): Element => {
+      system.shown = system.group.cloneNode(true) as Element;
+      return system.shown;
+    };
+    if (!page || page.parentNode !== container || container.childNodes.length !== 1) {
+      for (const [stand, system] of reused) stand.replaceWith(copy(system));
+      return next;
+    }
     const wanted = [...next.children].map((part, i) => {
       const system = reused.get(part);
-      if (system) {
-        if (system.shown?.parentNode === page) return system.shown;
-        system.shown = part;
-        return part;
-      }
+      if (system) return system.shown?.parentNode === page ? system.shown : copy(system);
       // Parts drawn anew (title, marks, key, brackets) stay when drawn the same; the host's
       // names for them (ids) carry over, as the host gives them again.
       const old = page.children[i];
@@ -280,11 +284,14 @@ export class EngravingCache {
       const value = next.getAttribute(name)!;
       if (page.getAttribute(name) !== value) page.setAttribute(name, value);
     }
+    // The parts going first, so no kept part is moved: a move restyles and lays it out again,
+    // and rebuilds every strip's copy of it.
+    const keep = new Set(wanted);
+    for (const part of [...page.children]) if (!keep.has(part)) part.remove();
     wanted.forEach((part, i) => {
       const at = page.children[i];
       if (at !== part) page.insertBefore(part, at ?? null);
     });
-    while (page.children.length > wanted.length) page.lastElementChild!.remove();
     this.page = page;
     return page;
   }
@@ -508,13 +515,17 @@ function* engrave(
     const drawKey = cache ? `${syllableSize}${ctx.drawingState()}${systemKeys[systemIndex]}` : '';
     const known = cache?.get('systems', drawKey);
     if (known) {
-      const copy = known.group.cloneNode(true) as Element;
-      reused.set(copy, known);
-      svg.append(copy);
+      // A stand-in, swapped at the end for the system on the page or, where it is not on the
+      // page, a copy (see EngravingCache.update): copying every kept system cost more than
+      // drawing the parts an edit changed.
+      const stand = svg.ownerDocument.createElementNS(svg.namespaceURI, 'g');
+      reused.set(stand, known);
+      svg.append(stand);
       ctx.setDrawingState(known.after);
       boxes.push(...known.boxes);
       for (const [key, box] of known.instants) instants.set(key, box);
       bands.push(known.band);
+      yield;
       continue;
     }
     const systemTop = systemTopOf(systemIndex);

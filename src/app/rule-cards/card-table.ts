@@ -15,18 +15,17 @@ import { MatInputModule } from '@angular/material/input';
 import { MatMenuModule } from '@angular/material/menu';
 import { MatPaginatorModule } from '@angular/material/paginator';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { MatSelectModule } from '@angular/material/select';
 import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatSortModule } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
 import { filter, switchMap, type Observer } from 'rxjs';
+import { CardFilters } from '../ui/card-filters';
 import { confirmAction } from '../ui/confirm-dialog';
 import { EmptyState } from '../ui/empty-state';
 import { ServerTable } from '../ui/server-table';
 import { apiErrorWithDetails } from './api-details';
-import { subdivisionLabel } from './card-labels';
 import { debounced } from './debounced';
 import { downloadJson, readJsonFile } from './json-file';
 import { TeacherCardsApi, type CardLevel, type RuleCardSummary } from './rule-cards-api';
@@ -49,12 +48,12 @@ const FILTER_DEBOUNCE_MS = 250;
     MatMenuModule,
     MatPaginatorModule,
     MatProgressBarModule,
-    MatSelectModule,
     MatSlideToggleModule,
     MatSortModule,
     MatTableModule,
     RouterLink,
     EmptyState,
+    CardFilters,
   ],
   templateUrl: './card-table.html',
   styleUrl: './card-table.scss',
@@ -78,7 +77,6 @@ export class CardTable {
     'updatedAt',
     'actions',
   ];
-  protected readonly slotChoices = [1, 2, 3, 4, 5, 6, 7, 8];
   protected readonly q = signal('');
   protected readonly tag = signal('');
   protected readonly level = signal<CardLevel | ''>('');
@@ -106,10 +104,6 @@ export class CardTable {
   protected readonly filtered = computed(
     () => !!(this.q() || this.tag() || this.level() || this.meter() || this.subdivision() !== ''),
   );
-
-  protected subdivisionWords(value: number): string {
-    return subdivisionLabel(value);
-  }
 
   /** Any filter change starts again from the first page. */
   protected setFilter<T>(target: { set(value: T): void }, value: T): void {

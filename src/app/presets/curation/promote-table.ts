@@ -5,7 +5,6 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatPaginatorModule } from '@angular/material/paginator';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { MatSelectModule } from '@angular/material/select';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatSortModule } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
@@ -15,6 +14,7 @@ import type { CardLevel } from '../../rule-cards/rule-cards-api';
 import { debounced } from '../../rule-cards/debounced';
 import { inputText } from '../../rule-cards/input-text';
 import { EmptyState } from '../../ui/empty-state';
+import { LevelFilter } from '../../ui/level-filter';
 import { ServerTable } from '../../ui/server-table';
 import { CuratedPresetsApi, type PresetView, type PromotionCandidate } from '../presets-api';
 
@@ -31,7 +31,7 @@ import { CuratedPresetsApi, type PresetView, type PromotionCandidate } from '../
     MatInputModule,
     MatPaginatorModule,
     MatProgressBarModule,
-    MatSelectModule,
+    LevelFilter,
     MatSortModule,
     MatTableModule,
     EmptyState,

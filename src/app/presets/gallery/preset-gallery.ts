@@ -3,20 +3,16 @@ import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCardModule } from '@angular/material/card';
 import { MatChipsModule } from '@angular/material/chips';
-import { MatFormFieldModule } from '@angular/material/form-field';
-import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { MatSelectModule } from '@angular/material/select';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { Router, RouterLink } from '@angular/router';
 import { switchMap } from 'rxjs';
 import { apiErrorMessage } from '../../core/api-error-message';
 import { AuthSession } from '../../core/auth-session';
 import { toLoadState, type LoadState } from '../../core/load-state';
-import { subdivisionLabel } from '../../rule-cards/card-labels';
 import { debounced } from '../../rule-cards/debounced';
-import { inputText } from '../../rule-cards/input-text';
 import { freshSeedWord } from '../../rule-cards/seed-word';
+import { CardFilters } from '../../ui/card-filters';
 import { EmptyState } from '../../ui/empty-state';
 import { CuratedPresetsApi, type PresetLevel, type PresetView } from '../presets-api';
 
@@ -31,12 +27,10 @@ import { CuratedPresetsApi, type PresetLevel, type PresetView } from '../presets
     MatButtonModule,
     MatCardModule,
     MatChipsModule,
-    MatFormFieldModule,
-    MatInputModule,
     MatProgressBarModule,
-    MatSelectModule,
     RouterLink,
     EmptyState,
+    CardFilters,
   ],
   templateUrl: './preset-gallery.html',
   styleUrl: './preset-gallery.scss',
@@ -48,7 +42,6 @@ export class PresetGallery {
   private readonly snackBar = inject(MatSnackBar);
   private readonly session = inject(AuthSession);
 
-  protected readonly slotChoices = [1, 2, 3, 4, 5, 6, 7, 8];
   protected readonly tag = signal('');
   protected readonly meter = signal('');
   protected readonly level = signal<PresetLevel | ''>('');
@@ -82,14 +75,6 @@ export class PresetGallery {
 
   protected thumbnail(id: string): string {
     return this.api.thumbnailUrl(id);
-  }
-
-  protected subdivisionWords(slots: number): string {
-    return subdivisionLabel(slots);
-  }
-
-  protected text(target: { set(value: string): void }, event: Event): void {
-    target.set(inputText(event));
   }
 
   protected drillLink(id: string) {
