@@ -1,6 +1,7 @@
 import { createHash } from 'node:crypto';
 import type { Drill } from '../../shared/generator/index';
 import { renderDrillSvg } from '../notation/render-svg';
+import { compilePrintDrawing, type PrintDrawing } from './print-drawing';
 import type { PrintAids } from './worksheet-print';
 
 /**
@@ -16,6 +17,8 @@ const BARS_PER_SYSTEM = 4;
 
 export interface NotationArt {
   readonly svg: string;
+  /** The same drawing ready for a PDF page (print-drawing.ts). */
+  readonly drawing: PrintDrawing;
   /** Size of the drawing in its own units; pdfmake scales it to the width it is given. */
   readonly width: number;
   readonly height: number;
@@ -79,7 +82,7 @@ function engrave(
   aids: PrintAids,
   width: number,
 ): NotationArt & { readonly systems: number } {
-  const { svg, layout } = renderDrillSvg(
+  const { svg, layout, tree } = renderDrillSvg(
     drill,
     {
       width,
@@ -92,5 +95,6 @@ function engrave(
     { forPrint: true },
   );
   const systems = new Set(layout.bars.map((b) => b.system)).size;
-  return { svg, width: layout.width, height: layout.height, systems };
+  const drawing = compilePrintDrawing(tree);
+  return { svg, drawing, width: layout.width, height: layout.height, systems };
 }
