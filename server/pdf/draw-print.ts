@@ -164,7 +164,8 @@ function drawText(
     const { fill, stroke } = piece;
     if (!fill && !stroke) continue;
     if (fill) out.raw(`/DeviceRGB cs ${fill.rgb} scn`);
-    if (stroke) out.raw(`/DeviceRGB CS ${stroke.rgb} SCN ${num(piece.strokeWidth)} w ${piece.dash}`);
+    if (stroke)
+      out.raw(`/DeviceRGB CS ${stroke.rgb} SCN ${num(piece.strokeWidth)} w ${piece.dash}`);
     out.opacity(fill?.opacity ?? saved.fill, stroke?.opacity ?? saved.stroke);
     doc.page.fonts[font.id] ??= font.ref();
     out.raw(`BT /${font.id} ${num(piece.size)} Tf ${fill && stroke ? 2 : stroke ? 1 : 0} Tr`);

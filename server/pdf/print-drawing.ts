@@ -100,7 +100,10 @@ const OWN_ATTRIBUTES: Record<string, readonly string[]> = {
 export function compilePrintDrawing(root: SvgNode): PrintDrawing {
   if (root.nodeName !== 'svg') throw new Error(`print-drawing: root <${root.nodeName}>`);
   check(root);
-  const box = (root.getAttribute('viewBox') ?? '').trim().split(/[\s,]+/).map(Number);
+  const box = (root.getAttribute('viewBox') ?? '')
+    .trim()
+    .split(/[\s,]+/)
+    .map(Number);
   if (box.length !== 4 || box[0] !== 0 || box[1] !== 0 || box.some((n) => !Number.isFinite(n)))
     throw new Error(`print-drawing: viewBox ${root.getAttribute('viewBox')}`);
   const items = new Items();
@@ -171,7 +174,10 @@ function styleOf(node: SvgNode, parent: Style): Style {
 function dashOf(value: string | undefined): string | undefined {
   if (value === undefined) return undefined;
   if (value.trim() === 'none') return '[] 0 d';
-  let dashes = value.trim().split(/[\s,]+/).map(length);
+  let dashes = value
+    .trim()
+    .split(/[\s,]+/)
+    .map(length);
   // A zero dash or gap would need svg-to-pdfkit's merging of neighbours; VexFlow writes none.
   if (dashes.some((d) => d <= 0)) throw new Error(`print-drawing: stroke-dasharray ${value}`);
   if (dashes.length % 2 === 1) dashes = dashes.concat(dashes);
@@ -253,7 +259,10 @@ function matrix(transform: string): number[] {
   let match: RegExpExecArray | null;
   while ((match = re.exec(transform))) {
     at = re.lastIndex;
-    const v = match[2]!.trim().split(/[\s,]+/).map(Number);
+    const v = match[2]!
+      .trim()
+      .split(/[\s,]+/)
+      .map(Number);
     const next =
       match[1] === 'translate'
         ? [1, 0, 0, 1, v[0]!, v[1] ?? 0]
@@ -299,7 +308,8 @@ function textPieces(text: SvgNode, style: Style): TextPiece[] {
     const opacity = Math.max(0, Math.min(1, Number(node.getAttribute('opacity') ?? 1)));
     for (const child of node.childNodes) {
       if (isElement(child)) {
-        if (child.nodeName !== 'tspan') throw new Error(`print-drawing: <${child.nodeName}> in text`);
+        if (child.nodeName !== 'tspan')
+          throw new Error(`print-drawing: <${child.nodeName}> in text`);
         check(child);
         visit(child, styleOf(child, own));
         continue;

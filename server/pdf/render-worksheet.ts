@@ -64,7 +64,7 @@ export async function layOutPdf(
 }
 
 /** What pdfmake 0.3 leaves on its PDFKit document: the pages it laid out, items placed. */
-interface LaidOutDocument extends PdfKitDocument {
+export interface LaidOutDocument extends PdfKitDocument {
   readonly _pdfMakePages: readonly { readonly items: readonly PageItem[] }[];
   switchToPage(index: number): unknown;
 }
@@ -81,7 +81,7 @@ interface PageItem {
 }
 
 /** Draw each drill's notation into the place pdfmake gave it (see worksheet-document.ts). */
-function drawNotation(doc: LaidOutDocument): void {
+export function drawNotation(doc: LaidOutDocument): void {
   const fonts: FontTable = new Map();
   doc._pdfMakePages.forEach((page, index) => {
     for (const { type, item } of page.items) {
