@@ -4,34 +4,55 @@
  * A sub-path that goes nowhere is left out, as svg-to-pdfkit leaves it out.
  */
 
-const COMMAND = /([MmLlHhVvCcZzAa])|([+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?)/g;
+const TOKEN = /[\s,]*(?:([MmLlHhVvCcZzAa])|([+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?))/y;
 const ARITY: Record<string, number> = { M: 2, L: 2, H: 1, V: 1, C: 6, A: 7, Z: 0 };
 
-export function pathOperators(d: string): string {
+function tokenize(d: string): (string | number)[] {
   const tokens: (string | number)[] = [];
-  for (const match of d.matchAll(COMMAND))
+  TOKEN.lastIndex = 0;
+  let match: RegExpExecArray | null;
+  while (TOKEN.lastIndex < d.length && (match = TOKEN.exec(d)))
     tokens.push(match[1] !== undefined ? match[1] : Number(match[2]));
-  if (d.replace(COMMAND, '').replace(/[\s,]/g, '') !== '')
+  if (TOKEN.lastIndex < d.length && d.slice(TOKEN.lastIndex).trim() !== '')
     throw new Error(`path-operators: path data not supported: ${d.slice(0, 60)}`);
+  return tokens;
+}
 
-  const out: string[] = [];
-  let sub: string[] = [];
-  let moved = false;
-  let x = 0;
-  let y = 0;
-  let startX = 0;
-  let startY = 0;
-  const endSub = () => {
-    if (moved) out.push(...sub);
-    sub = [];
-    moved = false;
-  };
-  const to = (nx: number, ny: number) => {
-    if (nx !== x || ny !== y) moved = true;
-    x = nx;
-    y = ny;
-  };
+/** Sub-paths written out, each kept only once it has gone somewhere. */
+class PathWriter {
+  readonly out: string[] = [];
+  private sub: string[] = [];
+  private moved = false;
+  x = 0;
+  y = 0;
+  startX = 0;
+  startY = 0;
 
+  op(text: string): void {
+    this.sub.push(text);
+  }
+
+  to(x: number, y: number): void {
+    if (x !== this.x || y !== this.y) this.moved = true;
+    this.x = x;
+    this.y = y;
+  }
+
+  /** A curve goes somewhere if any of its points is off the current point. */
+  touch(): void {
+    this.moved = true;
+  }
+
+  endSub(): void {
+    if (this.moved) for (const op of this.sub) this.out.push(op);
+    this.sub = [];
+    this.moved = false;
+  }
+}
+
+export function pathOperators(d: string): string {
+  const tokens = tokenize(d);
+  const w = new PathWriter();
   let i = 0;
   let command = '';
   while (i < tokens.length) {
@@ -40,67 +61,64 @@ export function pathOperators(d: string): string {
       command = token;
       i++;
       if (command === 'Z' || command === 'z') {
-        sub.push('h');
-        if (x !== startX || y !== startY) moved = true;
-        x = startX;
-        y = startY;
+        w.op('h');
+        w.to(w.startX, w.startY);
         continue;
       }
     } else if (command === '' || command === 'Z' || command === 'z') {
       throw new Error(`path-operators: number without a command in ${d.slice(0, 60)}`);
     }
     const upper = command.toUpperCase();
-    const relative = command !== upper;
     const n = ARITY[upper]!;
-    const args = tokens.slice(i, i + n);
-    if (args.length !== n || args.some((a) => typeof a !== 'number'))
-      throw new Error(`path-operators: ${command} needs ${n} numbers in ${d.slice(0, 60)}`);
-    i += n;
-    const v = args as number[];
-    const dx = relative ? x : 0;
-    const dy = relative ? y : 0;
+    for (let k = i; k < i + n; k++)
+      if (typeof tokens[k] !== 'number')
+        throw new Error(`path-operators: ${command} needs ${n} numbers in ${d.slice(0, 60)}`);
+    const v = tokens as number[];
+    const dx = command !== upper ? w.x : 0;
+    const dy = command !== upper ? w.y : 0;
     switch (upper) {
       case 'M':
-        endSub();
-        x = v[0]! + dx;
-        y = v[1]! + dy;
-        startX = x;
-        startY = y;
-        sub.push(`${num(x)} ${num(y)} m`);
+        w.endSub();
+        w.x = w.startX = v[i]! + dx;
+        w.y = w.startY = v[i + 1]! + dy;
+        w.op(`${num(w.x)} ${num(w.y)} m`);
         // Further pairs after a moveto are linetos.
-        command = relative ? 'l' : 'L';
+        command = command === upper ? 'L' : 'l';
         break;
       case 'L':
-        sub.push(`${num(v[0]! + dx)} ${num(v[1]! + dy)} l`);
-        to(v[0]! + dx, v[1]! + dy);
+        w.op(`${num(v[i]! + dx)} ${num(v[i + 1]! + dy)} l`);
+        w.to(v[i]! + dx, v[i + 1]! + dy);
         break;
       case 'H':
-        sub.push(`${num(v[0]! + dx)} ${num(y)} l`);
-        to(v[0]! + dx, y);
+        w.op(`${num(v[i]! + dx)} ${num(w.y)} l`);
+        w.to(v[i]! + dx, w.y);
         break;
       case 'V':
-        sub.push(`${num(x)} ${num(v[0]! + dy)} l`);
-        to(x, v[0]! + dy);
+        w.op(`${num(w.x)} ${num(v[i]! + dy)} l`);
+        w.to(w.x, v[i]! + dy);
         break;
       case 'C': {
-        const p = [v[0]! + dx, v[1]! + dy, v[2]! + dx, v[3]! + dy, v[4]! + dx, v[5]! + dy];
-        sub.push(`${p.map(num).join(' ')} c`);
-        if (p.some((c, k) => c !== (k % 2 ? y : x))) moved = true;
-        to(p[4]!, p[5]!);
+        const p = [v[i]! + dx, v[i + 1]! + dy, v[i + 2]! + dx, v[i + 3]! + dy];
+        const [ex, ey] = [v[i + 4]! + dx, v[i + 5]! + dy];
+        w.op(`${p.map(num).join(' ')} ${num(ex)} ${num(ey)} c`);
+        if (p[0] !== w.x || p[1] !== w.y || p[2] !== w.x || p[3] !== w.y) w.touch();
+        w.to(ex, ey);
         break;
       }
       case 'A': {
-        const ex = v[5]! + dx;
-        const ey = v[6]! + dy;
-        for (const curve of arcCurves(x, y, v[0]!, v[1]!, v[2]!, v[3]! !== 0, v[4]! !== 0, ex, ey))
-          sub.push(`${curve.map(num).join(' ')} c`);
-        to(ex, ey);
+        const ex = v[i + 5]! + dx;
+        const ey = v[i + 6]! + dy;
+        const [rx, ry, angle, large, sweep] = [v[i]!, v[i + 1]!, v[i + 2]!, v[i + 3]!, v[i + 4]!];
+        for (const curve of arcCurves(w.x, w.y, rx, ry, angle, large !== 0, sweep !== 0, ex, ey))
+          w.op(`${curve.map(num).join(' ')} c`);
+        w.to(ex, ey);
         break;
       }
     }
+    i += n;
   }
-  endSub();
-  return out.join(' ');
+  w.endSub();
+  return w.out.join(' ');
 }
 
 /** Cubic Béziers (control, control, end) for an SVG elliptical arc from (x1, y1). */

@@ -10,7 +10,7 @@
  * values. Only what VexFlow and the notation code write is understood; anything else throws, so a
  * change in the engraving fails in the specs rather than printing something different.
  */
-import type { SvgNode } from '../notation/svg-document';
+import { SvgNode } from '../notation/svg-document';
 import { num, pathOperators } from './path-operators';
 
 export interface Paint {
@@ -151,28 +151,45 @@ function check(node: SvgNode): void {
 }
 
 function styleOf(node: SvgNode, parent: Style): Style {
-  const attr = (name: string) => node.getAttribute(name) ?? undefined;
-  const anchor = attr('text-anchor') ?? parent.anchor;
+  const fill = node.getAttribute('fill');
+  const stroke = node.getAttribute('stroke');
+  const width = node.getAttribute('stroke-width');
+  const dash = node.getAttribute('stroke-dasharray');
+  const family = node.getAttribute('font-family');
+  const size = node.getAttribute('font-size');
+  const weight = node.getAttribute('font-weight');
+  const fontStyle = node.getAttribute('font-style');
+  const anchor = node.getAttribute('text-anchor') ?? parent.anchor;
+  // Most elements set nothing that inherits: their parent's style serves unchanged.
+  if (
+    fill === null &&
+    stroke === null &&
+    width === null &&
+    dash === null &&
+    family === null &&
+    size === null &&
+    weight === null &&
+    fontStyle === null &&
+    anchor === parent.anchor
+  )
+    return parent;
   if (anchor !== 'start' && anchor !== 'middle' && anchor !== 'end')
     throw new Error(`print-drawing: text-anchor ${anchor}`);
-  const size = attr('font-size');
-  const width = attr('stroke-width');
   return {
-    fill: attr('fill') ?? parent.fill,
-    stroke: attr('stroke') ?? parent.stroke,
-    strokeWidth: width === undefined ? parent.strokeWidth : length(width),
-    dash: dashOf(attr('stroke-dasharray')) ?? parent.dash,
-    family: attr('font-family') ?? parent.family,
-    size: size === undefined ? parent.size : length(size),
-    weight: attr('font-weight') ?? parent.weight,
-    fontStyle: attr('font-style') ?? parent.fontStyle,
+    fill: fill ?? parent.fill,
+    stroke: stroke ?? parent.stroke,
+    strokeWidth: width === null ? parent.strokeWidth : length(width),
+    dash: dash === null ? parent.dash : dashOf(dash),
+    family: family ?? parent.family,
+    size: size === null ? parent.size : length(size),
+    weight: weight ?? parent.weight,
+    fontStyle: fontStyle ?? parent.fontStyle,
     anchor,
   };
 }
 
 /** svg-to-pdfkit's reading of `stroke-dasharray`: an odd list is doubled, all zeros is solid. */
-function dashOf(value: string | undefined): string | undefined {
-  if (value === undefined) return undefined;
+function dashOf(value: string): string {
   if (value.trim() === 'none') return '[] 0 d';
   let dashes = value
     .trim()
@@ -186,10 +203,23 @@ function dashOf(value: string | undefined): string | undefined {
 
 /** A length in drawing units: plain or px, or pt at 96/72 (svg-to-pdfkit's `computeUnits`). */
 function length(value: string): number {
+  const plain = Number(value);
+  if (value !== '' && Number.isFinite(plain)) return plain;
+  const known = LENGTHS.get(value);
+  if (known !== undefined) return known;
   const match = /^\s*([+-]?(?:\d+\.?\d*|\.\d+)(?:e[+-]?\d+)?)(px|pt)?\s*$/i.exec(value);
   if (!match) throw new Error(`print-drawing: length ${value} not supported`);
-  return Number(match[1]) * (match[2] === 'pt' ? 96 / 72 : 1);
+  const result = Number(match[1]) * (match[2] === 'pt' ? 96 / 72 : 1);
+  if (LENGTHS.size >= MEMO_LIMIT) LENGTHS.clear();
+  LENGTHS.set(value, result);
+  return result;
 }
+
+/** Engravings repeat a handful of sizes and paints; the bound only guards odd input. */
+const MEMO_LIMIT = 256;
+
+/** Lengths with units already read: a drawing repeats a few (`30pt` on every glyph). */
+const LENGTHS = new Map<string, number>();
 
 function drawChildren(node: SvgNode, style: Style, items: Items): void {
   for (const child of node.childNodes) {
@@ -211,10 +241,11 @@ function drawChildren(node: SvgNode, style: Style, items: Items): void {
         shape(pathOperators(child.getAttribute('d') ?? ''), own, items);
         break;
       case 'rect': {
-        const [x, y, w, h] = ['x', 'y', 'width', 'height'].map((a) =>
-          length(child.getAttribute(a) ?? '0'),
-        );
-        if (w! > 0 && h! > 0) shape(`${num(x!)} ${num(y!)} ${num(w!)} ${num(h!)} re`, own, items);
+        const x = length(child.getAttribute('x') ?? '0');
+        const y = length(child.getAttribute('y') ?? '0');
+        const w = length(child.getAttribute('width') ?? '0');
+        const h = length(child.getAttribute('height') ?? '0');
+        if (w > 0 && h > 0) shape(`${num(x)} ${num(y)} ${num(w)} ${num(h)} re`, own, items);
         break;
       }
       case 'text':
@@ -242,6 +273,19 @@ const NAMED: Record<string, string> = { black: '0 0 0', white: '1 1 1' };
 
 function paint(value: string, opacity: number): Paint | null {
   if (value === 'none' || opacity === 0) return null;
+  const key = `${value} ${opacity}`;
+  const known = PAINTS.get(key);
+  if (known) return known;
+  const result = readPaint(value, opacity);
+  if (PAINTS.size >= MEMO_LIMIT) PAINTS.clear();
+  PAINTS.set(key, result);
+  return result;
+}
+
+/** Paints already read, shared between runs (they are never changed). */
+const PAINTS = new Map<string, Paint>();
+
+function readPaint(value: string, opacity: number): Paint {
   if (value === 'currentColor') return { rgb: NAMED['black']!, opacity };
   const named = NAMED[value];
   if (named) return { rgb: named, opacity };
@@ -353,5 +397,5 @@ function coordinate(node: SvgNode, name: string): number | undefined {
 }
 
 function isElement(child: SvgNode['childNodes'][number]): child is SvgNode {
-  return 'nodeName' in child;
+  return child instanceof SvgNode;
 }
