@@ -17,6 +17,8 @@ interface GlyphPosition {
 /** A PDFKit embedded font (pdfkit/js/font/embedded.js). */
 interface PdfFont {
   readonly id: string;
+  /** PDFKit's shaped runs by text (its `fontLayoutCache`, on by default in pdfmake). */
+  layoutCache?: Record<string, unknown>;
   encode(text: string): [string[], GlyphPosition[]];
   ref(): unknown;
 }
@@ -223,6 +225,26 @@ function fontFor(
   const file = doc.getFontFile(family, piece.bold, piece.italic);
   if (file === null) throw new Error(`draw-print: no font file for ${family}`);
   const font = doc.font(file)._font;
+  shareLayouts(font, file);
   fonts.set(key, font);
   return font;
 }
+
+/**
+ * PDFKit shapes each distinct text once per document and font; a worksheet's notation sets the
+ * same few dozen glyph strings every time, so the shaped runs are kept across documents, by font
+ * file (a run depends only on the font and the text).
+ */
+function shareLayouts(font: PdfFont, file: string): void {
+  if (!font.layoutCache) return;
+  let shared = SHARED_LAYOUTS.get(file);
+  if (!shared || Object.keys(shared).length > SHARED_LAYOUT_LIMIT) {
+    shared = font.layoutCache;
+    SHARED_LAYOUTS.set(file, shared);
+  }
+  font.layoutCache = shared;
+}
+
+const SHARED_LAYOUTS = new Map<string, Record<string, unknown>>();
+/** Far above what engravings set (glyphs, counts, sticking, the key); it only bounds odd input. */
+const SHARED_LAYOUT_LIMIT = 5000;
