@@ -1,6 +1,6 @@
 /**
- * The engraving as a printer needs it. pdfmake's SVG renderer re-parses the drawing and walks
- * every element, looking attributes up through each ancestor; a 16-bar drill has some 2,000
+ * The engraving as a printer needs it. The print compiler (server/pdf/print-drawing.ts) walks
+ * every element and knows only attributes that paint; a 16-bar drill has some 2,000
  * groups that only carry the app's hooks (class, id, data-*), so those hooks are dropped and the
  * groups left without an attribute are unwrapped. What is drawn, and how, is unchanged: only
  * attributes no renderer paints with go, and a group with none passes nothing to its children.

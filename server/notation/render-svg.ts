@@ -40,6 +40,8 @@ function prepareFonts(): void {
 export interface SvgRender {
   readonly svg: string;
   readonly layout: Omit<NotationLayout, 'svg'>;
+  /** The drawing's element tree, for a renderer that need not parse `svg` again. */
+  readonly tree: SvgNode;
 }
 
 /**
@@ -62,7 +64,7 @@ export function renderDrillSvg(
     const { svg, ...layout } = renderNotation(container, buildNotation(drill), options);
     const root = svg as unknown as SvgNode;
     if (forPrint) simplifyForPrint(root);
-    return { svg: root.serialize(), layout };
+    return { svg: root.serialize(), layout, tree: root };
   } finally {
     if (previous === undefined) delete global.document;
     else global.document = previous;

@@ -3,6 +3,7 @@ import type { Drill } from '../../shared/generator/index';
 import { PRINT_LAYOUT } from '../../shared/notation/print-layout';
 import type { RenderOptions } from '../../shared/notation/render-vexflow';
 import { renderDrillSvg } from '../notation/render-svg';
+import { compilePrintDrawing, type PrintDrawing } from './print-drawing';
 import type { PrintAids } from './worksheet-print';
 
 /**
@@ -18,6 +19,8 @@ const BARS_PER_SYSTEM = PRINT_LAYOUT.maxBarsPerSystem;
 
 export interface NotationArt {
   readonly svg: string;
+  /** The same drawing ready for a PDF page (print-drawing.ts). */
+  readonly drawing: PrintDrawing;
   /** Size of the drawing in its own units; pdfmake scales it to the width it is given. */
   readonly width: number;
   readonly height: number;
@@ -141,8 +144,11 @@ interface Engraved extends NotationArt {
 }
 
 function engrave(drill: Drill, aids: PrintAids, width: number): Engraved {
-  const { svg, layout } = renderDrillSvg(drill, printOptions(aids, width), { forPrint: true });
+  const { svg, layout, tree } = renderDrillSvg(drill, printOptions(aids, width), {
+    forPrint: true,
+  });
   const sizes: number[] = [];
   for (const bar of layout.bars) sizes[bar.system] = (sizes[bar.system] ?? 0) + 1;
-  return { svg, width: layout.width, height: layout.height, systems: sizes.length, sizes };
+  const drawing = compilePrintDrawing(tree);
+  return { svg, drawing, width: layout.width, height: layout.height, systems: sizes.length, sizes };
 }

@@ -1,10 +1,13 @@
 import { setImmediate as nextTurn } from 'node:timers/promises';
 import type { Readable } from 'node:stream';
 import { notationArt } from './notation-art';
-import { preparedPdfmake } from './pdf-fonts';
+import { drawPrintDrawing, type FontTable, type PdfKitDocument } from './draw-print';
+import { preparedPdfmake, TEXT_FONT } from './pdf-fonts';
+import type { PrintDrawing } from './print-drawing';
 import { qrSvg } from './qr-code';
 import { tensionPlotSvg } from './tension-plot';
 import {
+  NOTATION_DRAWING,
   notationRoom,
   textArea,
   worksheetDocument,
@@ -50,12 +53,45 @@ export async function layOutPdf(
   signal?: AbortSignal,
 ): Promise<Readable> {
   signal?.throwIfAborted();
+  // Pages stay open until the end, so the notation can be drawn into its places once laid out.
   const stream = await preparedPdfmake()
-    .createPdf(worksheetDocument(print, art, options))
+    .createPdf(worksheetDocument(print, art, options), { bufferPages: true })
     .getStream();
+  drawNotation(stream as unknown as LaidOutDocument);
   // pdfkit writes the pages out once the document is ended; the caller reads them as they come.
   stream.end();
   return stream;
+}
+
+/** What pdfmake 0.3 leaves on its PDFKit document: the pages it laid out, items placed. */
+export interface LaidOutDocument extends PdfKitDocument {
+  readonly _pdfMakePages: readonly { readonly items: readonly PageItem[] }[];
+  switchToPage(index: number): unknown;
+}
+
+interface PageItem {
+  readonly type: string;
+  readonly item: {
+    readonly x: number;
+    readonly y: number;
+    readonly _width: number;
+    readonly _height: number;
+    readonly [NOTATION_DRAWING]?: PrintDrawing;
+  };
+}
+
+/** Draw each drill's notation into the place pdfmake gave it (see worksheet-document.ts). */
+export function drawNotation(doc: LaidOutDocument): void {
+  const fonts: FontTable = new Map();
+  doc._pdfMakePages.forEach((page, index) => {
+    for (const { type, item } of page.items) {
+      const drawing = type === 'svg' ? item[NOTATION_DRAWING] : undefined;
+      if (!drawing) continue;
+      doc.switchToPage(index);
+      const box = { x: item.x, y: item.y, width: item._width, height: item._height };
+      drawPrintDrawing(doc, drawing, box, fonts, TEXT_FONT);
+    }
+  });
 }
 
 /** Read a PDF stream to the end. */

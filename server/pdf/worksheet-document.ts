@@ -134,7 +134,7 @@ function drillBlock(
       { text: facts, fontSize: 8, color: '#444', margin: [0, 1, 0, 4] },
       options.withoutNotation
         ? { canvas: [{ type: 'rect', x: 0, y: 0, w: width, h: height, lineColor: '#ffffff' }] }
-        : { svg: art.notation.svg, width, alignment: 'center' },
+        : notationPlace(notation, width),
       ...(art.tension ? [{ svg: art.tension, width: textWidth, margin: [0, 4, 0, 0] }] : []),
       {
         margin: [0, 8, 0, 0],
@@ -154,6 +154,23 @@ function drillBlock(
     ],
   };
 }
+
+/**
+ * Where the notation goes: an empty SVG of the drawing's size, which pdfmake lays out as it would
+ * the drawing itself, carrying the drawing for `drawNotation` to put there once pages are laid out.
+ */
+function notationPlace(notation: NotationArt, width: number): Content {
+  const size = `width="${notation.width}" height="${notation.height}"`;
+  return {
+    svg: `<svg xmlns="http://www.w3.org/2000/svg" ${size} viewBox="0 0 ${notation.width} ${notation.height}"/>`,
+    width,
+    alignment: 'center',
+    [NOTATION_DRAWING]: notation.drawing,
+  };
+}
+
+/** The key a notation place carries its drawing under (pdfmake ignores keys it does not know). */
+export const NOTATION_DRAWING = 'tensileNotationDrawing';
 
 function ladder(drill: WorksheetPrintDrill): Content {
   const rungs = ladderRungs(drill.ladder);
