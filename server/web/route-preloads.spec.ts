@@ -4,6 +4,7 @@ import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import {
   DRILL_PAGE_ENTRIES,
+  MAX_SEED_LENGTH,
   MUSIC_FONTS_SOURCE,
   injectPreloads,
   routePreloads,
@@ -104,5 +105,12 @@ describe('the drill page entries', () => {
     for (const source of [...DRILL_PAGE_ENTRIES, MUSIC_FONTS_SOURCE]) {
       expect(() => readFileSync(path.join(REPO, source))).not.toThrow();
     }
+  });
+});
+
+describe('drillPageRequests', () => {
+  it('keeps the seed limit of the drill page', () => {
+    const client = readFileSync(path.join(REPO, 'src/app/drills/seed-problem.ts'), 'utf8');
+    expect(client).toContain(`export const MAX_SEED_LENGTH = ${MAX_SEED_LENGTH};`);
   });
 });

@@ -117,3 +117,43 @@ export function injectPreloads(html: string, preloads: RoutePreloads): string {
   const bodyEnd = html.lastIndexOf('</body>');
   return bodyEnd === -1 ? html + links : html.slice(0, bodyEnd) + links + html.slice(bodyEnd);
 }
+
+/** The drill page's longest seed (`MAX_SEED_LENGTH` in src/app/drills/seed-problem.ts). */
+export const MAX_SEED_LENGTH = 64;
+
+/**
+ * The requests `src/app/drills/drill-prefetch.ts` starts for the drill page at `pathname` and
+ * `search` (the session check, the preset's drill at the URL's seed, the preset), in the same
+ * URLs, so the browser can start them while it still parses the page and hand the answers to
+ * those `fetch` calls. Null for a path that is not a drill page.
+ */
+export function drillPageRequests(pathname: string, search: string): string[] | null {
+  const match = /^\/drills\/([^/]+)\/?$/.exec(pathname);
+  if (!match) return null;
+  let id: string;
+  try {
+    id = decodeURIComponent(match[1]!);
+  } catch {
+    return null;
+  }
+  const preset = `/api/presets/${encodeURIComponent(id)}`;
+  const seed = new URLSearchParams(search).get('seed')?.trim().slice(0, MAX_SEED_LENGTH);
+  return [
+    '/api/auth/me',
+    ...(seed ? [`${preset}/drill?seed=${encodeURIComponent(seed)}`] : []),
+    preset,
+  ];
+}
+
+/**
+ * `html` with preloads for `urls` as `fetch` would ask for them (CORS mode, same-origin
+ * credentials: the `crossorigin` attribute), after the main script.
+ */
+export function injectFetchPreloads(html: string, urls: readonly string[]): string {
+  const links = urls
+    .map((url) => `<link rel="preload" as="fetch" crossorigin href="${escapeAttribute(url)}">`)
+    .join('');
+  const mainScript = /<script\b[^>]*\stype="module"[^>]*><\/script>/.exec(html);
+  const at = mainScript ? mainScript.index + mainScript[0].length : html.lastIndexOf('</body>');
+  return at < 0 ? html + links : html.slice(0, at) + links + html.slice(at);
+}

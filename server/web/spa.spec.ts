@@ -108,11 +108,34 @@ describe('a drill page with the build metafile beside the app', () => {
     expect(res.text).toBe(
       PAGE.replace(
         '</script>',
-        '</script><link rel="modulepreload" href="chunk-PAGE0001.js">' +
+        // The API requests first: small answers the session guard and the page wait for.
+        '</script><link rel="preload" as="fetch" crossorigin href="/api/auth/me">' +
+          '<link rel="preload" as="fetch" crossorigin href="/api/presets/early-backbeat/drill?seed=harbor-spark-21">' +
+          '<link rel="preload" as="fetch" crossorigin href="/api/presets/early-backbeat">' +
+          '<link rel="modulepreload" href="chunk-PAGE0001.js">' +
           '<link rel="modulepreload" href="chunk-MATL0001.js">' +
           '<link rel="preload" as="font" type="font/woff2" crossorigin href="media/bravura-BBBBBBBB.woff2">',
       ),
     );
+  });
+
+  it('asks for the drill at the seed as the page does: trimmed, cut to 64 characters, escaped', async () => {
+    const seed = `  ${'x'.repeat(70)}  `;
+    const res = await request(app.app).get(
+      `/drills/a%20card?seed=${encodeURIComponent(seed)}&other=1`,
+    );
+    expect(res.text).toContain(`href="/api/presets/a%20card/drill?seed=${'x'.repeat(64)}"`);
+    const bare = await request(app.app).get('/drills/a%20card?seed=%20%20');
+    expect(bare.text).not.toContain('/drill?');
+    expect(bare.text).toContain('href="/api/presets/a%20card"');
+  });
+
+  it('keeps what the URL carries out of the markup', async () => {
+    const res = await request(app.app).get(
+      '/drills/x?seed=%22%3E%3Cscript%3Ealert(1)%3C%2Fscript%3E',
+    );
+    expect(res.text).not.toContain('<script>alert');
+    expect(res.text).toContain('seed=%22%3E%3Cscript%3Ealert(1)%3C%2Fscript%3E"');
   });
 
   it('answers a repeated request with 304 when the page has not changed', async () => {
@@ -140,5 +163,6 @@ describe('a drill page with the build metafile beside the app', () => {
     expect(res.text).toContain('href="chunk-PAGE0001.js"');
     expect(res.text).not.toContain('chunk-MATL0001.js');
     expect(res.text).not.toContain('woff2');
+    expect(res.text).toContain('href="/api/auth/me"');
   });
 });

@@ -5,6 +5,8 @@ import express, { Router, type Response } from 'express';
 import {
   DRILL_PAGE_ENTRIES,
   MUSIC_FONTS_SOURCE,
+  drillPageRequests,
+  injectFetchPreloads,
   injectPreloads,
   readMetafile,
   routePreloads,
@@ -24,15 +26,12 @@ const ASSET_EXTENSION =
 
 const ONE_YEAR_SECONDS = 365 * 24 * 60 * 60;
 
-/** `/drills/<card>`: a drill page, whose chunks and score fonts `index.html` names up front. */
-const DRILL_PAGE = /^\/drills\/[^/]+\/?$/;
-
 /**
  * Serves the built app from `distDir`: hashed files cached for a year (their names change with
  * their content), everything else revalidated on each use, and `index.html` for any other
  * non-API GET so the client router can take over (`/drills/…` and the like). A drill page's
  * `index.html` also preloads the page's chunks and fonts, read from the build's `stats.json`
- * beside `distDir` (route-preloads.ts). Without a build, pages get a 503 saying how to make one.
+ * beside `distDir`, and the API requests the page starts first (route-preloads.ts). Without a build, pages get a 503 saying how to make one.
  */
 export function createSpaRouter(distDir: string = DEFAULT_BROWSER_DIST): Router {
   const router = Router();
@@ -58,9 +57,10 @@ export function createSpaRouter(distDir: string = DEFAULT_BROWSER_DIST): Router 
     if (ASSET_EXTENSION.test(req.path)) return next();
     if (!existsSync(indexFile)) return sendBuildMissing(res);
     res.setHeader('Cache-Control', 'no-cache');
-    const html = DRILL_PAGE.test(req.path) ? drillIndex() : null;
-    if (html === null) res.sendFile(indexFile);
-    else res.type('html').send(html);
+    const requests = drillPageRequests(req.path, new URL(req.originalUrl, 'http://x').search);
+    const html = requests && drillIndex();
+    if (!requests || !html) return res.sendFile(indexFile);
+    res.type('html').send(injectFetchPreloads(html, requests));
   });
 
   return router;
