@@ -57,7 +57,9 @@ export function createSpaRouter(distDir: string = DEFAULT_BROWSER_DIST): Router 
     if (ASSET_EXTENSION.test(req.path)) return next();
     if (!existsSync(indexFile)) return sendBuildMissing(res);
     res.setHeader('Cache-Control', 'no-cache');
-    const requests = drillPageRequests(req.path, new URL(req.originalUrl, 'http://x').search);
+    const query = req.originalUrl.indexOf('?');
+    const search = query < 0 ? '' : req.originalUrl.slice(query);
+    const requests = drillPageRequests(req.path, search);
     const html = requests && drillIndex();
     if (!requests || !html) return res.sendFile(indexFile);
     res.type('html').send(injectFetchPreloads(html, requests));
