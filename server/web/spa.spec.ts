@@ -1,4 +1,4 @@
-import { mkdtemp, rm, writeFile } from 'node:fs/promises';
+import { mkdir, mkdtemp, rm, utimes, writeFile } from 'node:fs/promises';
 import os from 'node:os';
 import path from 'node:path';
 import request from 'supertest';
@@ -65,5 +65,107 @@ describe('serving the built app', () => {
     expect(res.status).toBe(503);
     expect(res.type).toBe('text/html');
     expect(res.text).toContain('npm run build');
+  });
+});
+
+describe('a drill page with the build metafile beside the app', () => {
+  const PAGE =
+    '<!doctype html><html><body><tensile-root></tensile-root>' +
+    '<script src="main-AAAAAAAA.js" type="module"></script></body></html>';
+  const STATS = {
+    outputs: {
+      'main-AAAAAAAA.js': { entryPoint: 'src/main.ts', imports: [] },
+      'chunk-PAGE0001.js': {
+        entryPoint: 'src/app/drills/drill-page.ts',
+        inputs: { 'src/app/drills/drill-page.ts': {}, 'src/app/drills/score/music-fonts.ts': {} },
+        imports: [
+          { path: 'chunk-MATL0001.js', kind: 'import-statement' },
+          { path: 'media/bravura-BBBBBBBB.woff2', kind: 'file-loader' },
+        ],
+      },
+      'chunk-MATL0001.js': { imports: [] },
+    },
+  };
+  let root: string;
+  let app: TestApp;
+  beforeAll(async () => {
+    root = await mkdtemp(path.join(os.tmpdir(), 'tensile-build-'));
+    await mkdir(path.join(root, 'browser'));
+    await writeFile(path.join(root, 'browser', 'index.html'), PAGE);
+    await writeFile(path.join(root, 'stats.json'), JSON.stringify(STATS));
+    app = await createTestApp({ seed: false, deps: { browserDist: path.join(root, 'browser') } });
+  });
+  afterAll(async () => {
+    await app.close();
+    await rm(root, { recursive: true, force: true });
+  });
+
+  it('names the page chunks and the score font after the main script', async () => {
+    const res = await request(app.app).get('/drills/early-backbeat?seed=harbor-spark-21');
+    expect(res.status).toBe(200);
+    expect(res.type).toBe('text/html');
+    expect(res.headers['cache-control']).toBe('no-cache');
+    expect(res.text).toBe(
+      PAGE.replace(
+        '</script>',
+        // The API requests first: small answers the session guard and the page wait for.
+        '</script><link rel="preload" as="fetch" crossorigin href="/api/auth/me">' +
+          '<link rel="preload" as="fetch" crossorigin href="/api/presets/early-backbeat/drill?seed=harbor-spark-21">' +
+          '<link rel="preload" as="fetch" crossorigin href="/api/presets/early-backbeat">' +
+          '<link rel="modulepreload" href="chunk-PAGE0001.js">' +
+          '<link rel="modulepreload" href="chunk-MATL0001.js">' +
+          '<link rel="preload" as="font" type="font/woff2" crossorigin href="media/bravura-BBBBBBBB.woff2">',
+      ),
+    );
+  });
+
+  it('asks for the drill at the seed as the page does: trimmed, cut to 64 characters, escaped', async () => {
+    const seed = `  ${'x'.repeat(70)}  `;
+    const res = await request(app.app).get(
+      `/drills/a%20card?seed=${encodeURIComponent(seed)}&other=1`,
+    );
+    expect(res.text).toContain(`href="/api/presets/a%20card/drill?seed=${'x'.repeat(64)}"`);
+    const bare = await request(app.app).get('/drills/a%20card?seed=%20%20');
+    expect(bare.text).not.toContain('/drill?');
+    expect(bare.text).toContain('href="/api/presets/a%20card"');
+  });
+
+  it('keeps what the URL carries out of the markup', async () => {
+    const res = await request(app.app).get(
+      '/drills/x?seed=%22%3E%3Cscript%3Ealert(1)%3C%2Fscript%3E',
+    );
+    expect(res.text).not.toContain('<script>alert');
+    expect(res.text).toContain('seed=%22%3E%3Cscript%3Ealert(1)%3C%2Fscript%3E"');
+  });
+
+  it('answers a repeated request with 304 when the page has not changed', async () => {
+    const first = await request(app.app).get('/drills/early-backbeat');
+    const again = await request(app.app)
+      .get('/drills/early-backbeat')
+      .set('If-None-Match', first.headers['etag'] as string);
+    expect(again.status).toBe(304);
+  });
+
+  it.each(['/', '//', '//drills?seed=1', '/drills', '/drills/a/b', '/rule-cards/x'])(
+    'leaves %s as built',
+    async (url) => {
+      const res = await request(app.app).get(url);
+      expect(res.status).toBe(200);
+      expect(res.text).toBe(PAGE);
+    },
+  );
+
+  it('follows a rebuild', async () => {
+    const rebuilt = structuredClone(STATS);
+    rebuilt.outputs['chunk-PAGE0001.js'].imports = [];
+    await writeFile(path.join(root, 'stats.json'), JSON.stringify(rebuilt));
+    // A rebuild within the file system's time resolution still changes the time given here.
+    const later = new Date(Date.now() + 5_000);
+    await utimes(path.join(root, 'stats.json'), later, later);
+    const res = await request(app.app).get('/drills/early-backbeat');
+    expect(res.text).toContain('href="chunk-PAGE0001.js"');
+    expect(res.text).not.toContain('chunk-MATL0001.js');
+    expect(res.text).not.toContain('woff2');
+    expect(res.text).toContain('href="/api/auth/me"');
   });
 });

@@ -1,7 +1,16 @@
-import { existsSync } from 'node:fs';
+import { existsSync, readFileSync, statSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import express, { Router, type Response } from 'express';
+import {
+  DRILL_PAGE_ENTRIES,
+  MUSIC_FONTS_SOURCE,
+  drillPageRequests,
+  injectFetchPreloads,
+  injectPreloads,
+  readMetafile,
+  routePreloads,
+} from './route-preloads';
 
 /** Where `ng build` writes the browser app. */
 export const DEFAULT_BROWSER_DIST = fileURLToPath(
@@ -20,12 +29,14 @@ const ONE_YEAR_SECONDS = 365 * 24 * 60 * 60;
 /**
  * Serves the built app from `distDir`: hashed files cached for a year (their names change with
  * their content), everything else revalidated on each use, and `index.html` for any other
- * non-API GET so the client router can take over (`/drills/…` and the like). Without a build,
- * pages get a 503 saying how to make one.
+ * non-API GET so the client router can take over (`/drills/…` and the like). A drill page's
+ * `index.html` also preloads the page's chunks and fonts, read from the build's `stats.json`
+ * beside `distDir`, and the API requests the page starts first (route-preloads.ts). Without a build, pages get a 503 saying how to make one.
  */
 export function createSpaRouter(distDir: string = DEFAULT_BROWSER_DIST): Router {
   const router = Router();
   const indexFile = path.join(distDir, 'index.html');
+  const drillIndex = drillPageIndex(indexFile, path.join(distDir, '..', 'stats.json'));
 
   router.use(
     express.static(distDir, {
@@ -46,10 +57,44 @@ export function createSpaRouter(distDir: string = DEFAULT_BROWSER_DIST): Router 
     if (ASSET_EXTENSION.test(req.path)) return next();
     if (!existsSync(indexFile)) return sendBuildMissing(res);
     res.setHeader('Cache-Control', 'no-cache');
-    res.sendFile(indexFile);
+    const query = req.originalUrl.indexOf('?');
+    const search = query < 0 ? '' : req.originalUrl.slice(query);
+    const requests = drillPageRequests(req.path, search);
+    const html = requests && drillIndex();
+    if (!requests || !html) return res.sendFile(indexFile);
+    res.type('html').send(injectFetchPreloads(html, requests));
   });
 
   return router;
+}
+
+/**
+ * The drill page's `index.html`, built once per build (a rebuild changes the files' times), or
+ * null without a metafile: the page then loads as before, only in more waves.
+ */
+function drillPageIndex(indexFile: string, metafileFile: string): () => string | null {
+  let built: { key: string; html: string | null } | null = null;
+  return () => {
+    let key: string;
+    try {
+      key = `${statSync(indexFile).mtimeMs}:${statSync(metafileFile).mtimeMs}`;
+    } catch {
+      return null;
+    }
+    if (built?.key !== key) {
+      const metafile = readMetafile(metafileFile);
+      built = {
+        key,
+        html:
+          metafile &&
+          injectPreloads(
+            readFileSync(indexFile, 'utf8'),
+            routePreloads(metafile, DRILL_PAGE_ENTRIES, MUSIC_FONTS_SOURCE),
+          ),
+      };
+    }
+    return built.html;
+  };
 }
 
 function sendBuildMissing(res: Response): void {

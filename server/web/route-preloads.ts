@@ -1,0 +1,159 @@
+import { readFileSync } from 'node:fs';
+
+/**
+ * A drill page opened cold fetches its code in waves: each chunk's own imports are only found once
+ * it has arrived and been parsed. `index.html` can name the whole set up front instead, so the
+ * browser fetches it all at once while it parses `main`. The set comes from the build's esbuild
+ * metafile (`stats.json`, written by `statsJson` in angular.json), so it follows every rebuild.
+ */
+
+/** The parts of esbuild's metafile read here. */
+export interface BuildMetafile {
+  readonly outputs: Readonly<
+    Record<
+      string,
+      {
+        readonly entryPoint?: string;
+        readonly inputs?: Readonly<Record<string, unknown>>;
+        readonly imports?: readonly { readonly path: string; readonly kind: string }[];
+      }
+    >
+  >;
+}
+
+/**
+ * Source files a `/drills/<card>` page loads before its score: the signed-in shell, the drill
+ * routes, the page and the engraver (what `src/app/drills/drill-prefetch.ts` and the router
+ * import). A spec keeps this list in step with the prefetch's imports.
+ */
+export const DRILL_PAGE_ENTRIES: readonly string[] = [
+  'src/app/shell/shell.ts',
+  'src/app/drills/drill-routes.ts',
+  'src/app/drills/drill-page.ts',
+  'shared/notation/render-vexflow.ts',
+];
+
+/** The module whose `.woff2` imports are the score's faces. */
+export const MUSIC_FONTS_SOURCE = 'src/app/drills/score/music-fonts.ts';
+
+export interface RoutePreloads {
+  /** Chunks, in the order found (entries first, then what they import). */
+  readonly scripts: readonly string[];
+  /** Font files, fetched in CORS mode as the browser fetches every font. */
+  readonly fonts: readonly string[];
+}
+
+/**
+ * The chunks `entries` compile to with every chunk they import statically, and the font files
+ * the output holding `fontSource` loads. Entries missing from the build are skipped.
+ */
+export function routePreloads(
+  metafile: BuildMetafile,
+  entries: readonly string[],
+  fontSource: string,
+): RoutePreloads {
+  const outputs = Object.entries(metafile.outputs);
+  const queue = outputs
+    .filter(([, output]) => output.entryPoint !== undefined && entries.includes(output.entryPoint))
+    .map(([file]) => file);
+  const scripts: string[] = [];
+  while (queue.length > 0) {
+    const file = queue.shift() as string;
+    if (scripts.includes(file)) continue;
+    scripts.push(file);
+    for (const imported of metafile.outputs[file]?.imports ?? []) {
+      if (imported.kind === 'import-statement' && imported.path.endsWith('.js')) {
+        queue.push(imported.path);
+      }
+    }
+  }
+  const fonts = outputs
+    .filter(([, output]) => Object.keys(output.inputs ?? {}).includes(fontSource))
+    .flatMap(([, output]) => output.imports ?? [])
+    .filter((imported) => imported.kind === 'file-loader' && imported.path.endsWith('.woff2'))
+    .map((imported) => imported.path);
+  return { scripts, fonts: [...new Set(fonts)] };
+}
+
+/** The build's metafile at `file`, or null when there is none or it cannot be read. */
+export function readMetafile(file: string): BuildMetafile | null {
+  try {
+    const parsed = JSON.parse(readFileSync(file, 'utf8')) as Partial<BuildMetafile>;
+    return typeof parsed.outputs === 'object' && parsed.outputs !== null
+      ? (parsed as BuildMetafile)
+      : null;
+  } catch {
+    return null;
+  }
+}
+
+const escapeAttribute = (value: string): string =>
+  value.replace(/&/g, '&amp;').replace(/"/g, '&quot;').replace(/</g, '&lt;');
+
+/**
+ * `html` with preload links for `preloads`, leaving out what it already names. They go after the
+ * main script so the browser asks for `main` and its own chunks first (with six connections to
+ * one host, the order of the queue matters); without that script, before `</body>`.
+ */
+export function injectPreloads(html: string, preloads: RoutePreloads): string {
+  const named = new Set([...html.matchAll(/\s(?:href|src)="([^"]+)"/g)].map((m) => m[1]));
+  const links = [
+    ...preloads.scripts
+      .filter((file) => !named.has(file))
+      .map((file) => `<link rel="modulepreload" href="${escapeAttribute(file)}">`),
+    ...preloads.fonts
+      .filter((file) => !named.has(file))
+      .map(
+        (file) =>
+          `<link rel="preload" as="font" type="font/woff2" crossorigin href="${escapeAttribute(file)}">`,
+      ),
+  ].join('');
+  if (links === '') return html;
+  const mainScript = /<script\b[^>]*\stype="module"[^>]*><\/script>/.exec(html);
+  if (mainScript) {
+    const at = mainScript.index + mainScript[0].length;
+    return html.slice(0, at) + links + html.slice(at);
+  }
+  const bodyEnd = html.lastIndexOf('</body>');
+  return bodyEnd === -1 ? html + links : html.slice(0, bodyEnd) + links + html.slice(bodyEnd);
+}
+
+/** The drill page's longest seed (`MAX_SEED_LENGTH` in src/app/drills/seed-problem.ts). */
+export const MAX_SEED_LENGTH = 64;
+
+/**
+ * The requests `src/app/drills/drill-prefetch.ts` starts for the drill page at `pathname` and
+ * `search` (the session check, the preset's drill at the URL's seed, the preset), in the same
+ * URLs, so the browser can start them while it still parses the page and hand the answers to
+ * those `fetch` calls. Null for a path that is not a drill page.
+ */
+export function drillPageRequests(pathname: string, search: string): string[] | null {
+  const match = /^\/drills\/([^/]+)\/?$/.exec(pathname);
+  if (!match) return null;
+  let id: string;
+  try {
+    id = decodeURIComponent(match[1]!);
+  } catch {
+    return null;
+  }
+  const preset = `/api/presets/${encodeURIComponent(id)}`;
+  const seed = new URLSearchParams(search).get('seed')?.trim().slice(0, MAX_SEED_LENGTH);
+  return [
+    '/api/auth/me',
+    ...(seed ? [`${preset}/drill?seed=${encodeURIComponent(seed)}`] : []),
+    preset,
+  ];
+}
+
+/**
+ * `html` with preloads for `urls` as `fetch` would ask for them (CORS mode, same-origin
+ * credentials: the `crossorigin` attribute), after the main script.
+ */
+export function injectFetchPreloads(html: string, urls: readonly string[]): string {
+  const links = urls
+    .map((url) => `<link rel="preload" as="fetch" crossorigin href="${escapeAttribute(url)}">`)
+    .join('');
+  const mainScript = /<script\b[^>]*\stype="module"[^>]*><\/script>/.exec(html);
+  const at = mainScript ? mainScript.index + mainScript[0].length : html.lastIndexOf('</body>');
+  return at < 0 ? html + links : html.slice(0, at) + links + html.slice(at);
+}

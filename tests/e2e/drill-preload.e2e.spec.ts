@@ -1,0 +1,100 @@
+/**
+ * A drill page opened cold names its code, its score fonts and its first API requests in its
+ * HTML, so the browser fetches them at once instead of in waves. These checks hold the server's
+ * list to what the page really loads: every script the score needs was named up front, and every
+ * preloaded request was taken by the page's own `fetch` (no second request, no "preloaded but
+ * not used" warning).
+ */
+import { describe, expect, it } from 'vitest';
+import { signIn } from '../support/browser';
+import { useServerAndBrowser } from '../support/browser-suite';
+import { DEMO_TEACHERS } from '../support/demo-accounts';
+
+const DRILL = '/drills/early-backbeat?seed=harbor-spark-21';
+const SCORE = 'tensile-drill-score svg .tensile-bar';
+/** Chromium warns of an unused preload a few seconds after the load event. */
+const UNUSED_PRELOAD_WARNING_MS = 4_000;
+
+describe('drill page preloads', () => {
+  const suite = useServerAndBrowser();
+
+  it('fetches the score path in one wave and uses every preload', async () => {
+    const login = await suite.browser.newContext();
+    const teacher = DEMO_TEACHERS[0]!;
+    await signIn(await login.newPage(), suite.server.url, teacher.email, teacher.password);
+    const storageState = await login.storageState();
+    await login.close();
+
+    const context = await suite.browser.newContext({ storageState });
+    try {
+      const page = await context.newPage();
+      const warnings: string[] = [];
+      page.on('console', (message) => {
+        if (/preload/i.test(message.text())) warnings.push(message.text());
+      });
+      await page.addInitScript((selector: string) => {
+        const observer = new MutationObserver(() => {
+          if (!document.querySelector(selector)) return;
+          (window as { __drawnAt?: number }).__drawnAt = performance.now();
+          observer.disconnect();
+        });
+        document.addEventListener('DOMContentLoaded', () =>
+          observer.observe(document.body, { childList: true, subtree: true }),
+        );
+      }, SCORE);
+      await page.goto(`${suite.server.url}${DRILL}`);
+      await page.locator(SCORE).first().waitFor();
+      await page.waitForTimeout(UNUSED_PRELOAD_WARNING_MS);
+
+      const seen = await page.evaluate((selector) => {
+        const named = [...document.querySelectorAll<HTMLLinkElement>('link[rel$="preload"]')].map(
+          (link) => ({
+            rel: link.rel,
+            as: link.as,
+            path: new URL(link.href).pathname + new URL(link.href).search,
+          }),
+        );
+        const drawnAt = (window as { __drawnAt?: number }).__drawnAt ?? Infinity;
+        const loaded = performance
+          .getEntriesByType('resource')
+          .map((entry) => entry as PerformanceResourceTiming)
+          .filter((entry) => entry.startTime < drawnAt)
+          .map((entry) => ({
+            path: new URL(entry.name).pathname + new URL(entry.name).search,
+            initiator: entry.initiatorType,
+          }));
+        return {
+          named,
+          loaded,
+          drawn: drawnAt < Infinity && document.querySelector(selector) !== null,
+        };
+      }, SCORE);
+
+      expect(seen.drawn).toBe(true);
+      const fetches = seen.named.filter((link) => link.as === 'fetch').map((link) => link.path);
+      expect(fetches).toEqual([
+        '/api/auth/me',
+        '/api/presets/early-backbeat/drill?seed=harbor-spark-21',
+        '/api/presets/early-backbeat',
+      ]);
+      // One request each, made by the link: the page's fetch took the preloaded answer.
+      for (const url of fetches) {
+        expect(seen.loaded.filter((entry) => entry.path === url)).toEqual([
+          { path: url, initiator: 'link' },
+        ]);
+      }
+      const fonts = seen.named.filter((link) => link.as === 'font').map((link) => link.path);
+      expect(fonts.some((font) => /\/media\/bravura-[A-Z0-9]+\.woff2$/.test(font))).toBe(true);
+      // No script the score waited for was found only by importing: the HTML named them all.
+      const scripts = seen.named.filter((link) => link.rel === 'modulepreload').map((l) => l.path);
+      const imported = seen.loaded.filter(
+        (entry) => entry.path.endsWith('.js') && entry.initiator === 'script',
+      );
+      expect(scripts.length).toBeGreaterThan(10);
+      expect(imported.filter((entry) => !entry.path.startsWith('/main-'))).toEqual([]);
+      expect(warnings).toEqual([]);
+    } finally {
+      await context.close();
+    }
+  });
+});
