@@ -511,8 +511,12 @@ function* engrave(
     }
     syllableSize = Math.min(syllableSize, ...sizes);
   }
+  // Every system starts from the same drawing state, so what one system leaves behind (a font,
+  // a pen) never makes the next one's cached drawing unusable.
+  const systemStart = ctx.drawingState();
   for (const [systemIndex, plan] of plans.entries()) {
-    const drawKey = cache ? `${syllableSize}${ctx.drawingState()}${systemKeys[systemIndex]}` : '';
+    ctx.setDrawingState(systemStart);
+    const drawKey = cache ? `${syllableSize}${systemStart}${systemKeys[systemIndex]}` : '';
     const known = cache?.get('systems', drawKey);
     if (known) {
       // A stand-in, swapped at the end for the system on the page or, where it is not on the
