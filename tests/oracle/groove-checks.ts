@@ -5,16 +5,11 @@
  * its own times; none shares code with the engine.
  */
 import { rulesOf, type Voice } from './card';
+import type { HitLike } from './checks';
 import type { Plan } from './plan';
 
-interface Hit {
+interface Hit extends HitLike {
   readonly bar: number;
-  readonly beat: number;
-  readonly slot: number;
-  readonly voice: string;
-  readonly dynamic: string;
-  readonly hand: string | null;
-  readonly source: string;
   readonly index: number;
 }
 
