@@ -114,10 +114,10 @@ describe('renderDrillSvg (Node, jsdom + @napi-rs/canvas)', () => {
     expect(bracketLines([0, 2, 3])).toBe(4);
   });
 
-  // E. Gould, "Behind Bars", Faber Music 2011, ch. "Articulation" (from memory): an articulation
-  // on a chord applies to all its notes; one meant for a single note is written where it can
-  // belong to that note alone.
-  it('writes the accent of an accented snare under an unaccented cymbal at the snare', () => {
+  // Common practice in drum-set parts: the hands' accents stand above the staff at the stem's tip,
+  // also when only the snare of a cymbal-and-snare chord is accented (the reader takes it for
+  // the drum; an accent under the snare would sit in the feet's part, on its rests and notes).
+  it('writes every accent of the hands above the staff, also a snare accented under a cymbal', () => {
     const accentGlyphs = new Set([0xe4a0, 0xe4a1]);
     let mixed = 0;
     for (const [b, bar] of [...doc.querySelectorAll('.tensile-bar')].entries()) {
@@ -136,15 +136,8 @@ describe('renderDrillSvg (Node, jsdom + @napi-rs/canvas)', () => {
         const heads = [...note.querySelectorAll('.vf-notehead')].map((h) =>
           Number(h.querySelector('text')!.getAttribute('y')),
         );
-        if (accented.length === hits.length) {
-          // The whole chord: at the stem's tip, above every head.
-          expect(y).toBeLessThan(Math.min(...heads));
-          continue;
-        }
-        expect(accented.map((h) => h.voice)).toEqual(['snare']);
-        // Under the lowest head (the snare), not over the cymbal's stem.
-        expect(y, `bar ${b + 1} beat ${beat}`).toBeGreaterThan(Math.max(...heads));
-        mixed++;
+        expect(y, `bar ${b + 1} beat ${beat}`).toBeLessThan(Math.min(...heads));
+        if (accented.length < hits.length) mixed++;
       }
     }
     expect(mixed).toBeGreaterThan(0);

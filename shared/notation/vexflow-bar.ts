@@ -205,11 +205,10 @@ function staveNoteOf(event: NotationEvent, layer: Layer): StaveNote {
   });
   if (event.duration.dots) Dot.buildAndAttach([note], { all: true });
   if (rest) return note;
+  const below = layer === 'feet';
   if (event.accent) {
     note.addModifier(
-      new Articulation('a>').setPosition(
-        accentBelow(event, layer) ? ModifierPosition.BELOW : ModifierPosition.ABOVE,
-      ),
+      new Articulation('a>').setPosition(below ? ModifierPosition.BELOW : ModifierPosition.ABOVE),
     );
   }
   addGhostParentheses(note, event);
@@ -217,24 +216,6 @@ function staveNoteOf(event: NotationEvent, layer: Layer): StaveNote {
     note.addModifier(new Ornament('plungerOpen').setPosition(Modifier.Position.ABOVE));
   }
   return note;
-}
-
-/**
- * Where a chord's accent goes. An accent on every head goes at the stem's tip, outside the beam
- * (the hands' above, the feet's below). An accent on some heads only goes at the end of the
- * chord nearest them: under a stem-up chord whose accented heads are its lowest (an accented
- * snare under an unaccented hi-hat), so it is read with the snare, not over the cymbal's stem
- * where it would read as the whole chord's (E. Gould, "Behind Bars", Faber Music 2011, ch.
- * "Articulation": an articulation on a chord applies to all its notes, and one meant for a single
- * note is written where it can only belong to that note; from memory).
- */
-function accentBelow(event: NotationEvent, layer: Layer): boolean {
-  const heads = event.heads;
-  const partial = heads.some((h) => !h.accent);
-  // Heads are lowest first: a stem-up chord's notehead end is its first head, stem-down's last.
-  const noteheadEnd = layer === 'hands' ? heads[0] : heads[heads.length - 1];
-  const atNoteheads = partial && noteheadEnd?.accent === true;
-  return layer === 'feet' ? !atNoteheads : atNoteheads;
 }
 
 /** Ghost notes in parentheses: the whole chord when all heads are ghosts, else just those heads. */
