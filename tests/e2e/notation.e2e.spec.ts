@@ -567,36 +567,45 @@ describe('engraving rules on the drawn score (Chromium)', () => {
   });
 
   it("beams by the meter's grouping in 6/8, 12/8 and 7/8 (2+2+3)", async () => {
+    // The shuffle's time is a quarter and an eighth per group and its kick leaves the middle
+    // triplet out, so it may have no beam at all; the other two must show their groups' beams.
+    const mustBeam = new Set(['six-eight-groove', 'seven-eight-two-two-three']);
     for (const id of ['six-eight-groove', 'twelve-eight-shuffle', 'seven-eight-two-two-three']) {
-      const drill = presetDrill(id, 'lesson-12');
-      const grouping = buildNotation(drill).meter.grouping!;
-      const groupOf = (beat: number) => {
-        let end = 0;
-        return grouping.findIndex((g) => (end += g) >= beat);
-      };
-      const score = await engrave(drill, { width: 1100, ...FULL });
       let spanning = 0;
-      for (const bar of score.bars) {
-        for (const layer of ['hands', 'feet'] as const) {
-          const { events, beams } = bar.layers[layer];
-          for (const beam of beams) {
-            // The notes under a beam: their heads sit between its first and last stem.
-            const under = events.filter(
-              (e) =>
-                e.kind === 'note' &&
-                e.box !== null &&
-                (e.box.left + e.box.right) / 2 > beam.left - 8 &&
-                (e.box.left + e.box.right) / 2 < beam.right + 8,
-            );
-            expect(under.length, `${id} bar ${bar.bar}: notes under a beam`).toBeGreaterThan(1);
-            // Common practice (E. Gould, "Behind Bars", ch. "Beaming", from memory): a beam
-            // never crosses a group of the meter, and joins the eighths of one group.
-            expect(new Set(under.map((e) => groupOf(e.beat))).size, `${id} bar ${bar.bar}`).toBe(1);
-            if (new Set(under.map((e) => e.beat)).size > 1) spanning++;
+      // Several seeds, so some beam joins the beats of a group whatever one seed draws.
+      for (const seed of ['lesson-12', 'river-3', 'amber-40', 'quill-12']) {
+        const drill = presetDrill(id, seed);
+        const grouping = buildNotation(drill).meter.grouping!;
+        const groupOf = (beat: number) => {
+          let end = 0;
+          return grouping.findIndex((g) => (end += g) >= beat);
+        };
+        const score = await engrave(drill, { width: 1100, ...FULL });
+        for (const bar of score.bars) {
+          for (const layer of ['hands', 'feet'] as const) {
+            const { events, beams } = bar.layers[layer];
+            for (const beam of beams) {
+              // The notes under a beam: their heads sit between its first and last stem.
+              const under = events.filter(
+                (e) =>
+                  e.kind === 'note' &&
+                  e.box !== null &&
+                  (e.box.left + e.box.right) / 2 > beam.left - 8 &&
+                  (e.box.left + e.box.right) / 2 < beam.right + 8,
+              );
+              expect(under.length, `${id} bar ${bar.bar}: notes under a beam`).toBeGreaterThan(1);
+              // Common practice (E. Gould, "Behind Bars", ch. "Beaming", from memory): a beam
+              // never crosses a group of the meter, and joins the eighths of one group.
+              expect(new Set(under.map((e) => groupOf(e.beat))).size, `${id} bar ${bar.bar}`).toBe(
+                1,
+              );
+              if (new Set(under.map((e) => e.beat)).size > 1) spanning++;
+            }
           }
         }
       }
-      expect(spanning, `${id}: beams that join the beats of a group`).toBeGreaterThan(0);
+      if (mustBeam.has(id))
+        expect(spanning, `${id}: beams that join the beats of a group`).toBeGreaterThan(0);
     }
   });
 
