@@ -14,6 +14,7 @@ import {
   ruleStreams,
   streamWords,
   tabulate,
+  tabulateBy,
   timeStream,
   voicesAt,
   type Frame,
@@ -393,8 +394,8 @@ export function checkHands(
   cells: readonly Located[][],
   out: Violation[],
 ): void {
-  const notes = cells.map((present) => present.map((l) => l.hit));
-  for (const f of stickingFaults(card, grid, notes)) {
+  const table = tabulateBy(cells, grid.instants, (l: Located) => l.hit);
+  for (const f of faultsOf(card, frameOf(grid, card.tempo), table)) {
     const p = positionOf(grid, f.instant);
     out.push({ code: f.code, message: f.message, bar: p.bar, beat: p.beat, slot: p.slot });
   }
