@@ -14,6 +14,7 @@ import {
   ruleStreams,
   streamWords,
   tabulate,
+  tabulateBy,
   timeStream,
   voicesAt,
   type Frame,
@@ -77,11 +78,12 @@ export function stickingFaults(
   return faultsOf(card, frameOf(grid, card.tempo), tabulate(cells, grid.instants));
 }
 
-/** `stickingFaults` on notes already tabulated. */
+/** `stickingFaults` on notes already tabulated; with `handsOnly`, the hands' faults alone. */
 export function faultsOf(
   card: StickingCard,
   frame: Frame,
   table: NoteTable<StickingNote>,
+  handsOnly = false,
 ): StickingFault[] {
   const out: StickingFault[] = [];
   const n = frame.grid.instants;
@@ -100,6 +102,7 @@ export function faultsOf(
       const hand = notes[k]?.hand;
       if (!handVoice[v]) {
         if (hand !== null) out.push(fault('hands', 'limbs', i, `The ${word(v)} has a hand.`));
+        if (handsOnly) continue;
         const list = feet.get(v);
         if (list) list.push(i);
         else feet.set(v, [i]);
@@ -173,14 +176,27 @@ export function faultsOf(
 
   // Time and figure notes: the crossed hi-hat grip is normal, and a line may repeat its hand.
   const exempt = voicesAt(n, ...(time ? [time] : []), ...figures);
-  const farR = VOICE_IDS.map((v) => onFarSide(v, 'R', card.hand));
-  const farL = VOICE_IDS.map((v) => onFarSide(v, 'L', card.hand));
+  const farR = FAR_SIDES[card.hand].R;
+  const farL = FAR_SIDES[card.hand].L;
   tangleFaults(frame, who, voiceR, voiceL, farR, farL, out);
   for (const hand of ['R', 'L'] as const) {
     crossingFaults(card, n, hand, strokes[hand], hand === 'R' ? voiceR : voiceL, who, exempt, out);
   }
   if (n >= 3) runFaults(frame, who, handNotes, voiceR, voiceL, exempt, out);
   return out;
+}
+
+/** Per player's hand and hand: whether each voice (VOICE_IDS order) is on that hand's far side. */
+const FAR_SIDES: Readonly<Record<StickingCard['hand'], Record<Hand, readonly boolean[]>>> = {
+  right: farSides('right'),
+  left: farSides('left'),
+};
+
+function farSides(player: StickingCard['hand']): Record<Hand, readonly boolean[]> {
+  return {
+    R: VOICE_IDS.map((v) => onFarSide(v, 'R', player)),
+    L: VOICE_IDS.map((v) => onFarSide(v, 'L', player)),
+  };
 }
 
 const fault = (
@@ -378,8 +394,8 @@ export function checkHands(
   cells: readonly Located[][],
   out: Violation[],
 ): void {
-  const notes = cells.map((present) => present.map((l) => l.hit));
-  for (const f of stickingFaults(card, grid, notes)) {
+  const table = tabulateBy(cells, grid.instants, (l: Located) => l.hit);
+  for (const f of faultsOf(card, frameOf(grid, card.tempo), table)) {
     const p = positionOf(grid, f.instant);
     out.push({ code: f.code, message: f.message, bar: p.bar, beat: p.beat, slot: p.slot });
   }

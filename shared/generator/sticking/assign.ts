@@ -673,8 +673,11 @@ const fillStep = (a: WorkHit, prev: WorkHit): boolean =>
 
 /** True when a phrase's fill stroke sounds at the instant before or after (round the loop). */
 function besideFillStroke(cells: Cells, instant: number, n: number): boolean {
-  for (const at of [(instant + n - 1) % n, (instant + 1) % n])
-    for (const hit of cells[at] ?? []) if (fillStroke(hit)) return true;
+  return hasFillStroke(cells[(instant + n - 1) % n]) || hasFillStroke(cells[(instant + 1) % n]);
+}
+
+function hasFillStroke(cell: readonly WorkHit[] | undefined): boolean {
+  if (cell) for (let k = 0; k < cell.length; k++) if (fillStroke(cell[k] as WorkHit)) return true;
   return false;
 }
 
@@ -1203,6 +1206,5 @@ function handFaults(ctx: Ctx, cells: Cells, skipFill: boolean) {
   const notes = skipFill
     ? cells.map((cell) => cell?.filter((hit) => hit.source !== 'fill'))
     : cells;
-  const faults = faultsOf(ctx.card, ctx.frame, tabulate(notes, ctx.n));
-  return faults.filter((f) => f.code === 'hands');
+  return faultsOf(ctx.card, ctx.frame, tabulate(notes, ctx.n), true);
 }

@@ -90,6 +90,27 @@ export function tabulate<N extends NoteLike>(
     if (cell) for (let k = 0; k < cell.length; k++) notes.push(cell[k] as N);
   }
   start[instants] = notes.length;
+  return tableOf(start, notes);
+}
+
+/** `tabulate` on cells of items that each carry a note (no copy of the cells is made). */
+export function tabulateBy<C, N extends NoteLike>(
+  cells: readonly (readonly C[] | undefined)[],
+  instants: number,
+  noteOf: (item: C) => N,
+): NoteTable<N> {
+  const start = new Int32Array(instants + 1);
+  const notes: N[] = [];
+  for (let i = 0; i < instants; i++) {
+    start[i] = notes.length;
+    const cell = cells[i];
+    if (cell) for (let k = 0; k < cell.length; k++) notes.push(noteOf(cell[k] as C));
+  }
+  start[instants] = notes.length;
+  return tableOf(start, notes);
+}
+
+function tableOf<N extends NoteLike>(start: Int32Array, notes: N[]): NoteTable<N> {
   const voice = new Uint8Array(notes.length);
   const from = new Uint8Array(notes.length);
   for (let k = 0; k < notes.length; k++) {
