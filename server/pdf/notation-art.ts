@@ -33,21 +33,35 @@ export interface NotationArt {
  * and the page shrinks it less.
  */
 export function notationArt(drill: Drill, aids: PrintAids, maxAspect = Infinity): NotationArt {
-  // A drill is engraved from its own data alone: the same drill, aids and room draw the same.
-  const key = createHash('sha256')
+  const key = notationKey(drill, aids, maxAspect);
+  const art = cachedNotation(key) ?? engraveNotation(drill, aids, maxAspect);
+  keepNotation(key, art);
+  return art;
+}
+
+/** The cache's key: a drill is engraved from its own data alone, so the same key draws the same. */
+export function notationKey(drill: Drill, aids: PrintAids, maxAspect: number): string {
+  return createHash('sha256')
     .update(JSON.stringify([drill, aids, maxAspect, PRINT_ENGRAVING_WIDTH]))
     .digest('base64');
+}
+
+/** A kept drawing, made the most recently used. */
+export function cachedNotation(key: string): NotationArt | undefined {
   const known = engraved.get(key);
   if (known) {
     // Most recently used last, so the oldest goes first when the cache is full.
     engraved.delete(key);
     engraved.set(key, known);
-    return known;
   }
-  const art = engraveToFit(drill, aids, maxAspect);
+  return known;
+}
+
+/** Keep a drawing (made here or in a worker thread) for the next export. */
+export function keepNotation(key: string, art: NotationArt): void {
+  engraved.delete(key);
   engraved.set(key, art);
   if (engraved.size > CACHED_DRAWINGS) engraved.delete(engraved.keys().next().value!);
-  return art;
 }
 
 /**
@@ -60,6 +74,12 @@ const engraved = new Map<string, NotationArt>();
 /** Forget every kept drawing (the benchmark's cold runs). */
 export function clearNotationCache(): void {
   engraved.clear();
+}
+
+/** The drill engraved afresh (no cache): what `notationArt` draws, here or in a worker thread. */
+export function engraveNotation(drill: Drill, aids: PrintAids, maxAspect: number): NotationArt {
+  const { svg, drawing, width, height } = engraveToFit(drill, aids, maxAspect);
+  return { svg, drawing, width, height };
 }
 
 function engraveToFit(drill: Drill, aids: PrintAids, maxAspect: number): NotationArt {

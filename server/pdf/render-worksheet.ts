@@ -1,6 +1,6 @@
-import { setImmediate as nextTurn } from 'node:timers/promises';
 import type { Readable } from 'node:stream';
-import { notationArt } from './notation-art';
+import { engravingPool } from './engraving-pool';
+import { cachedNotation, keepNotation, notationKey } from './notation-art';
 import { drawPrintDrawing, type FontTable, type PdfKitDocument } from './draw-print';
 import { preparedPdfmake, TEXT_FONT } from './pdf-fonts';
 import type { PrintDrawing } from './print-drawing';
@@ -18,8 +18,8 @@ import type { WorksheetPrint } from './worksheet-print';
 
 /**
  * Lay out a worksheet and start its PDF. The answer is a readable stream of the file's bytes.
- * Engraving is synchronous and takes a while per drill, so the event loop gets a turn between
- * drills, and `signal` (a cancelled download) stops the work between them.
+ * Engraving happens in worker threads, and `signal` (a cancelled download) stops the work
+ * between drills.
  */
 export async function renderWorksheetPdf(
   print: WorksheetPrint,
@@ -28,19 +28,33 @@ export async function renderWorksheetPdf(
   return layOutPdf(print, await drawArt(print, signal), {}, signal);
 }
 
+/** Engraves the drills not in the cache; kept for the next export (see engraving-pool.ts). */
+const pool = engravingPool();
+
 /** Each drill's notation, QR code and tension plot. */
 export async function drawArt(print: WorksheetPrint, signal?: AbortSignal): Promise<DrillArt[]> {
-  const art: DrillArt[] = [];
   const text = textArea(print.paper);
-  for (const drill of print.drills) {
+  const wanted = print.drills.map((drill) => {
+    const maxAspect = notationRoom(text.width, text.height, drill.aids.tension) / text.width;
+    const key = notationKey(drill.drill, drill.aids, maxAspect);
+    return { job: { drill: drill.drill, aids: drill.aids, maxAspect }, key };
+  });
+  const kept = wanted.map(({ key }) => cachedNotation(key));
+  const missing = wanted.filter((_, i) => !kept[i]);
+  // The drills not kept are engraved side by side in worker threads, the event loop free.
+  const fresh = await pool.engrave(
+    missing.map(({ job }) => job),
+    signal,
+  );
+  missing.forEach(({ key }, i) => keepNotation(key, fresh[i]!));
+  const art: DrillArt[] = [];
+  for (const [i, drill] of print.drills.entries()) {
     signal?.throwIfAborted();
-    const room = notationRoom(text.width, text.height, drill.aids.tension);
     art.push({
-      notation: notationArt(drill.drill, drill.aids, room / text.width),
+      notation: kept[i] ?? fresh[missing.indexOf(wanted[i]!)]!,
       qr: await qrSvg(drill.seedLink),
       tension: drill.aids.tension ? tensionPlotSvg(drill.drill) : null,
     });
-    await nextTurn();
   }
   return art;
 }

@@ -1,6 +1,5 @@
-import { createRequire } from 'node:module';
-import { pathToFileURL } from 'node:url';
-import { Worker } from 'node:worker_threads';
+import type { Worker } from 'node:worker_threads';
+import { tsWorker } from '../threads/ts-worker';
 import type { ThumbnailRenderer } from './presets-service';
 
 interface Pending {
@@ -9,17 +8,6 @@ interface Pending {
 }
 
 type Reply = { id: number; svg: string } | { id: number; error: string };
-
-/**
- * The worker's first lines: the worker is TypeScript like the server, so tsx's loader is
- * registered in the thread before its module is imported (a worker does not inherit the loader
- * the server was started with).
- */
-function bootstrap(workerUrl: URL): string {
-  const tsx = pathToFileURL(createRequire(import.meta.url).resolve('tsx/esm/api')).href;
-  const api = tsx.replace(/\.cjs$/, '.mjs');
-  return `import(${JSON.stringify(api)}).then(({ register }) => { register(); return import(${JSON.stringify(workerUrl.href)}); });`;
-}
 
 /**
  * A renderer that engraves in one worker thread, started on first use and ended when idle
@@ -39,7 +27,7 @@ export function threadedThumbnails(
   };
 
   const start = (): Worker => {
-    const started = new Worker(bootstrap(workerUrl), { eval: true });
+    const started = tsWorker(workerUrl);
     started.unref();
     started.on('message', (reply: Reply) => {
       const job = pending.get(reply.id);
