@@ -5,6 +5,7 @@ import {
   Component,
   DestroyRef,
   ElementRef,
+  Injector,
   afterNextRender,
   afterRenderEffect,
   computed,
@@ -98,9 +99,16 @@ export class DrillScore {
   /** The drawing's id, which the later systems' strips point at. */
   private readonly svgId = `tensile-score-${++scoreIds}`;
   private readonly width = signal(0);
+  /**
+   * Strips known to be far from the screen, by system: left empty, since a strip's `<use>` copy
+   * is rebuilt (styled and laid out) on every new drawing even out of view. A strip not yet
+   * watched counts as near, so nothing is ever missing before the watcher has answered.
+   */
+  private readonly farStrips = signal<ReadonlySet<number>>(new Set());
   /** True while the page is laid out for print (see watchPrint). */
   private readonly printing = signal(false);
   private readonly changes = inject(ChangeDetectorRef);
+  private readonly injector = inject(Injector);
   /** The engraver once loaded, so a print can re-flow the score without waiting. */
   private engraver: typeof import('../../../../shared/notation/render-vexflow') | null = null;
   private renderToken = 0;
@@ -183,10 +191,12 @@ export class DrillScore {
       });
       observer.observe(this.host.nativeElement);
       const unwatchPrint = this.watchPrint();
+      const unwatchStrips = this.watchStrips();
       destroyRef.onDestroy(() => {
         clearTimeout(timer);
         observer.disconnect();
         unwatchPrint();
+        unwatchStrips();
       });
     });
     effect(() => {
@@ -202,7 +212,50 @@ export class DrillScore {
     afterRenderEffect(() => {
       if (this.cursorSystem() !== null) this.revealCursor();
     });
-    afterRenderEffect(() => this.drawEchoes(this.laterBands(), this.fit().contentWidth));
+    afterRenderEffect(() =>
+      this.drawEchoes(this.laterBands(), this.fit().contentWidth, this.farStrips()),
+    );
+  }
+
+  /**
+   * Keeps `farStrips` to the strips more than a screen's height away (a scroll fills the strips
+   * it brings near before they show). Print fills every strip whatever this says.
+   */
+  private watchStrips(): () => void {
+    if (typeof IntersectionObserver === 'undefined') return () => {};
+    const far = new Set<number>();
+    const watcher = new IntersectionObserver(
+      (entries) => {
+        for (const entry of entries) {
+          const system = Number((entry.target as HTMLElement).dataset['system']);
+          if (entry.isIntersecting) far.delete(system);
+          else far.add(system);
+        }
+        this.farStrips.set(new Set(far));
+      },
+      { rootMargin: '100% 0px' },
+    );
+    const watched = new Set<HTMLElement>();
+    const follow = effect(
+      () => {
+        const bands = this.echoes()
+          .map((slot) => slot.nativeElement.parentElement)
+          .filter((band): band is HTMLElement => band !== null);
+        for (const band of bands) if (!watched.has(band)) watcher.observe(band);
+        for (const band of watched) {
+          if (bands.includes(band)) continue;
+          watcher.unobserve(band);
+          far.delete(Number(band.dataset['system']));
+        }
+        watched.clear();
+        bands.forEach((band) => watched.add(band));
+      },
+      { injector: this.injector },
+    );
+    return () => {
+      follow.destroy();
+      watcher.disconnect();
+    };
   }
 
   /** A click or tap on a beat picks it (Play starts there) and keeps the keys on the score. */
@@ -228,7 +281,11 @@ export class DrillScore {
    * own group (and the brackets) rather than the whole drawing keeps the page at two copies of
    * the score instead of one per system, which style and layout pay for on every redraw.
    */
-  private drawEchoes(bands: readonly SystemBand[], width: number): void {
+  private drawEchoes(
+    bands: readonly SystemBand[],
+    width: number,
+    far: ReadonlySet<number> = new Set(),
+  ): void {
     const slots = this.echoes();
     const drawing = this.canvas().nativeElement.querySelector('svg');
     if (!drawing) return;
@@ -237,6 +294,10 @@ export class DrillScore {
     bands.forEach((band, i) => {
       const slot = slots[i]?.nativeElement;
       if (!slot) return;
+      if (far.has(band.system) && !this.printing()) {
+        if (slot.hasChildNodes()) slot.replaceChildren();
+        return;
+      }
       const svg = document.createElementNS(ns, 'svg');
       // The copies inherit from this element, not from the drawing: give it the drawing's ink.
       for (const name of drawing.getAttributeNames()) {
