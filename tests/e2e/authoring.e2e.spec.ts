@@ -115,7 +115,17 @@ describe('authoring journey: card, conflict, pinned bar, saved drill, seed link'
     const before = Number(await field.inputValue());
     const point = curve.locator('circle[data-bar="2"]');
     await point.scrollIntoViewIfNeeded();
-    const box = (await point.boundingBox())!;
+    // The preview may still be settling (its strips fill as they come into view): take the
+    // point's box once it stays put, so the drag starts on the point.
+    let box = (await point.boundingBox())!;
+    await expect
+      .poll(async () => {
+        const now = (await point.boundingBox())!;
+        const still = now.x === box.x && now.y === box.y;
+        box = now;
+        return still;
+      })
+      .toBe(true);
     await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
     await page.mouse.down();
     await page.mouse.move(box.x + box.width / 2, box.y + 40, { steps: 5 });

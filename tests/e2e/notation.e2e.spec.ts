@@ -56,9 +56,9 @@ function bracketsDue(drill: Drill, n: number, hands: boolean): number {
   );
 }
 
-/** Every beat of the drill in three (a shuffle): its brackets give way to "sim.". */
-function inTripletsThroughout(drill: Drill): boolean {
-  return drill.bars.every((bar) => bar.beats.every((slots) => slots === 3));
+/** Every beat of the drill in one tuplet (a shuffle's three, five): its numbers give way to "sim.". */
+function inOneTupletThroughout(drill: Drill, n: number): boolean {
+  return drill.bars.every((bar) => bar.beats.every((slots) => slots === n));
 }
 
 interface Engraving {
@@ -156,8 +156,8 @@ describe('drill page notation (Chromium)', () => {
           .filter((h) => isHandVoice(h.voice) === (layer === 'hands'));
         expect(engraving.heads[layer], `${layer} noteheads`).toBe(hits.length);
         for (const n of [3, 5, 7]) {
-          // A drill in triplets throughout writes one "3", then "sim." (checked below).
-          if (n === 3 && inTripletsThroughout(drill)) continue;
+          // A drill in one tuplet throughout writes one number, then "sim." (checked below).
+          if (inOneTupletThroughout(drill, n)) continue;
           const due = bracketsDue(drill, n, layer === 'hands');
           expect(
             engraving.tuplets[layer].filter((t) => t === String(n)).length,
@@ -170,14 +170,14 @@ describe('drill page notation (Chromium)', () => {
       const bracketed = [...engraving.tuplets.hands, ...engraving.tuplets.feet];
       if (tuplet === null) {
         expect(bracketed).toEqual([]);
-      } else if (inTripletsThroughout(drill)) {
+      } else if (inOneTupletThroughout(drill, tuplet)) {
         // E. Gould, "Behind Bars", ch. "Tuplets" (from memory): once the pattern is set in a
-        // part, its brackets give way to "sim."; each voice with triplets is such a part.
+        // part, its numbers give way to "sim."; each voice with tuplets is such a part.
         const parts = [engraving.tuplets.hands, engraving.tuplets.feet].filter(
-          (_, i) => bracketsDue(drill, 3, i === 0) > 0,
+          (_, i) => bracketsDue(drill, tuplet, i === 0) > 0,
         ).length;
         expect(parts).toBeGreaterThan(0);
-        expect(bracketed).toEqual(Array.from({ length: parts }, () => '3'));
+        expect(bracketed).toEqual(Array.from({ length: parts }, () => String(tuplet)));
         expect(await page.locator('tensile-drill-score svg .tensile-simile').count()).toBe(parts);
       } else {
         // One bracket per beat with a voice layer on the tuplet grid, counted from the drill.
@@ -440,6 +440,7 @@ describe('engraving rules on the drawn score (Chromium)', () => {
     ['shuffle-kick-upbeats', 'lesson-12'],
     ['linear-sixteenths', 'lesson-12'],
     ['four-over-three', 'lesson-12'],
+    ['seven-eight-two-two-three', 'lesson-12'],
   ] as const) {
     it(`keeps ${id} free of collisions at page and phone widths`, async () => {
       await expectClean(presetDrill(id, seed), id);
@@ -454,21 +455,20 @@ describe('engraving rules on the drawn score (Chromium)', () => {
       for (const bar of score.bars) {
         const hits = drill.bars.find((b) => b.bar === bar.bar)!.hits;
         for (const layer of ['hands', 'feet'] as const) {
-          for (const tuplet of bar.layers[layer].tuplets) {
+          for (const beat of [1, 2, 3, 4]) {
             // E. Gould, "Behind Bars", ch. "Tuplets" (from memory): a tuplet is written in its
             // own note value; neighbouring rests combine as in the plain grouping of those
             // values, each starting on a multiple of its own length, but only up to an eighth:
-            // a quarter rest under the 5 reads as a whole beat's rest (common practice).
-            const events = bar.layers[layer].events.filter((e) => e.beat === tuplet.beat);
-            expect(tuplet.n).toBe(5);
+            // a quarter rest under the 5 reads as a whole beat's rest (common practice). Every
+            // beat with an off-beat note is a quintuplet, its number shown or under "sim.".
+            const events = bar.layers[layer].events.filter((e) => e.beat === beat);
             const struck = new Set(
               hits
-                .filter(
-                  (h) => h.beat === tuplet.beat && isHandVoice(h.voice) === (layer === 'hands'),
-                )
+                .filter((h) => h.beat === beat && isHandVoice(h.voice) === (layer === 'hands'))
                 .map((h) => h.slot),
             );
-            const what = `${id} bar ${bar.bar} ${layer} beat ${tuplet.beat}`;
+            if (![...struck].some((slot) => slot !== 0)) continue;
+            const what = `${id} bar ${bar.bar} ${layer} beat ${beat}`;
             const length = (e: (typeof events)[number]) => 16 / Number(e.duration);
             let at = 0;
             for (const [k, e] of events.entries()) {
