@@ -59,6 +59,13 @@ describe('renderDrillSvg (Node, jsdom + @napi-rs/canvas)', () => {
     expect(layout.bars.map((b) => b.bar)).toEqual(drill.bars.map((b) => b.bar));
   });
 
+  it('writes the same drill the same way whatever was drawn before it', () => {
+    const options = { width: 1100, showSticking: true, showCounts: true };
+    const other = generateDrill(parseRuleCard(BUILT_IN_PRESETS[0]!.card), 'lesson-13');
+    renderDrillSvg(other, options);
+    expect(renderDrillSvg(drill, options).svg).toBe(svg);
+  });
+
   it('draws one notehead per hit, hands and feet in their own voices', () => {
     for (const [voice, hand] of [
       ['hands', true],

@@ -37,6 +37,19 @@ function prepareFonts(): void {
   fontsReady = true;
 }
 
+/** VexFlow's first automatic element id (`Element.ID` starts there). */
+const FIRST_ELEMENT_ID = 1000;
+
+/**
+ * VexFlow numbers its elements (`id="vf-auto…"`) from one counter per process, so without this
+ * the same drill would be written differently depending on what the process drew before (a
+ * thumbnail drawn in a worker would not match one drawn here). Drawing is synchronous, so no
+ * other drawing can interleave.
+ */
+function restartElementIds(): void {
+  (VexElement as unknown as { ID: number }).ID = FIRST_ELEMENT_ID;
+}
+
 export interface SvgRender {
   readonly svg: string;
   readonly layout: Omit<NotationLayout, 'svg'>;
@@ -54,6 +67,7 @@ export function renderDrillSvg(
   { forPrint = false }: { readonly forPrint?: boolean } = {},
 ): SvgRender {
   prepareFonts();
+  restartElementIds();
   const document = new SvgDocument();
   const global = globalThis as { document?: unknown };
   const previous = global.document;
