@@ -1,4 +1,4 @@
-import type { VoiceId } from './drill';
+import { VOICE_IDS, type VoiceId } from './drill';
 import type { Grid } from './grid';
 import type { WorkHit } from './hands';
 import { colourCrashes, placeAnchors } from './rules/anchor';
@@ -66,14 +66,14 @@ export function collectObligations(
   const ruled = new Set<number>();
   for (const p of placements) if (p.source !== 'ostinato') ruled.add(p.instant);
   for (const kept of avoided.values()) for (const instant of kept.keys()) ruled.add(instant);
-  const before = merge(placements, grid);
+  const before = voiceCounts(placements, grid);
   placements.push(
     ...placePhrase(
       card,
       grid,
       // The fill leaves out the slots other rules hold and the downbeats kept free.
       (instant) => ruled.has(instant),
-      (instant) => before[instant]?.length ?? 0,
+      (instant) => before[instant] ?? 0,
       seed,
       given,
     ),
@@ -87,14 +87,56 @@ export function collectObligations(
     const back = placeTimeLayers(card, grid, inFill, new Set());
     placements.push(...back.filter((p) => unplayed.includes(p.instant)));
   }
-  // Stable sort: precedence by source, then the card's rule order.
-  placements.sort((a, b) => rankOf(a) - rankOf(b) || a.rule - b.rule);
+  sortByPrecedence(placements);
   return { placements, cells: merge(placements, grid), avoided, inFill };
 }
 
 /** SOURCE_RANK as a map: faster to read with a source that varies, as the sort does. */
 const RANKS: ReadonlyMap<string, number> = new Map(Object.entries(SOURCE_RANK));
 const rankOf = (p: Placement): number => RANKS.get(p.source) ?? 0;
+
+/**
+ * Stable sort: precedence by source, then the card's rule order. One numeric key a placement
+ * (rank, rule, then its index for stability) sorts without a comparator call per step.
+ */
+function sortByPrecedence(placements: Placement[]): void {
+  const n = placements.length;
+  const keys = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    const p = placements[i] as Placement;
+    const rule = p.rule + RULE_OFFSET;
+    if (rule < 0 || rule >= RULE_SPAN || n >= INDEX_SPAN) {
+      placements.sort((a, b) => rankOf(a) - rankOf(b) || a.rule - b.rule);
+      return;
+    }
+    keys[i] = (rankOf(p) * RULE_SPAN + rule) * INDEX_SPAN + i;
+  }
+  keys.sort();
+  const copy = placements.slice();
+  for (let i = 0; i < n; i++) placements[i] = copy[(keys[i] as number) % INDEX_SPAN] as Placement;
+}
+
+// Rule indexes run from -4 (kept notes) up; the ranks are below 8, so every key is an integer
+// below 2^53.
+const RULE_OFFSET = 16;
+const RULE_SPAN = 1 << 16;
+const INDEX_SPAN = 1 << 20;
+
+/** Per instant: how many voices the placements give it (what `merge` would put in its cell). */
+function voiceCounts(placements: readonly Placement[], grid: Grid): Uint8Array {
+  const seen = new Uint16Array(grid.instants);
+  const counts = new Uint8Array(grid.instants);
+  for (const p of placements) {
+    if (p.instant < 0 || p.instant >= grid.instants) continue;
+    const bit = 1 << (VOICE_BIT.get(p.voice) ?? 0);
+    if ((seen[p.instant] as number) & bit) continue;
+    seen[p.instant] = (seen[p.instant] as number) | bit;
+    counts[p.instant] = (counts[p.instant] as number) + 1;
+  }
+  return counts;
+}
+
+const VOICE_BIT: ReadonlyMap<VoiceId, number> = new Map(VOICE_IDS.map((voice, i) => [voice, i]));
 
 /** Where a crash replaces the time cymbal: the colour crash and each phrase landing's. */
 function crashInstants(card: RuleCard, grid: Grid): Set<number> {
