@@ -15,15 +15,20 @@ export function barOf(
     const cell = cells[first + i] ?? [];
     const beat = (grid.beatOf[i] ?? 0) + 1;
     const slot = grid.slotOf[i] ?? 0;
-    for (const hit of cell.length > 1 ? cell.slice().sort(compareVoices) : cell) {
-      hits.push({
+    const from = hits.length;
+    for (const hit of cell) {
+      const made: DrillHit = {
         beat,
         slot,
         voice: hit.voice,
         dynamic: hit.dynamic,
         hand: hit.hand,
         source: hit.source,
-      });
+      };
+      // A stable insertion by voice: a cell holds a few hits, no copy and sort needed.
+      let k = hits.length;
+      while (k > from && compareVoices(hits[k - 1] as DrillHit, made) > 0) k--;
+      hits.splice(k, 0, made);
     }
   }
   return { bar: bar + 1, beats: grid.beats.slice(), tension, hits };

@@ -11,8 +11,10 @@ import { arrayOf } from '../arrays';
 export function barsOf(stuck: Stuck): DrillBar[] {
   const { grid, cells, gauge } = stuck;
   return arrayOf(grid.bars, (b) => {
-    const bar = barOf(grid, b, cells, 0);
-    return { ...bar, tension: gauge.ofBar(bar) };
+    // Measured as made, in place: `tension` keeps its place among the bar's keys.
+    const bar: { -readonly [K in keyof DrillBar]: DrillBar[K] } = barOf(grid, b, cells, 0);
+    bar.tension = gauge.ofBar(bar);
+    return bar;
   });
 }
 
