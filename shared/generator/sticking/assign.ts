@@ -477,31 +477,66 @@ const PAST_R = 1 << 27; // at the previous note the right hand played past the m
 const PAST_L = 1 << 28;
 const FLAGS = 1 << 29;
 
-/** The search's states, layer after layer, in flat arrays: layer L is begin[L]..begin[L+1]-1. */
+/**
+ * The search's states, layer after layer, in flat typed arrays on one buffer (grown by
+ * doubling; plain arrays grown one state at a time made most of the search's garbage): layer L
+ * is begin[L]..begin[L+1]-1.
+ */
 interface Lattice {
-  readonly lastR: number[];
-  readonly lastL: number[];
-  readonly flags: number[];
-  readonly cost: number[];
-  readonly parent: number[];
-  readonly choice: number[];
-  readonly key: number[];
+  lastR: Float64Array;
+  lastL: Float64Array;
+  flags: Int32Array;
+  cost: Float64Array;
+  parent: Int32Array;
+  choice: Uint8Array;
+  key: Float64Array;
   readonly begin: number[];
   size: number;
 }
 
-function lattice(): Lattice {
-  return {
-    lastR: [],
-    lastL: [],
-    flags: [],
-    cost: [],
-    parent: [],
-    choice: [],
-    key: [],
+/** A lattice with room for `capacity` states before it grows. */
+function lattice(capacity: number): Lattice {
+  const lat: Lattice = {
+    lastR: EMPTY_F64,
+    lastL: EMPTY_F64,
+    flags: EMPTY_I32,
+    cost: EMPTY_F64,
+    parent: EMPTY_I32,
+    choice: EMPTY_U8,
+    key: EMPTY_F64,
     begin: [0],
     size: 0,
   };
+  reserve(lat, Math.max(16, capacity));
+  return lat;
+}
+
+const EMPTY_F64 = new Float64Array(0);
+const EMPTY_I32 = new Int32Array(0);
+const EMPTY_U8 = new Uint8Array(0);
+
+/** Gives the lattice room for `capacity` states, its `size` states kept. */
+function reserve(lat: Lattice, capacity: number): void {
+  // Four arrays of 8 bytes, two of 4 and one of 1 a state, in one buffer.
+  const buffer = new ArrayBuffer(capacity * 41);
+  const views = {
+    lastR: new Float64Array(buffer, 0, capacity),
+    lastL: new Float64Array(buffer, capacity * 8, capacity),
+    cost: new Float64Array(buffer, capacity * 16, capacity),
+    key: new Float64Array(buffer, capacity * 24, capacity),
+    flags: new Int32Array(buffer, capacity * 32, capacity),
+    parent: new Int32Array(buffer, capacity * 36, capacity),
+    choice: new Uint8Array(buffer, capacity * 40, capacity),
+  };
+  const n = lat.size;
+  views.lastR.set(lat.lastR.subarray(0, n));
+  views.lastL.set(lat.lastL.subarray(0, n));
+  views.cost.set(lat.cost.subarray(0, n));
+  views.key.set(lat.key.subarray(0, n));
+  views.flags.set(lat.flags.subarray(0, n));
+  views.parent.set(lat.parent.subarray(0, n));
+  views.choice.set(lat.choice.subarray(0, n));
+  Object.assign(lat, views);
 }
 
 /** Adds a state to the layer that starts at `base`, or lowers the cost of its equal. */
@@ -516,8 +551,9 @@ function put(
   parent: number,
   choice: number,
 ): void {
+  const keys = lat.key;
   for (let j = base; j < lat.size; j++) {
-    if (lat.key[j] !== key) continue;
+    if (keys[j] !== key) continue;
     if (cost < (lat.cost[j] ?? 0)) {
       lat.cost[j] = cost;
       lat.parent[j] = parent;
@@ -525,6 +561,7 @@ function put(
     }
     return;
   }
+  if (lat.size === keys.length) reserve(lat, 2 * keys.length);
   const j = lat.size++;
   lat.key[j] = key;
   lat.lastR[j] = lastR;
@@ -1082,7 +1119,8 @@ function solve(
   skipFill: boolean,
 ): HandFailure | null {
   const events: Event[] = [];
-  const lat = lattice();
+  // Two laps of the hand notes, a few states each: most searches never grow it.
+  const lat = lattice(2 * ctx.n);
   put(lat, 0, 0, REST, REST, 0, 0, -1, 0);
   close(lat, 0);
   const span = 2 * ctx.memory;
@@ -1176,7 +1214,7 @@ function secondLap(
     if (seen.has(key)) continue;
     seen.add(key);
     const [r = -1, l = -1, flags = 0] = key.split('/').map(Number);
-    const trial = lattice();
+    const trial = lattice(4 * E);
     put(trial, 0, 0, r < 0 ? REST : loop - r, l < 0 ? REST : loop - l, flags, 0, -1, 0);
     close(trial, 0);
     let alive = true;
