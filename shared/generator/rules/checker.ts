@@ -23,7 +23,6 @@ import { embellishmentVoices, fillHolesOwners, fillVoices, shareCounts } from '.
 import { countOverlaps, overlapBudget } from './linear';
 import { ostinatoPlaysAt } from './ostinato';
 import { rankOrderBreaks, tensionTargets } from './tension';
-import { arrayOf } from '../arrays';
 
 /** One broken rule or invariant in a drill, with where it happened when that applies. */
 export interface Violation {
@@ -118,13 +117,17 @@ const at = (b: number, hit: DrillHit): { bar: number; beat: number; slot: number
 
 const DYNAMICS: ReadonlySet<string> = new Set(['ghost', 'normal', 'accent']);
 
+/** The cell of an instant no hit sounds at (never written to). */
+const NO_HITS: readonly Located[] = [];
+
 function checkShape(
   grid: Grid,
   card: RuleCard,
   bars: readonly DrillBar[],
   out: Violation[],
 ): Located[][] {
-  const cells: Located[][] = arrayOf(grid.instants, () => []);
+  // A cell's array is made with its first hit; the empty ones share one at the end.
+  const cells: Located[][] = new Array<Located[]>(grid.instants);
   const voices = new Set<string>(card.voices);
   const beats = grid.beats.join();
   bars.forEach((bar, b) => {
@@ -167,9 +170,14 @@ function checkShape(
         });
       previous = hit;
       const instant = instantOf(grid, b + 1, hit.beat, hit.slot);
-      cells[instant]?.push({ hit, bar: b + 1, instant });
+      if (instant < 0 || instant >= grid.instants) continue;
+      const located = { hit, bar: b + 1, instant };
+      const cell = cells[instant];
+      if (cell) cell.push(located);
+      else cells[instant] = [located];
     }
   });
+  for (let i = 0; i < grid.instants; i++) cells[i] ??= NO_HITS as Located[];
   return cells;
 }
 
