@@ -97,7 +97,9 @@ export function cardReach(reach: readonly BarReach[]): BarReach {
  */
 export function barReaches(ctx: FillContext, gauge: TensionGauge, listed = false): BarReach[] {
   const { grid, ob } = ctx;
-  const known = new Map<string, BarReach>();
+  const known = new Map<number | string, BarReach>();
+  // A bar's slots as a number in base 3 while it fits (no string built a bar), else as text.
+  const numeric = grid.slotsPerBar <= 30;
   const out: BarReach[] = [];
   for (let bar = 0; bar < grid.bars; bar++) {
     const empty = emptyFill(ctx, bar);
@@ -105,7 +107,7 @@ export function barReaches(ctx: FillContext, gauge: TensionGauge, listed = false
     const overlapsLeft = empty.overlaps < ctx.budget;
     const forced: boolean[] = [];
     const allowed: boolean[] = [];
-    let key = '';
+    let key: number | string = numeric ? 0 : '';
     for (let i = 0; i < grid.slotsPerBar; i++) {
       const cell = ob.cells[bar * grid.slotsPerBar + i] ?? [];
       const fixed = cell.some((hit) => hit.source !== 'ostinato');
@@ -116,7 +118,8 @@ export function barReaches(ctx: FillContext, gauge: TensionGauge, listed = false
       );
       forced.push(fixed);
       allowed.push(fixed || fillable);
-      key += fixed ? 'x' : fillable ? 'o' : '.';
+      if (typeof key === 'number') key = key * 3 + (fixed ? 2 : fillable ? 1 : 0);
+      else key += fixed ? 'x' : fillable ? 'o' : '.';
     }
     let r = known.get(key);
     if (!r || gauge.measure !== 'lhl') {

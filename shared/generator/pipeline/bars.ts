@@ -28,7 +28,8 @@ export function barOf(
       // A stable insertion by voice: a cell holds a few hits, no copy and sort needed.
       let k = hits.length;
       while (k > from && compareVoices(hits[k - 1] as DrillHit, made) > 0) k--;
-      hits.splice(k, 0, made);
+      if (k === hits.length) hits.push(made);
+      else hits.splice(k, 0, made);
     }
   }
   return { bar: bar + 1, beats: grid.beats.slice(), tension, hits };
