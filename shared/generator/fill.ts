@@ -65,9 +65,12 @@ export function createFillContext(
       // A slot another rule has taken is not free; the ostinato alone leaves it free.
       const free =
         !fixed.has(bar) && cell.every((hit) => hit.source === 'ostinato') && !ob.inFill[instant];
+      if (!free) {
+        perInstant.push(NO_VOICES as VoiceId[]);
+        continue;
+      }
       const here: VoiceId[] = [];
       perInstant.push(here);
-      if (!free) continue;
       const hole = !ostinatoPlaysAt(card, grid, instant);
       for (const v of voices) {
         if (isHandVoice(v) && busy[instant]) continue;
@@ -87,6 +90,9 @@ export function createFillContext(
   const limbs = limbWindows(card, grid, ob);
   return { card, grid, ob, budget: overlapBudget(card), options, strength, weightsByLean, limbs };
 }
+
+/** The options of a slot that is not free (shared, never written to). */
+const NO_VOICES: readonly VoiceId[] = [];
 
 function hasVoice(cell: readonly { voice: VoiceId }[], voice: VoiceId): boolean {
   for (const hit of cell) if (hit.voice === voice) return true;
