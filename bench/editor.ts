@@ -116,8 +116,8 @@ try {
   for (let i = 0; i < WARM_UP; i++) await change({ tempo: 90 - i }, `edit-${-1 - i}`);
   const tempo = [];
   const seed = [];
-  // With EDITOR_TRACE the trace also holds what each task did (script, style, layout, paint).
-  const detail = process.env['EDITOR_TRACE'] ? ['devtools.timeline', 'v8.execute'] : [];
+  // EDITOR_TRACE_DETAIL=1: the trace also holds what each task did (script, style, layout).
+  const detail = process.env['EDITOR_TRACE_DETAIL'] ? ['devtools.timeline', 'v8.execute'] : [];
   await browser.startTracing(page, { categories: [...TRACE_CATEGORIES, ...detail] });
   // Interleaved, so both series see the same load.
   for (let i = 0; i < RUNS; i++) {
