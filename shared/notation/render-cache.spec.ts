@@ -206,6 +206,83 @@ describe('the drawing on the page', () => {
   });
 });
 
+describe('a new score put on the page a few systems at a time', () => {
+  const options = { ...SCREENS[0]!, systemsAtOnce: 2 };
+  const systems = (svg: SVGSVGElement) => [...svg.querySelectorAll(':scope > .tensile-system')];
+
+  it('keeps the old systems in place until shown, then draws what a full redraw draws', () => {
+    // The same passes all at once say which systems the new drill keeps.
+    const wholeCache = new EngravingCache();
+    const wholePage = container();
+    const wholeBefore = systems(
+      renderNotation(wholePage, buildNotation(drillOf('amber-fox')), {
+        ...SCREENS[0]!,
+        cache: wholeCache,
+      }).svg,
+    );
+    const model = buildNotation(drillOf('quiet-river'));
+    const kept = systems(
+      renderNotation(wholePage, model, { ...SCREENS[0]!, cache: wholeCache }).svg,
+    ).map((group, i) => group === wholeBefore[i]);
+    const fresh = kept.flatMap((isKept, i) => (isKept ? [] : [i]));
+    // (These two drills share a system or two, but most are new.)
+    expect(fresh.length).toBeGreaterThan(3);
+    const cache = new EngravingCache();
+    const page = container();
+    const shown = renderNotation(page, buildNotation(drillOf('amber-fox')), { ...options, cache });
+    const before = systems(shown.svg);
+    // The host's names, which the later systems must take over.
+    before.forEach((group, i) => (group.id = `score-system-${i}`));
+    const brackets = (svg: SVGSVGElement) => svg.querySelector(':scope > .tensile-polyrhythms');
+    const oldBrackets = brackets(shown.svg);
+    expect(oldBrackets?.hasChildNodes()).toBe(true);
+    const next = renderNotation(page, model, { ...options, cache });
+    expect(next.svg).toBe(shown.svg);
+    const during = systems(next.svg);
+    expect(during).toHaveLength(before.length);
+    // The first two new systems at once; the other new ones still the old elements, in place.
+    expect(during.map((group, i) => group === before[i])).toEqual(
+      kept.map((isKept, i) => isKept || fresh.indexOf(i) >= 2),
+    );
+    let more = 0;
+    while (cache.showMore()) {
+      more++;
+      // The brackets (which every strip of the page copies) go up after the last system, alone.
+      expect(brackets(next.svg)).toBe(oldBrackets);
+    }
+    // One system at a time, then the brackets alone: false with the last.
+    expect(more).toBe(fresh.length - 2);
+    expect(brackets(next.svg)).not.toBe(oldBrackets);
+    const after = systems(next.svg);
+    expect(after.map((group, i) => group === before[i])).toEqual(kept);
+    // The waiting ones took their names over; the host names the two it was given at once.
+    const atOnce = new Set(fresh.slice(0, 2));
+    expect(after.map((group) => group.id)).toEqual(
+      before.map((group, i) => (atOnce.has(i) ? '' : group.id)),
+    );
+    after.forEach((group) => group.removeAttribute('id'));
+    const full = renderNotation(container(), model, SCREENS[0]!);
+    expect(text(next.svg)).toBe(text(full.svg));
+    // A tempo typed in then redraws no system: nothing waits.
+    renderNotation(page, buildNotation(drillOf('quiet-river', 80)), { ...options, cache });
+    expect(cache.showMore()).toBe(false);
+  });
+
+  it('draws the same when a newer pass comes before every system was shown', () => {
+    const cache = new EngravingCache();
+    const page = container();
+    renderNotation(page, buildNotation(drillOf('amber-fox')), { ...options, cache });
+    renderNotation(page, buildNotation(drillOf('quiet-river')), { ...options, cache });
+    expect(cache.showMore()).toBe(true);
+    // Back to the first drill half-way: its systems come from the cache or afresh.
+    const model = buildNotation(drillOf('amber-fox', 80));
+    const last = renderNotation(page, model, { ...options, cache });
+    while (cache.showMore());
+    expect(page.childNodes.length === 1 && page.firstChild === last.svg).toBe(true);
+    expect(text(last.svg)).toBe(text(renderNotation(container(), model, SCREENS[0]!).svg));
+  });
+});
+
 describe('the engraving in steps', () => {
   it('takes several steps, leaves the page alone until the last, and draws the same', () => {
     const options = SCREENS[0]!;

@@ -97,6 +97,13 @@ export interface RenderOptions {
    * settings are the same (see `EngravingCache`); none by default.
    */
   readonly cache?: EngravingCache;
+  /**
+   * With a cache and its last drawing on the page: how many systems drawn afresh go onto the page
+   * at once; each later one waits in the place of the system it replaces until
+   * `EngravingCache.showMore` (a host spreads a whole new score over frames, so no frame styles
+   * and lays out every system). All at once by default.
+   */
+  readonly systemsAtOnce?: number;
 }
 
 export interface BeatBox {
@@ -260,9 +267,12 @@ export class EngravingCache {
     container: HTMLElement,
     next: SVGSVGElement,
     reused: ReadonlyMap<Element, DrawnSystem>,
+    atOnce = Infinity,
   ): SVGSVGElement {
     const page = this.page;
     this.page = next;
+    this.waiting = [];
+    this.waitingBrackets = null;
     const copy = (system: DrawnSystem): Element => {
       system.shown = system.group.cloneNode(true) as Element;
       return system.shown;
@@ -271,14 +281,46 @@ export class EngravingCache {
       for (const [stand, system] of reused) stand.replaceWith(copy(system));
       return next;
     }
+    const oldSystems = [...page.children].filter((part) => part.classList.contains(SYSTEM_CLASS));
+    const keptShown = new Set([...reused.values()].map((kept) => kept.shown));
+    let system = -1;
+    let placed = 0;
     const wanted = [...next.children].map((part, i) => {
-      const system = reused.get(part);
-      if (system) return system.shown?.parentNode === page ? system.shown : copy(system);
+      const kept = reused.get(part);
+      if (kept) {
+        system++;
+        return kept.shown?.parentNode === page ? kept.shown : copy(kept);
+      }
+      if (part.classList.contains(SYSTEM_CLASS)) {
+        system++;
+        // A new system past the first few waits in the place of the one it replaces, which
+        // stays on the page meanwhile (so nothing below it moves), unless that one is kept.
+        const old = oldSystems[system];
+        if (old && placed >= atOnce && !keptShown.has(old)) {
+          this.waiting.push([old, part]);
+          return old;
+        }
+        placed++;
+        return part;
+      }
       // Parts drawn anew (title, marks, key, brackets) stay when drawn the same; the host's
       // names for them (ids) carry over, as the host gives them again.
       const old = page.children[i];
       if (old?.id && !part.id) part.id = old.id;
-      return old?.isEqualNode(part) ? old : part;
+      if (old?.isEqualNode(part)) return old;
+      // New brackets over systems still waiting go up last, in a frame of their own: every
+      // strip of a host copies them.
+      if (
+        this.waiting.length > 0 &&
+        part.classList.contains(BRACKETS_CLASS) &&
+        old?.classList.contains(BRACKETS_CLASS) &&
+        old.hasChildNodes() &&
+        part.hasChildNodes()
+      ) {
+        this.waitingBrackets = [old, part];
+        return old;
+      }
+      return part;
     });
     for (const name of next.getAttributeNames()) {
       const value = next.getAttribute(name)!;
@@ -294,6 +336,29 @@ export class EngravingCache {
     });
     this.page = page;
     return page;
+  }
+
+  /** Systems of the last update still to go onto the page, each with the one it replaces. */
+  private waiting: [old: Element, next: Element][] = [];
+  /** The last update's brackets, waiting for its systems (see update). */
+  private waitingBrackets: [old: Element, next: Element] | null = null;
+
+  /**
+   * Put up to `count` more of the last update's waiting systems onto the page, in order, each in
+   * the place (and under the host's name) of the system it replaces; once none wait, the
+   * brackets over them, alone. False once nothing waits.
+   */
+  showMore(count = 1): boolean {
+    const swap = ([old, next]: [Element, Element]) => {
+      if (old.id && !next.id) next.id = old.id;
+      old.replaceWith(next);
+    };
+    if (count > 0 && this.waiting.length === 0 && this.waitingBrackets) {
+      swap(this.waitingBrackets);
+      this.waitingBrackets = null;
+    }
+    this.waiting.splice(0, count).forEach(swap);
+    return this.waiting.length > 0 || this.waitingBrackets !== null;
   }
 
   /** @internal A pass is done: keep what it used or made, drop the rest. */
@@ -614,7 +679,7 @@ function* engrave(
     right + MARGIN_X > options.width + 0.5 ? Math.ceil(right + MARGIN_X) : options.width;
   ctx.resize(width, height);
   svg.setAttribute('viewBox', `0 0 ${width} ${height}`);
-  const onPage = cache?.update(container, svg, reused) ?? svg;
+  const onPage = cache?.update(container, svg, reused, options.systemsAtOnce) ?? svg;
   if (onPage === svg) container.replaceChildren(svg);
   cache?.settle();
   return { width, height, bars: boxes, svg: onPage };

@@ -3,7 +3,7 @@
  * near the screen, so a new drawing does not rebuild copies nobody sees; a scroll fills a strip
  * before it shows, and every filled strip points at its own system.
  */
-import type { BrowserContext, Page } from 'playwright-core';
+import type { BrowserContext, Locator, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { signIn } from '../support/browser';
 import { useServerAndBrowser } from '../support/browser-suite';
@@ -60,3 +60,84 @@ describe('the score strips on a short phone screen', () => {
     }
   });
 });
+
+/** A card of eight bars with a polyrhythm (its brackets span the systems); invented. */
+const EIGHT_BARS = {
+  meter: { beats: 4, unit: 4 },
+  bars: 8,
+  subdivision: 4,
+  tempo: 96,
+  voices: ['kick', 'snare', 'hihat', 'tomHigh'],
+  ostinato: { voice: 'hihat', slots: [2], dynamic: 'normal' },
+  density: 0.3,
+  rules: [
+    { kind: 'backbeat', voice: 'snare', beats: [2, 4] },
+    { kind: 'polyrhythm', voices: ['tomHigh'], against: 4, span: 3 },
+  ],
+};
+
+describe("the editor's preview after a new seed", () => {
+  const suite = useServerAndBrowser();
+  let context: BrowserContext;
+  let page: Page;
+
+  beforeAll(async () => {
+    context = await suite.browser.newContext({ viewport: { width: 1400, height: 1000 } });
+    page = await context.newPage();
+    const teacher = DEMO_TEACHERS[0]!;
+    await signIn(page, suite.server.url, teacher.email, teacher.password);
+  });
+
+  afterAll(async () => {
+    await context?.close();
+  });
+
+  it('goes up a few systems at a time and ends as a drawing made at once', async () => {
+    const id = await page.evaluate(async (card) => {
+      const response = await fetch('/api/rule-cards', {
+        method: 'POST',
+        headers: { 'content-type': 'application/json' },
+        body: JSON.stringify({ title: 'Eight bars', card }),
+      });
+      return ((await response.json()) as { ruleCard: { id: number } }).ruleCard.id;
+    }, EIGHT_BARS);
+    await page.goto(`${suite.server.url}/rule-cards/${id}`);
+    const score = page.locator('tensile-card-preview tensile-drill-score');
+    await score.locator('svg .tensile-bar').first().waitFor();
+    // Counted in the page: changes to the score while it said it was busy.
+    await score.evaluate((host) => {
+      const seen = { busy: 0 };
+      (window as unknown as { seen: typeof seen }).seen = seen;
+      new MutationObserver(() => {
+        if (host.getAttribute('aria-busy') === 'true') seen.busy++;
+      }).observe(host, { subtree: true, childList: true, attributes: true });
+    });
+    const seed = await page.getByTestId('preview-seed').textContent();
+    await page.getByRole('button', { name: 'New seed' }).click();
+    await expect.poll(() => page.getByTestId('preview-seed').textContent(), POLL).not.toBe(seed);
+    await expect.poll(() => score.getAttribute('aria-busy'), POLL).toBeNull();
+    const staged = await page.evaluate(
+      () => (window as unknown as { seen: { busy: number } }).seen.busy,
+    );
+    expect(staged, 'changes while the later systems went up').toBeGreaterThan(0);
+    const updated = await drawing(score);
+    expect(updated).toMatch(/-system-7"/);
+    // Another width and back: this width's drawing is then put up whole, not updated in place.
+    await page.setViewportSize({ width: 1100, height: 1000 });
+    await expect.poll(() => drawing(score), POLL).not.toBe(updated);
+    await page.setViewportSize({ width: 1400, height: 1000 });
+    await expect.poll(() => drawing(score), POLL).toBe(updated);
+  });
+});
+
+/**
+ * The score's drawing as text, without VexFlow's running element numbers and the page's own
+ * number for its score (both count every drawing).
+ */
+function drawing(score: Locator): Promise<string> {
+  return score
+    .locator('.canvas svg')
+    .evaluate((svg) =>
+      svg.outerHTML.replace(/ id="vf-[^"]*"/g, '').replace(/tensile-score-\d+/g, 'score'),
+    );
+}

@@ -78,6 +78,8 @@ const OWN_ATTRIBUTES = new Set(['id', 'class', 'role', 'width', 'height', 'viewB
     role: 'group',
     '[attr.aria-label]': 'label()',
     '(keydown)': 'moveCursor($event)',
+    // Busy while a new score's later systems are still going up (see render).
+    '[attr.aria-busy]': 'settling() || null',
     // The keyboard way to pick a beat is the arrow keys above; a click or tap picks it directly.
     '(click)': 'pickAt($event)',
   },
@@ -122,6 +124,7 @@ export class DrillScore {
   /** The engraving's full width and the factor that fits it into the host (1 when it fits). */
   protected readonly fit = signal({ contentWidth: 0, scale: 1 });
   protected readonly failure = signal<string | null>(null);
+  protected readonly settling = signal(false);
   protected readonly model = computed(() => buildNotation(this.drill()));
   protected readonly highlight = computed(() => {
     const layout = this.layout();
@@ -411,12 +414,13 @@ export class DrillScore {
       // A system at a time, the browser's turn between (typing never waits for a whole score);
       // the drawing shows once it is whole. A newer drill ends this pass at its next step.
       const current = () => token === this.renderToken && !this.printing();
+      let cache: EngravingCache | undefined;
       const engrave = async (lineWidth: number) => {
-        const steps = engraver.notationSteps(
-          this.canvas().nativeElement,
-          model,
-          this.engravingOptions(lineWidth, shown, this.cacheFor(engraver, lineWidth)),
-        );
+        cache = this.cacheFor(engraver, lineWidth);
+        const steps = engraver.notationSteps(this.canvas().nativeElement, model, {
+          ...this.engravingOptions(lineWidth, shown, cache),
+          systemsAtOnce: SYSTEMS_A_FRAME,
+        });
         let slice = performance.now();
         for (;;) {
           const layout = steps.step();
@@ -434,6 +438,16 @@ export class DrillScore {
       if (fit.contentWidth > width) drawn = await engrave(fit.contentWidth);
       if (!drawn) return;
       this.publish(engraver, drawn, fit);
+      // A score all new goes up a few systems a frame (the top first), so no single frame
+      // styles and lays out every system and its strip's copy; a newer drill ends this.
+      let waiting = cache?.showMore(0) ?? false;
+      this.settling.set(waiting);
+      while (waiting) {
+        await nextFrame();
+        if (!current()) return;
+        waiting = cache!.showMore(SYSTEMS_A_FRAME);
+      }
+      this.settling.set(false);
     } catch (error) {
       if (token !== this.renderToken) return;
       this.failure.set(error instanceof Error ? error.message : String(error));
@@ -534,6 +548,14 @@ export class DrillScore {
 
 /** Longest run of engraving steps before the browser gets the main thread back, in ms. */
 const SLICE_MS = 8;
+
+/** Systems of a new score put on the page in one frame (the first frame shows the top ones). */
+const SYSTEMS_A_FRAME = 2;
+
+/** Resolves at the next animation frame, before that frame's style and layout. */
+function nextFrame(): Promise<void> {
+  return new Promise((resolve) => requestAnimationFrame(() => resolve()));
+}
 
 /** Resolves in a later task, after the browser has had its turn (input, rendering). */
 function nextTask(): Promise<void> {
