@@ -174,11 +174,7 @@ interface Lane {
  * One worker thread taking one job at a time. A dead worker is replaced on the next job; a hung
  * one (no answer within the timeout, counted from when it has loaded) is terminated first.
  */
-function lane(
-  workerUrl: URL,
-  timeouts: { job: number; start: number },
-  onStart: () => void,
-): Lane {
+function lane(workerUrl: URL, timeouts: { job: number; start: number }, onStart: () => void): Lane {
   let worker: Worker | null = null;
   let ready = false;
   let nextId = 0;

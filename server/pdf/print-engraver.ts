@@ -19,10 +19,7 @@ export interface PrintEngraver {
   readonly cache: DrawingCache;
 }
 
-export function printEngraver(
-  engrave: Engrave,
-  cache: DrawingCache = keptDrawings,
-): PrintEngraver {
+export function printEngraver(engrave: Engrave, cache: DrawingCache = keptDrawings): PrintEngraver {
   // Drawings being engraved in the background, so an export waits for them rather than
   // engraving the same drill twice. Settles to undefined when the engraving failed.
   const underWay = new Map<string, Promise<NotationArt | undefined>>();
@@ -53,19 +50,20 @@ export function printEngraver(
       const wanted = jobs.map((job) => ({ job, key: keyOf(job) }));
       const found = new Map<string, NotationArt>();
       for (const { key } of wanted) {
-        const kept = cache.get(key);
-        if (kept) found.set(key, kept);
-      }
-      for (const { key } of wanted) {
-        const coming = found.has(key) ? undefined : underWay.get(key);
-        const drawn = coming && (await untilAborted(coming, signal));
+        if (found.has(key)) continue;
+        // Looked up again after each wait: background work keeps drawings meanwhile.
+        const coming = cache.get(key) ?? underWay.get(key);
+        const drawn = coming && (await untilAborted(Promise.resolve(coming), signal));
         if (drawn) found.set(key, drawn);
       }
       const missing = distinct(jobs).filter(({ key }) => !found.has(key));
-      const fresh = await engrave(
-        missing.map(({ job }) => job),
-        { signal },
-      );
+      const fresh =
+        missing.length === 0
+          ? []
+          : await engrave(
+              missing.map(({ job }) => job),
+              { signal },
+            );
       missing.forEach(({ key }, i) => {
         found.set(key, fresh[i]!);
         cache.set(key, fresh[i]!);
