@@ -61,8 +61,9 @@ export class DrawingCache {
 /**
  * A drawing's estimated heap: its strings at two bytes a character (the SVG holds the music
  * font's private-use characters, so V8 keeps it two-byte) plus a fixed allowance for each item
- * and text run object. Measured against `process.memoryUsage().heapUsed` for the 8 benchmark
- * drills (docs/performance.md): within 30 % of the real figure, on the high side.
+ * and text run object (a run holds some ten fields and its own small string). Fitted to
+ * `process.memoryUsage().heapUsed` held by the 8 benchmark drills' drawings as a worker sends them
+ * (3.9–4.0 MB measured, 4.0 MB estimated; docs/performance.md).
  */
 export function drawingBytes(art: NotationArt): number {
   let chars = art.svg.length;
@@ -74,13 +75,14 @@ export function drawingBytes(art: NotationArt): number {
       for (const piece of item.pieces) chars += piece.text.length + piece.family.length;
     }
   }
-  return 2 * chars + 120 * objects;
+  return 2 * chars + 200 * objects;
 }
 
 /**
  * What the drawings kept for exports may hold. A worksheet of 8 drills at 16 bars holds about
- * 2.5 MB of drawings (docs/performance.md), so 64 MB keeps about 25 such worksheets: the last
- * few each of a handful of teachers composing at once; fewer when drills are longer.
+ * 4 MB of drawings (docs/performance.md), so 64 MB keeps about 16 such worksheets, or 30–40 of
+ * the more usual four to six drills: the last few each of a handful of teachers composing at
+ * once. Longer drills take proportionally more.
  */
 export const DRAWING_CACHE_BYTES = 64 * 1024 * 1024;
 
