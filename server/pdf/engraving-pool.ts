@@ -20,6 +20,8 @@ export interface EngraveOptions {
 export interface EngravingPool {
   /** Each job's drawing, in order; the same as `engraveNotation` draws in this thread. */
   engrave(jobs: readonly EngravingJob[], options?: EngraveOptions): Promise<NotationArt[]>;
+  /** Move these jobs (the same objects), if still queued as background work, ahead of it. */
+  hurry(jobs: readonly EngravingJob[]): void;
   /** Drills engraved so far in worker threads and in this thread (for the specs and logs). */
   readonly engraved: { inThreads: number; here: number; timedOut: number; workers: number };
   close(): Promise<void>;
@@ -156,6 +158,10 @@ export function engravingPool(options: PoolOptions = {}): EngravingPool {
       );
       dispatch();
       return Promise.all(results);
+    },
+    hurry(jobs) {
+      const wanted = new Set(jobs);
+      for (const item of queue) if (wanted.has(item.job)) item.urgent = true;
     },
     async close() {
       await Promise.all(lanes.map((worker) => worker.close()));

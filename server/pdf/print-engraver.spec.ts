@@ -61,9 +61,14 @@ describe('DrawingCache', () => {
 describe('printEngraver', () => {
   it('an export waits for a drawing under way rather than engraving it again', async () => {
     const held = heldEngraving();
-    const engraver = printEngraver(held.engrave, new DrawingCache(1e6));
+    const hurried: string[] = [];
+    const engraver = printEngraver(held.engrave, new DrawingCache(1e6), (jobs) =>
+      hurried.push(...jobs.map((j) => j.drill.seed)),
+    );
     const background = engraver.prepare([job('x'), job('y')]);
     const exported = engraver.drawings([job('y'), job('z'), job('x')]);
+    // The export's drills under way in the background go ahead of other background work.
+    expect(hurried).toEqual(['y', 'x']);
     await held.releaseUntil(Promise.all([background, exported]));
     const drawn = await exported;
     expect(drawn.map((a) => a.svg.replace(/\.+$/, ''))).toEqual(['y', 'z', 'x']);

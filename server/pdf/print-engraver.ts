@@ -19,10 +19,15 @@ export interface PrintEngraver {
   readonly cache: DrawingCache;
 }
 
-export function printEngraver(engrave: Engrave, cache: DrawingCache = keptDrawings): PrintEngraver {
+export function printEngraver(
+  engrave: Engrave,
+  cache: DrawingCache = keptDrawings,
+  /** Puts background jobs an export now waits for ahead of other background work. */
+  hurry: (jobs: readonly EngravingJob[]) => void = () => undefined,
+): PrintEngraver {
   // Drawings being engraved in the background, so an export waits for them rather than
   // engraving the same drill twice. Settles to undefined when the engraving failed.
-  const underWay = new Map<string, Promise<NotationArt | undefined>>();
+  const underWay = new Map<string, { art: Promise<NotationArt | undefined>; job: EngravingJob }>();
 
   return {
     cache,
@@ -38,7 +43,7 @@ export function printEngraver(engrave: Engrave, cache: DrawingCache = keptDrawin
           (all) => all[i],
           () => undefined,
         );
-        underWay.set(key, art);
+        underWay.set(key, { art, job: keyed[i]!.job });
         return art.then((drawn) => {
           if (drawn) cache.set(key, drawn);
           underWay.delete(key);
@@ -49,10 +54,11 @@ export function printEngraver(engrave: Engrave, cache: DrawingCache = keptDrawin
     async drawings(jobs, signal) {
       const wanted = jobs.map((job) => ({ job, key: keyOf(job) }));
       const found = new Map<string, NotationArt>();
+      hurry(wanted.flatMap(({ key }) => underWay.get(key)?.job ?? []));
       for (const { key } of wanted) {
         if (found.has(key)) continue;
         // Looked up again after each wait: background work keeps drawings meanwhile.
-        const coming = cache.get(key) ?? underWay.get(key);
+        const coming = cache.get(key) ?? underWay.get(key)?.art;
         const drawn = coming && (await untilAborted(Promise.resolve(coming), signal));
         if (drawn) found.set(key, drawn);
       }
@@ -100,7 +106,11 @@ let shared: PrintEngraver | undefined;
 export function sharedPrintEngraver(): PrintEngraver {
   if (!shared) {
     const pool = engravingPool();
-    shared = printEngraver((jobs, options) => pool.engrave(jobs, options));
+    shared = printEngraver(
+      (jobs, options) => pool.engrave(jobs, options),
+      keptDrawings,
+      (jobs) => pool.hurry(jobs),
+    );
   }
   return shared;
 }
