@@ -54,7 +54,9 @@ import {
 import { StudentsService } from './students/students-service';
 import { createStudentsRouter } from './students/students-router';
 import { createUsersRouter } from './users/users-router';
-import { renderWorksheetPdf } from './pdf/render-worksheet';
+import { engravingJobs, renderWorksheetPdf } from './pdf/render-worksheet';
+import { sharedPrintEngraver, type PrintEngraver } from './pdf/print-engraver';
+import { HttpError } from './http-error';
 import { worksheetPrint, type WorksheetPdfDeps } from './worksheets/worksheet-pdf';
 import { WorksheetsRepository } from './worksheets/worksheets-repository';
 import { createWorksheetsRouter, type WorksheetPdfRoute } from './worksheets/worksheets-router';
@@ -96,6 +98,8 @@ export interface AppDeps {
   readonly mailer?: Mailer;
   /** Lays out worksheet PDFs; tests inject a slow one to cancel a download midway. */
   readonly renderWorksheetPdf?: WorksheetPdfRoute['render'];
+  /** Engraves and keeps worksheet drawings; tests inject one whose engravings they count. */
+  readonly printEngraver?: PrintEngraver;
   /**
    * The server's clock: practice times, days and weeks (counted in UTC), token expiry and rate
    * limits read it. Tests pass a fixed one to cross day and week boundaries deterministically.
@@ -219,6 +223,7 @@ export function createApp(deps: AppDeps): Express {
   );
   // Anyone may open a share link: its routes state `allowAnyone`, and sessions stay optional.
   app.use('/api/seed-links', answerWrongMethods(createSeedLinksRouter(seedLinks)));
+  const engraver = () => deps.printEngraver ?? sharedPrintEngraver();
   const worksheetRows = new WorksheetsRepository(db);
   const worksheets = new WorksheetsService(worksheetRows, drills, presets);
   const worksheetPdf: WorksheetPdfDeps = {
@@ -234,7 +239,18 @@ export function createApp(deps: AppDeps): Express {
     answerWrongMethods(
       createWorksheetsRouter(worksheets, {
         print: (user, id, paper) => worksheetPrint(worksheetPdf, user, id, paper),
-        render: deps.renderWorksheetPdf ?? renderWorksheetPdf,
+        render:
+          deps.renderWorksheetPdf ??
+          ((print, signal) => renderWorksheetPdf(print, signal, engraver())),
+        prepare: (user, id) => {
+          void worksheetPrint(worksheetPdf, user, id)
+            .then((print) => engraver().prepare(engravingJobs(print)))
+            .catch((error: unknown) => {
+              // An empty sheet or a withdrawn preset is refused at export, in the teacher's words.
+              if (error instanceof HttpError) return;
+              logger.warn('worksheet engraving failed', { error: String(error) });
+            });
+        },
       }),
     ),
   );

@@ -11,3 +11,5 @@ parentPort?.on('message', ({ id, job }: { id: number; job: EngravingJob }) => {
     parentPort?.postMessage({ id, error: error instanceof Error ? error.message : String(error) });
   }
 });
+// Loaded: the pool's per-job timeout runs from here, not from the (slower) start.
+parentPort?.postMessage({ ready: true });

@@ -3,6 +3,7 @@ import type { Drill } from '../../shared/generator/index';
 import { PRINT_LAYOUT } from '../../shared/notation/print-layout';
 import type { RenderOptions } from '../../shared/notation/render-vexflow';
 import { renderDrillSvg } from '../notation/render-svg';
+import { keptDrawings } from './drawing-cache';
 import { compilePrintDrawing, type PrintDrawing } from './print-drawing';
 import type { PrintAids } from './worksheet-print';
 
@@ -34,8 +35,8 @@ export interface NotationArt {
  */
 export function notationArt(drill: Drill, aids: PrintAids, maxAspect = Infinity): NotationArt {
   const key = notationKey(drill, aids, maxAspect);
-  const art = cachedNotation(key) ?? engraveNotation(drill, aids, maxAspect);
-  keepNotation(key, art);
+  const art = keptDrawings.get(key) ?? engraveNotation(drill, aids, maxAspect);
+  keptDrawings.set(key, art);
   return art;
 }
 
@@ -46,34 +47,9 @@ export function notationKey(drill: Drill, aids: PrintAids, maxAspect: number): s
     .digest('base64');
 }
 
-/** A kept drawing, made the most recently used. */
-export function cachedNotation(key: string): NotationArt | undefined {
-  const known = engraved.get(key);
-  if (known) {
-    // Most recently used last, so the oldest goes first when the cache is full.
-    engraved.delete(key);
-    engraved.set(key, known);
-  }
-  return known;
-}
-
-/** Keep a drawing (made here or in a worker thread) for the next export. */
-export function keepNotation(key: string, art: NotationArt): void {
-  engraved.delete(key);
-  engraved.set(key, art);
-  if (engraved.size > CACHED_DRAWINGS) engraved.delete(engraved.keys().next().value!);
-}
-
-/**
- * Drawings kept for a worksheet exported again (a teacher re-prints after editing the notes or
- * the ladder): a 16-bar drawing is 60–140 kB, so 64 of them stay under 10 MB.
- */
-const CACHED_DRAWINGS = 64;
-const engraved = new Map<string, NotationArt>();
-
 /** Forget every kept drawing (the benchmark's cold runs). */
 export function clearNotationCache(): void {
-  engraved.clear();
+  keptDrawings.clear();
 }
 
 /** The drill engraved afresh (no cache): what `notationArt` draws, here or in a worker thread. */

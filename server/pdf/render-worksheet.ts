@@ -1,9 +1,9 @@
 import type { Readable } from 'node:stream';
-import { engravingPool } from './engraving-pool';
-import { cachedNotation, keepNotation, notationKey } from './notation-art';
+import type { EngravingJob } from './engraving-pool';
 import { drawPrintDrawing, type FontTable, type PdfKitDocument } from './draw-print';
 import { preparedPdfmake, TEXT_FONT } from './pdf-fonts';
 import type { PrintDrawing } from './print-drawing';
+import { sharedPrintEngraver, type PrintEngraver } from './print-engraver';
 import { qrSvg } from './qr-code';
 import { tensionPlotSvg } from './tension-plot';
 import {
@@ -18,40 +18,40 @@ import type { WorksheetPrint } from './worksheet-print';
 
 /**
  * Lay out a worksheet and start its PDF. The answer is a readable stream of the file's bytes.
- * Engraving happens in worker threads, and `signal` (a cancelled download) stops the work
- * between drills.
+ * Drawings come from the engraver's cache (engraved in the background as the worksheet was
+ * composed) or are engraved now in worker threads; `signal` (a cancelled download) stops the
+ * work between drills.
  */
 export async function renderWorksheetPdf(
   print: WorksheetPrint,
   signal?: AbortSignal,
+  engraver: PrintEngraver = sharedPrintEngraver(),
 ): Promise<Readable> {
-  return layOutPdf(print, await drawArt(print, signal), {}, signal);
+  return layOutPdf(print, await drawArt(print, signal, engraver), {}, signal);
 }
 
-/** Engraves the drills not in the cache; kept for the next export (see engraving-pool.ts). */
-const pool = engravingPool();
+/** What the engraver is asked for to print these drills on this paper. */
+export function engravingJobs(print: Pick<WorksheetPrint, 'paper' | 'drills'>): EngravingJob[] {
+  const text = textArea(print.paper);
+  return print.drills.map((drill) => ({
+    drill: drill.drill,
+    aids: drill.aids,
+    maxAspect: notationRoom(text.width, text.height, drill.aids.tension) / text.width,
+  }));
+}
 
 /** Each drill's notation, QR code and tension plot. */
-export async function drawArt(print: WorksheetPrint, signal?: AbortSignal): Promise<DrillArt[]> {
-  const text = textArea(print.paper);
-  const wanted = print.drills.map((drill) => {
-    const maxAspect = notationRoom(text.width, text.height, drill.aids.tension) / text.width;
-    const key = notationKey(drill.drill, drill.aids, maxAspect);
-    return { job: { drill: drill.drill, aids: drill.aids, maxAspect }, key };
-  });
-  const kept = wanted.map(({ key }) => cachedNotation(key));
-  const missing = wanted.filter((_, i) => !kept[i]);
-  // The drills not kept are engraved side by side in worker threads, the event loop free.
-  const fresh = await pool.engrave(
-    missing.map(({ job }) => job),
-    signal,
-  );
-  missing.forEach(({ key }, i) => keepNotation(key, fresh[i]!));
+export async function drawArt(
+  print: WorksheetPrint,
+  signal?: AbortSignal,
+  engraver: PrintEngraver = sharedPrintEngraver(),
+): Promise<DrillArt[]> {
+  const notation = await engraver.drawings(engravingJobs(print), signal);
   const art: DrillArt[] = [];
   for (const [i, drill] of print.drills.entries()) {
     signal?.throwIfAborted();
     art.push({
-      notation: kept[i] ?? fresh[missing.indexOf(wanted[i]!)]!,
+      notation: notation[i]!,
       qr: await qrSvg(drill.seedLink),
       tension: drill.aids.tension ? tensionPlotSvg(drill.drill) : null,
     });

@@ -16,8 +16,13 @@ import {
 } from './worksheet-schemas';
 import type { WorksheetsService } from './worksheets-service';
 
-/** What the PDF route needs: the print of a stored worksheet, and the renderer. */
+/**
+ * What the PDF route needs: the print of a stored worksheet, and the renderer; and what starts
+ * engraving a worksheet's drills in the background whenever it is written or opened, so its
+ * export only lays out the pages.
+ */
 export interface WorksheetPdfRoute {
+  readonly prepare?: (user: PublicUser, id: number) => void;
   readonly print: (user: PublicUser, id: number, paper?: Paper) => Promise<WorksheetPrint>;
   readonly render: (
     print: WorksheetPrint,
@@ -43,11 +48,15 @@ export function createWorksheetsRouter(service: WorksheetsService, pdf: Workshee
 
   router.post('/', teacher, validate({ body: createWorksheetSchema }), async (req, res) => {
     const input = req.body as z.output<typeof createWorksheetSchema>;
-    res.status(201).json({ worksheet: await service.create(req.user!.id, input) });
+    const worksheet = await service.create(req.user!.id, input);
+    res.status(201).json({ worksheet });
+    pdf.prepare?.(req.user!, worksheet.id);
   });
 
   router.get('/:id', teacher, validate({ params: idParams }), async (req, res) => {
-    res.json({ worksheet: await service.get(req.user!.id, idOf(req.params)) });
+    const id = idOf(req.params);
+    res.json({ worksheet: await service.get(req.user!.id, id) });
+    pdf.prepare?.(req.user!, id);
   });
 
   router.put(
@@ -56,7 +65,9 @@ export function createWorksheetsRouter(service: WorksheetsService, pdf: Workshee
     validate({ params: idParams, body: updateWorksheetSchema }),
     async (req, res) => {
       const changes = req.body as z.output<typeof updateWorksheetSchema>;
-      res.json({ worksheet: await service.update(req.user!.id, idOf(req.params), changes) });
+      const id = idOf(req.params);
+      res.json({ worksheet: await service.update(req.user!.id, id, changes) });
+      pdf.prepare?.(req.user!, id);
     },
   );
 
