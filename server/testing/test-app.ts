@@ -16,6 +16,7 @@ import { createScratchDatabase, postgresForTests } from './postgres-scratch';
 import { DEMO_ACCOUNTS, type DemoAccount } from '../demo/seed-demo';
 import { seedDemo } from '../demo/seed-demo';
 import { createLogger, type Logger } from '../logger';
+import { sharedPrintEngraver, type PrintEngraver } from '../pdf/print-engraver';
 import { syncBuiltInPresets } from '../presets/sync-built-ins';
 import { createSessionStore, stopSessionStore } from '../session';
 
@@ -51,6 +52,18 @@ export interface TestAppOptions {
   readonly signInLimits?: SignInLimits;
 }
 
+/**
+ * Engraves for exports only: specs of background engraving inject their own engraver, the
+ * others would otherwise start worker threads engraving behind every worksheet they create.
+ */
+const exportOnlyEngraver: PrintEngraver = {
+  get cache() {
+    return sharedPrintEngraver().cache;
+  },
+  prepare: async () => undefined,
+  drawings: (jobs, signal) => sharedPrintEngraver().drawings(jobs, signal),
+};
+
 /** scrypt's lowest allowed cost (N = 2^10) keeps tests fast; production uses 15 or more. */
 export const TEST_HASH_COST = '10';
 
@@ -83,6 +96,7 @@ export async function createTestApp(options: TestAppOptions = {}): Promise<TestA
     sessionStore,
     browserDist: path.join(dataDir, 'no-dist'),
     signInLimiter: new SignInLimiter(db, options.signInLimits),
+    printEngraver: exportOnlyEngraver,
     ...options.deps,
   });
 
