@@ -1,0 +1,120 @@
+/**
+ * Engraving checks made on the drawn SVG of every built-in preset: where rests sit in two-voice
+ * writing, which tuplet groups keep their number, how much room a bar gives its slots and how
+ * many bars share a system. Glyph boxes are measured from the fonts themselves (@napi-rs/canvas,
+ * the faces the renderer registers), not from the renderer's own layout.
+ */
+import { createCanvas } from '@napi-rs/canvas';
+import { JSDOM } from 'jsdom';
+import { describe, expect, it } from 'vitest';
+import { generateDrill, parseRuleCard } from '../../shared/generator/index';
+import { BUILT_IN_PRESETS } from '../../shared/generator/presets/index';
+import { renderDrillSvg } from './render-svg';
+
+const SEEDS = ['river-3', 'amber-40'];
+/** VexFlow's stave space, in pixels; a step is half of it (a line to the next space). */
+const SPACE = 10;
+const measure = createCanvas(10, 10).getContext('2d');
+
+function parse(svg: string): Document {
+  return new JSDOM(svg, { contentType: 'image/svg+xml' }).window.document;
+}
+
+/** Each preset's drill at each seed drawn once for the whole file, as a screen draws it. */
+const drawn = new Map<string, Document>();
+function drawnDoc(id: string, seed: string): Document {
+  const key = `${id} ${seed}`;
+  let doc = drawn.get(key);
+  if (!doc) {
+    doc = parse(renderDrillSvg(drillOf(id, seed)).svg);
+    drawn.set(key, doc);
+  }
+  return doc;
+}
+
+function drillOf(id: string, seed: string) {
+  const preset = BUILT_IN_PRESETS.find((p) => p.id === id);
+  if (!preset) throw new Error(`no preset ${id}`);
+  return generateDrill(parseRuleCard(preset.card), seed);
+}
+
+interface Box {
+  readonly left: number;
+  readonly right: number;
+  readonly top: number;
+  readonly bottom: number;
+}
+
+/** The ink box of a music glyph drawn as `<text>` (VexFlow sets its size in pt). */
+function glyphBox(text: Element): Box {
+  const size = text.getAttribute('font-size') ?? '30pt';
+  const px = size.endsWith('pt') ? (parseFloat(size) * 4) / 3 : parseFloat(size);
+  measure.font = `${px}px Bravura`;
+  const m = measure.measureText(text.textContent ?? '');
+  const x = Number(text.getAttribute('x'));
+  const y = Number(text.getAttribute('y'));
+  return {
+    left: x - m.actualBoundingBoxLeft,
+    right: x + m.actualBoundingBoxRight,
+    top: y - m.actualBoundingBoxAscent,
+    bottom: y + m.actualBoundingBoxDescent,
+  };
+}
+
+const overlaps = (a: Box, b: Box) =>
+  a.left < b.right && b.left < a.right && a.top < b.bottom && b.top < a.bottom;
+
+/** y of the middle line of a drawn bar's stave. */
+function middleLine(bar: Element): number {
+  const ys = [...bar.querySelectorAll(':scope > .vf-stave path')].map((p) =>
+    Number(/M[\d.]+ ([\d.]+)/.exec(p.getAttribute('d') ?? '')?.[1]),
+  );
+  expect(ys).toHaveLength(5);
+  return (Math.min(...ys) + Math.max(...ys)) / 2;
+}
+
+describe('rests in two voices on one staff', () => {
+  // E. Gould, "Behind Bars", Faber Music 2011, ch. "Rests" (two parts sharing a stave; from
+  // memory): the upper part's rests stand high, the lower part's low, each clear of the other
+  // part's notes; a rest moved from its place moves by whole spaces, so it keeps its relation to
+  // the lines.
+  it('keeps each voice’s rests in its own half of the staff, by whole spaces, clear of the other voice', () => {
+    let rests = 0;
+    const faults: string[] = [];
+    for (const preset of BUILT_IN_PRESETS) {
+      for (const seed of SEEDS) {
+        const doc = drawnDoc(preset.id, seed);
+        for (const bar of doc.querySelectorAll('.tensile-bar')) {
+          const middle = middleLine(bar);
+          const where = `${preset.id} ${seed} bar ${bar.getAttribute('data-bar')}`;
+          const heads = (voice: string) =>
+            [
+              ...bar.querySelectorAll(`[data-voice="${voice}"] .tensile-note .vf-notehead text`),
+            ].map(glyphBox);
+          for (const [voice, other] of [
+            ['hands', 'feet'],
+            ['feet', 'hands'],
+          ] as const) {
+            const others = heads(other);
+            for (const rest of bar.querySelectorAll(`[data-voice="${voice}"] .tensile-rest`)) {
+              const glyph = rest.querySelector('.vf-notehead text')!;
+              const box = glyphBox(glyph);
+              const at = `${where} ${voice} rest beat ${rest.getAttribute('data-beat')}.${rest.getAttribute('data-slot')}`;
+              rests++;
+              if (others.some((head) => overlaps(box, head))) faults.push(`${at}: on a note`);
+              // One pixel of slack for the glyphs' own rounding.
+              if (voice === 'hands' && box.bottom > middle + 1) faults.push(`${at}: low`);
+              if (voice === 'feet' && box.top < middle - 1) faults.push(`${at}: high`);
+              if (rest.getAttribute('data-duration') === '1') continue;
+              const offset = (middle - Number(glyph.getAttribute('y'))) / SPACE;
+              if (Math.abs(offset - Math.round(offset)) > 0.1)
+                faults.push(`${at}: ${offset.toFixed(2)} spaces from the middle line`);
+            }
+          }
+        }
+      }
+    }
+    expect(faults).toEqual([]);
+    expect(rests).toBeGreaterThan(300);
+  });
+});
