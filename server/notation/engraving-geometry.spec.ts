@@ -7,6 +7,7 @@
 import { createCanvas } from '@napi-rs/canvas';
 import { JSDOM } from 'jsdom';
 import { describe, expect, it } from 'vitest';
+import { isHandVoice } from '../../shared/generator/drill';
 import { generateDrill, parseRuleCard } from '../../shared/generator/index';
 import { BUILT_IN_PRESETS } from '../../shared/generator/presets/index';
 import { renderDrillSvg } from './render-svg';
@@ -116,5 +117,43 @@ describe('rests in two voices on one staff', () => {
     }
     expect(faults).toEqual([]);
     expect(rests).toBeGreaterThan(300);
+  });
+});
+
+describe('triplets in a shuffle', () => {
+  // Common practice: a shuffle part written in triplets marks every group whose rhythm a beam
+  // does not show: a quarter and an eighth (or a rest and an eighth) without its "3" reads as
+  // straight eighths. E. Gould, "Behind Bars", Faber Music 2011, ch. "Tuplets" (from memory):
+  // numbers are left out only where the rhythm stays unambiguous.
+  it('writes a "3" over every beat where a voice plays off the beat', () => {
+    let groups = 0;
+    const missing: string[] = [];
+    for (const seed of SEEDS) {
+      const drill = drillOf('shuffle-kick-upbeats', seed);
+      const doc = drawnDoc('shuffle-kick-upbeats', seed);
+      for (const bar of drill.bars) {
+        const drawnBar = doc.querySelector(`.tensile-bar[data-bar="${bar.bar}"]`)!;
+        bar.beats.forEach((slots, i) => {
+          expect(slots).toBe(3);
+          for (const voice of ['hands', 'feet'] as const) {
+            const offBeat = bar.hits.some(
+              (h) =>
+                h.beat === i + 1 && h.slot !== 0 && isHandVoice(h.voice) === (voice === 'hands'),
+            );
+            if (!offBeat) continue;
+            groups++;
+            const number = drawnBar.querySelector(
+              `[data-voice="${voice}"] [data-tuplet="3"][data-beat="${i + 1}"] .vf-tuplet text`,
+            );
+            // SMuFL's tuplet digits start at U+E880.
+            if (number?.textContent !== String.fromCodePoint(0xe883))
+              missing.push(`${seed} bar ${bar.bar} beat ${i + 1} ${voice}`);
+          }
+        });
+      }
+      expect(doc.querySelectorAll('.tensile-simile')).toHaveLength(0);
+    }
+    expect(missing).toEqual([]);
+    expect(groups).toBeGreaterThan(40);
   });
 });
