@@ -10,6 +10,8 @@ import { describe, expect, it } from 'vitest';
 import { isHandVoice } from '../../shared/generator/drill';
 import { generateDrill, parseRuleCard } from '../../shared/generator/index';
 import { BUILT_IN_PRESETS } from '../../shared/generator/presets/index';
+import { PRINT_LAYOUT } from '../../shared/notation/print-layout';
+import { SYSTEM_CLASS } from '../../shared/notation/render-vexflow';
 import { renderDrillSvg } from './render-svg';
 
 const SEEDS = ['river-3', 'amber-40'];
@@ -155,5 +157,114 @@ describe('triplets in a shuffle', () => {
     }
     expect(missing).toEqual([]);
     expect(groups).toBeGreaterThan(40);
+  });
+});
+
+/** Ink boxes of the words in each row of `selector` (sticking or counting), by line. */
+function rowBoxes(bar: Element, selector: string): (Box & { what: string })[][] {
+  const lines: (Box & { what: string })[][] = [];
+  for (const row of bar.querySelectorAll(selector)) {
+    const size = Number(row.getAttribute('font-size'));
+    const byLine = new Map<string, (Box & { what: string })[]>();
+    for (const span of row.querySelectorAll('tspan')) {
+      const text = span.textContent ?? '';
+      const bold = (span.getAttribute('font-weight') ?? row.getAttribute('font-weight')) === 'bold';
+      measure.font = `${bold ? 'bold ' : ''}${size}px Academico`;
+      const m = measure.measureText(text);
+      // Anchored at the middle: the word starts half its advance to the left.
+      const start = Number(span.getAttribute('x')) - m.width / 2;
+      const y = Number(span.getAttribute('y'));
+      const line = byLine.get(String(y)) ?? [];
+      line.push({
+        left: start - m.actualBoundingBoxLeft,
+        right: start + m.actualBoundingBoxRight,
+        top: y - m.actualBoundingBoxAscent,
+        bottom: y + m.actualBoundingBoxDescent,
+        what: `${text}@${span.getAttribute('data-beat')}.${span.getAttribute('data-slot')}`,
+      });
+      byLine.set(String(y), line);
+    }
+    lines.push(...byLine.values());
+  }
+  return lines;
+}
+
+describe('room in every bar', () => {
+  // Counting syllables at 13 px: one slot's syllable needs its own width (up to 0.62 em) and a
+  // clear gap before the next, so no slot gets under 1.5 em, 19.5 px, on a screen (the stated
+  // minimum; common practice: each syllable read as a word of its own).
+  const LEAST_SLOT = 19.5;
+
+  it('keeps every slot at least 1.5 em wide, and no two letters, syllables or noteheads of a voice touching', () => {
+    const faults: string[] = [];
+    let bars = 0;
+    for (const preset of BUILT_IN_PRESETS) {
+      for (const seed of SEEDS) {
+        const doc = drawnDoc(preset.id, seed);
+        for (const bar of doc.querySelectorAll('.tensile-bar')) {
+          bars++;
+          const where = `${preset.id} ${seed} bar ${bar.getAttribute('data-bar')}`;
+          const counts = [...bar.querySelectorAll('.tensile-count')].map((c) =>
+            Number(c.getAttribute('x')),
+          );
+          for (let i = 1; i < counts.length; i++)
+            if (counts[i]! - counts[i - 1]! < LEAST_SLOT)
+              faults.push(`${where}: slot ${i} ${(counts[i]! - counts[i - 1]!).toFixed(1)} px`);
+          for (const line of [
+            ...rowBoxes(bar, '.tensile-sticking-row'),
+            ...rowBoxes(bar, '.tensile-count-row'),
+          ]) {
+            line.sort((a, b) => a.left - b.left);
+            for (let i = 1; i < line.length; i++)
+              if (line[i]!.left < line[i - 1]!.right)
+                faults.push(`${where}: ${line[i - 1]!.what} touches ${line[i]!.what}`);
+          }
+          for (const voice of ['hands', 'feet']) {
+            const events = [...bar.querySelectorAll(`[data-voice="${voice}"] .tensile-note`)].map(
+              (note) => ({
+                at: `${note.getAttribute('data-beat')}.${note.getAttribute('data-slot')}`,
+                heads: [...note.querySelectorAll('.vf-notehead text')].map(glyphBox),
+              }),
+            );
+            for (const [i, a] of events.entries())
+              for (const b of events.slice(i + 1))
+                if (a.heads.some((h) => b.heads.some((k) => overlaps(h, k))))
+                  faults.push(`${where} ${voice}: heads at ${a.at} and ${b.at} touch`);
+          }
+        }
+      }
+    }
+    expect(faults).toEqual([]);
+    expect(bars).toBeGreaterThan(100);
+  });
+});
+
+describe('bars to a system by their content', () => {
+  const systemSizes = (bars: readonly { system: number }[]) => {
+    const sizes: number[] = [];
+    for (const bar of bars) sizes[bar.system] = (sizes[bar.system] ?? 0) + 1;
+    return sizes;
+  };
+
+  // A 12/8 shuffle bar holds twelve eighths, no more notes than a 4/4 bar of triplets: it takes
+  // half a screen's line, and on paper (a part's staff, 7–7.5 mm) three or more share a system,
+  // as 4/4 bars of eighths do (common practice: bars per system follow their content).
+  it('sets 12/8 shuffle bars two or more to a screen line and three or more to a printed one', () => {
+    for (const seed of SEEDS) {
+      const doc = drawnDoc('twelve-eight-shuffle', seed);
+      const screen = [...doc.querySelectorAll(`.${SYSTEM_CLASS}`)].map(
+        (system) => system.querySelectorAll('.tensile-bar').length,
+      );
+      expect(screen.length, seed).toBeGreaterThan(0);
+      expect(Math.min(...screen), `${seed} screen`).toBeGreaterThanOrEqual(2);
+      const preset = BUILT_IN_PRESETS.find((p) => p.id === 'twelve-eight-shuffle')!;
+      const long = generateDrill(parseRuleCard({ ...(preset.card as object), bars: 16 }), seed);
+      const paper = renderDrillSvg(long, {
+        ...PRINT_LAYOUT,
+        showSticking: true,
+        showCounts: true,
+      }).layout;
+      expect(Math.max(...systemSizes(paper.bars)), `${seed} paper`).toBeGreaterThanOrEqual(3);
+    }
   });
 });
