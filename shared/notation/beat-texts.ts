@@ -74,6 +74,14 @@ export const LETTER_GAP = 2;
 export const STICKING_GAP = 0.5;
 /** Ink width of the wider letter, a bold R, as a share of the size (Academico bold: 12 px at 15). */
 const LETTER_INK = 0.8;
+/**
+ * Centre-to-centre room two neighbouring sticking letters need to keep their full size (at least
+ * `least` pixels) and the least gap between them without being moved apart.
+ */
+export function stickingPitch(least = 0): number {
+  return Math.max(STICKING_SIZE, least) * (LETTER_INK + STICKING_GAP);
+}
+
 /** Baseline distance between the two letters of a stack. */
 export const STICKING_LINE = 14;
 

@@ -88,9 +88,9 @@ export interface NotationTuplet {
   /** Indices into the layer's `events`, in time order. */
   readonly events: readonly number[];
   /**
-   * Whether the bracket and its number are printed. In a drill in triplets throughout (a
-   * shuffle) only the first is, followed by "sim." (see `simile`); the others still time their
-   * notes.
+   * Whether the bracket and its number are printed. In a drill in quintuplets (sextuplets,
+   * septuplets) throughout only the first is, followed by "sim." (see `simile`); the others
+   * still time their notes. Triplets keep every number (see `keepsNumber`).
    */
   readonly shown: boolean;
   /** "sim." follows this bracket: the ones after it are understood. */
@@ -183,15 +183,15 @@ export function buildNotation(drill: NotationSource): NotationModel {
 }
 
 /**
- * A drill in one tuplet throughout (every beat in three, as a shuffle, or every beat in five)
- * writes its number once in each voice, on that voice's first bracketed beat, then "sim.",
+ * A drill in one tuplet throughout (every beat in five, or in six or seven) writes its number
+ * once in each voice, on that voice's first bracketed beat, then "sim.",
  * rather than a number on every beat of both voices (E. Gould, "Behind Bars", Faber Music 2011,
  * ch. "Tuplets": once a tuplet pattern is established in a part the numbers may be dropped, with
  * "sim." after the first ones; from memory). "Sim." rather than a number at the start of each
  * system: the model knows no systems, and the screen, the phone and the page break the same
  * drill differently, so one marking read once serves all three. Each voice is a part of its own
  * here: a marking over the hands alone would say nothing of the kick. Other drills keep every
- * number.
+ * number, and so do triplets (see `keepsNumber`).
  */
 function simileTuplets(bars: NotationBar[]): NotationBar[] {
   const first = bars[0]?.beats[0]?.subdivision ?? 1;
@@ -201,19 +201,28 @@ function simileTuplets(bars: NotationBar[]): NotationBar[] {
   const done = new Set<string>();
   return bars.map((bar) => ({
     ...bar,
-    layers: bar.layers.map((layer) => {
-      const lead = !done.has(layer.layer) && layer.tuplets.length > 0;
-      if (lead) done.add(layer.layer);
-      return {
-        ...layer,
-        tuplets: layer.tuplets.map((tuplet, i) => ({
-          ...tuplet,
-          shown: lead && i === 0,
-          simile: lead && i === 0,
-        })),
-      };
-    }),
+    layers: bar.layers.map((layer) => ({
+      ...layer,
+      tuplets: layer.tuplets.map((tuplet) => {
+        if (keepsNumber(tuplet)) return tuplet;
+        const lead = !done.has(layer.layer);
+        done.add(layer.layer);
+        return { ...tuplet, shown: lead, simile: lead };
+      }),
+    })),
   }));
+}
+
+/**
+ * Triplets keep every "3": a triplet is written with values longer than its grid (a quarter and
+ * an eighth, a quarter rest and an eighth), the commonest figures of plain time, and a shuffle's
+ * quarter-and-eighth without its number reads as straight eighths (common practice: shuffle parts
+ * written in triplets mark every group; a group under one beam keeps its number alone, see
+ * `bracketedTuplet`). Quintuplets, sextuplets and septuplets are written in their grid value
+ * throughout (see `spellBeat`), so every group shows its count of values and "sim." serves.
+ */
+function keepsNumber(tuplet: NotationTuplet): boolean {
+  return tuplet.ratio.numNotes === 3;
 }
 
 /**

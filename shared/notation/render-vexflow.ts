@@ -21,6 +21,7 @@ import {
   LETTER_GAP,
   LETTER_WIDTH,
   STICKING_LINE,
+  stickingPitch,
   type CountLayout,
 } from './beat-texts';
 import { SYLLABLE_SIZE, syllableRowWidth } from './count-positions';
@@ -783,27 +784,60 @@ function naturalBarWidth(
     readonly counts: boolean;
   },
 ): number {
-  // Written events per beat (in whichever voice writes more there), summed over the bar.
-  const notes = bar.beats.reduce(
-    (n, beat) =>
-      n +
-      Math.max(...bar.layers.map((l) => l.events.filter((e) => e.beat === beat.beat).length), 1),
-    0,
-  );
-  const counted = bar.beats.reduce((n, beat) => n + beat.subdivision, 0);
   // Room to breathe beyond the tightest setting, never under the least room a note, and room
   // for the count.
   return (
     Math.max(
       measured * room.air,
-      notes * room.note,
-      counted * room.count,
-      // Some room per beat even where a beat holds one note (40 px on a screen, closer on
-      // paper, in step with the least room per note).
-      model.meter.beats * 40 * (room.note / NOTE_ROOM),
+      densestWidth(bar, room),
+      // Some room per quarter note of time even where a beat holds one note (40 px on a screen,
+      // closer on paper, in step with the least room per note): a 12/8 bar's twelve eighths
+      // are six quarters' time, not twelve beats'.
+      ((model.meter.beats * 4) / model.meter.unit) * 40 * (room.note / NOTE_ROOM),
       textRowsWidth(bar, room),
     ) + 20
   );
+}
+
+/**
+ * The room the bar needs where its written instants, sticking letters or counting syllables
+ * stand closest in time: the grid voice gives equal time equal room across the bar, so the
+ * densest spot sets the whole bar's width (E. Gould, "Behind Bars", Faber Music 2011, ch.
+ * "Horizontal spacing": space in proportion to duration; from memory). Summing notes over the bar
+ * instead leaves a bar of eighths with one beat of sixteenths squeezed in that beat.
+ */
+function densestWidth(
+  bar: NotationBar,
+  room: {
+    readonly note: number;
+    readonly count: number;
+    readonly text: number | null;
+    readonly sticking: boolean;
+  },
+): number {
+  const beats = bar.beats.length;
+  const timeOf = (beat: number, slot: number) =>
+    beat - 1 + slot / (bar.beats[beat - 1]?.subdivision ?? 1);
+  const written = bar.layers.flatMap((layer) => layer.events.map((e) => timeOf(e.beat, e.slot)));
+  let need = (room.note * beats) / closest(written, beats);
+  if (room.count > 0)
+    need = Math.max(need, room.count * Math.max(...bar.beats.map((b) => b.subdivision)) * beats);
+  if (room.sticking) {
+    const struck = bar.beats.flatMap((b) => b.sticking.map((s) => timeOf(b.beat, s.slot)));
+    // A screen keeps its letters' full size and gap; paper, set closer, lets crowded letters
+    // move apart about their middle (see `drawSticking`) as long as each keeps its width.
+    const pitch = room.text === null ? stickingPitch() : room.text * LETTER_WIDTH + LETTER_GAP;
+    if (struck.length > 0) need = Math.max(need, (pitch * beats) / closest(struck, beats));
+  }
+  return need;
+}
+
+/** The least time, in beats, between neighbouring `times` of a bar of `beats` (the last to its end). */
+function closest(times: readonly number[], beats: number): number {
+  const sorted = [...new Set(times)].sort((a, b) => a - b);
+  let least = sorted.length > 0 ? beats - sorted[sorted.length - 1]! : beats;
+  for (let i = 1; i < sorted.length; i++) least = Math.min(least, sorted[i]! - sorted[i - 1]!);
+  return Math.max(least, 1e-3);
 }
 
 /**

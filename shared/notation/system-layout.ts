@@ -3,7 +3,7 @@
  *
  * Bars are packed greedily to find how many systems are needed, then spread as evenly as the
  * width allows (four bars on each of four lines read better than five, five, five and one), and
- * each system's bars are widened in proportion to their natural width to fill the line.
+ * each system's narrower bars are widened to one width to fill the line (see `levelWidth`).
  */
 
 export interface SystemPlan {
@@ -119,8 +119,31 @@ function stretch(
     return [Math.max(line, Math.min(least, naturalSum)) + start];
   }
   const room = Math.max(line, naturalSum);
-  const factor = shortLast ? Math.min(room / naturalSum, 1.5) : room / naturalSum;
-  return natural.map((w, i) => w * factor + (i === 0 ? start : 0));
+  if (shortLast) {
+    const factor = Math.min(room / naturalSum, 1.5);
+    return natural.map((w, i) => w * factor + (i === 0 ? start : 0));
+  }
+  const even = levelWidth(natural, room);
+  return natural.map((w, i) => Math.max(w, even) + (i === 0 ? start : 0));
+}
+
+/**
+ * The width every bar of a justified line is brought up to (bars wider than it keep their own):
+ * the line's room goes first to the narrowest bars, so a bar of eighths beside one of sixteenths
+ * gets the same room for the same time rather than a share of the room in proportion to its
+ * notes (E. Gould, "Behind Bars", Faber Music 2011, ch. "Horizontal spacing": equal durations take
+ * equal space across a system; from memory). The bars of one drill share one meter.
+ */
+function levelWidth(natural: readonly number[], room: number): number {
+  const widest = [...natural].sort((a, b) => b - a);
+  let rest = room;
+  for (let kept = 0; kept < widest.length; kept++) {
+    const level = rest / (widest.length - kept);
+    if (level >= widest[kept]!) return level;
+    // Wider than the level: it keeps its own width, the rest share what is left.
+    rest -= widest[kept]!;
+  }
+  return 0;
 }
 
 function range(start: number, size: number): number[] {

@@ -23,8 +23,13 @@ import {
 import type { LayerBar, NotationBar, NotationEvent, NotationModel } from './notation-model';
 import type { Layer } from './staff-placement';
 
-/** Where rests of each layer sit: hands' rests high, feet's rests low, out of each other's way. */
-const REST_KEY: Readonly<Record<Layer, string>> = { hands: 'e/5', feet: 'e/4' };
+/**
+ * Where rests of each layer sit: the hands' on the top line, the feet's on the bottom line, each
+ * two whole spaces from the middle, so a rest keeps its place among the lines (its dots in spaces)
+ * and stays in its own voice's half of the staff, clear of the other voice's notes (E. Gould,
+ * "Behind Bars", Faber Music 2011, ch. "Rests", two parts on one stave; from memory).
+ */
+const REST_KEY: Readonly<Record<Layer, string>> = { hands: 'f/5', feet: 'e/4' };
 /** Room an accent takes beyond a stem's tip, in pixels. */
 const ACCENT_ROOM = 8;
 /** A whole rest hangs from the line above its key: the hands' from the top line, the feet's low. */
