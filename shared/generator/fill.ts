@@ -102,7 +102,7 @@ function hasVoice(cell: readonly { voice: VoiceId }[], voice: VoiceId): boolean 
  * practice: an early or late backbeat is heard by the hole where the backbeat used to be; a kick
  * on 2 right after an early snare fills it).
  */
-function movedBackbeatHomes(card: RuleCard, grid: Grid): Set<number> {
+export function movedBackbeatHomes(card: RuleCard, grid: Grid): Set<number> {
   const out = new Set<number>();
   for (const rule of card.rules) {
     if (rule.kind !== 'backbeat' || rule.shift === 0) continue;
@@ -121,7 +121,7 @@ function movedBackbeatHomes(card: RuleCard, grid: Grid): Set<number> {
  * quarter) and never the middle one, the anchor (the kick) favours the beat and the last
  * triplet and leaves the middle one out (common practice). Empty for any other time.
  */
-function shuffleMiddles(card: RuleCard, grid: Grid, ob: Obligations): Set<number> {
+export function shuffleMiddles(card: RuleCard, grid: Grid, ob: Obligations): Set<number> {
   const grouping = card.meter.grouping;
   const compound =
     !!grouping?.length && grouping.every((g) => g === 3) && grid.beats.every((b) => b === 1);

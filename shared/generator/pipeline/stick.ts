@@ -80,7 +80,7 @@ function roomOf(ctx: FillContext): {
     (
       ctx.options[Math.floor(instant / grid.slotsPerBar)]?.[instant % grid.slotsPerBar] ?? []
     ).includes(v);
-  const { ticks, pace } = frameOf(grid, card.tempo);
+  const { ticks, pace, run } = frameOf(grid, card.tempo);
   const grouping = card.meter.grouping;
   const pulse =
     grouping?.length && grouping.every((g) => g === 3) ? 3 * pace.ticksPerBeat : pace.ticksPerBeat;
@@ -90,6 +90,17 @@ function roomOf(ctx: FillContext): {
     cells.forEach((cell, i) => {
       if (i === instant || cell.some((h) => h.voice === 'kick')) at.push(ticks[i] ?? 0);
     });
+    // Nor the third of three grid notes running in a run (`fill-limbs.ts`).
+    const n = cells.length;
+    const kickAt = (i: number): boolean =>
+      i === instant || (cells[(i + n) % n] ?? []).some((h) => h.voice === 'kick');
+    const step = (i: number): boolean => {
+      const a = (i + n) % n;
+      const gap = (ticks[(a + 1) % n] ?? 0) - (ticks[a] ?? 0);
+      return (gap > 0 ? gap : gap + pace.loop) <= run;
+    };
+    for (let s = instant - 2; s <= instant && n >= 3; s++)
+      if (kickAt(s) && kickAt(s + 1) && kickAt(s + 2) && step(s) && step(s + 1)) return false;
     const k = at.length;
     if (k < 3) return true;
     const mine = at.indexOf(ticks[instant] ?? 0);
