@@ -199,11 +199,11 @@ export function checkGrooves(
     }
   }
 
-  // 7. In a linear groove the hands alternate: without doubles on the card, no hand plays two grid
+  // 7. In a linear groove (no two limbs strike together) the hands alternate: without doubles on the card, no hand plays two grid
   // notes running in a run where the generator's own note is one of them (common practice: linear
   // patterns are written hand to hand, R L R L through the drums; L L from the snare to a tom is a
   // double the card did not ask for).
-  const linear = rulesOf(card, 'linear').length > 0;
+  const linear = rulesOf(card, 'linear').some((r) => r.maxOverlaps === 0);
   if (linear && !card.doubles)
     for (let i = 0; i < n && n > 1; i++) {
       if (!runStep(i)) continue;

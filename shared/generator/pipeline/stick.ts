@@ -40,7 +40,8 @@ export function stick(shaped: Shaped, attempt: Attempt): Stuck {
       });
   if (kept.size === 0 && card.measure === 'lhl') voiceEveryRule(free, cells, attempt.rng);
   repairHands(card, grid, cells, kept);
-  const linear = card.rules.some((r) => r.kind === 'linear');
+  // A linear groove: no two limbs strike together.
+  const linear = card.rules.some((r) => r.kind === 'linear' && r.maxOverlaps === 0);
   if (linear)
     for (let k = 0; k < 3 && alternateHands(card, grid, cells, roomOf(free)); k++)
       repairHands(card, grid, cells, kept);

@@ -1,5 +1,5 @@
 import type { Grid } from '../grid';
-import { assignHands, type WorkHit } from './assign';
+import type { WorkHit } from './assign';
 import { otherHand } from './kit';
 import { frameOf, type StickingCard } from './streams';
 
@@ -8,11 +8,13 @@ import { frameOf, type StickingCard } from './streams';
  * hand through the drums, R L R L, with a double only where the teacher asks for one). Without
  * `doubles`, a fill stroke that would give one hand two grid notes running in a run (the left
  * hand's backbeat on 2 and a snare on the "e", a snare and then a tom on the left hand) goes to
- * the other hand where that hand is free on both sides and a sticking keeps every rule with it
- * (the right hand leaves the hi-hat for a tom); else it becomes a kick where the kick may fill
+ * the other hand where that hand is free on both sides (the right hand leaves the hi-hat for a
+ * tom; the sticking, assigned again, keeps the move or removes a fill stroke the limbs cannot
+ * play); else it becomes a kick where the kick may fill
  * (`mayKick`: the instant's onset, and so the bar's Longuet-Higgins & Lee tension, stay); else it
  * is removed. Notes of kept bars and of the card's rules stay as they are. Returns true when it
- * changed a stroke (the hands are assigned again, `steer` holding a move).
+ * changed a stroke (the caller assigns the hands again, `steer` holding a move; a kick too fast
+ * for the foot is removed then).
  */
 export function alternateHands(
   card: StickingCard,
@@ -38,9 +40,6 @@ export function alternateHands(
   const beside = (hit: WorkHit, at: number, hand: WorkHit['hand']): boolean =>
     (step(at - 1) && (cells[(at - 1 + n) % n] ?? []).some((h) => h !== hit && h.hand === hand)) ||
     (step(at) && (cells[(at + 1) % n] ?? []).some((h) => h !== hit && h.hand === hand));
-  const snapshot = (): WorkHit['hand'][][] => cells.map((c) => c.map((h) => h.hand));
-  const restore = (hands: WorkHit['hand'][][]): void =>
-    cells.forEach((c, at) => c.forEach((h, k) => (h.hand = hands[at]?.[k] ?? null)));
   /** Where `voice` has no fill note left, another hand fill stroke that alternates becomes one. */
   const keepVoice = (voice: WorkHit['voice'], from: number): void => {
     if (!room.asked(voice)) return;
@@ -64,27 +63,23 @@ export function alternateHands(
       if (hit.source !== 'fill' || hit.pinned || hit.hand === null) continue;
       if (!beside(hit, at, hit.hand)) continue;
       const to = otherHand(hit.hand);
-      const hands = snapshot();
-      if (!cell.some((h) => h !== hit && h.hand === to) && !beside(hit, at, to)) {
-        hit.steer = to;
-        if (assignHands(card, grid, cells) === null && !beside(hit, at, hit.hand)) {
-          changed = true;
-          continue;
-        }
-        hit.steer = undefined;
-        restore(hands);
-      }
       changed = true;
+      if (!cell.some((h) => h !== hit && h.hand === to) && !beside(hit, at, to)) {
+        // The sticking, assigned again, keeps the move or removes a fill stroke near it.
+        hit.steer = to;
+        hit.hand = to;
+        continue;
+      }
       cell.splice(k, 1);
       keepVoice(hit.voice, at);
-      if (!cell.some((h) => h.voice === 'kick') && room.kick(at, cells)) {
-        const kick: WorkHit = { ...hit, voice: 'kick', dynamic: 'normal', hand: null };
-        delete kick.steer;
-        cell.splice(k, 0, kick);
-        if (assignHands(card, grid, cells) === null) continue;
-        cell.splice(k, 1);
-      }
-      assignHands(card, grid, cells);
+      if (!cell.some((h) => h.voice === 'kick') && room.kick(at, cells))
+        cell.splice(k, 0, {
+          voice: 'kick',
+          source: 'fill',
+          dynamic: 'normal',
+          rule: hit.rule,
+          hand: null,
+        });
     }
   }
   return changed;
