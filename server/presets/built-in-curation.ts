@@ -11,7 +11,7 @@ export interface Curation {
  * words are the trade's own (common practice).
  */
 export const BUILT_IN_CURATION: Readonly<Record<string, Curation>> = {
-  'kick-off-the-one': { level: 'intermediate', tags: ['displacement', 'release'] },
+  'kick-off-the-one': { level: 'beginner', tags: ['displacement', 'release'] },
   'three-off-land-on-four': { level: 'intermediate', tags: ['displacement', 'release'] },
   'early-backbeat': { level: 'beginner', tags: ['displacement'] },
   'late-backbeat': { level: 'beginner', tags: ['displacement'] },

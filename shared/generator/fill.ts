@@ -1,5 +1,5 @@
 import { isHandVoice, VOICE_IDS, type VoiceId } from './drill';
-import { ticksOf, type Grid } from './grid';
+import { shiftedInstant, ticksOf, type Grid } from './grid';
 import { limbsAllow, limbWindows, type LimbWindows } from './fill-limbs';
 import { Gap, gapOf, HAND_LIMITS, paceOf, thresholdsOf } from './sticking/limits';
 import type { Obligations } from './obligations';
@@ -56,6 +56,7 @@ export function createFillContext(
   for (const instants of ob.avoided.values())
     for (const instant of instants.keys()) keptFree.add(instant);
   const middle = shuffleMiddles(card, grid, ob);
+  const left = movedBackbeatHomes(card, grid);
   const options: VoiceId[][][] = [];
   for (let bar = 0; bar < grid.bars; bar++) {
     const perInstant: VoiceId[][] = [];
@@ -64,7 +65,10 @@ export function createFillContext(
       const cell = ob.cells[instant] ?? [];
       // A slot another rule has taken is not free; the ostinato alone leaves it free.
       const free =
-        !fixed.has(bar) && cell.every((hit) => hit.source === 'ostinato') && !ob.inFill[instant];
+        !fixed.has(bar) &&
+        cell.every((hit) => hit.source === 'ostinato') &&
+        !ob.inFill[instant] &&
+        !left.has(instant);
       if (!free) {
         perInstant.push(NO_VOICES as VoiceId[]);
         continue;
@@ -100,12 +104,30 @@ function hasVoice(cell: readonly { voice: VoiceId }[], voice: VoiceId): boolean 
 }
 
 /**
+ * The beats a moved backbeat left (shift not 0): no fill note there, whatever the voice (common
+ * practice: an early or late backbeat is heard by the hole where the backbeat used to be; a kick
+ * on 2 right after an early snare fills it).
+ */
+export function movedBackbeatHomes(card: RuleCard, grid: Grid): Set<number> {
+  const out = new Set<number>();
+  for (const rule of card.rules) {
+    if (rule.kind !== 'backbeat' || rule.shift === 0) continue;
+    for (let bar = 1; bar <= grid.bars; bar++) {
+      if (rule.bars && !rule.bars.includes(bar)) continue;
+      for (const beat of rule.beats)
+        out.add(shiftedInstant(grid, (bar - 1) * grid.beatsPerBar + (beat - 1), 0));
+    }
+  }
+  return out;
+}
+
+/**
  * The silent middle notes of a shuffle: where the hands' time plays the first and the last note
  * of every triplet (the slots of a triplet beat, or the eighths of a compound meter's dotted
  * quarter) and never the middle one, the anchor (the kick) favours the beat and the last
  * triplet and leaves the middle one out (common practice). Empty for any other time.
  */
-function shuffleMiddles(card: RuleCard, grid: Grid, ob: Obligations): Set<number> {
+export function shuffleMiddles(card: RuleCard, grid: Grid, ob: Obligations): Set<number> {
   const grouping = card.meter.grouping;
   const compound =
     !!grouping?.length && grouping.every((g) => g === 3) && grid.beats.every((b) => b === 1);

@@ -210,6 +210,7 @@ export function fillableSlots(plan: Plan): Set<number> {
   for (let i = 0; i < grid.totalSlots; i++) {
     const wanted = plan.wants.filter((w) => w.index === i);
     if (wanted.some((w) => w.part !== 'ostinato') || plan.fillWindow.has(i)) continue;
+    if (plan.movedHomes.has(i)) continue;
     for (const v of fillable) {
       if (wanted.some((w) => w.voice === v)) continue;
       if (embellishing(v)) {

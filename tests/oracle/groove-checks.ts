@@ -19,6 +19,9 @@ export const GROOVE_CHECKS = [
   'preset/foot-at-most-two-in-a-beat',
   'preset/shuffle-kick-off-the-middle-triplet',
   'preset/no-accent-after-accent-on-one-hand',
+  'preset/backbeat-on-the-free-hand',
+  'preset/linear-hands-alternate',
+  'preset/moved-backbeat-leaves-its-beat',
 ] as const;
 
 export type GrooveCheck = (typeof GROOVE_CHECKS)[number];
@@ -148,10 +151,11 @@ export function checkGrooves(
             message: `fill ${h.voice} on the shuffle's silent middle triplet at ${grid.describe(m!)}`,
           });
 
-  // 5. One hand does not accent two strokes in a row less than half a second apart, whatever lies
-  // between them on the other hand (the left hand's snare on the "&" of 1 and again on 2 at
-  // 76 BPM): the hand the time leaves free takes one of them, or the time hand where it is free
-  // (common practice: an accent is a full stroke from a raised stick). Two notes of one line (an
+  // 5. One hand does not accent two strokes in a row less than a quarter of a second apart (more
+  // than 4 full strokes a second), whatever lies between them on the other hand (two accents a
+  // sixteenth apart at 100 BPM): the other hand takes one of them where it is free (common
+  // practice: an accent is a full stroke from a raised stick and back, slower than a tap; a left
+  // hand plays accented eighths at 90 BPM, 0.33 s apart, with ease). Two notes of one line (an
   // accented ride) are the line's.
   for (const side of ['R', 'L']) {
     const strokes = hits.filter((h) => h.hand === side).sort((a, b) => a.index - b.index);
@@ -164,12 +168,63 @@ export function checkGrooves(
       let seconds = 0;
       for (let i = a.index; i !== b.index || seconds === 0; i = (i + 1) % n)
         seconds += slotSeconds(i);
-      if (seconds < 0.5 - 1e-9)
+      if (seconds < 0.25 - 1e-9)
         out.push({
           check: 'preset/no-accent-after-accent-on-one-hand',
           message: `hand ${side} accents the ${a.voice} at ${grid.describe(a.index)} and its next stroke, the ${b.voice}, ${seconds.toFixed(3)} s later`,
         });
     }
   }
+
+  // 6. The backbeat is the hand's the time leaves free (common practice: the ostinato hand stays on
+  // its cymbal while the other hand is free; a right hand going hi-hat, snare, hi-hat within one
+  // eighth while the left waits is not how the late backbeat is written). A backbeat on the time
+  // hand is a fault where the other hand strikes nothing at its instant, nor at the grid notes
+  // either side of it.
+  const timeHands = new Set(
+    hits.filter((h) => h.source === 'ostinato' && h.hand !== null).map((h) => h.hand),
+  );
+  if (timeHands.size === 1 && card.ostinato !== null) {
+    const timeHand = [...timeHands][0]!;
+    for (const h of hits) {
+      if (h.source !== 'backbeat' || h.hand !== timeHand) continue;
+      const free = [h.index - 1, h.index, h.index + 1].every(
+        (i) => !cell(i).some((x) => x.hand !== null && x.hand !== timeHand),
+      );
+      if (free)
+        out.push({
+          check: 'preset/backbeat-on-the-free-hand',
+          message: `the ${h.voice} backbeat at ${grid.describe(h.index)} is on the time hand ${timeHand} while the other hand is free`,
+        });
+    }
+  }
+
+  // 7. In a linear groove (no two limbs strike together) the hands alternate: without doubles on the card, no hand plays two grid
+  // notes running in a run where the generator's own note is one of them (common practice: linear
+  // patterns are written hand to hand, R L R L through the drums; L L from the snare to a tom is a
+  // double the card did not ask for).
+  const linear = rulesOf(card, 'linear').some((r) => r.maxOverlaps === 0);
+  if (linear && !card.doubles)
+    for (let i = 0; i < n && n > 1; i++) {
+      if (!runStep(i)) continue;
+      for (const a of cell(i))
+        for (const b of cell(i + 1))
+          if (a.hand !== null && a.hand === b.hand && (a.source === 'fill' || b.source === 'fill'))
+            out.push({
+              check: 'preset/linear-hands-alternate',
+              message: `hand ${a.hand} plays the ${a.voice} at ${grid.describe(i)} and the ${b.voice} at the next note`,
+            });
+    }
+
+  // 8. A backbeat moved early or late leaves its beat empty of the generator's notes (common
+  // practice: the point of an early backbeat is the hole where the backbeat used to be; a kick
+  // on 2 right after an early snare fills it).
+  for (const i of plan.movedHomes)
+    for (const h of cell(i))
+      if (h.source === 'fill')
+        out.push({
+          check: 'preset/moved-backbeat-leaves-its-beat',
+          message: `fill ${h.voice} at ${grid.describe(i)}, where the moved backbeat used to be`,
+        });
   return out;
 }

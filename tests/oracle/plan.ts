@@ -76,6 +76,11 @@ export interface Plan {
    * (no phrase rule): the cymbal is wanted there unless the crash sounds, and absent if it does.
    */
   readonly yields: ReadonlySet<string>;
+  /**
+   * Beat starts a moved backbeat (shift not 0) left: no fill note sounds there (docs/engine.md,
+   * "Backbeats"; common practice: an early backbeat is heard by the hole it leaves).
+   */
+  readonly movedHomes: ReadonlySet<number>;
   /** Voices a euclid or polyrhythm rule plays. */
   readonly figureVoices: ReadonlySet<Voice>;
   /** Positions of polyrhythm / euclid rules that fall between slots (parse should refuse). */
@@ -93,6 +98,7 @@ export function planOf(card: OracleCard): Plan {
   const freeDownbeats = new Set<number>();
   const resolutionBars = new Map<Voice, Set<number>>();
   const offGrid: string[] = [];
+  const movedHomes = new Set<number>();
   const bars = Array.from({ length: card.bars }, (_, i) => i + 1);
   const has = (v: Voice): boolean => card.voices.includes(v);
 
@@ -163,6 +169,7 @@ export function planOf(card: OracleCard): Plan {
         for (const bar of rule.bars ?? bars)
           for (const beat of rule.beats) {
             const index = mod(grid.index(bar, beat, 0) + rule.shift, grid.totalSlots);
+            if (rule.shift !== 0) movedHomes.add(grid.index(bar, beat, 0));
             wants.push({ part: 'backbeat', check: 'backbeat', voice: rule.voice, index, why });
           }
         break;
@@ -267,6 +274,7 @@ export function planOf(card: OracleCard): Plan {
     crashLands,
     rests,
     yields,
+    movedHomes,
     figureVoices,
     offGrid,
     targets,

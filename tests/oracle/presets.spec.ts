@@ -51,6 +51,25 @@ describe('rule oracle: presets at 20 seeds', () => {
     expect(failuresOf(outcomes, check), '').toBeNull();
   });
 
+  // A note the preset's summary calls a ghost is played as one: where the summary says "ghost
+  // notes on the snare", every note the generator adds on the snare is a ghost (common practice:
+  // a ghost note is a low tap; a full-strength note where the page promised ghosts is a different
+  // groove).
+  it('notes the summary calls ghosts are ghosts', () => {
+    const loud: string[] = [];
+    for (const preset of BUILT_IN_PRESETS) {
+      const named = /ghost notes? on the (\w+)/i.exec(preset.summary)?.[1]?.toLowerCase();
+      if (!named) continue;
+      const parsed = parseRuleCard(preset.card);
+      for (const seed of SEEDS)
+        for (const bar of generateDrill(parsed, seed).bars)
+          for (const h of bar.hits)
+            if (h.source === 'fill' && h.voice.toLowerCase() === named && h.dynamic !== 'ghost')
+              loud.push(`${preset.id} ${seed} bar ${bar.bar} ${h.beat}.${h.slot} ${h.dynamic}`);
+    }
+    expect(loud, 'notes the summary calls ghosts, played louder').toEqual([]);
+  });
+
   // A phrase's fill varies with the seed where its window holds more strokes than two for each of
   // its voices (common practice: a teacher hands out more than one fill for a groove; the order
   // high to low and the pairs stay, how many pairs each drum takes may change).

@@ -2,8 +2,10 @@ import { RuleConflictError } from '../errors';
 import type { FillContext } from '../fill';
 import { positionOf, type Grid } from '../grid';
 import { frameOf } from '../sticking/streams';
+import { fullStrokesCrowded } from '../sticking/limits';
 import { homeBackbeats, quietBeforeAccents } from '../sticking/into-accents';
 import { spreadAccents } from '../sticking/spread-accents';
+import { alternateHands } from '../sticking/alternate';
 import { assignHandsRepairing, type WorkHit } from '../hands';
 import type { KeptBars } from '../keep';
 import { fitShares, keptShares, sharesConflict } from '../kept-shares';
@@ -19,7 +21,8 @@ import type { Attempt, Shaped, Stuck } from './stages';
  * teacher would write it (fill strokes the limbs cannot play are removed); then the dynamics of
  * the embellishments (ghost notes, a fillHoles rule's shares), with no full fill stroke right
  * before an accent of its hand (traded for a ghost, or removed and the hands assigned again), and
- * no two accents in a row on one hand within half a second where the other hand can take one.
+ * no two accents in a row on one hand closer than full strokes allow where the other hand can take
+ * one.
  */
 export function stick(shaped: Shaped, attempt: Attempt): Stuck {
   const { fills, ...proven } = shaped;
@@ -37,6 +40,11 @@ export function stick(shaped: Shaped, attempt: Attempt): Stuck {
       });
   if (kept.size === 0 && card.measure === 'lhl') voiceEveryRule(free, cells, attempt.rng);
   repairHands(card, grid, cells, kept);
+  // A linear groove: no two limbs strike together.
+  const linear = card.rules.some((r) => r.kind === 'linear' && r.maxOverlaps === 0);
+  if (linear)
+    for (let k = 0; k < 3 && alternateHands(card, grid, cells, roomOf(free)); k++)
+      repairHands(card, grid, cells, kept);
   // Around kept notes, a fillHoles rule's shares may need fewer (or more) free notes.
   for (let k = 0; k < 2 && fitShares(free, cells, kept, attempt.rng); k++)
     repairHands(card, grid, cells, kept);
@@ -46,10 +54,66 @@ export function stick(shaped: Shaped, attempt: Attempt): Stuck {
     spreadAccents(card, grid, cells);
     if (k === 3) break;
     const quieted = quietBeforeAccents(grid, card.tempo, cells, owners);
-    if (!(homeBackbeats(card, cells) || quieted)) break;
+    const alternated = linear && alternateHands(card, grid, cells, roomOf(free));
+    if (!(homeBackbeats(card, cells) || quieted || alternated)) break;
     repairHands(card, grid, cells, kept);
   }
   return { ...proven, cells };
+}
+
+/**
+ * Where a fill may put a voice (`voice`), and the kick instead of a hand stroke (`kick`): the fill
+ * may add it there, and the kick keeps to at most two notes within a beat (a dotted quarter in a compound meter; see
+ * `fill-limbs.ts`).
+ */
+function roomOf(ctx: FillContext): {
+  kick: (instant: number, cells: readonly WorkHit[][]) => boolean;
+  voice: (instant: number, voice: VoiceId) => boolean;
+  asked: (voice: VoiceId) => boolean;
+} {
+  const { card, grid } = ctx;
+  const owners = fillHolesOwners(card);
+  const asked = (v: VoiceId): boolean => {
+    const rule = card.rules[owners.get(v) ?? -1];
+    return rule?.kind === 'fillHoles' && (rule.ghost > 0 || rule.accent > 0);
+  };
+  const voice = (instant: number, v: VoiceId): boolean =>
+    (
+      ctx.options[Math.floor(instant / grid.slotsPerBar)]?.[instant % grid.slotsPerBar] ?? []
+    ).includes(v);
+  const { ticks, pace, run } = frameOf(grid, card.tempo);
+  const grouping = card.meter.grouping;
+  const pulse =
+    grouping?.length && grouping.every((g) => g === 3) ? 3 * pace.ticksPerBeat : pace.ticksPerBeat;
+  const kick = (instant: number, cells: readonly WorkHit[][]): boolean => {
+    if (!voice(instant, 'kick')) return false;
+    const at: number[] = [];
+    cells.forEach((cell, i) => {
+      if (i === instant || cell.some((h) => h.voice === 'kick')) at.push(ticks[i] ?? 0);
+    });
+    // Nor the third of three grid notes running in a run (`fill-limbs.ts`).
+    const n = cells.length;
+    const kickAt = (i: number): boolean =>
+      i === instant || (cells[(i + n) % n] ?? []).some((h) => h.voice === 'kick');
+    const step = (i: number): boolean => {
+      const a = (i + n) % n;
+      const gap = (ticks[(a + 1) % n] ?? 0) - (ticks[a] ?? 0);
+      return (gap > 0 ? gap : gap + pace.loop) <= run;
+    };
+    for (let s = instant - 2; s <= instant && n >= 3; s++)
+      if (kickAt(s) && kickAt(s + 1) && kickAt(s + 2) && step(s) && step(s + 1)) return false;
+    const k = at.length;
+    if (k < 3) return true;
+    const mine = at.indexOf(ticks[instant] ?? 0);
+    for (let s = mine - 2; s <= mine; s++) {
+      const first = at[(s + k) % k] ?? 0;
+      const last = at[(s + 2 + k) % k] ?? 0;
+      const width = last - first > 0 ? last - first : last - first + pace.loop;
+      if (width < pulse) return false;
+    }
+    return true;
+  };
+  return { kick, voice, asked };
 }
 
 /**
@@ -161,8 +225,8 @@ function markEmbellishments(ctx: FillContext, cells: WorkHit[][], rng: Rng, kept
 }
 
 /**
- * No hand plays accents on two grid notes in a row of a run, nor on two strokes in a row less
- * than half a second apart (common practice: an accent is a full stroke from a raised stick, and
+ * No hand plays accents on two grid notes in a row of a run, nor on two strokes in a row closer
+ * than full strokes allow (`FULL_STROKES_PER_SECOND`; common practice: an accent is a full stroke from a raised stick, and
  * the note right after it is a tap as the stick comes down; the left hand's snare accent right
  * after its backbeat blurs the backbeat). Where a free
  * note's accent lies beside another accent of its hand, it trades its dynamic with a free note
@@ -185,10 +249,9 @@ function separateAccents(
     const gap = (ticks[b] ?? 0) - (ticks[a] ?? 0);
     return gap > 0 ? gap : gap + pace.loop;
   };
-  // Half a second in ticks (`t` ticks last 60 t / beatTicks seconds).
-  const half = pace.beatTicks / 120;
+  const near = (gap: number): boolean => fullStrokesCrowded(pace, gap);
   /** True when free note `k`, accented, would sit beside another accent of its hand in a run, or
-   * its hand's stroke before or after it, less than half a second away, is an accent. */
+   * its hand's stroke before or after it, closer than full strokes allow, is an accent. */
   const crowded = (k: number): boolean => {
     const hit = free[k] as WorkHit;
     const at = freeAt[k];
@@ -201,8 +264,8 @@ function separateAccents(
       for (let d = 1; d < n; d++) {
         const i = (at + dir * d + n * d) % n;
         const gap = dir < 0 ? step(i, at) : step(at, i);
-        if (d > 1 && gap >= half) break;
-        if (d === 1 && gap > run && gap >= half) break;
+        if (d > 1 && !near(gap)) break;
+        if (d === 1 && gap > run && !near(gap)) break;
         if (accentOf(i)) return true;
         if (strikes(i)) break;
       }

@@ -154,3 +154,64 @@ describe('checkDrill', () => {
     expect(checkDrill(ghostly, loud).map((v) => v.code)).toContain('fillHoles');
   });
 });
+
+describe('checkDrill: the fill leaves its quiet places empty', () => {
+  it('catches a fill kick on the beat an early backbeat left', () => {
+    const early = parseRuleCard({
+      bars: 1,
+      tempo: 80,
+      voices: ['kick', 'snare', 'hihat'],
+      ostinato: { voice: 'hihat', slots: [0, 2] },
+      density: 0.25,
+      rules: [{ kind: 'backbeat', voice: 'snare', beats: [2, 4], shift: -1 }],
+    });
+    const made = generateDrill(early, 'quiet');
+    expect(checkDrill(early, made)).toEqual([]);
+    const bar = made.bars[0]!;
+    expect(bar.hits.some((h) => h.beat === 2 && h.slot === 0 && h.voice === 'kick')).toBe(false);
+    const kick: DrillHit = {
+      beat: 2,
+      slot: 0,
+      voice: 'kick',
+      dynamic: 'normal',
+      hand: null,
+      source: 'fill',
+    };
+    const hits = [...bar.hits, kick].sort((a, b) => a.beat - b.beat || a.slot - b.slot);
+    const broken = { ...made, bars: [{ ...bar, hits }] };
+    const found = checkDrill(early, broken).filter((v) => v.message.includes('moved backbeat'));
+    expect(found.length).toBe(1);
+  });
+});
+
+describe('checkDrill: busy feet', () => {
+  it('catches a fill that gives the kick three notes within a beat', () => {
+    const plain = parseRuleCard({
+      bars: 1,
+      tempo: 80,
+      voices: ['kick', 'snare', 'hihat'],
+      ostinato: { voice: 'hihat', slots: [0, 2] },
+      density: 0,
+      rules: [{ kind: 'backbeat', voice: 'snare', beats: [2, 4] }],
+    });
+    const made = generateDrill(plain, 'feet');
+    expect(checkDrill(plain, made)).toEqual([]);
+    const bar = made.bars[0]!;
+    // Beat 1 holds the anchor kick; the fill adds the "e" and the "&": 1-e-& on one foot.
+    const fill = (slot: number): DrillHit => ({
+      beat: 1,
+      slot,
+      voice: 'kick',
+      dynamic: 'normal',
+      hand: null,
+      source: 'fill',
+    });
+    const hits = [...bar.hits, fill(1), fill(2)].sort(
+      (a, b) => a.beat - b.beat || a.slot - b.slot || a.voice.localeCompare(b.voice),
+    );
+    const found = checkDrill(plain, { ...made, bars: [{ ...bar, hits }] });
+    expect(found.filter((v) => v.code === 'feet' && v.message.includes('three notes'))).not.toEqual(
+      [],
+    );
+  });
+});

@@ -8,6 +8,7 @@ import {
 } from '../drill';
 import { beatsOf, createGrid, instantOf, type Grid } from '../grid';
 import { checkHands } from './check-hands';
+import { checkBusyFeet } from './check-feet';
 import { where, type Located } from './located';
 import { measureTension } from '../tension';
 import { createTensionGauge } from '../tension-gauge';
@@ -23,6 +24,7 @@ import { embellishmentVoices, fillHolesOwners, fillVoices, shareCounts } from '.
 import { countOverlaps, overlapBudget } from './linear';
 import { ostinatoPlaysAt } from './ostinato';
 import { rankOrderBreaks, tensionTargets } from './tension';
+import { movedBackbeatHomes, shuffleMiddles } from '../fill';
 
 /** One broken rule or invariant in a drill, with where it happened when that applies. */
 export interface Violation {
@@ -78,6 +80,7 @@ export function checkDrillWith(
   checkFill(card, grid, ob, cells, out);
   checkLinear(card, grid, cells, out);
   checkHands(card, grid, cells, out);
+  checkBusyFeet(card, grid, cells, out);
   checkTension(card, drill, measure, out);
   const difficulty = known?.difficulty ?? drillDifficulty(drill);
   if (
@@ -244,9 +247,25 @@ function checkFill(
   const keptFree = new Set<number>();
   for (const instants of ob.avoided.values()) for (const i of instants.keys()) keptFree.add(i);
   const perRule = new Map<number, DrillHit[]>();
+  // The fill's quiet places (engine 2.5 and 2.6): a moved backbeat's own beat, and a shuffle's
+  // silent middle triplet for voices no fillHoles rule lists.
+  const homes = movedBackbeatHomes(card, grid);
+  const middles = shuffleMiddles(card, grid, ob);
   cells.forEach((present, instant) => {
     for (const l of present) {
       if (l.hit.source !== 'fill') continue;
+      if (homes.has(instant))
+        out.push({
+          code: 'fill',
+          message: `The fill plays the ${voiceWord(l.hit.voice)} on the beat a moved backbeat left, which stays empty.`,
+          ...where(l),
+        });
+      if (middles.has(instant) && !embellishing.has(l.hit.voice))
+        out.push({
+          code: 'fill',
+          message: `The fill plays the ${voiceWord(l.hit.voice)} on the shuffle's silent middle triplet.`,
+          ...where(l),
+        });
       const owner = owners.get(l.hit.voice);
       if (!allowed.has(l.hit.voice))
         out.push({

@@ -46,6 +46,22 @@ export const FOOT_LIMITS: StrokeLimits = { singlesPerSecond: 6, doublesPerSecond
 export const RUN_NOTES_PER_SECOND = 4;
 
 /**
+ * Accents are full strokes: the stick starts high and is caught high again, slower than the taps
+ * and ghost notes of the single-stroke limit above. One hand plays at most this many full
+ * strokes a second, i.e. two accents of one hand at least a quarter of a second apart (accented
+ * eighths up to 120 BPM, accented sixteenths up to 60; common practice). A left hand accenting the
+ * snare on the "&" of 1 and on 2 at 76 BPM (0.39 s) is within it; two accents a sixteenth apart
+ * at 100 BPM (0.15 s) are not.
+ */
+export const FULL_STROKES_PER_SECOND = 4;
+
+/** True when two accents of one hand `ticks` apart are closer than full strokes allow. */
+export function fullStrokesCrowded(pace: Pace, ticks: number): boolean {
+  // t ticks last 60 t / beatTicks seconds: closer than 1 / FULL_STROKES_PER_SECOND.
+  return 60 * FULL_STROKES_PER_SECOND * ticks < pace.beatTicks;
+}
+
+/**
  * What an interval between two strokes of one limb is: slow enough for single strokes, too fast
  * for singles but not for a double, or too fast even for a double.
  */

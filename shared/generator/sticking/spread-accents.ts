@@ -1,14 +1,16 @@
 import type { Grid } from '../grid';
 import { otherHand } from './kit';
 import { assignHands, type WorkHit } from './assign';
+import { fullStrokesCrowded, type Pace } from './limits';
 import { frameOf, type StickingCard } from './streams';
 
 const LINE = new Set(['ostinato', 'polyrhythm', 'euclid']);
 
 /**
- * One hand does not accent two strokes in a row less than half a second apart (common practice:
- * an accent is a full stroke from a raised stick; the left hand's snare on the "&" of 1 and again
- * on 2 at 76 BPM is two of them back to back, whatever the right hand plays between). The second
+ * One hand does not accent two strokes in a row closer than full strokes allow
+ * (`FULL_STROKES_PER_SECOND`, common practice: an accent is a full stroke from a raised stick;
+ * two accents a sixteenth apart at 100 BPM are two of them back to back, whatever the other hand
+ * plays between; the left hand's snare on the "&" of 1 and again on 2 at 76 BPM is not). The second
  * (else the first) goes to the other hand where that hand is free and a sticking keeps every
  * rule with it; notes of a line (time, figures) and of kept bars keep their hand. Returns true
  * when it moved one (the hands are assigned again, `steer` holding the move).
@@ -19,7 +21,7 @@ export function spreadAccents(card: StickingCard, grid: Grid, cells: WorkHit[][]
   let moved = false;
   const tried = new Set<WorkHit>();
   for (let round = 0; round < 8; round++) {
-    const pair = crowdedPair(cells, ticks, pace.loop, pace.beatTicks, n, tried);
+    const pair = crowdedPair(cells, ticks, pace, n, tried);
     if (!pair) break;
     let done = false;
     for (const { hit, at } of pair) {
@@ -41,12 +43,11 @@ export function spreadAccents(card: StickingCard, grid: Grid, cells: WorkHit[][]
   return moved;
 }
 
-/** The first two accents in a row on one hand less than half a second apart, or null. */
+/** The first two accents in a row on one hand closer than full strokes allow, or null. */
 function crowdedPair(
   cells: readonly WorkHit[][],
   ticks: ArrayLike<number>,
-  loop: number,
-  beatTicks: number,
+  pace: Pace,
   n: number,
   tried: ReadonlySet<WorkHit>,
 ): { hit: WorkHit; at: number }[] | null {
@@ -63,9 +64,8 @@ function crowdedPair(
       if (LINE.has(a.hit.source) && LINE.has(b.hit.source)) continue;
       if (tried.has(a.hit) && tried.has(b.hit)) continue;
       let gap = (ticks[b.at] ?? 0) - (ticks[a.at] ?? 0);
-      if (gap <= 0) gap += loop;
-      // `gap` ticks last 60 × gap / beatTicks seconds: under half a second.
-      if (gap * 120 < beatTicks) return [b, a];
+      if (gap <= 0) gap += pace.loop;
+      if (fullStrokesCrowded(pace, gap)) return [b, a];
     }
   }
   return null;
