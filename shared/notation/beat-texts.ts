@@ -125,17 +125,11 @@ function drawSticking(
     const x = spread[i]!;
     hands.forEach((hand, i) => {
       const row = hands.length - 1 - i;
-      letters.add(
-        hand,
-        x,
-        y - row * STICKING_LINE,
-        'tensile-sticking',
-        {},
-        { beat: String(beat), slot: String(slot) },
-      );
+      const label = letters.add(hand, x, y - row * STICKING_LINE, 'tensile-sticking');
+      label.setAttribute('data-beat', String(beat));
+      label.setAttribute('data-slot', String(slot));
     });
   }
-  letters.close();
 }
 
 /**
@@ -246,18 +240,12 @@ function drawCounts(
       const x = slots[slot];
       if (x === undefined) continue;
       const className = sounding ? 'tensile-count' : 'tensile-count tensile-count-silent';
-      syllables.add(
-        text,
-        x,
-        y,
-        className,
-        {
-          weight: strong ? 'bold' : 'normal',
-          ...(sounding ? {} : { opacity: SILENT_COUNT_OPACITY }),
-        },
-        { beat: String(beat.beat), slot: String(slot) },
-      );
+      const label = syllables.add(text, x, y, className, {
+        weight: strong ? 'bold' : 'normal',
+        ...(sounding ? {} : { opacity: SILENT_COUNT_OPACITY }),
+      });
+      label.setAttribute('data-beat', String(beat.beat));
+      label.setAttribute('data-slot', String(slot));
     }
   });
-  syllables.close();
 }

@@ -45,17 +45,13 @@ function round(n: number): string {
  * A row of short texts (one bar's counting syllables or sticking letters) as one `<text>` with a
  * `<tspan>` per item: the font, size, anchor and colour are set once on the row, not on each of
  * the hundreds of items a dense drill prints (SVG elements and their attributes are most of a
- * score's drawing time). Where the row can take markup (a browser), the items are written as one
- * string on `close()`: the parser builds them several times faster than one DOM call per
- * attribute, and the drawing is the same node for node.
+ * score's drawing time).
  */
 export class SvgTextRow {
   private readonly row: SVGTextElement;
   private readonly weight: 'normal' | 'bold';
   /** The highest baseline so far, which the row's own `y` states for readers of the SVG. */
   private top = Infinity;
-  /** The items' markup, when the row is written in one go (null: one DOM call at a time). */
-  private readonly markup: string[] | null;
 
   constructor(ctx: SVGContext, className: string, style: TextStyle) {
     this.row = ctx.create('text') as SVGTextElement;
@@ -66,65 +62,33 @@ export class SvgTextRow {
     this.row.setAttribute('font-weight', this.weight);
     this.row.setAttribute('text-anchor', style.anchor ?? 'middle');
     this.row.setAttribute('fill', 'currentColor');
-    this.markup = 'insertAdjacentHTML' in this.row ? [] : null;
     ctx.add(this.row);
   }
 
-  /**
-   * One item at (x, y); weight and opacity only where they differ from the row's; `data` names
-   * the item's `data-*` attributes, in order.
-   */
+  /** One item at (x, y); weight and opacity only where they differ from the row's. */
   add(
     content: string,
     x: number,
     y: number,
     className: string,
     extra: { weight?: 'normal' | 'bold'; opacity?: number } = {},
-    data: Readonly<Record<string, string>> = {},
-  ): void {
+  ): SVGTSpanElement {
     if (y < this.top) {
       this.top = y;
       this.row.setAttribute('x', round(x));
       this.row.setAttribute('y', round(y));
     }
-    const attributes: [string, string][] = [
-      ['x', round(x)],
-      ['y', round(y)],
-      ['class', className],
-    ];
-    if (extra.weight !== undefined && extra.weight !== this.weight)
-      attributes.push(['font-weight', extra.weight]);
-    if (extra.opacity !== undefined) attributes.push(['opacity', String(extra.opacity)]);
-    for (const name in data) attributes.push([`data-${name}`, data[name]!]);
-    if (this.markup) {
-      let tag = '<tspan';
-      for (const [name, value] of attributes) tag += ` ${name}="${escape(value)}"`;
-      this.markup.push(`${tag}>${escape(content)}</tspan>`);
-      return;
-    }
     const span = this.row.ownerDocument.createElementNS(SVG_NS, 'tspan');
-    for (const [name, value] of attributes) span.setAttribute(name, value);
+    span.setAttribute('x', round(x));
+    span.setAttribute('y', round(y));
+    span.setAttribute('class', className);
+    if (extra.weight !== undefined && extra.weight !== this.weight)
+      span.setAttribute('font-weight', extra.weight);
+    if (extra.opacity !== undefined) span.setAttribute('opacity', String(extra.opacity));
     span.textContent = content;
     this.row.append(span);
-  }
-
-  /** Writes the items added so far (a no-op where each was written as it came). */
-  close(): void {
-    if (!this.markup?.length) return;
-    this.row.insertAdjacentHTML('beforeend', this.markup.join(''));
-    this.markup.length = 0;
+    return span;
   }
 }
 
 const SVG_NS = 'http://www.w3.org/2000/svg';
-
-function escape(text: string): string {
-  return text.replace(/[&<>"]/g, (c) => ESCAPES[c]!);
-}
-
-const ESCAPES: Readonly<Record<string, string>> = {
-  '&': '&amp;',
-  '<': '&lt;',
-  '>': '&gt;',
-  '"': '&quot;',
-};
