@@ -91,31 +91,47 @@ const escapeAttribute = (value: string): string =>
   value.replace(/&/g, '&amp;').replace(/"/g, '&quot;').replace(/</g, '&lt;');
 
 /**
- * `html` with preload links for `preloads`, leaving out what it already names. They go after the
- * main script so the browser asks for `main` and its own chunks first (with six connections to
- * one host, the order of the queue matters); without that script, before `</body>`.
+ * `html` with preload links for `preloads`, leaving out what it already names. The chunks go
+ * after the main script so the browser asks for `main` and its own chunks first; the fonts go in
+ * the head, ahead of every script: with six HTTP/1.1 connections to one host the order of the
+ * queue matters, and named after 40 scripts the faces arrived last. Without a head, the fonts
+ * join the chunks; without a main script, both go before `</body>`.
  */
 export function injectPreloads(html: string, preloads: RoutePreloads): string {
   const named = new Set([...html.matchAll(/\s(?:href|src)="([^"]+)"/g)].map((m) => m[1]));
-  const links = [
-    ...preloads.scripts
-      .filter((file) => !named.has(file))
-      .map((file) => `<link rel="modulepreload" href="${escapeAttribute(file)}">`),
-    ...preloads.fonts
-      .filter((file) => !named.has(file))
-      .map(
-        (file) =>
-          `<link rel="preload" as="font" type="font/woff2" crossorigin href="${escapeAttribute(file)}">`,
-      ),
-  ].join('');
-  if (links === '') return html;
+  const scripts = preloads.scripts
+    .filter((file) => !named.has(file))
+    .map((file) => `<link rel="modulepreload" href="${escapeAttribute(file)}">`)
+    .join('');
+  const fonts = preloads.fonts
+    .filter((file) => !named.has(file))
+    .map(
+      (file) =>
+        `<link rel="preload" as="font" type="font/woff2" crossorigin href="${escapeAttribute(file)}">`,
+    )
+    .join('');
+  const headEnd = html.indexOf('</head>');
+  const withFonts = headEnd < 0 ? html : insertAt(html, headEnd, fonts);
+  return insertAt(withFonts, afterMainScript(withFonts), headEnd < 0 ? scripts + fonts : scripts);
+}
+
+const insertAt = (html: string, at: number, text: string): string =>
+  html.slice(0, at) + text + html.slice(at);
+
+/** Just after the module script (`main`), else before `</body>`, else the end. */
+function afterMainScript(html: string): number {
   const mainScript = /<script\b[^>]*\stype="module"[^>]*><\/script>/.exec(html);
-  if (mainScript) {
-    const at = mainScript.index + mainScript[0].length;
-    return html.slice(0, at) + links + html.slice(at);
-  }
+  if (mainScript) return mainScript.index + mainScript[0].length;
   const bodyEnd = html.lastIndexOf('</body>');
-  return bodyEnd === -1 ? html + links : html.slice(0, bodyEnd) + links + html.slice(bodyEnd);
+  return bodyEnd < 0 ? html.length : bodyEnd;
+}
+
+/** Where the head's own content starts: after `<meta charset>` (which must come first), else after `<head>`. */
+function headStart(html: string): number {
+  const charset = /<meta\s+charset=[^>]*>/i.exec(html);
+  if (charset) return charset.index + charset[0].length;
+  const head = /<head\b[^>]*>/i.exec(html);
+  return head ? head.index + head[0].length : -1;
 }
 
 /** The drill page's longest seed (`MAX_SEED_LENGTH` in src/app/drills/seed-problem.ts). */
@@ -147,13 +163,13 @@ export function drillPageRequests(pathname: string, search: string): string[] | 
 
 /**
  * `html` with preloads for `urls` as `fetch` would ask for them (CORS mode, same-origin
- * credentials: the `crossorigin` attribute), after the main script.
+ * credentials: the `crossorigin` attribute), first in the head: the server needs the longest to
+ * answer them, so they leave before every font and script. Without a head, after the main script.
  */
 export function injectFetchPreloads(html: string, urls: readonly string[]): string {
   const links = urls
     .map((url) => `<link rel="preload" as="fetch" crossorigin href="${escapeAttribute(url)}">`)
     .join('');
-  const mainScript = /<script\b[^>]*\stype="module"[^>]*><\/script>/.exec(html);
-  const at = mainScript ? mainScript.index + mainScript[0].length : html.lastIndexOf('</body>');
-  return at < 0 ? html + links : html.slice(0, at) + links + html.slice(at);
+  const start = headStart(html);
+  return insertAt(html, start < 0 ? afterMainScript(html) : start, links);
 }

@@ -70,7 +70,8 @@ describe('serving the built app', () => {
 
 describe('a drill page with the build metafile beside the app', () => {
   const PAGE =
-    '<!doctype html><html><body><tensile-root></tensile-root>' +
+    '<!doctype html><html><head><meta charset="utf-8"><link rel="stylesheet" href="styles-CCCCCCCC.css"></head>' +
+    '<body><tensile-root></tensile-root>' +
     '<script src="main-AAAAAAAA.js" type="module"></script></body></html>';
   const STATS = {
     outputs: {
@@ -100,22 +101,25 @@ describe('a drill page with the build metafile beside the app', () => {
     await rm(root, { recursive: true, force: true });
   });
 
-  it('names the page chunks and the score font after the main script', async () => {
+  it('names the API requests and the score font in the head, the page chunks after the main script', async () => {
     const res = await request(app.app).get('/drills/early-backbeat?seed=harbor-spark-21');
     expect(res.status).toBe(200);
     expect(res.type).toBe('text/html');
     expect(res.headers['cache-control']).toBe('no-cache');
     expect(res.text).toBe(
-      PAGE.replace(
-        '</script>',
-        // The API requests first: small answers the session guard and the page wait for.
-        '</script><link rel="preload" as="fetch" crossorigin href="/api/auth/me">' +
-          '<link rel="preload" as="fetch" crossorigin href="/api/presets/early-backbeat/drill?seed=harbor-spark-21">' +
-          '<link rel="preload" as="fetch" crossorigin href="/api/presets/early-backbeat">' +
-          '<link rel="modulepreload" href="chunk-PAGE0001.js">' +
-          '<link rel="modulepreload" href="chunk-MATL0001.js">' +
-          '<link rel="preload" as="font" type="font/woff2" crossorigin href="media/bravura-BBBBBBBB.woff2">',
-      ),
+      '<!doctype html><html><head><meta charset="utf-8">' +
+        // The API requests first: the server takes longest over them.
+        '<link rel="preload" as="fetch" crossorigin href="/api/auth/me">' +
+        '<link rel="preload" as="fetch" crossorigin href="/api/presets/early-backbeat/drill?seed=harbor-spark-21">' +
+        '<link rel="preload" as="fetch" crossorigin href="/api/presets/early-backbeat">' +
+        '<link rel="stylesheet" href="styles-CCCCCCCC.css">' +
+        // The fonts before every script, not queued behind them.
+        '<link rel="preload" as="font" type="font/woff2" crossorigin href="media/bravura-BBBBBBBB.woff2">' +
+        '</head><body><tensile-root></tensile-root>' +
+        '<script src="main-AAAAAAAA.js" type="module"></script>' +
+        '<link rel="modulepreload" href="chunk-PAGE0001.js">' +
+        '<link rel="modulepreload" href="chunk-MATL0001.js">' +
+        '</body></html>',
     );
   });
 
