@@ -59,6 +59,32 @@ describe('routePreloads', () => {
     expect(found.fonts).toEqual(['media/face-BBBBBBBB.woff2']);
   });
 
+  it('in a build with merged chunks, takes the chunk holding an entry for it', () => {
+    const merged: BuildMetafile = {
+      outputs: {
+        'main-AAAAAAAA.js': {
+          entryPoint: 'src/main.ts',
+          imports: [{ path: 'chunk-02xAIvIv.js', kind: 'import-statement' }],
+        },
+        'chunk-02xAIvIv.js': {
+          inputs: { 'src/page.ts': {}, 'src/shell.ts': {} },
+          imports: [{ path: 'chunk-1aFyDfV4.js', kind: 'import-statement' }],
+        },
+        'chunk-1aFyDfV4.js': { inputs: { 'node_modules/x/index.js': {} }, imports: [] },
+        'chunk-Lazy0001.js': { inputs: { 'src/lazy.ts': {} }, imports: [] },
+      },
+    };
+    expect(routePreloads(merged, ['src/page.ts'], 'src/fonts.ts').scripts).toEqual([
+      'chunk-02xAIvIv.js',
+      'chunk-1aFyDfV4.js',
+    ]);
+    expect(routePreloads(merged, ['src/main.ts'], 'src/fonts.ts').scripts).toEqual([
+      'main-AAAAAAAA.js',
+      'chunk-02xAIvIv.js',
+      'chunk-1aFyDfV4.js',
+    ]);
+  });
+
   it('finds nothing for entries the build does not have', () => {
     expect(routePreloads(METAFILE, ['src/gone.ts'], 'src/gone-fonts.ts')).toEqual({
       scripts: [],

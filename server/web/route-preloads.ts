@@ -24,9 +24,11 @@ export interface BuildMetafile {
 /**
  * Source files a `/drills/<card>` page loads before its score: the signed-in shell, the drill
  * routes, the page and the engraver (what `src/app/drills/drill-prefetch.ts` and the router
- * import). A spec keeps this list in step with the prefetch's imports.
+ * import), and `main`, whose own imports the HTML names only in a build whose chunks are not
+ * merged. A spec keeps this list in step with the prefetch's imports.
  */
 export const DRILL_PAGE_ENTRIES: readonly string[] = [
+  'src/main.ts',
   'src/app/shell/shell.ts',
   'src/app/drills/drill-routes.ts',
   'src/app/drills/drill-page.ts',
@@ -45,7 +47,9 @@ export interface RoutePreloads {
 
 /**
  * The chunks `entries` compile to with every chunk they import statically, and the font files
- * the output holding `fontSource` loads. Entries missing from the build are skipped.
+ * the output holding `fontSource` loads. Entries missing from the build are skipped. A build
+ * whose chunks were merged after esbuild (`NG_BUILD_OPTIMIZE_CHUNKS`) names no entry points
+ * but its lazy ones: there, the chunk holding an entry's source stands for it.
  */
 export function routePreloads(
   metafile: BuildMetafile,
@@ -54,7 +58,11 @@ export function routePreloads(
 ): RoutePreloads {
   const outputs = Object.entries(metafile.outputs);
   const queue = outputs
-    .filter(([, output]) => output.entryPoint !== undefined && entries.includes(output.entryPoint))
+    .filter(([, output]) =>
+      output.entryPoint === undefined
+        ? Object.keys(output.inputs ?? {}).some((input) => entries.includes(input))
+        : entries.includes(output.entryPoint),
+    )
     .map(([file]) => file);
   const scripts: string[] = [];
   while (queue.length > 0) {

@@ -15,6 +15,8 @@ beforeAll(async () => {
   await writeFile(path.join(dist, 'index.html'), INDEX);
   await writeFile(path.join(dist, 'main-2YQ7VRZL.js'), 'console.log(1);');
   await writeFile(path.join(dist, 'favicon.ico'), 'icon');
+  await writeFile(path.join(dist, 'chunk-02xAIvIv.js'), 'console.log(2);');
+  await writeFile(path.join(dist, 'notes-fallback.txt'), 'plain');
   t = await createTestApp({ seed: false, deps: { browserDist: dist } });
   bare = await createTestApp({ seed: false });
 });
@@ -36,14 +38,17 @@ describe('serving the built app', () => {
     },
   );
 
-  it('caches content-hashed files for a year', async () => {
-    const res = await request(t.app).get('/main-2YQ7VRZL.js');
-    expect(res.status).toBe(200);
-    expect(res.headers['cache-control']).toBe('public, max-age=31536000, immutable');
-  });
+  it.each(['/main-2YQ7VRZL.js', '/chunk-02xAIvIv.js'])(
+    'caches content-hashed %s for a year',
+    async (url) => {
+      const res = await request(t.app).get(url);
+      expect(res.status).toBe(200);
+      expect(res.headers['cache-control']).toBe('public, max-age=31536000, immutable');
+    },
+  );
 
-  it('revalidates files without a hash', async () => {
-    const res = await request(t.app).get('/favicon.ico');
+  it.each(['/favicon.ico', '/notes-fallback.txt'])('revalidates %s, which has no hash', async (url) => {
+    const res = await request(t.app).get(url);
     expect(res.status).toBe(200);
     expect(res.headers['cache-control']).toBe('no-cache');
   });
