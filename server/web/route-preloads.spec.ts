@@ -78,6 +78,22 @@ describe('routePreloads', () => {
       'chunk-02xAIvIv.js',
       'chunk-1aFyDfV4.js',
     ]);
+    expect(routePreloads(merged, ['src/page.ts'], 'src/fonts.ts').fonts).toEqual([]);
+    const withFaces: BuildMetafile = {
+      inputs: {
+        'src/fonts.ts': {
+          imports: [{ path: 'node_modules/f/face.woff2' }, { path: 'node_modules/f/util.js' }],
+        },
+      },
+      outputs: {
+        ...merged.outputs,
+        'media/face-BBBBBBBB.woff2': { inputs: { 'node_modules/f/face.woff2': {} } },
+        'media/other-CCCCCCCC.woff2': { inputs: { 'node_modules/f/other.woff2': {} } },
+      },
+    };
+    expect(routePreloads(withFaces, ['src/page.ts'], 'src/fonts.ts').fonts).toEqual([
+      'media/face-BBBBBBBB.woff2',
+    ]);
     expect(routePreloads(merged, ['src/main.ts'], 'src/fonts.ts').scripts).toEqual([
       'main-AAAAAAAA.js',
       'chunk-02xAIvIv.js',

@@ -9,6 +9,10 @@ import { readFileSync } from 'node:fs';
 
 /** The parts of esbuild's metafile read here. */
 export interface BuildMetafile {
+  /** Source files with what they import (a merged build's outputs no longer list its fonts). */
+  readonly inputs?: Readonly<
+    Record<string, { readonly imports?: readonly { readonly path: string }[] }>
+  >;
   readonly outputs: Readonly<
     Record<
       string,
@@ -80,6 +84,21 @@ export function routePreloads(
     .flatMap(([, output]) => output.imports ?? [])
     .filter((imported) => imported.kind === 'file-loader' && imported.path.endsWith('.woff2'))
     .map((imported) => imported.path);
+  if (fonts.length === 0) {
+    // Merged chunks keep no file-loader imports: find the faces the source imports by their files.
+    const faces = (metafile.inputs?.[fontSource]?.imports ?? [])
+      .map((imported) => imported.path)
+      .filter((file) => file.endsWith('.woff2'));
+    fonts.push(
+      ...outputs
+        .filter(
+          ([file, output]) =>
+            file.endsWith('.woff2') &&
+            Object.keys(output.inputs ?? {}).some((input) => faces.includes(input)),
+        )
+        .map(([file]) => file),
+    );
+  }
   return { scripts, fonts: [...new Set(fonts)] };
 }
 
