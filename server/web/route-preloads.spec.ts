@@ -4,6 +4,7 @@ import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import {
   DRILL_PAGE_ENTRIES,
+  injectFetchPreloads,
   MAX_SEED_LENGTH,
   MUSIC_FONTS_SOURCE,
   injectPreloads,
@@ -58,6 +59,48 @@ describe('routePreloads', () => {
     expect(found.fonts).toEqual(['media/face-BBBBBBBB.woff2']);
   });
 
+  it('in a build with merged chunks, takes the chunk holding an entry for it', () => {
+    const merged: BuildMetafile = {
+      outputs: {
+        'main-AAAAAAAA.js': {
+          entryPoint: 'src/main.ts',
+          imports: [{ path: 'chunk-02xAIvIv.js', kind: 'import-statement' }],
+        },
+        'chunk-02xAIvIv.js': {
+          inputs: { 'src/page.ts': {}, 'src/shell.ts': {} },
+          imports: [{ path: 'chunk-1aFyDfV4.js', kind: 'import-statement' }],
+        },
+        'chunk-1aFyDfV4.js': { inputs: { 'node_modules/x/index.js': {} }, imports: [] },
+        'chunk-Lazy0001.js': { inputs: { 'src/lazy.ts': {} }, imports: [] },
+      },
+    };
+    expect(routePreloads(merged, ['src/page.ts'], 'src/fonts.ts').scripts).toEqual([
+      'chunk-02xAIvIv.js',
+      'chunk-1aFyDfV4.js',
+    ]);
+    expect(routePreloads(merged, ['src/page.ts'], 'src/fonts.ts').fonts).toEqual([]);
+    const withFaces: BuildMetafile = {
+      inputs: {
+        'src/fonts.ts': {
+          imports: [{ path: 'node_modules/f/face.woff2' }, { path: 'node_modules/f/util.js' }],
+        },
+      },
+      outputs: {
+        ...merged.outputs,
+        'media/face-BBBBBBBB.woff2': { inputs: { 'node_modules/f/face.woff2': {} } },
+        'media/other-CCCCCCCC.woff2': { inputs: { 'node_modules/f/other.woff2': {} } },
+      },
+    };
+    expect(routePreloads(withFaces, ['src/page.ts'], 'src/fonts.ts').fonts).toEqual([
+      'media/face-BBBBBBBB.woff2',
+    ]);
+    expect(routePreloads(merged, ['src/main.ts'], 'src/fonts.ts').scripts).toEqual([
+      'main-AAAAAAAA.js',
+      'chunk-02xAIvIv.js',
+      'chunk-1aFyDfV4.js',
+    ]);
+  });
+
   it('finds nothing for entries the build does not have', () => {
     expect(routePreloads(METAFILE, ['src/gone.ts'], 'src/gone-fonts.ts')).toEqual({
       scripts: [],
@@ -71,17 +114,16 @@ describe('injectPreloads', () => {
     '<html><head><link rel="stylesheet" href="styles-DDDDDDDD.css"></head><body><tensile-root></tensile-root>' +
     '<link rel="modulepreload" href="chunk-SHARED01.js"><script src="main-AAAAAAAA.js" type="module"></script></body></html>';
 
-  it('adds the links after the main script, skipping files the page already names', () => {
+  it('adds the fonts before </head> and the chunks after the main script, skipping files the page already names', () => {
     const html = injectPreloads(HTML, {
       scripts: ['chunk-PAGE0001.js', 'chunk-SHARED01.js'],
       fonts: ['media/face-BBBBBBBB.woff2'],
     });
     expect(html).toBe(
       HTML.replace(
-        '</script>',
-        '</script><link rel="modulepreload" href="chunk-PAGE0001.js">' +
-          '<link rel="preload" as="font" type="font/woff2" crossorigin href="media/face-BBBBBBBB.woff2">',
-      ),
+        '</head>',
+        '<link rel="preload" as="font" type="font/woff2" crossorigin href="media/face-BBBBBBBB.woff2"></head>',
+      ).replace('</script>', '</script><link rel="modulepreload" href="chunk-PAGE0001.js">'),
     );
   });
 
@@ -90,7 +132,36 @@ describe('injectPreloads', () => {
     expect(injectPreloads(plain, { scripts: ['a-EEEEEEEE.js'], fonts: [] })).toBe(
       '<html><body><p>x</p><link rel="modulepreload" href="a-EEEEEEEE.js"></body></html>',
     );
+    expect(injectPreloads(plain, { scripts: ['a-EEEEEEEE.js'], fonts: ['f-FFFFFFFF.woff2'] })).toBe(
+      '<html><body><p>x</p><link rel="modulepreload" href="a-EEEEEEEE.js">' +
+        '<link rel="preload" as="font" type="font/woff2" crossorigin href="f-FFFFFFFF.woff2"></body></html>',
+    );
     expect(injectPreloads(HTML, { scripts: ['chunk-SHARED01.js'], fonts: [] })).toBe(HTML);
+  });
+});
+
+describe('injectFetchPreloads', () => {
+  const link = (url: string): string =>
+    `<link rel="preload" as="fetch" crossorigin href="${url}">`;
+
+  it('puts the requests first in the head, after <meta charset>', () => {
+    const html = '<html><head><meta charset="utf-8"><title>t</title></head><body></body></html>';
+    expect(injectFetchPreloads(html, ['/api/a', '/api/b?x="1"'])).toBe(
+      html.replace('utf-8">', `utf-8">${link('/api/a')}${link('/api/b?x=&quot;1&quot;')}`),
+    );
+    const noCharset = '<html><head lang="en"><title>t</title></head></html>';
+    expect(injectFetchPreloads(noCharset, ['/api/a'])).toBe(
+      noCharset.replace('<head lang="en">', `<head lang="en">${link('/api/a')}`),
+    );
+  });
+
+  it('without a head, goes after the main script, else before </body>, else at the end', () => {
+    const main = '<body><script src="m.js" type="module"></script><p></p></body>';
+    expect(injectFetchPreloads(main, ['/api/a'])).toBe(
+      main.replace('</script>', `</script>${link('/api/a')}`),
+    );
+    expect(injectFetchPreloads('<body></body>', ['/api/a'])).toBe(`<body>${link('/api/a')}</body>`);
+    expect(injectFetchPreloads('<p></p>', ['/api/a'])).toBe(`<p></p>${link('/api/a')}`);
   });
 });
 

@@ -9,6 +9,10 @@ import { readFileSync } from 'node:fs';
 
 /** The parts of esbuild's metafile read here. */
 export interface BuildMetafile {
+  /** Source files with what they import (a merged build's outputs no longer list its fonts). */
+  readonly inputs?: Readonly<
+    Record<string, { readonly imports?: readonly { readonly path: string }[] }>
+  >;
   readonly outputs: Readonly<
     Record<
       string,
@@ -24,9 +28,11 @@ export interface BuildMetafile {
 /**
  * Source files a `/drills/<card>` page loads before its score: the signed-in shell, the drill
  * routes, the page and the engraver (what `src/app/drills/drill-prefetch.ts` and the router
- * import). A spec keeps this list in step with the prefetch's imports.
+ * import), and `main`, whose own imports the HTML names only in a build whose chunks are not
+ * merged. A spec keeps this list in step with the prefetch's imports.
  */
 export const DRILL_PAGE_ENTRIES: readonly string[] = [
+  'src/main.ts',
   'src/app/shell/shell.ts',
   'src/app/drills/drill-routes.ts',
   'src/app/drills/drill-page.ts',
@@ -45,7 +51,9 @@ export interface RoutePreloads {
 
 /**
  * The chunks `entries` compile to with every chunk they import statically, and the font files
- * the output holding `fontSource` loads. Entries missing from the build are skipped.
+ * the output holding `fontSource` loads. Entries missing from the build are skipped. A build
+ * whose chunks were merged after esbuild (`NG_BUILD_OPTIMIZE_CHUNKS`) names no entry points
+ * but its lazy ones: there, the chunk holding an entry's source stands for it.
  */
 export function routePreloads(
   metafile: BuildMetafile,
@@ -54,7 +62,11 @@ export function routePreloads(
 ): RoutePreloads {
   const outputs = Object.entries(metafile.outputs);
   const queue = outputs
-    .filter(([, output]) => output.entryPoint !== undefined && entries.includes(output.entryPoint))
+    .filter(([, output]) =>
+      output.entryPoint === undefined
+        ? Object.keys(output.inputs ?? {}).some((input) => entries.includes(input))
+        : entries.includes(output.entryPoint),
+    )
     .map(([file]) => file);
   const scripts: string[] = [];
   while (queue.length > 0) {
@@ -72,6 +84,21 @@ export function routePreloads(
     .flatMap(([, output]) => output.imports ?? [])
     .filter((imported) => imported.kind === 'file-loader' && imported.path.endsWith('.woff2'))
     .map((imported) => imported.path);
+  if (fonts.length === 0) {
+    // Merged chunks keep no file-loader imports: find the faces the source imports by their files.
+    const faces = (metafile.inputs?.[fontSource]?.imports ?? [])
+      .map((imported) => imported.path)
+      .filter((file) => file.endsWith('.woff2'));
+    fonts.push(
+      ...outputs
+        .filter(
+          ([file, output]) =>
+            file.endsWith('.woff2') &&
+            Object.keys(output.inputs ?? {}).some((input) => faces.includes(input)),
+        )
+        .map(([file]) => file),
+    );
+  }
   return { scripts, fonts: [...new Set(fonts)] };
 }
 
@@ -91,31 +118,47 @@ const escapeAttribute = (value: string): string =>
   value.replace(/&/g, '&amp;').replace(/"/g, '&quot;').replace(/</g, '&lt;');
 
 /**
- * `html` with preload links for `preloads`, leaving out what it already names. They go after the
- * main script so the browser asks for `main` and its own chunks first (with six connections to
- * one host, the order of the queue matters); without that script, before `</body>`.
+ * `html` with preload links for `preloads`, leaving out what it already names. The chunks go
+ * after the main script so the browser asks for `main` and its own chunks first; the fonts go in
+ * the head, ahead of every script: with six HTTP/1.1 connections to one host the order of the
+ * queue matters, and named after 40 scripts the faces arrived last. Without a head, the fonts
+ * join the chunks; without a main script, both go before `</body>`.
  */
 export function injectPreloads(html: string, preloads: RoutePreloads): string {
   const named = new Set([...html.matchAll(/\s(?:href|src)="([^"]+)"/g)].map((m) => m[1]));
-  const links = [
-    ...preloads.scripts
-      .filter((file) => !named.has(file))
-      .map((file) => `<link rel="modulepreload" href="${escapeAttribute(file)}">`),
-    ...preloads.fonts
-      .filter((file) => !named.has(file))
-      .map(
-        (file) =>
-          `<link rel="preload" as="font" type="font/woff2" crossorigin href="${escapeAttribute(file)}">`,
-      ),
-  ].join('');
-  if (links === '') return html;
+  const scripts = preloads.scripts
+    .filter((file) => !named.has(file))
+    .map((file) => `<link rel="modulepreload" href="${escapeAttribute(file)}">`)
+    .join('');
+  const fonts = preloads.fonts
+    .filter((file) => !named.has(file))
+    .map(
+      (file) =>
+        `<link rel="preload" as="font" type="font/woff2" crossorigin href="${escapeAttribute(file)}">`,
+    )
+    .join('');
+  const headEnd = html.indexOf('</head>');
+  const withFonts = headEnd < 0 ? html : insertAt(html, headEnd, fonts);
+  return insertAt(withFonts, afterMainScript(withFonts), headEnd < 0 ? scripts + fonts : scripts);
+}
+
+const insertAt = (html: string, at: number, text: string): string =>
+  html.slice(0, at) + text + html.slice(at);
+
+/** Just after the module script (`main`), else before `</body>`, else the end. */
+function afterMainScript(html: string): number {
   const mainScript = /<script\b[^>]*\stype="module"[^>]*><\/script>/.exec(html);
-  if (mainScript) {
-    const at = mainScript.index + mainScript[0].length;
-    return html.slice(0, at) + links + html.slice(at);
-  }
+  if (mainScript) return mainScript.index + mainScript[0].length;
   const bodyEnd = html.lastIndexOf('</body>');
-  return bodyEnd === -1 ? html + links : html.slice(0, bodyEnd) + links + html.slice(bodyEnd);
+  return bodyEnd < 0 ? html.length : bodyEnd;
+}
+
+/** Where the head's own content starts: after `<meta charset>` (which must come first), else after `<head>`. */
+function headStart(html: string): number {
+  const charset = /<meta\s+charset=[^>]*>/i.exec(html);
+  if (charset) return charset.index + charset[0].length;
+  const head = /<head\b[^>]*>/i.exec(html);
+  return head ? head.index + head[0].length : -1;
 }
 
 /** The drill page's longest seed (`MAX_SEED_LENGTH` in src/app/drills/seed-problem.ts). */
@@ -147,13 +190,13 @@ export function drillPageRequests(pathname: string, search: string): string[] | 
 
 /**
  * `html` with preloads for `urls` as `fetch` would ask for them (CORS mode, same-origin
- * credentials: the `crossorigin` attribute), after the main script.
+ * credentials: the `crossorigin` attribute), first in the head: the server needs the longest to
+ * answer them, so they leave before every font and script. Without a head, after the main script.
  */
 export function injectFetchPreloads(html: string, urls: readonly string[]): string {
   const links = urls
     .map((url) => `<link rel="preload" as="fetch" crossorigin href="${escapeAttribute(url)}">`)
     .join('');
-  const mainScript = /<script\b[^>]*\stype="module"[^>]*><\/script>/.exec(html);
-  const at = mainScript ? mainScript.index + mainScript[0].length : html.lastIndexOf('</body>');
-  return at < 0 ? html + links : html.slice(0, at) + links + html.slice(at);
+  const start = headStart(html);
+  return insertAt(html, start < 0 ? afterMainScript(html) : start, links);
 }

@@ -15,6 +15,8 @@ beforeAll(async () => {
   await writeFile(path.join(dist, 'index.html'), INDEX);
   await writeFile(path.join(dist, 'main-2YQ7VRZL.js'), 'console.log(1);');
   await writeFile(path.join(dist, 'favicon.ico'), 'icon');
+  await writeFile(path.join(dist, 'chunk-02xAIvIv.js'), 'console.log(2);');
+  await writeFile(path.join(dist, 'notes-fallback.txt'), 'plain');
   t = await createTestApp({ seed: false, deps: { browserDist: dist } });
   bare = await createTestApp({ seed: false });
 });
@@ -36,14 +38,17 @@ describe('serving the built app', () => {
     },
   );
 
-  it('caches content-hashed files for a year', async () => {
-    const res = await request(t.app).get('/main-2YQ7VRZL.js');
-    expect(res.status).toBe(200);
-    expect(res.headers['cache-control']).toBe('public, max-age=31536000, immutable');
-  });
+  it.each(['/main-2YQ7VRZL.js', '/chunk-02xAIvIv.js'])(
+    'caches content-hashed %s for a year',
+    async (url) => {
+      const res = await request(t.app).get(url);
+      expect(res.status).toBe(200);
+      expect(res.headers['cache-control']).toBe('public, max-age=31536000, immutable');
+    },
+  );
 
-  it('revalidates files without a hash', async () => {
-    const res = await request(t.app).get('/favicon.ico');
+  it.each(['/favicon.ico', '/notes-fallback.txt'])('revalidates %s, which has no hash', async (url) => {
+    const res = await request(t.app).get(url);
     expect(res.status).toBe(200);
     expect(res.headers['cache-control']).toBe('no-cache');
   });
@@ -70,7 +75,8 @@ describe('serving the built app', () => {
 
 describe('a drill page with the build metafile beside the app', () => {
   const PAGE =
-    '<!doctype html><html><body><tensile-root></tensile-root>' +
+    '<!doctype html><html><head><meta charset="utf-8"><link rel="stylesheet" href="styles-CCCCCCCC.css"></head>' +
+    '<body><tensile-root></tensile-root>' +
     '<script src="main-AAAAAAAA.js" type="module"></script></body></html>';
   const STATS = {
     outputs: {
@@ -100,22 +106,25 @@ describe('a drill page with the build metafile beside the app', () => {
     await rm(root, { recursive: true, force: true });
   });
 
-  it('names the page chunks and the score font after the main script', async () => {
+  it('names the API requests and the score font in the head, the page chunks after the main script', async () => {
     const res = await request(app.app).get('/drills/early-backbeat?seed=harbor-spark-21');
     expect(res.status).toBe(200);
     expect(res.type).toBe('text/html');
     expect(res.headers['cache-control']).toBe('no-cache');
     expect(res.text).toBe(
-      PAGE.replace(
-        '</script>',
-        // The API requests first: small answers the session guard and the page wait for.
-        '</script><link rel="preload" as="fetch" crossorigin href="/api/auth/me">' +
-          '<link rel="preload" as="fetch" crossorigin href="/api/presets/early-backbeat/drill?seed=harbor-spark-21">' +
-          '<link rel="preload" as="fetch" crossorigin href="/api/presets/early-backbeat">' +
-          '<link rel="modulepreload" href="chunk-PAGE0001.js">' +
-          '<link rel="modulepreload" href="chunk-MATL0001.js">' +
-          '<link rel="preload" as="font" type="font/woff2" crossorigin href="media/bravura-BBBBBBBB.woff2">',
-      ),
+      '<!doctype html><html><head><meta charset="utf-8">' +
+        // The API requests first: the server takes longest over them.
+        '<link rel="preload" as="fetch" crossorigin href="/api/auth/me">' +
+        '<link rel="preload" as="fetch" crossorigin href="/api/presets/early-backbeat/drill?seed=harbor-spark-21">' +
+        '<link rel="preload" as="fetch" crossorigin href="/api/presets/early-backbeat">' +
+        '<link rel="stylesheet" href="styles-CCCCCCCC.css">' +
+        // The fonts before every script, not queued behind them.
+        '<link rel="preload" as="font" type="font/woff2" crossorigin href="media/bravura-BBBBBBBB.woff2">' +
+        '</head><body><tensile-root></tensile-root>' +
+        '<script src="main-AAAAAAAA.js" type="module"></script>' +
+        '<link rel="modulepreload" href="chunk-PAGE0001.js">' +
+        '<link rel="modulepreload" href="chunk-MATL0001.js">' +
+        '</body></html>',
     );
   });
 

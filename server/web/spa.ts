@@ -17,8 +17,11 @@ export const DEFAULT_BROWSER_DIST = fileURLToPath(
   new URL('../../dist/tensile/browser', import.meta.url),
 );
 
-/** The build names its bundles and media with a content hash, e.g. `main-2YQ7VRZL.js`. */
-const HASHED_FILE = /-[A-Z0-9]{8,}\.[a-z0-9]+$/;
+/**
+ * The build names its bundles and media with a content hash, e.g. `main-2YQ7VRZL.js`; chunks
+ * merged after esbuild (`NG_BUILD_OPTIMIZE_CHUNKS`) take a mixed-case one, e.g. `chunk-02xAIvIv.js`.
+ */
+const HASHED_FILE = /(?:-[A-Z0-9]{8,}\.[a-z0-9]+|^chunk-[A-Za-z0-9_-]{8}\.js)$/;
 
 /** Paths that ask for a file (not a page): a missing one is a 404, not the app's shell. */
 const ASSET_EXTENSION =

@@ -61,6 +61,8 @@ export interface StartServerOptions {
   readonly env?: Readonly<Record<string, string>>;
   /** How long to wait for `/api/health` (default 60 s: a cold tsx start on 2 busy cores). */
   readonly readyTimeoutMs?: number;
+  /** The checkout whose server and build to run (default this one): A/B benches compare two. */
+  readonly root?: string;
 }
 
 /**
@@ -72,7 +74,7 @@ export async function startServer(options: StartServerOptions = {}): Promise<Run
   const dataDir = mkdtempSync(join(tmpdir(), 'tensile-e2e-'));
   const url = `http://127.0.0.1:${port}`;
   const child = spawn(process.execPath, ['--import', 'tsx', 'server/main.ts'], {
-    cwd: REPO_ROOT,
+    cwd: options.root ?? REPO_ROOT,
     env: serverEnv(port, dataDir, options),
     stdio: ['ignore', 'pipe', 'pipe'],
   });

@@ -11,10 +11,7 @@ import {
   untracked,
 } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
-import { FormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
-import { MatFormFieldModule } from '@angular/material/form-field';
-import { MatInputModule } from '@angular/material/input';
 import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import { Router } from '@angular/router';
 import { catchError, map, of, switchMap } from 'rxjs';
@@ -31,7 +28,8 @@ import { RecentDrills } from './recent-drills';
 import { SaveDrillButton } from '../saved-drills/save-drill-button';
 import { DrillScore } from './score/drill-score';
 import type { ScorePosition } from './score/score-layout';
-import { MAX_SEED_LENGTH, seedErrorState, seedProblem } from './seed-problem';
+import { SeedForm } from './seed-form';
+import { MAX_SEED_LENGTH, seedProblem } from './seed-problem';
 import { freshSeed } from './seed-words';
 import { asksForShortcuts } from './shortcuts/shortcut-list';
 import { tensionScaleText } from './tension-words';
@@ -46,15 +44,13 @@ const SHORTCUTS_DIALOG = 'tensile-drill-shortcuts';
 @Component({
   selector: 'tensile-drill-page',
   imports: [
-    FormsModule,
     MatButtonModule,
-    MatFormFieldModule,
-    MatInputModule,
     MatSlideToggleModule,
     DrillScore,
     PlaybackPanel,
     SaveDrillButton,
     ExportMenu,
+    SeedForm,
   ],
   templateUrl: './drill-page.html',
   styleUrl: './drill-page.scss',
@@ -88,7 +84,6 @@ export class DrillPage {
   );
   protected readonly seedDraft = linkedSignal(() => this.activeSeed() ?? '');
   protected readonly seedProblem = computed(() => seedProblem(this.seedDraft()));
-  protected readonly seedErrors = seedErrorState(this.seedProblem);
   /** The drill asked for: the route's card at the URL's seed. */
   private readonly wanted = computed(
     () => {

@@ -28,8 +28,9 @@ describe('Shell', () => {
   let fixture: ComponentFixture<Shell>;
   let backend: HttpTestingController;
 
-  beforeEach(() => {
-    TestBed.configureTestingModule({
+  // The toolbar's menu and tooltip are a deferred block: its component resolves asynchronously.
+  beforeEach(async () => {
+    await TestBed.configureTestingModule({
       imports: [Shell],
       providers: [
         provideZonelessChangeDetection(),
@@ -40,7 +41,7 @@ describe('Shell', () => {
           { path: '**', component: Blank },
         ]),
       ],
-    });
+    }).compileComponents();
     backend = TestBed.inject(HttpTestingController);
   });
 
@@ -125,13 +126,20 @@ describe('Shell', () => {
 
   it('names the person and role on the account button, and signs out', async () => {
     const page = await renderAs(people.admin);
+    // The menu's code loads once idle; until then the same button stands in (see toolbar-actions).
+    for (let wait = 0; wait < 50 && !page.querySelector('tensile-toolbar-actions'); wait++) {
+      await new Promise((resolve) => setTimeout(resolve, 20));
+      await fixture.whenStable();
+    }
     const account = page.querySelector<HTMLButtonElement>('button[aria-label^="Account"]')!;
     expect(account.getAttribute('aria-label')).toBe('Account: Imogen Vale, Admin');
     account.click();
     await fixture.whenStable();
-    const signOut = [...document.querySelectorAll<HTMLButtonElement>('[mat-menu-item]')].find((b) =>
-      b.textContent?.includes('Sign out'),
-    )!;
+    const menuItem = () =>
+      [...document.querySelectorAll<HTMLButtonElement>('[mat-menu-item]')].find((b) =>
+        b.textContent?.includes('Sign out'),
+      );
+    const signOut = menuItem()!;
     signOut.click();
     backend.expectOne(AUTH_SIGN_OUT_URL).flush(null, { status: 204, statusText: 'No Content' });
     await fixture.whenStable();

@@ -10,12 +10,9 @@ import {
 } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
-import { MatDividerModule } from '@angular/material/divider';
 import { MatListModule } from '@angular/material/list';
-import { MatMenuModule } from '@angular/material/menu';
 import { MatSidenavModule } from '@angular/material/sidenav';
 import { MatToolbarModule } from '@angular/material/toolbar';
-import { MatTooltipModule } from '@angular/material/tooltip';
 import { Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
 import { map } from 'rxjs';
 
@@ -24,6 +21,7 @@ import { ThemePreference } from '../core/theme-preference';
 import { ROLE_LABEL } from '../core/user';
 import { SafetyNote } from '../ui/safety-note';
 import { navigationFor } from './navigation';
+import { ToolbarActions, type ToolbarButton } from './toolbar-actions';
 
 /** Wide enough to keep the navigation open beside the page; narrower screens slide it over. */
 export const WIDE_LAYOUT_QUERY = '(min-width: 1024px)';
@@ -33,16 +31,14 @@ export const WIDE_LAYOUT_QUERY = '(min-width: 1024px)';
   selector: 'tensile-shell',
   imports: [
     MatButtonModule,
-    MatDividerModule,
     MatListModule,
-    MatMenuModule,
     MatSidenavModule,
     MatToolbarModule,
-    MatTooltipModule,
     RouterLink,
     RouterLinkActive,
     RouterOutlet,
     SafetyNote,
+    ToolbarActions,
   ],
   templateUrl: './shell.html',
   styleUrl: './shell.scss',
@@ -69,6 +65,8 @@ export class Shell {
   /** Only meaningful on narrow screens; on wide screens the navigation is always open. */
   protected readonly navOpen = signal(false);
   protected readonly darkScheme = computed(() => this.theme.effective() === 'dark');
+  /** A toolbar button pressed before the real ones loaded: they take its focus (and menu). */
+  protected readonly pressed = signal<ToolbarButton | null>(null);
 
   protected toggleNavigation(): void {
     this.navOpen.update((open) => !open);
