@@ -99,7 +99,8 @@ try {
           drawn,
           lcp: window.__lcp ?? NaN,
           requests: entries.length + 1,
-          kB: (entries.reduce((sum, entry) => sum + entry.transferSize, 0) + nav.transferSize) / 1024,
+          kB:
+            (entries.reduce((sum, entry) => sum + entry.transferSize, 0) + nav.transferSize) / 1024,
           lastFile: Math.max(...files.map((entry) => entry.responseEnd)),
           longTasks: window.__longTasks!.length,
           longTaskMs: window.__longTasks!.reduce((sum, ms) => sum + ms, 0),

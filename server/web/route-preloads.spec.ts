@@ -141,8 +141,7 @@ describe('injectPreloads', () => {
 });
 
 describe('injectFetchPreloads', () => {
-  const link = (url: string): string =>
-    `<link rel="preload" as="fetch" crossorigin href="${url}">`;
+  const link = (url: string): string => `<link rel="preload" as="fetch" crossorigin href="${url}">`;
 
   it('puts the requests first in the head, after <meta charset>', () => {
     const html = '<html><head><meta charset="utf-8"><title>t</title></head><body></body></html>';

@@ -47,11 +47,14 @@ describe('serving the built app', () => {
     },
   );
 
-  it.each(['/favicon.ico', '/notes-fallback.txt'])('revalidates %s, which has no hash', async (url) => {
-    const res = await request(t.app).get(url);
-    expect(res.status).toBe(200);
-    expect(res.headers['cache-control']).toBe('no-cache');
-  });
+  it.each(['/favicon.ico', '/notes-fallback.txt'])(
+    'revalidates %s, which has no hash',
+    async (url) => {
+      const res = await request(t.app).get(url);
+      expect(res.status).toBe(200);
+      expect(res.headers['cache-control']).toBe('no-cache');
+    },
+  );
 
   it('answers a missing asset with 404, not the app shell', async () => {
     const res = await request(t.app).get('/main-MISSING1.js');

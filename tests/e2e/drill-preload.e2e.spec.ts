@@ -39,7 +39,10 @@ function deferredChunks(): string[] {
     outputs[file]!.entryPoint === entry ||
     (outputs[file]!.entryPoint === undefined && entry in (outputs[file]!.inputs ?? {}));
   for (const entry of DEFERRED_ENTRIES) {
-    expect(Object.keys(outputs).some((file) => holds(file, entry)), entry).toBe(true);
+    expect(
+      Object.keys(outputs).some((file) => holds(file, entry)),
+      entry,
+    ).toBe(true);
   }
   const queue = Object.keys(outputs).filter((file) =>
     DEFERRED_ENTRIES.some((entry) => holds(file, entry)),
