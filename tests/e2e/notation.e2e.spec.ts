@@ -175,13 +175,18 @@ describe('drill page notation (Chromium)', () => {
         expect(bracketed).toEqual([]);
       } else if (inOneTupletThroughout(drill, tuplet)) {
         // E. Gould, "Behind Bars", ch. "Tuplets" (from memory): once the pattern is set in a
-        // part, its numbers give way to "sim."; each voice with tuplets is such a part.
+        // part, its numbers give way to "sim." where that is unambiguous; each voice with
+        // tuplets is such a part, and a group written in fewer values than its tuplet keeps
+        // its number (checked on the model in engraving-rules.spec.ts).
         const parts = [engraving.tuplets.hands, engraving.tuplets.feet].filter(
           (_, i) => bracketsDue(drill, tuplet, i === 0) > 0,
         ).length;
         expect(parts).toBeGreaterThan(0);
-        expect(bracketed).toEqual(Array.from({ length: parts }, () => String(tuplet)));
-        expect(await page.locator('tensile-drill-score svg .tensile-simile').count()).toBe(parts);
+        expect(bracketed.length).toBeGreaterThanOrEqual(parts);
+        expect(bracketed.every((t) => t === String(tuplet))).toBe(true);
+        const similes = await page.locator('tensile-drill-score svg .tensile-simile').count();
+        expect(similes).toBeGreaterThan(0);
+        expect(similes).toBeLessThanOrEqual(parts);
       } else {
         // One bracket per beat with a voice layer on the tuplet grid, counted from the drill.
         const due = bracketsDue(drill, tuplet, true) + bracketsDue(drill, tuplet, false);
