@@ -223,6 +223,40 @@ describe('renderDrillSvg (Node, jsdom + @napi-rs/canvas)', () => {
     }
   });
 
+  // A grouping bracket spans its notes' whole durations, to the end of the last note's value
+  // (E. Gould, "Behind Bars", Faber Music 2011, ch. "Tuplets": a bracket covers the full length
+  // of the group; from memory). In 4 vs 3 over a 3/4 bar the fourth note lasts to the bar line.
+  it('runs each "4 vs 3" line to the bar line that ends its cycle', () => {
+    const poly = BUILT_IN_PRESETS.find((p) => p.id === 'four-over-three')!;
+    const card = poly.card as {
+      meter: { beats: number };
+      rules: { kind: string; span?: number }[];
+    };
+    expect(card.rules.find((r) => r.kind === 'polyrhythm')?.span).toBe(card.meter.beats);
+    for (const seed of ['lesson-12', 'cedar-5']) {
+      const render = renderDrillSvg(generateDrill(parseRuleCard(poly.card), seed), {
+        width: 1000,
+      });
+      const brackets = [...parse(render.svg).querySelectorAll('.tensile-polyrhythm')];
+      expect(brackets.length, seed).toBeGreaterThan(0);
+      for (const bracket of brackets) {
+        const notes = bracket.getAttribute('data-notes')!.split(' ');
+        const bar = Number(notes.at(-1)!.split(':')[0]);
+        const box = render.layout.bars.find((b) => b.bar === bar)!;
+        const xs = [
+          ...bracket
+            .querySelector('path')!
+            .getAttribute('d')!
+            .matchAll(/[ML]([\d.]+) /g),
+        ];
+        const end = Math.max(...xs.map((m) => Number(m[1])));
+        const barLine = box.x + box.width;
+        expect(barLine - end, `${seed} bar ${bar}`).toBeGreaterThanOrEqual(0);
+        expect(barLine - end, `${seed} bar ${bar}`).toBeLessThan(6);
+      }
+    }
+  });
+
   it('prints the counts and sticking rows when asked, and leaves them out otherwise', () => {
     expect(doc.querySelectorAll('.tensile-count').length).toBeGreaterThan(0);
     expect(doc.querySelectorAll('.tensile-sticking').length).toBeGreaterThan(0);
