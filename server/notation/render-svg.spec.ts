@@ -223,6 +223,33 @@ describe('renderDrillSvg (Node, jsdom + @napi-rs/canvas)', () => {
     }
   });
 
+  // A quintuplet is read 3+2 where its fourth value starts the second group, and a group of
+  // three sixteenths writes a sixteenth and an eighth rest (Gould, "Behind Bars", ch. "Tuplets",
+  // from memory; common practice): a kick on "ta" and "mi" is 16, r8 | 16, r16.
+  it('writes a quintuplet kick on "ta" and "mi" as sixteenth, eighth rest, sixteenth, rest', () => {
+    const preset = BUILT_IN_PRESETS.find((p) => p.id === 'quintuplets-hihat-1-3-5')!;
+    let checked = 0;
+    for (const seed of ['cedar-5', 'moss-21']) {
+      const drill = generateDrill(parseRuleCard(preset.card), seed);
+      const page = parse(renderDrillSvg(drill, { width: 1100 }).svg);
+      for (const bar of drill.bars) {
+        for (let beat = 1; beat <= 4; beat++) {
+          const kicks = bar.hits.filter((h) => h.beat === beat && !isHandVoice(h.voice));
+          const slots = [...new Set(kicks.map((h) => h.slot))].sort();
+          if (slots.join() !== '0,3') continue;
+          checked++;
+          const feet = page.querySelector(`[data-bar="${bar.bar}"] [data-voice="feet"]`)!;
+          const written = [...feet.querySelectorAll(`[data-beat="${beat}"][data-duration]`)].map(
+            (e) =>
+              `${e.classList.contains('tensile-rest') ? 'r' : ''}${e.getAttribute('data-duration')}`,
+          );
+          expect(written, `${seed} bar ${bar.bar} beat ${beat}`).toEqual(['16', 'r8', '16', 'r16']);
+        }
+      }
+    }
+    expect(checked).toBeGreaterThanOrEqual(3);
+  });
+
   // A grouping bracket spans its notes' whole durations, to the end of the last note's value
   // (E. Gould, "Behind Bars", Faber Music 2011, ch. "Tuplets": a bracket covers the full length
   // of the group; from memory). In 4 vs 3 over a 3/4 bar the fourth note lasts to the bar line.
