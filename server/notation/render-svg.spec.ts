@@ -77,16 +77,49 @@ describe('renderDrillSvg (Node, jsdom + @napi-rs/canvas)', () => {
   });
 
   // E. Gould, "Behind Bars", Faber Music 2011, ch. "Tuplets" (from memory): once a tuplet
-  // pattern is established the numbers may be dropped, "sim." after the first.
-  it('writes one "5" in each voice, followed by "sim.", in a drill in quintuplets throughout', () => {
+  // pattern is established the numbers may be dropped, "sim." after the first, but only where
+  // unambiguous: a group of five beats written in fewer than five values (a combined rest)
+  // reads as plain sixteenths without its "5".
+  it('writes "5" then "sim." in the hands, and a "5" on every group of fewer than five values', () => {
+    for (const id of ['quintuplets-hihat-1-3-4', 'quintuplets-hihat-1-3-5']) {
+      for (const seed of ['lesson-12', 'cedar-5', 'moss-21']) {
+        const preset = BUILT_IN_PRESETS.find((p) => p.id === id)!;
+        const drawn = renderDrillSvg(generateDrill(parseRuleCard(preset.card), seed), {
+          width: 1100,
+          showSticking: true,
+          showCounts: true,
+        });
+        const page = parse(drawn.svg);
+        const where = `${id} ${seed}`;
+        expect(page.querySelectorAll('[data-voice="hands"] .tensile-simile'), where).toHaveLength(
+          1,
+        );
+        let shortGroups = 0;
+        for (const bar of page.querySelectorAll('[data-bar]')) {
+          for (const voice of bar.querySelectorAll('[data-voice]')) {
+            for (let beat = 1; beat <= 4; beat++) {
+              const values = [...voice.querySelectorAll(`[data-beat="${beat}"][data-duration]`)];
+              // Written sixteenths in the beat: five under a "5", four in a plain beat.
+              const sixteenths = values.reduce(
+                (sum, v) => sum + 16 / Number.parseInt(v.getAttribute('data-duration')!, 10),
+                0,
+              );
+              if (sixteenths !== 5 || values.length === 5) continue;
+              shortGroups++;
+              const number = voice.querySelector(`[data-tuplet="5"][data-beat="${beat}"]`);
+              expect(number, `${where} bar ${bar.getAttribute('data-bar')} beat ${beat}`).not.toBe(
+                null,
+              );
+            }
+          }
+        }
+        expect(shortGroups, where).toBeGreaterThan(0);
+      }
+    }
     for (const voice of ['hands', 'feet'] as const) {
       const numbers = [...doc.querySelectorAll(`[data-voice="${voice}"] [data-tuplet]`)];
-      expect(numbers, voice).toHaveLength(1);
       expect(numbers[0]!.getAttribute('data-tuplet')).toBe('5');
       expect(numbers[0]!.querySelector('.vf-tuplet text')?.textContent).toBe(tupletGlyph(5));
-      expect(doc.querySelectorAll(`[data-voice="${voice}"] .tensile-simile`), voice).toHaveLength(
-        1,
-      );
     }
     expect(offBeatBeats(drill, 5, true)).toBeGreaterThan(4);
   });
@@ -187,6 +220,67 @@ describe('renderDrillSvg (Node, jsdom + @napi-rs/canvas)', () => {
     for (const n of [3, 5, 7]) {
       const expected = offBeatBeats(polyDrill, n, true) + offBeatBeats(polyDrill, n, false);
       expect(polyDoc.querySelectorAll(`[data-tuplet="${n}"]`).length).toBe(expected);
+    }
+  });
+
+  // A quintuplet is read 3+2 where its fourth value starts the second group, and a group of
+  // three sixteenths writes a sixteenth and an eighth rest (Gould, "Behind Bars", ch. "Tuplets",
+  // from memory; common practice): a kick on "ta" and "mi" is 16, r8 | 16, r16.
+  it('writes a quintuplet kick on "ta" and "mi" as sixteenth, eighth rest, sixteenth, rest', () => {
+    const preset = BUILT_IN_PRESETS.find((p) => p.id === 'quintuplets-hihat-1-3-5')!;
+    let checked = 0;
+    for (const seed of ['cedar-5', 'moss-21']) {
+      const drill = generateDrill(parseRuleCard(preset.card), seed);
+      const page = parse(renderDrillSvg(drill, { width: 1100 }).svg);
+      for (const bar of drill.bars) {
+        for (let beat = 1; beat <= 4; beat++) {
+          const kicks = bar.hits.filter((h) => h.beat === beat && !isHandVoice(h.voice));
+          const slots = [...new Set(kicks.map((h) => h.slot))].sort();
+          if (slots.join() !== '0,3') continue;
+          checked++;
+          const feet = page.querySelector(`[data-bar="${bar.bar}"] [data-voice="feet"]`)!;
+          const written = [...feet.querySelectorAll(`[data-beat="${beat}"][data-duration]`)].map(
+            (e) =>
+              `${e.classList.contains('tensile-rest') ? 'r' : ''}${e.getAttribute('data-duration')}`,
+          );
+          expect(written, `${seed} bar ${bar.bar} beat ${beat}`).toEqual(['16', 'r8', '16', 'r16']);
+        }
+      }
+    }
+    expect(checked).toBeGreaterThanOrEqual(3);
+  });
+
+  // A grouping bracket spans its notes' whole durations, to the end of the last note's value
+  // (E. Gould, "Behind Bars", Faber Music 2011, ch. "Tuplets": a bracket covers the full length
+  // of the group; from memory). In 4 vs 3 over a 3/4 bar the fourth note lasts to the bar line.
+  it('runs each "4 vs 3" line to the bar line that ends its cycle', () => {
+    const poly = BUILT_IN_PRESETS.find((p) => p.id === 'four-over-three')!;
+    const card = poly.card as {
+      meter: { beats: number };
+      rules: { kind: string; span?: number }[];
+    };
+    expect(card.rules.find((r) => r.kind === 'polyrhythm')?.span).toBe(card.meter.beats);
+    for (const seed of ['lesson-12', 'cedar-5']) {
+      const render = renderDrillSvg(generateDrill(parseRuleCard(poly.card), seed), {
+        width: 1000,
+      });
+      const brackets = [...parse(render.svg).querySelectorAll('.tensile-polyrhythm')];
+      expect(brackets.length, seed).toBeGreaterThan(0);
+      for (const bracket of brackets) {
+        const notes = bracket.getAttribute('data-notes')!.split(' ');
+        const bar = Number(notes.at(-1)!.split(':')[0]);
+        const box = render.layout.bars.find((b) => b.bar === bar)!;
+        const xs = [
+          ...bracket
+            .querySelector('path')!
+            .getAttribute('d')!
+            .matchAll(/[ML]([\d.]+) /g),
+        ];
+        const end = Math.max(...xs.map((m) => Number(m[1])));
+        const barLine = box.x + box.width;
+        expect(barLine - end, `${seed} bar ${bar}`).toBeGreaterThanOrEqual(0);
+        expect(barLine - end, `${seed} bar ${bar}`).toBeLessThan(6);
+      }
     }
   });
 

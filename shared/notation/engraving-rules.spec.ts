@@ -1,7 +1,7 @@
 /**
  * The engraving rules of the notation model (the browser test checks the same rules on the drawn
  * SVG): whole-bar and half-bar rests, tuplets in their grid value, one "5" then "sim." in a
- * quintuplet drill and every "3" in a shuffle, the polyrhythm's own grouping, and the notes that make a bar tense.
+ * quintuplet drill (numbers kept where a group does not count itself) and every "3" in a shuffle, the polyrhythm's own grouping, and the notes that make a bar tense.
  */
 import { describe, expect, it } from 'vitest';
 import type { DrillBar, DrillHit, VoiceId } from '../generator/drill';
@@ -88,8 +88,10 @@ describe('tuplets', () => {
       );
     expect(five([0, 1])).toBe('16 16 r8 r16');
     expect(five([0, 4])).toBe('16 r16 r8 16');
-    expect(five([0, 3])).toBe('16 r16 r16 16 r16');
-    expect(five([1, 2])).toBe('r16 16 16 r16 r16');
+    // 3+2 where the fourth value starts the second group: the first group's rests combine.
+    expect(five([0, 3])).toBe('16 r8 16 r16');
+    // 2+3: the second group's sixteenth and eighth rest (common practice).
+    expect(five([1, 2])).toBe('r16 16 16 r8');
     const seven = (slots: number[]) =>
       feet(
         drillOf(
@@ -113,30 +115,34 @@ describe('tuplets', () => {
           for (const tuplet of layer.tuplets) {
             const events = tuplet.events.map((i) => layer.events[i]!);
             // Every note in the grid value (a sixteenth under the 5), the rests between them
-            // combined up to an eighth: each starts on a multiple of its own length in
-            // sixteenths and no two neighbouring rests could be one of at most an eighth (Gould,
-            // "Behind Bars", ch. "Tuplets"; from memory). Never a quarter rest under the 5: it
-            // reads as a whole beat's rest (common practice).
+            // combined up to an eighth inside the quintuplet's inner groups, 2+3, or 3+2 where a
+            // note on its fourth value and none on its third starts the second (Gould, "Behind
+            // Bars", ch. "Tuplets"; from memory). Never a quarter rest under the 5: it reads as a
+            // whole beat's rest (common practice).
+            const noteAt = new Set(events.filter((e) => e.kind === 'note').map((e) => e.slot));
+            const split = noteAt.has(3) && !noteAt.has(2) ? 3 : 2;
+            const group = (slot: number) => (slot < split ? 0 : 1);
             const sixteenths = (e: (typeof events)[number]) => 16 / e.duration.value;
             let at = 0;
             for (const [k, e] of events.entries()) {
-              expect(e.slot, `${id} bar ${bar.bar}`).toBe(at);
+              const where = `${id} bar ${bar.bar} beat ${e.beat}`;
+              expect(e.slot, where).toBe(at);
               expect(e.duration.dots).toBe(0);
               if (e.kind === 'note') expect(e.duration.value).toBe(16);
               else {
-                expect(at % sixteenths(e)).toBe(0);
-                expect(sixteenths(e), `${id} bar ${bar.bar}: rest past an eighth`).toBeLessThan(3);
+                expect(sixteenths(e), `${where}: rest past an eighth`).toBeLessThan(3);
+                expect(group(at), `${where}: rest across the groups`).toBe(
+                  group(at + sixteenths(e) - 1),
+                );
               }
               const next = events[k + 1];
               if (
                 e.kind === 'rest' &&
                 next?.kind === 'rest' &&
-                sixteenths(next) === sixteenths(e) &&
-                sixteenths(e) < 2
+                sixteenths(next) === 1 &&
+                sixteenths(e) === 1
               )
-                expect(at % (2 * sixteenths(e)), `${id} bar ${bar.bar}: rests to combine`).not.toBe(
-                  0,
-                );
+                expect(group(at + 1), `${where}: rests to combine`).not.toBe(group(at));
               at += sixteenths(e);
             }
             expect(at).toBe(tuplet.ratio.numNotes);
@@ -167,21 +173,59 @@ describe('tuplets', () => {
     }
   });
 
-  it('writes a quintuplet drill\'s "5" once in each voice, then "sim."', () => {
+  it('drops a quintuplet drill\'s "5" after "sim." only on groups that count themselves', () => {
     for (const id of ['quintuplets-hihat-1-3-4', 'quintuplets-hihat-1-3-5']) {
-      const drill = generateDrill(parseRuleCard(preset(id).card), 'lesson-12');
-      const bars = buildNotation(drill).bars;
-      for (const name of ['hands', 'feet'] as const) {
-        const tuplets = bars.flatMap((bar) =>
-          bar.layers.filter((l) => l.layer === name).flatMap((layer) => layer.tuplets),
-        );
-        expect(tuplets.length, `${id} ${name}`).toBeGreaterThan(4);
-        // Gould, "Behind Bars", ch. "Tuplets" (from memory): once the pattern is established
-        // the numbers may be dropped, "sim." after the first.
-        expect(tuplets.filter((t) => t.shown).length, `${id} ${name}`).toBe(1);
-        expect(tuplets[0], `${id} ${name}`).toMatchObject({ shown: true, simile: true });
+      for (const seed of ['lesson-12', 'cedar-5', 'moss-21']) {
+        const bars = buildNotation(generateDrill(parseRuleCard(preset(id).card), seed)).bars;
+        for (const name of ['hands', 'feet'] as const) {
+          const layers = bars.flatMap((bar) => bar.layers.filter((l) => l.layer === name));
+          const groups = layers.flatMap((layer) =>
+            layer.tuplets.map((t, i) => ({ t, layer, next: layer.tuplets[i + 1] })),
+          );
+          const where = `${id} ${seed} ${name}`;
+          // Gould, "Behind Bars", ch. "Tuplets" (from memory): numbers may be dropped once the
+          // pattern is established, but only where unambiguous. Five sixteenths (notes or
+          // rests) count themselves; four or fewer values read as plain sixteenths.
+          for (const { t, layer } of groups) {
+            const sixteenths = t.events.every((i) => layer.events[i]!.duration.value === 16);
+            if (!t.shown) expect(t.events.length === 5 && sixteenths, where).toBe(true);
+            if (t.events.length < 5) expect(t.shown, where).toBe(true);
+          }
+          const similes = groups.filter(({ t }) => t.simile);
+          expect(similes.length, where).toBeLessThanOrEqual(1);
+          if (name === 'hands') expect(similes.length, where).toBe(1);
+          // "Sim." stands over the next beat: that beat is a group of five, never a plain rest.
+          for (const { t, layer, next } of similes) {
+            expect(t.shown, where).toBe(true);
+            expect(next?.events[0], where).toBe(t.events.at(-1)! + 1);
+            expect(next!.events.length, where).toBe(5);
+            expect(layer.events[next!.events[0]!]!.duration.value, where).toBe(16);
+          }
+          // Before "sim." every number is shown.
+          const at = groups.findIndex(({ t }) => t.simile);
+          const before = at < 0 ? groups : groups.slice(0, at);
+          expect(
+            before.every(({ t }) => t.shown),
+            where,
+          ).toBe(true);
+        }
       }
     }
+  });
+
+  it('keeps the "5" on a kick group with a combined rest, after the hands\' "sim."', () => {
+    const hands = [1, 2, 3, 4].flatMap((b) => [0, 1, 2, 3, 4].map((s) => hit(b, s, 'hihat')));
+    // Kick on 1 and "ti" of every beat: a sixteenth, rests at 1–3, a sixteenth.
+    const feet = [1, 2, 3, 4].flatMap((b) => [hit(b, 0, 'kick'), hit(b, 4, 'kick')]);
+    const model = buildNotation(drillOf([5, 5, 5, 5], [...hands, ...feet]));
+    const [handsBar, feetBar] = model.bars[0]!.layers;
+    expect(handsBar!.tuplets.map((t) => [t.shown, t.simile])).toEqual([
+      [true, true],
+      [false, false],
+      [false, false],
+      [false, false],
+    ]);
+    expect(feetBar!.tuplets.every((t) => t.events.length < 5 && t.shown && !t.simile)).toBe(true);
   });
 
   // Gould, "Behind Bars", ch. "Tuplets" (from memory): where one beam joins exactly the tuplet's

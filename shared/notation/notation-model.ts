@@ -89,8 +89,8 @@ export interface NotationTuplet {
   readonly events: readonly number[];
   /**
    * Whether the bracket and its number are printed. In a drill in quintuplets (sextuplets,
-   * septuplets) throughout only the first is, followed by "sim." (see `simile`); the others
-   * still time their notes. Triplets keep every number (see `keepsNumber`).
+   * septuplets) throughout, after "sim." only the groups that do not count themselves are (see
+   * `simileTuplets`); the others still time their notes. Triplets keep every number (see `keepsNumber`).
    */
   readonly shown: boolean;
   /** "sim." follows this bracket: the ones after it are understood. */
@@ -184,33 +184,47 @@ export function buildNotation(drill: NotationSource): NotationModel {
 
 /**
  * A drill in one tuplet throughout (every beat in five, or in six or seven) writes its number
- * once in each voice, on that voice's first bracketed beat, then "sim.",
- * rather than a number on every beat of both voices (E. Gould, "Behind Bars", Faber Music 2011,
- * ch. "Tuplets": once a tuplet pattern is established in a part the numbers may be dropped, with
- * "sim." after the first ones; from memory). "Sim." rather than a number at the start of each
- * system: the model knows no systems, and the screen, the phone and the page break the same
- * drill differently, so one marking read once serves all three. Each voice is a part of its own
- * here: a marking over the hands alone would say nothing of the kick. Other drills keep every
- * number, and so do triplets (see `keepsNumber`).
+ * on each voice's groups until "sim." is marked, then only where a group does not count itself
+ * (E. Gould, "Behind Bars", Faber Music 2011, ch. "Tuplets": once a tuplet pattern is
+ * established the numbers may be dropped, but only where that is unambiguous; from memory).
+ * A group counts itself when it writes all its values one by one (five sixteenths, notes or
+ * rests): a group with a combined rest or a longer value shows four or fewer and reads as plain
+ * sixteenths without its "5". "Sim." follows the first group that is followed at once by a
+ * group of the voice that counts itself, so it never stands over a plain rest it could be read with. "Sim." rather
+ * than a number at the start of each system: the model knows no systems, and the screen, the
+ * phone and the page break the same drill differently. Each voice is a part of its own here: a
+ * marking over the hands alone would say nothing of the kick. Other drills keep every number,
+ * and so do triplets (see `keepsNumber`).
  */
 function simileTuplets(bars: NotationBar[]): NotationBar[] {
   const first = bars[0]?.beats[0]?.subdivision ?? 1;
   const tuplet = (first & (first - 1)) !== 0;
   const uniform = bars.every((bar) => bar.beats.every((beat) => beat.subdivision === first));
   if (!tuplet || !uniform) return bars;
-  const done = new Set<string>();
+  const marked = new Set<string>();
   return bars.map((bar) => ({
     ...bar,
     layers: bar.layers.map((layer) => ({
       ...layer,
-      tuplets: layer.tuplets.map((tuplet) => {
+      tuplets: layer.tuplets.map((tuplet, i) => {
         if (keepsNumber(tuplet)) return tuplet;
-        const lead = !done.has(layer.layer);
-        done.add(layer.layer);
-        return { ...tuplet, shown: lead, simile: lead };
+        if (marked.has(layer.layer))
+          return { ...tuplet, shown: !countsItself(tuplet), simile: false };
+        const next = layer.tuplets[i + 1];
+        const followed =
+          next !== undefined &&
+          next.events[0] === tuplet.events[tuplet.events.length - 1]! + 1 &&
+          countsItself(next);
+        if (followed) marked.add(layer.layer);
+        return { ...tuplet, shown: true, simile: followed };
       }),
     })),
   }));
+}
+
+/** Whether a group writes every value of its tuplet one by one (five sixteenths under a "5"). */
+function countsItself(tuplet: NotationTuplet): boolean {
+  return tuplet.events.length === tuplet.ratio.numNotes;
 }
 
 /**

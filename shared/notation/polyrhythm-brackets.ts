@@ -1,6 +1,6 @@
 /**
  * Draws the polyrhythm grouping marks (see `polyrhythmGroups`): a dashed line over (or under)
- * the cycle's notes with short hooks at its ends and its label ("4 vs 3") in a gap at its middle.
+ * the cycle, from its first note to the end of its last beat, with short hooks at its ends and its label ("4 vs 3") in a gap at its middle.
  * Dashed and without a ratio, so it is not read as a tuplet bracket (the notes under it are
  * written at their real values). A cycle that runs onto the next system is drawn in two pieces,
  * the label on the first, the open ends without hooks.
@@ -28,16 +28,21 @@ const HOOK = 6;
 const LABEL_SIZE = 13;
 const PAD = 3;
 
+/**
+ * `boxes` are keyed by instant, `beatEnds` by `${bar}:${beat}`: where each beat's area ends (the
+ * bar line for a bar's last beat), so a cycle's line runs through its last note's value.
+ */
 export function drawPolyrhythmBrackets(
   ctx: SVGContext,
   groups: readonly PolyrhythmGroup[],
   boxes: ReadonlyMap<string, InstantBox>,
+  beatEnds: ReadonlyMap<string, InstantBox>,
   systems: readonly SystemBand[],
 ): void {
   for (const group of groups) {
     const key = (n: { bar: number; beat: number; slot: number }) => `${n.bar}:${n.beat}:${n.slot}`;
     const first = boxes.get(key(group.notes[0]!));
-    const last = boxes.get(key(group.notes[group.notes.length - 1]!));
+    const last = beatEnds.get(`${group.lastBeat.bar}:${group.lastBeat.beat}`);
     if (!first || !last) continue;
     const element = ctx.openGroup();
     element.setAttribute('class', 'tensile-polyrhythm');
@@ -47,7 +52,7 @@ export function drawPolyrhythmBrackets(
       const band = systems[system];
       if (!band) continue;
       const from = system === first.system ? first.left - PAD : band.left;
-      const to = system === last.system ? last.right + PAD : band.right;
+      const to = system === last.system ? last.right - PAD : band.right;
       const y = group.below ? band.belowY : band.aboveY;
       const hookDir = group.below ? -1 : 1;
       piece(ctx, from, to, y, hookDir, {

@@ -1,6 +1,7 @@
 /**
  * The polyrhythm's own grouping on the page: each cycle of a `polyrhythm` rule (4 even notes
- * over 3 beats) gets a grouping line labelled "4 vs 3" spanning exactly the cycle's notes, so the
+ * over 3 beats) gets a grouping line labelled "4 vs 3" from the cycle's first note to the end of
+ * its last beat (where its last note's value ends, as a bracket spans its notes' durations), so the
  * four can be seen among the grid's notes. The notes are already written at their real values,
  * so the mark carries no ratio: a "4:3" bracket tells a reader to play its notes as a tuplet
  * (E. Gould, "Behind Bars", Faber Music 2011, ch. "Tuplets"; from memory), which would double the
@@ -22,6 +23,8 @@ export interface PolyrhythmGroup {
   /** "4 vs 3": `against` notes in the time of `span` beats (a label, never a tuplet ratio). */
   readonly label: string;
   readonly notes: readonly DrillInstant[];
+  /** The cycle's last beat: the bracket runs to its end, where the last note's value ends. */
+  readonly lastBeat: { readonly bar: number; readonly beat: number };
   /** The bracket goes under the staff for a stream of feet alone, else over it. */
   readonly below: boolean;
 }
@@ -60,8 +63,18 @@ export function polyrhythmGroups(
         if (!at || !struck(bars, at, voice)) break;
         notes.push(at);
       }
+      const end = start + span - 1;
+      const lastBeat = {
+        bar: bars[Math.floor(end / beatsPerBar)]!.bar,
+        beat: (end % beatsPerBar) + 1,
+      };
       if (notes.length === against)
-        groups.push({ label: `${against} vs ${span}`, notes, below: voices.every(isFoot) });
+        groups.push({
+          label: `${against} vs ${span}`,
+          notes,
+          lastBeat,
+          below: voices.every(isFoot),
+        });
     }
   }
   return groups;

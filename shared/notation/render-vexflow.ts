@@ -669,7 +669,7 @@ function* engrave(
     yield;
   }
   ctx.openGroup().setAttribute('class', BRACKETS_CLASS);
-  drawPolyrhythmBrackets(ctx, model.polyrhythms, instants, bands);
+  drawPolyrhythmBrackets(ctx, model.polyrhythms, instants, beatEnds(boxes), bands);
   ctx.closeGroup();
   const height = head + plans.length * (systemHeight + gap + separation) - separation;
   // A bar alone on a line too narrow even for its tightest setting (a dense bar on a phone)
@@ -733,6 +733,17 @@ function highestMark(bars: readonly EngravedBar[], topLineY: number): number {
 const POLYRHYTHM_BELOW = 52;
 
 /** The horizontal extent of the notes at each instant of a drawn bar. */
+/** Where each beat's area ends, keyed `${bar}:${beat}`: a bar's last beat at its bar line. */
+function beatEnds(boxes: readonly BarBox[]): Map<string, InstantBox> {
+  const ends = new Map<string, InstantBox>();
+  for (const box of boxes)
+    box.beats.forEach((beat, i) => {
+      const right = i === box.beats.length - 1 ? box.x + box.width : beat.x + beat.width;
+      ends.set(`${box.bar}:${beat.beat}`, { left: beat.x, right, system: box.system });
+    });
+  return ends;
+}
+
 function recordInstants(
   into: Map<string, InstantBox>,
   bar: number,

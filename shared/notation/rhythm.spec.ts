@@ -103,6 +103,14 @@ describe('spellBeat: simplest readable spelling (common practice)', () => {
     [5, [0, 2, 4], '16 r16 16 r16 16'],
     [5, [0, 2, 3], '16 r16 16 16 r16'],
     [5, [1, 3], 'r16 16 r16 16 r16'],
+    // Its rests combine inside its 2+3 (or 3+2) groups, never across them (Gould, ch.
+    // "Tuplets", from memory; a three-sixteenth group's sixteenth and eighth rest: common
+    // practice).
+    [5, [0, 3], '16 r8 16 r16'],
+    [5, [0, 2], '16 r16 16 r8'],
+    [5, [0, 1, 3], '16 16 r16 16 r16'],
+    [5, [0, 4], '16 r16 r8 16'],
+    [5, [1], 'r16 16 r8 r16'],
     [6, [0, 3], '8 8'],
     [6, [0, 2, 4], '8 8 8'],
     [6, [0, 1, 2, 3, 4, 5], '16 16 16 16 16 16'],

@@ -75,6 +75,10 @@ export function spellBeat(
     // practice). A sextuplet's rests stay one a slot: its 3+3 halves would be hidden by an
     // eighth rest across slots 2 and 3.
     const combine = grid % 2 === 1;
+    if (grid === 5) {
+      pushQuintupletEvents(events, slots, base, beatUnit);
+      return { grid, tuplet, events };
+    }
     let slot = 0;
     while (slot < grid) {
       if (slots.includes(slot)) {
@@ -107,6 +111,44 @@ export function spellBeat(
     pushRests(events, slot + length, next, base, beatUnit);
   });
   return { grid, tuplet, events };
+}
+
+/**
+ * A quintuplet is read in two groups, 2+3, or 3+2 where a note on its fourth value (and none on
+ * its third) starts the second group (E. Gould, "Behind Bars", Faber Music 2011, ch. "Tuplets":
+ * an irregular tuplet is beamed and spelled in its inner groups as the rhythm shows them; from
+ * memory). Neighbouring rests combine into an eighth inside one group, never across the two,
+ * as a group of three sixteenths writes a sixteenth and an eighth rest (common practice); so a
+ * kick on "ta" and "mi" reads sixteenth, eighth rest | sixteenth, sixteenth rest. Never longer
+ * than an eighth (see `TUPLET_REST_SLOTS`).
+ */
+function pushQuintupletEvents(
+  events: RhythmEvent[],
+  slots: readonly number[],
+  base: number,
+  beatUnit: number,
+): void {
+  const split = slots.includes(3) && !slots.includes(2) ? 3 : 2;
+  for (const [from, to] of [
+    [0, split],
+    [split, 5],
+  ] as const) {
+    let slot = from;
+    while (slot < to) {
+      let length = 1;
+      if (!slots.includes(slot))
+        while (length < TUPLET_REST_SLOTS && slot + length < to && !slots.includes(slot + length))
+          length++;
+      const kind = slots.includes(slot) ? 'note' : 'rest';
+      events.push({
+        kind,
+        gridSlot: slot,
+        length,
+        duration: writtenDuration(length, base, beatUnit),
+      });
+      slot += length;
+    }
+  }
 }
 
 /** One group of beats of a grouped eighth meter, spelled as one unit (see `spellGroup`). */

@@ -175,13 +175,18 @@ describe('drill page notation (Chromium)', () => {
         expect(bracketed).toEqual([]);
       } else if (inOneTupletThroughout(drill, tuplet)) {
         // E. Gould, "Behind Bars", ch. "Tuplets" (from memory): once the pattern is set in a
-        // part, its numbers give way to "sim."; each voice with tuplets is such a part.
+        // part, its numbers give way to "sim." where that is unambiguous; each voice with
+        // tuplets is such a part, and a group written in fewer values than its tuplet keeps
+        // its number (checked on the model in engraving-rules.spec.ts).
         const parts = [engraving.tuplets.hands, engraving.tuplets.feet].filter(
           (_, i) => bracketsDue(drill, tuplet, i === 0) > 0,
         ).length;
         expect(parts).toBeGreaterThan(0);
-        expect(bracketed).toEqual(Array.from({ length: parts }, () => String(tuplet)));
-        expect(await page.locator('tensile-drill-score svg .tensile-simile').count()).toBe(parts);
+        expect(bracketed.length).toBeGreaterThanOrEqual(parts);
+        expect(bracketed.every((t) => t === String(tuplet))).toBe(true);
+        const similes = await page.locator('tensile-drill-score svg .tensile-simile').count();
+        expect(similes).toBeGreaterThan(0);
+        expect(similes).toBeLessThanOrEqual(parts);
       } else {
         // One bracket per beat with a voice layer on the tuplet grid, counted from the drill.
         const due = bracketsDue(drill, tuplet, true) + bracketsDue(drill, tuplet, false);
@@ -460,9 +465,10 @@ describe('engraving rules on the drawn score (Chromium)', () => {
         for (const layer of ['hands', 'feet'] as const) {
           for (const beat of [1, 2, 3, 4]) {
             // E. Gould, "Behind Bars", ch. "Tuplets" (from memory): a tuplet is written in its
-            // own note value; neighbouring rests combine as in the plain grouping of those
-            // values, each starting on a multiple of its own length, but only up to an eighth:
-            // a quarter rest under the 5 reads as a whole beat's rest (common practice). Every
+            // own note value; neighbouring rests combine inside its inner groups (2+3, or 3+2
+            // where a note on the fourth value and none on the third starts the second), but
+            // only up to an eighth: a quarter rest under the 5 reads as a whole beat's rest
+            // (common practice). Every
             // beat with an off-beat note is a quintuplet, its number shown or under "sim.".
             const events = bar.layers[layer].events.filter((e) => e.beat === beat);
             const struck = new Set(
@@ -473,6 +479,8 @@ describe('engraving rules on the drawn score (Chromium)', () => {
             if (![...struck].some((slot) => slot !== 0)) continue;
             const what = `${id} bar ${bar.bar} ${layer} beat ${beat}`;
             const length = (e: (typeof events)[number]) => 16 / Number(e.duration);
+            const split = struck.has(3) && !struck.has(2) ? 3 : 2;
+            const group = (slot: number) => (slot < split ? 0 : 1);
             let at = 0;
             for (const [k, e] of events.entries()) {
               expect(e.slot, what).toBe(at);
@@ -481,11 +489,13 @@ describe('engraving rules on the drawn score (Chromium)', () => {
                 expect(struck.has(at), what).toBe(true);
               } else {
                 expect(['16', '8'], what).toContain(e.duration);
-                expect(at % length(e), `${what}: rest on a multiple of itself`).toBe(0);
+                expect(group(at + length(e) - 1), `${what}: rest across the groups`).toBe(
+                  group(at),
+                );
                 for (let s = at; s < at + length(e); s++) expect(struck.has(s), what).toBe(false);
                 const next = events[k + 1];
                 if (next?.kind === 'rest' && next.duration === e.duration && e.duration === '16')
-                  expect(at % (2 * length(e)), `${what}: rests left uncombined`).not.toBe(0);
+                  expect(group(at + 1), `${what}: rests left uncombined`).not.toBe(group(at));
               }
               at += length(e);
             }
@@ -612,7 +622,7 @@ describe('engraving rules on the drawn score (Chromium)', () => {
     }
   });
 
-  it('groups each 4:3 cycle under "4 vs 3", no ratio, from its first note to its last', async () => {
+  it('groups each 4:3 cycle under "4 vs 3", no ratio, from its first note to the bar line', async () => {
     const drill = presetDrill('four-over-three', 'lesson-12');
     const score = await engrave(drill, { width: 1100, ...FULL });
     const cycles = buildNotation(drill).polyrhythms;
@@ -625,8 +635,9 @@ describe('engraving rules on the drawn score (Chromium)', () => {
       // Music 2011, ch. "Tuplets", from memory). "4 vs 3" as a label: common practice.
       expect(bracket.label).toBe('4 vs 3');
       expect(bracket.label).not.toMatch(/\d\s*:\s*\d/);
-      // The mark spans exactly the cycle's notes: its ends sit just outside the first and last
-      // notehead.
+      // The mark spans the cycle's notes' whole durations: it starts just outside the first
+      // notehead and ends at the bar line where the fourth note's value ends (a bracket covers
+      // the full length of its group; Gould, ch. "Tuplets", from memory).
       const head = (at: { bar: number; beat: number; slot: number }) => {
         const bar = score.bars.find((b) => b.bar === at.bar)!;
         return [...bar.layers.hands.events, ...bar.layers.feet.events].find(
@@ -635,10 +646,12 @@ describe('engraving rules on the drawn score (Chromium)', () => {
       };
       const first = head(cycle.notes[0]!);
       const last = head(cycle.notes[3]!);
+      const barLine = score.bars.find((b) => b.bar === cycle.lastBeat.bar)!.right;
       expect(bracket.left).toBeLessThanOrEqual(first.left);
       expect(first.left - bracket.left).toBeLessThan(8);
-      expect(bracket.right).toBeGreaterThanOrEqual(last.right);
-      expect(bracket.right - last.right).toBeLessThan(8);
+      expect(bracket.right).toBeGreaterThan(last.right + 8);
+      expect(bracket.right).toBeLessThanOrEqual(barLine);
+      expect(barLine - bracket.right).toBeLessThan(8);
     }
   });
 
