@@ -70,6 +70,22 @@ describe('rule oracle: presets at 20 seeds', () => {
     expect(loud, 'notes the summary calls ghosts, played louder').toEqual([]);
   });
 
+  // A snare note the generator adds between the time's strokes is a ghost or a deliberate accent,
+  // never a plain full stroke (common practice: between ghost notes a full-strength snare reads as
+  // a stray backbeat; the embellishment is either a tap or a marked accent).
+  it('snare fill notes are ghosts or accents', () => {
+    const plain: string[] = [];
+    for (const preset of BUILT_IN_PRESETS) {
+      const parsed = parseRuleCard(preset.card);
+      for (const seed of SEEDS)
+        for (const bar of generateDrill(parsed, seed).bars)
+          for (const h of bar.hits)
+            if (h.source === 'fill' && h.voice === 'snare' && h.dynamic === 'normal')
+              plain.push(`${preset.id} ${seed} bar ${bar.bar} ${h.beat}.${h.slot}`);
+    }
+    expect(plain, 'snare fill notes at plain full strength').toEqual([]);
+  });
+
   // A phrase's fill varies with the seed where its window holds more strokes than two for each of
   // its voices (common practice: a teacher hands out more than one fill for a groove; the order
   // high to low and the pairs stay, how many pairs each drum takes may change).
