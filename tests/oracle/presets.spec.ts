@@ -94,11 +94,12 @@ describe('rule oracle: presets at 20 seeds', () => {
     const busy: string[] = [];
     let grooves = 0;
     for (const preset of BUILT_IN_PRESETS) {
-      if (!/eighth-note groove/i.test(preset.summary) || preset.card.meter?.unit !== 4) continue;
-      grooves++;
+      if (!/eighth-note groove/i.test(preset.summary)) continue;
       const parsed = parseRuleCard(preset.card);
+      if (parsed.meter.unit !== 4) continue;
+      grooves++;
       const fillBars = new Set(planOf(readCard(preset.card, parsed)).fillBars);
-      const sub = preset.card.subdivision ?? 4;
+      const sub = parsed.subdivision;
       const slotsIn = (beat: number): number => (Array.isArray(sub) ? sub[beat - 1]! : sub);
       for (const seed of SEEDS)
         for (const bar of generateDrill(parsed, seed).bars)
