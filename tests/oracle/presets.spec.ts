@@ -70,6 +70,47 @@ describe('rule oracle: presets at 20 seeds', () => {
     expect(loud, 'notes the summary calls ghosts, played louder').toEqual([]);
   });
 
+  // A snare note the generator adds between the time's strokes is a ghost or a deliberate accent,
+  // never a plain full stroke (common practice: between ghost notes a full-strength snare reads as
+  // a stray backbeat; the embellishment is either a tap or a marked accent).
+  it('snare fill notes are ghosts or accents', () => {
+    const plain: string[] = [];
+    for (const preset of BUILT_IN_PRESETS) {
+      const parsed = parseRuleCard(preset.card);
+      for (const seed of SEEDS)
+        for (const bar of generateDrill(parsed, seed).bars)
+          for (const h of bar.hits)
+            if (h.source === 'fill' && h.voice === 'snare' && h.dynamic === 'normal')
+              plain.push(`${preset.id} ${seed} bar ${bar.bar} ${h.beat}.${h.slot}`);
+    }
+    expect(plain, 'snare fill notes at plain full strength').toEqual([]);
+  });
+
+  // Where the summary promises an eighth-note groove in quarter-note beats, the kick outside the
+  // phrase's fill bars falls on the beat or its "and", never on an "e" or "a" (common practice: a
+  // beginner's eighth-note groove keeps the bass drum on the eighths; sixteenth kicks are the next
+  // step, not part of the same lesson).
+  it('an eighth-note groove keeps its kick on the eighths outside the fill bars', () => {
+    const busy: string[] = [];
+    let grooves = 0;
+    for (const preset of BUILT_IN_PRESETS) {
+      if (!/eighth-note groove/i.test(preset.summary)) continue;
+      const parsed = parseRuleCard(preset.card);
+      if (parsed.meter.unit !== 4) continue;
+      grooves++;
+      const fillBars = new Set(planOf(readCard(preset.card, parsed)).fillBars);
+      const sub = parsed.subdivision;
+      const slotsIn = (beat: number): number => (Array.isArray(sub) ? sub[beat - 1]! : sub);
+      for (const seed of SEEDS)
+        for (const bar of generateDrill(parsed, seed).bars)
+          for (const h of bar.hits)
+            if (h.voice === 'kick' && !fillBars.has(bar.bar) && (2 * h.slot) % slotsIn(h.beat) !== 0)
+              busy.push(`${preset.id} ${seed} bar ${bar.bar} ${h.beat}.${h.slot}`);
+    }
+    expect(grooves, 'presets that promise an eighth-note groove').toBeGreaterThan(0);
+    expect(busy, 'kicks between the eighths of an eighth-note groove').toEqual([]);
+  });
+
   // A phrase's fill varies with the seed where its window holds more strokes than two for each of
   // its voices (common practice: a teacher hands out more than one fill for a groove; the order
   // high to low and the pairs stay, how many pairs each drum takes may change).
