@@ -104,7 +104,11 @@ describe('rule oracle: presets at 20 seeds', () => {
       for (const seed of SEEDS)
         for (const bar of generateDrill(parsed, seed).bars)
           for (const h of bar.hits)
-            if (h.voice === 'kick' && !fillBars.has(bar.bar) && (2 * h.slot) % slotsIn(h.beat) !== 0)
+            if (
+              h.voice === 'kick' &&
+              !fillBars.has(bar.bar) &&
+              (2 * h.slot) % slotsIn(h.beat) !== 0
+            )
               busy.push(`${preset.id} ${seed} bar ${bar.bar} ${h.beat}.${h.slot}`);
     }
     expect(grooves, 'presets that promise an eighth-note groove').toBeGreaterThan(0);
