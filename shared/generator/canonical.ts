@@ -43,6 +43,7 @@ export function canonicalCard(card: RawRuleCard | RuleCard): RuleCard {
       dynamic: layer.dynamic,
     })),
     roles: orderedRoles(card),
+    ...(card.fillStep ? { fillStep: orderedSteps(card) } : {}),
     hand,
     sticking: {
       lead: card.sticking?.lead ?? hand,
@@ -60,6 +61,19 @@ function orderedRoles(card: RawRuleCard | RuleCard): RuleCard['roles'] {
   const roles = rolesOf(card);
   const out: Partial<Record<VoiceId, (typeof roles)[VoiceId]>> = {};
   for (const voice of card.voices) out[voice] = roles[voice];
+  return out;
+}
+
+/** Fill steps keyed in the card's voice order (a step of 1 is no limit and is left out). */
+function orderedSteps(card: RawRuleCard | RuleCard): NonNullable<RuleCard['fillStep']> {
+  const out: Partial<Record<VoiceId, number>> = {};
+  for (const voice of card.voices) {
+    const step = card.fillStep?.[voice];
+    if (step !== undefined && step > 1) out[voice] = step;
+  }
+  for (const [voice, step] of Object.entries(card.fillStep ?? {}))
+    if (!(voice in out) && !card.voices.includes(voice as VoiceId) && step !== undefined)
+      out[voice as VoiceId] = step;
   return out;
 }
 

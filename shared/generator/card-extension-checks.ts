@@ -61,6 +61,13 @@ export function checkExtensions(card: RuleCard, grid: Grid, issues: RuleCardIssu
       message: `The roles name the ${voiceWord(voice)}, which is not among the card's voices (${cardVoices}).`,
     });
   }
+  for (const voice of Object.keys(card.fillStep ?? {})) {
+    if (card.voices.includes(voice as (typeof card.voices)[number])) continue;
+    issues.push({
+      path: `fillStep.${voice}`,
+      message: `The fill steps name the ${voiceWord(voice)}, which is not among the card's voices (${cardVoices}).`,
+    });
+  }
   if (card.swing) checkSwing(card, grid, issues);
 }
 

@@ -91,3 +91,53 @@ describe('drill difficulty', () => {
     expect(scores[19]).toBeLessThanOrEqual(4);
   });
 });
+
+describe('drill difficulty: the feel', () => {
+  const feel = (over: Record<string, unknown>) =>
+    generateDrill(groove(over), 'feel').difficulty.factors.feel;
+
+  // Odd tuplets read and play harder than sixteenths at the same rate (common practice).
+  it('adds points for notes inside a quintuplet or septuplet beat, not for sixteenths', () => {
+    expect(feel({ subdivision: 5, ostinato: { voice: 'hihat', slots: [0, 2, 4] } })).toBe(2);
+    expect(feel({ subdivision: 7, ostinato: { voice: 'hihat', slots: [0, 2, 4] } })).toBe(2);
+    expect(feel({ subdivision: 4 })).toBe(0);
+  });
+
+  // 4 over 3 is felt against the beat; 2 over 4 and 6 over 3 fall on beats and halves.
+  it('adds points for a cross-rhythm only', () => {
+    const poly = (against: number, span: number) =>
+      feel({
+        meter: { beats: span === 3 ? 3 : 4, unit: 4 },
+        subdivision: 4,
+        rules: [{ kind: 'polyrhythm', voices: ['kick'], against, span }],
+      });
+    expect(poly(4, 3)).toBe(2);
+    expect(poly(2, 4)).toBe(0);
+    expect(poly(6, 3)).toBe(0);
+  });
+
+  it('adds a point for an uneven grouping and one for a snare backbeat moved off 2 and 4', () => {
+    expect(
+      feel({
+        meter: { beats: 7, unit: 8 },
+        subdivision: 2,
+        ostinato: { voice: 'hihat', slots: [0] },
+        rules: [],
+      }),
+    ).toBe(1);
+    expect(
+      feel({
+        meter: { beats: 6, unit: 8 },
+        subdivision: 2,
+        ostinato: { voice: 'hihat', slots: [0] },
+        rules: [],
+      }),
+    ).toBe(0);
+    expect(feel({ rules: [{ kind: 'backbeat', voice: 'snare', beats: [2, 4], shift: -1 }] })).toBe(
+      1,
+    );
+    expect(feel({ rules: [{ kind: 'backbeat', voice: 'snare', beats: [1, 3], shift: 2 }] })).toBe(
+      0,
+    );
+  });
+});

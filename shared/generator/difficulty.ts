@@ -20,6 +20,9 @@ export interface Difficulty {
     /** Share of the instants where something other than the time plays that fall between the
      * time's notes (between the beats when nothing keeps time). */
     readonly independence: number;
+    /** Points added for a feel the rates do not show: odd tuplets, cross-rhythms, uneven
+     * groupings, a displaced backbeat (see `FEEL_POINTS`). */
+    readonly feel: number;
   };
 }
 
@@ -42,9 +45,53 @@ const WEIGHT = {
 };
 
 /**
+ * Points (on the 0–10 score) for what a teacher counts beyond rates and syncopation (common
+ * practice; the sizes are our own, tuned on the presets):
+ * - odd tuplets: notes in a beat split in 5 or 7 are harder to read and to place than sixteenths
+ *   at the same rate, since no eighth or quarter inside the beat guides the hand;
+ * - a cross-rhythm: an even stream against the beat that lands on neither beats nor their halves
+ *   (4 over 3), felt against the pulse rather than on it;
+ * - an uneven grouping (7/8 as 2+2+3): the pulse itself is uneven;
+ * - a displaced backbeat: the snare's backbeat moved off 2 and 4 asks the player to hold the
+ *   beat while the ear hears it elsewhere.
+ */
+export const FEEL_POINTS = { oddTuplet: 2, crossRhythm: 2, unevenGrouping: 1, displaced: 1 };
+
+function feelPoints(drill: Omit<Drill, 'difficulty'>): number {
+  const card = drill.card;
+  let points = 0;
+  const odd = drill.bars.some((bar) =>
+    bar.hits.some((hit) => {
+      const slots = bar.beats[hit.beat - 1] ?? 1;
+      return (slots === 5 || slots === 7) && hit.slot !== 0;
+    }),
+  );
+  if (odd) points += FEEL_POINTS.oddTuplet;
+  const cross = card.rules.some(
+    (rule) =>
+      rule.kind === 'polyrhythm' &&
+      (2 * rule.span) % rule.against !== 0 &&
+      rule.against % rule.span !== 0,
+  );
+  if (cross) points += FEEL_POINTS.crossRhythm;
+  const groups = card.meter.grouping ?? [];
+  if (new Set(groups).size > 1) points += FEEL_POINTS.unevenGrouping;
+  const displaced = card.rules.some(
+    (rule) =>
+      rule.kind === 'backbeat' &&
+      rule.voice === 'snare' &&
+      rule.shift !== 0 &&
+      rule.beats.every((beat) => beat % 2 === 0),
+  );
+  if (displaced) points += FEEL_POINTS.displaced;
+  return points;
+}
+
+/**
  * The drill's difficulty: a weighted sum of its fastest hand and foot, how much of the grid it
  * fills, how syncopated it is and how much of it falls between the time's strokes, each scaled
- * to its reference and capped, times 10. Pure: the drill alone decides it.
+ * to its reference and capped, times 10, plus the feel's points, capped at 10. Pure: the drill
+ * (with its card) alone decides it.
  */
 export function drillDifficulty(drill: Omit<Drill, 'difficulty'>): Difficulty {
   const card = drill.card;
@@ -138,7 +185,8 @@ export function drillDifficulty(drill: Omit<Drill, 'difficulty'>): Difficulty {
   let score = 0;
   for (const name of Object.keys(WEIGHT) as (keyof typeof WEIGHT)[])
     score += WEIGHT[name] * Math.min(1, factors[name] / REFERENCE[name]);
-  const rounded = Math.round(score * 100) / 10;
+  const feel = feelPoints(drill);
+  const rounded = Math.min(100, Math.round(score * 100 + feel * 10)) / 10;
   return {
     score: rounded,
     level: rounded < 3.5 ? 'beginner' : rounded < 6.5 ? 'intermediate' : 'advanced',
@@ -149,6 +197,7 @@ export function drillDifficulty(drill: Omit<Drill, 'difficulty'>): Difficulty {
       density: round2(density),
       syncopation: round2(syncopation),
       independence: round2(independence),
+      feel,
     },
   };
 }

@@ -79,6 +79,7 @@ export function createFillContext(
       for (const v of voices) {
         if (isHandVoice(v) && busy[instant]) continue;
         if (hasVoice(cell, v)) continue;
+        if (!onFillStep(card, grid, v, instant)) continue;
         if (
           embellishing.has(v)
             ? hole && !keptFree.has(instant)
@@ -93,6 +94,15 @@ export function createFillContext(
   const weightsByLean = arrayOf(grid.bars, () => new Map<number, number[]>());
   const limbs = limbWindows(card, grid, ob);
   return { card, grid, ob, budget: overlapBudget(card), options, strength, weightsByLean, limbs };
+}
+
+/**
+ * Whether a fill of `voice` may sit on this instant's slot: a card's `fillStep` keeps a voice's
+ * fills on every n-th slot of the beat (eighth-note kicks under a sixteenth grid).
+ */
+export function onFillStep(card: RuleCard, grid: Grid, voice: VoiceId, instant: number): boolean {
+  const step = card.fillStep?.[voice];
+  return step === undefined || (grid.slotOf[instant % grid.slotsPerBar] ?? 0) % step === 0;
 }
 
 /** The options of a slot that is not free (shared, never written to). */

@@ -282,6 +282,11 @@ export const RawRuleCardSchema = z.strictObject(
         error: 'The roles must map voices to roles, e.g. { "kick": "anchor" }.',
       })
       .optional(),
+    fillStep: z
+      .partialRecord(VoiceIdSchema, wholeNumber('A fill step', 1, 8, ' slots'), {
+        error: 'The fill steps must map voices to a number of slots, e.g. { "kick": 2 }.',
+      })
+      .optional(),
     hand: z
       .enum(['right', 'left'], {
         error: (iss) => `The player's hand must be "right" or "left"${got(iss)}.`,
@@ -328,11 +333,13 @@ export type Ostinato = z.infer<typeof OstinatoSchema>;
 export type Meter = z.infer<typeof MeterSchema>;
 
 /** A validated rule card with every default filled in: what `generateDrill` takes. */
-export type RuleCard = Omit<RawRuleCard, 'rules' | 'roles' | 'sticking'> & {
+export type RuleCard = Omit<RawRuleCard, 'rules' | 'roles' | 'sticking' | 'fillStep'> & {
   readonly rules: readonly Rule[];
   readonly sticking: { readonly lead: 'right' | 'left' | 'alternate'; readonly doubles: boolean };
   /** Every card voice's role (defaults filled in by `canonicalCard`). */
   readonly roles: Readonly<Partial<Record<VoiceId, VoiceRole>>>;
+  /** Fills of these voices only on slots that are multiples of the step (2 = eighths in sixteenths). */
+  readonly fillStep?: Readonly<Partial<Record<VoiceId, number>>>;
 };
 
 /** Rule kinds in the order the drill contract lists them (also the order of their sources). */

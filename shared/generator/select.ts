@@ -137,8 +137,8 @@ const BUSIER_TRIES = 8;
  * The curve is heard as notes too (common practice): on the Longuet-Higgins & Lee measure the
  * tensest bars are often the sparsest, so a peak bar may end up with no more notes than the
  * release. Each bar of the top level that plays no more notes (besides the time) than the
- * busiest bar of the bottom level takes instead the candidate nearest its goal, above the
- * level below it, that does; when none is known, notes are added to its pick one at a time
+ * busiest bar of the bottom level, or fewer than the busiest bar of any level below it (the
+ * build), takes instead the candidate nearest its goal, above the level below it, that does; when none is known, notes are added to its pick one at a time
  * (up to 8, within the work budget) and each fill so far is weighed.
  * The rank order stays as it was.
  */
@@ -162,20 +162,26 @@ function busierPeaks(
   const notes = (bar: number, c: Candidate): number => (fixed[bar] ?? 0) + c.fill.fills.length;
   const picked = (bar: number): Candidate => candidates[bar]?.[picks[bar] ?? 0] as Candidate;
   const calmest = Math.max(...(levels[0] ?? []).map((bar) => notes(bar, picked(bar))));
+  // The peak does not thin out after the build: as many notes as the busiest bar below it.
+  const busiest = Math.max(
+    ...levels.slice(0, -1).flatMap((level) => level.map((bar) => notes(bar, picked(bar)))),
+  );
+  const enough = (bar: number, c: Candidate): boolean =>
+    notes(bar, c) > calmest && notes(bar, c) >= busiest;
   const floor = Math.max(...(levels[levels.length - 2] ?? []).map((bar) => picked(bar).units));
   for (const bar of levels[levels.length - 1] ?? []) {
     const cands = candidates[bar] ?? [];
     const choose = (): number => {
       let pick = -1;
       cands.forEach((c, k) => {
-        if (c.units <= floor || notes(bar, c) <= calmest) return;
+        if (c.units <= floor || !enough(bar, c)) return;
         const off = Math.abs(c.units - (goals[bar] ?? 0));
         if (pick < 0 || off < Math.abs((cands[pick] as Candidate).units - (goals[bar] ?? 0)))
           pick = k;
       });
       return pick;
     };
-    if (notes(bar, picked(bar)) > calmest) continue;
+    if (enough(bar, picked(bar))) continue;
     let pick = choose();
     // Notes added one at a time to the pick, until one of the fills so far will do.
     let from: BarFill | null = (cands[picks[bar] ?? 0] as Candidate).fill;

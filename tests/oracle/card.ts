@@ -111,6 +111,8 @@ export interface OracleCard {
   /** The ostinato (first, when there is one) and every layer. */
   readonly timeLayers: readonly TimeLayer[];
   readonly roles: ReadonlyMap<Voice, Role>;
+  /** docs/engine.md "Fill steps": a voice's fills only on slots of the beat that are multiples. */
+  readonly fillStep: ReadonlyMap<Voice, number>;
   readonly hand: 'right' | 'left';
   /** docs/engine.md "Sticking": the lead defaults to the player's hand. */
   readonly lead: 'right' | 'left' | 'alternate';
@@ -184,6 +186,10 @@ export function readCard(written: unknown, normalised: unknown): OracleCard {
     else if (v === 'crash') role = 'colour';
     roles.set(v, (written_roles[v] as Role | undefined) ?? role);
   }
+
+  const fillStep = new Map<Voice, number>();
+  for (const [v, step] of Object.entries(obj(w['fillStep'])))
+    if (typeof step === 'number' && step > 1) fillStep.set(v as Voice, step);
 
   const rules: OracleRule[] = ((w['rules'] as unknown[] | undefined) ?? []).map((r) => {
     const rule = obj(r);
@@ -261,6 +267,7 @@ export function readCard(written: unknown, normalised: unknown): OracleCard {
     ostinato,
     timeLayers,
     roles,
+    fillStep,
     hand,
     lead: lead === 'left' || lead === 'right' || lead === 'alternate' ? lead : hand,
     doubles: sticking['doubles'] === true,

@@ -66,6 +66,7 @@ export const DRILL_CHECKS = [
   'euclid',
   'linear',
   'fillHoles',
+  'fillStep',
   'roles/no-fill-in-time-or-colour',
   'roles/colour-on-landings-only',
   'roles/no-embellishment-on-free-downbeat',
@@ -346,6 +347,12 @@ export function checkDrill(plan: Plan, drill: DrillLike): Violation[] {
   for (const h of hits) {
     const role = card.roles.get(h.voice as Voice);
     if (h.source === 'fill') {
+      const step = card.fillStep.get(h.voice as Voice) ?? 1;
+      if (h.slot % step !== 0)
+        out.push({
+          check: 'fillStep',
+          message: `fill ${h.voice} at ${at(h.index)}, between its fill steps (every ${step} slots)`,
+        });
       if (fillHolesVoices.has(h.voice as Voice) && ostinatoPlays(h.index))
         out.push({
           check: 'fillHoles',

@@ -213,6 +213,7 @@ export function fillableSlots(plan: Plan): Set<number> {
     if (plan.movedHomes.has(i)) continue;
     for (const v of fillable) {
       if (wanted.some((w) => w.voice === v)) continue;
+      if (grid.place(i).slot % (card.fillStep.get(v) ?? 1) !== 0) continue;
       if (embellishing(v)) {
         if (!ostinatoAt(i) && !plan.freeDownbeats.has(i)) {
           open.add(i);

@@ -115,6 +115,70 @@ describe('rule oracle: presets at 20 seeds', () => {
     expect(busy, 'kicks between the eighths of an eighth-note groove').toEqual([]);
   });
 
+  // A card's `fillStep` (docs/engine.md, Fill steps) keeps a voice's fills on every n-th slot of
+  // the beat, read here from the card as written: with kicks on the eighths only, the displaced
+  // snare is the one sixteenth the ear follows (common practice: the kick of a beginner's or
+  // intermediate displacement groove stays on the eighths until the snare sits).
+  it('a voice with a fill step never takes a fill between its steps', () => {
+    const off: string[] = [];
+    const stepped: string[] = [];
+    for (const preset of BUILT_IN_PRESETS) {
+      const steps = (preset.card as { fillStep?: Record<string, number> }).fillStep;
+      if (!steps) continue;
+      stepped.push(preset.id);
+      const parsed = parseRuleCard(preset.card);
+      for (const seed of SEEDS)
+        for (const bar of generateDrill(parsed, seed).bars)
+          for (const h of bar.hits) {
+            const step = steps[h.voice];
+            if (h.source === 'fill' && step !== undefined && h.slot % step !== 0)
+              off.push(`${preset.id} ${seed} bar ${bar.bar} ${h.beat}.${h.slot} ${h.voice}`);
+          }
+    }
+    expect(stepped).toEqual(
+      expect.arrayContaining(['early-backbeat', 'late-backbeat-over-the-bar-line']),
+    );
+    expect(off, "fills between their voice's steps").toEqual([]);
+  });
+
+  // A linear groove with toms on the card moves round the kit with the hands: the sixteenths
+  // between the eighths go mostly to the hands, and the toms are heard in most bars (common
+  // practice: a linear groove is led by the hands, the kick placed between them; one whose
+  // in-between notes fall mostly to the kick is a bass-drum exercise).
+  it('a linear preset with toms plays its in-between sixteenths mostly with the hands', () => {
+    const thin: string[] = [];
+    let linear = 0;
+    for (const preset of BUILT_IN_PRESETS) {
+      const written = preset.card as { voices?: string[]; rules?: { kind: string }[] };
+      const toms = (written.voices ?? []).filter((v) => v.startsWith('tom'));
+      if (!written.rules?.some((r) => r.kind === 'linear') || toms.length === 0) continue;
+      linear++;
+      const parsed = parseRuleCard(preset.card);
+      let hands = 0;
+      let feet = 0;
+      let tomNotes = 0;
+      let bars = 0;
+      for (const seed of SEEDS)
+        for (const bar of generateDrill(parsed, seed).bars) {
+          bars++;
+          for (const h of bar.hits) {
+            if (toms.includes(h.voice)) tomNotes++;
+            // Odd slots of a sixteenth beat: the "e" and the "a".
+            if (bar.beats[h.beat - 1] === 4 && h.slot % 2 === 1) {
+              if (h.voice === 'kick' || h.voice === 'hihatFoot') feet++;
+              else hands++;
+            }
+          }
+        }
+      if (hands < 2 * feet || tomNotes < 2 * bars)
+        thin.push(
+          `${preset.id}: hands ${hands}, feet ${feet} on "e" and "a"; ${tomNotes} toms in ${bars} bars`,
+        );
+    }
+    expect(linear).toBeGreaterThan(0);
+    expect(thin).toEqual([]);
+  });
+
   // A phrase's fill varies with the seed where its window holds more strokes than two for each of
   // its voices (common practice: a teacher hands out more than one fill for a groove; the order
   // high to low and the pairs stay, how many pairs each drum takes may change).

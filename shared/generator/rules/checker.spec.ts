@@ -215,3 +215,42 @@ describe('checkDrill: busy feet', () => {
     );
   });
 });
+
+describe('checkDrill: fill steps', () => {
+  it('catches a fill kick between its steps', () => {
+    const eighths = parseRuleCard({
+      bars: 2,
+      tempo: 80,
+      voices: ['kick', 'snare', 'hihat'],
+      ostinato: { voice: 'hihat', slots: [0, 2] },
+      fillStep: { kick: 2 },
+      density: 0.6,
+      rules: [{ kind: 'backbeat', voice: 'snare', beats: [2, 4] }],
+    });
+    const made = generateDrill(eighths, 'steps');
+    expect(checkDrill(eighths, made)).toEqual([]);
+    const bar = made.bars[0]!;
+    const beat = 3;
+    const kick: DrillHit = {
+      beat,
+      slot: 1,
+      voice: 'kick',
+      dynamic: 'normal',
+      hand: null,
+      source: 'fill',
+    };
+    const hits = [...bar.hits.filter((h) => !(h.beat === beat && h.slot === 1)), kick].sort(
+      (a, b) => a.beat - b.beat || a.slot - b.slot || (a.voice < b.voice ? -1 : 1),
+    );
+    const broken = { ...made, bars: [{ ...bar, hits }, ...made.bars.slice(1)] };
+    const found = checkDrill(eighths, broken).filter((v) => v.message.includes('fill steps'));
+    expect(found.length).toBe(1);
+  });
+
+  it('refuses a step for a voice the card does not play', () => {
+    expect(() =>
+      parseRuleCard({ voices: ['kick', 'snare', 'hihat'], fillStep: { tomFloor: 2 } }),
+    ).toThrow(/fill steps name the floor tom/);
+    expect(() => parseRuleCard({ fillStep: { kick: 0 } })).toThrow(/fill step must be between/i);
+  });
+});

@@ -24,7 +24,7 @@ import { embellishmentVoices, fillHolesOwners, fillVoices, shareCounts } from '.
 import { countOverlaps, overlapBudget } from './linear';
 import { ostinatoPlaysAt } from './ostinato';
 import { rankOrderBreaks, tensionTargets } from './tension';
-import { movedBackbeatHomes, shuffleMiddles } from '../fill';
+import { movedBackbeatHomes, onFillStep, shuffleMiddles } from '../fill';
 
 /** One broken rule or invariant in a drill, with where it happened when that applies. */
 export interface Violation {
@@ -264,6 +264,12 @@ function checkFill(
         out.push({
           code: 'fill',
           message: `The fill plays the ${voiceWord(l.hit.voice)} on the shuffle's silent middle triplet.`,
+          ...where(l),
+        });
+      if (!onFillStep(card, grid, l.hit.voice, instant))
+        out.push({
+          code: 'fill',
+          message: `The fill plays the ${voiceWord(l.hit.voice)} between its fill steps (every ${card.fillStep?.[l.hit.voice] ?? 1} slots of the beat).`,
           ...where(l),
         });
       const owner = owners.get(l.hit.voice);

@@ -92,6 +92,26 @@ describe('VoiceSetup', () => {
     expect(store.card().roles).toBeUndefined();
   });
 
+  it("keeps a voice's fills on every 2nd slot and back to any slot", async () => {
+    await fixture.whenStable();
+    expect(page.textContent).toContain('Kick fills');
+    const setup = fixture.componentInstance as unknown as {
+      setFillStep: (v: string, s: number) => void;
+    };
+    setup.setFillStep('kick', 2);
+    expect(store.card().fillStep).toEqual({ kick: 2 });
+    await fixture.whenStable();
+    const kick = [...page.querySelectorAll('mat-form-field')].find((f) =>
+      f.querySelector('mat-label')?.textContent?.includes('Kick fills'),
+    );
+    expect(kick?.querySelector('.mat-mdc-select-value')?.textContent?.trim()).toBe(
+      'Every 2nd slot',
+    );
+    // Any slot removes the field altogether.
+    setup.setFillStep('kick', 1);
+    expect(store.card().fillStep).toBeUndefined();
+  });
+
   it('names the role the engine would give each voice left to its default', async () => {
     store.edit((card) => {
       card.voices = ['kick', 'snare', 'hihat', 'crash'];

@@ -33,7 +33,7 @@ export function parseNumberList(text: string): number[] | null {
 
 /**
  * The groove's make-up beyond the grid: how the beats group (compound and odd meters), each
- * voice's role, and further time-keeping layers (e.g. the hi-hat foot on 2 and 4).
+ * voice's role and fill step, and further time-keeping layers (e.g. the hi-hat foot on 2 and 4).
  */
 @Component({
   selector: 'tensile-voice-setup',
@@ -53,6 +53,12 @@ export class VoiceSetup {
     embellishment: 'Embellishment',
     colour: 'Colour',
   };
+  protected readonly stepChoices: readonly { step: number; label: string }[] = [
+    { step: 1, label: 'Any slot' },
+    { step: 2, label: 'Every 2nd slot' },
+    { step: 3, label: 'Every 3rd slot' },
+    { step: 4, label: 'Every 4th slot' },
+  ];
   protected readonly maxLayers = MAX_LAYERS;
   protected readonly defaultChoice = DEFAULT;
   protected readonly voices = computed(() => cardVoices(this.card()));
@@ -111,6 +117,21 @@ export class VoiceSetup {
       else roles[voice] = role;
       if (Object.keys(roles).length === 0) delete card.roles;
       else card.roles = roles;
+    });
+  }
+
+  /** The voice's fill step: fills only on every n-th slot of the beat (1: any slot). */
+  protected fillStep(voice: VoiceId): number {
+    return this.card().fillStep?.[voice] ?? 1;
+  }
+
+  protected setFillStep(voice: VoiceId, step: number): void {
+    this.store.edit((card) => {
+      const steps = { ...(card.fillStep ?? {}) };
+      if (step <= 1) delete steps[voice];
+      else steps[voice] = step;
+      if (Object.keys(steps).length === 0) delete card.fillStep;
+      else card.fillStep = steps;
     });
   }
 
