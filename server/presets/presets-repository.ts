@@ -138,6 +138,31 @@ export class PresetsRepository {
     });
   }
 
+  /**
+   * Brings each built-in preset the admin never edited (its `updated_at` still equals its
+   * `created_at`) up to the card and texts shipped now, and drops its thumbnail so it is drawn
+   * again. An edited preset is left exactly as the admin left it. Returns how many changed.
+   */
+  async refreshUnedited(presets: readonly NewPreset[]): Promise<number> {
+    return this.db.transaction(async (trx) => {
+      const shipped = new Map(presets.map((preset) => [preset.id, shippedContent(preset)]));
+      const rows: PresetRow[] = await trx('presets')
+        .where('built_in', true)
+        .whereRaw('?? = ??', ['updated_at', 'created_at'])
+        .select('*');
+      let changed = 0;
+      for (const row of rows) {
+        const content = shipped.get(row.id);
+        if (!content || sameContent(row, content)) continue;
+        await trx('presets')
+          .where({ id: row.id })
+          .update({ ...content, thumbnail_svg: null, thumbnail_engine: null });
+        changed += 1;
+      }
+      return changed;
+    });
+  }
+
   /** Inserts one preset at the end of the list. */
   async insert(preset: NewPreset): Promise<void> {
     await this.db.transaction(async (trx) => {
@@ -178,9 +203,9 @@ async function lastPosition(db: Knex): Promise<number> {
   return rows[0]?.last === null || rows[0]?.last === undefined ? -1 : Number(rows[0].last);
 }
 
-function toRow(preset: NewPreset, position: number, now: Date) {
+/** The columns a release ships for a built-in preset. */
+function shippedContent(preset: NewPreset) {
   return {
-    id: preset.id,
     title: preset.title,
     summary: preset.summary,
     card: JSON.stringify(preset.card),
@@ -189,6 +214,21 @@ function toRow(preset: NewPreset, position: number, now: Date) {
     meter: preset.facts.meter,
     subdivision: preset.facts.subdivision,
     slots: preset.facts.slots,
+  };
+}
+
+function sameContent(row: PresetRow, content: ReturnType<typeof shippedContent>): boolean {
+  // Drivers differ in how they hand back numbers; compare as text.
+  const text = (value: unknown) => (value === null || value === undefined ? null : String(value));
+  return (Object.keys(content) as (keyof typeof content)[]).every(
+    (key) => text(row[key]) === text(content[key]),
+  );
+}
+
+function toRow(preset: NewPreset, position: number, now: Date) {
+  return {
+    id: preset.id,
+    ...shippedContent(preset),
     position,
     published: preset.published,
     credit: preset.credit,

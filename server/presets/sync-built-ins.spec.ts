@@ -64,6 +64,36 @@ describe('built-in presets in the database', () => {
     expect(await count()).toBe(BUILT_IN_PRESETS.length + 1);
   });
 
+  it('brings an unedited built-in preset up to a later release, and leaves an edited one alone', async () => {
+    const admin = await t.signIn('admin');
+    const edited = { summary: 'The admin’s own words.' };
+    expect((await admin.put('/api/presets/late-backbeat').send(edited)).status).toBe(200);
+    const release = BUILT_IN_PRESETS.map((preset) =>
+      preset.id === 'early-backbeat' || preset.id === 'late-backbeat'
+        ? {
+            ...preset,
+            summary: `${preset.summary} Revised.`,
+            card: { ...(preset.card as object), tempo: 61 },
+          }
+        : preset,
+    );
+    await t.db('presets').where({ id: 'early-backbeat' }).update({
+      thumbnail_svg: '<svg/>',
+      thumbnail_engine: 'old',
+    });
+    const editedBefore = await t.db('presets').where({ id: 'late-backbeat' }).first();
+
+    expect(await syncBuiltInPresets(t.db, release)).toBe(1);
+    expect(await syncBuiltInPresets(t.db, release)).toBe(0);
+
+    const refreshed = await t.db('presets').where({ id: 'early-backbeat' }).first();
+    expect(refreshed.summary).toMatch(/ Revised\.$/);
+    expect(JSON.parse(refreshed.card).tempo).toBe(61);
+    expect(refreshed.thumbnail_svg).toBeNull();
+    expect(String(refreshed.updated_at)).toBe(String(refreshed.created_at));
+    expect(await t.db('presets').where({ id: 'late-backbeat' }).first()).toEqual(editedBefore);
+  });
+
   it('stops the start when a built-in card is invalid, naming it', async () => {
     const broken = { id: 'broken', title: 'Broken', summary: '', card: { bars: 0 } };
     await expect(syncBuiltInPresets(t.db, [broken])).rejects.toThrow(/Built-in preset "broken"/);

@@ -9,8 +9,9 @@ export type BuiltInCuration = Readonly<Record<string, Curation>>;
 
 /**
  * Copies the built-in rule cards into the presets table: each one missing is inserted
- * (published, with its starting level and tags); one already there is left as the admin left
- * it. Safe on every start. Returns how many were inserted.
+ * (published, with its starting level and tags); one the admin never edited follows the card
+ * and texts of this release; one the admin edited is left as the admin left it. Safe on every
+ * start. Returns how many rows were inserted or brought up to date.
  */
 export async function syncBuiltInPresets(
   db: Knex,
@@ -39,5 +40,7 @@ export async function syncBuiltInPresets(
       builtIn: true,
     };
   });
-  return new PresetsRepository(db).insertMissing(rows);
+  const presets = new PresetsRepository(db);
+  const inserted = await presets.insertMissing(rows);
+  return inserted + (await presets.refreshUnedited(rows));
 }
