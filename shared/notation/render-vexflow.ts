@@ -46,6 +46,7 @@ import {
   formattedVoices,
   GridVoices,
   minimumBarWidth,
+  noteExtents,
   type EngravedBar,
   type EngravedNote,
 } from './vexflow-bar';
@@ -750,11 +751,12 @@ function recordInstants(
   engraved: EngravedBar,
   system: number,
 ): void {
-  for (const { note, beat, event } of engraved.notes) {
+  const extents = noteExtents(engraved);
+  for (const [i, { beat, event }] of engraved.notes.entries()) {
     if (event.kind !== 'note') continue;
     const key = `${bar}:${beat}:${event.slot}`;
-    const left = note.getAbsoluteX();
-    const right = left + note.getGlyphWidth();
+    const left = extents[i]!.left;
+    const right = left + extents[i]!.width;
     const known = into.get(key);
     into.set(key, {
       left: Math.min(left, known?.left ?? left),
@@ -899,13 +901,12 @@ const KEY_GAP_X = 24;
 
 /** Room for what opens a system: the clef on every system, the time signature on the first. */
 function systemStartWidths(model: NotationModel): (systemIndex: number) => number {
-  const plain = new Stave(0, 0, 400).getNoteStartX();
-  const clef = new Stave(0, 0, 400).addClef('percussion').getNoteStartX() - plain;
-  const clefAndTime =
-    new Stave(0, 0, 400)
-      .addClef('percussion')
-      .addTimeSignature(timeSignatureOf(model))
-      .getNoteStartX() - plain;
+  // One stave measured as its modifiers go on (each one re-formats it): a stave costs more to
+  // build than to measure.
+  const stave = new Stave(0, 0, 400);
+  const plain = stave.getNoteStartX();
+  const clef = stave.addClef('percussion').getNoteStartX() - plain;
+  const clefAndTime = stave.addTimeSignature(timeSignatureOf(model)).getNoteStartX() - plain;
   return (systemIndex) => (systemIndex === 0 ? clefAndTime : clef);
 }
 
@@ -1040,8 +1041,8 @@ function drawNote(ctx: SVGContext, engraved: EngravedNote): void {
     group.setAttribute('data-instruments', event.heads.map((h) => h.voice).join(' '));
     group.setAttribute('data-positions', event.heads.map((h) => h.position).join(' '));
   }
-  // (The note has its stave since the bar was formatted.)
-  note.setContext(ctx).drawWithStyle();
+  // (The note has its stave since the bar was formatted.) This drawing has no hit areas.
+  note.setContext(ctx).drawWithoutHitArea();
   ctx.closeGroup();
 }
 
@@ -1052,10 +1053,11 @@ function drawNote(ctx: SVGContext, engraved: EngravedNote): void {
  */
 function beatBoxes(bar: NotationBar, engraved: EngravedBar, stave: Stave): BeatBox[] {
   const written = bar.beats.map(() => new Map<number, number>());
-  for (const { note, beat, event } of engraved.notes) {
+  const extents = noteExtents(engraved);
+  for (const [i, { beat, event }] of engraved.notes.entries()) {
     const slots = written[beat - 1];
     if (!slots) continue;
-    const x = note.getAbsoluteX();
+    const x = extents[i]!.left;
     slots.set(event.slot, Math.min(slots.get(event.slot) ?? Infinity, x));
   }
   const anchors = bar.beats.map((beat, i) => ({

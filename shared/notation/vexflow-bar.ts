@@ -7,6 +7,7 @@
 import {
   Articulation,
   Beam,
+  BoundingBox,
   Dot,
   Formatter,
   GhostNote,
@@ -35,8 +36,31 @@ const ACCENT_ROOM = 8;
 /** A whole rest hangs from the line above its key: the hands' from the top line, the feet's low. */
 const BAR_REST_KEY: Readonly<Record<Layer, string>> = { hands: 'd/5', feet: 'f/4' };
 
+/**
+ * A note that can be drawn without measuring its bounding box: VexFlow measures it on every draw
+ * only to lay the note's invisible hit area over it, which a drawing without hit areas skips
+ * (see `EngravingContext.hitAreas`).
+ */
+export class BarNote extends StaveNote {
+  private boxless = false;
+
+  override getBoundingBox(): BoundingBox {
+    return this.boxless ? new BoundingBox(0, 0, 0, 0) : super.getBoundingBox();
+  }
+
+  /** Draw (with the note's style) into a context that draws no hit areas. */
+  drawWithoutHitArea(): void {
+    this.boxless = true;
+    try {
+      this.drawWithStyle();
+    } finally {
+      this.boxless = false;
+    }
+  }
+}
+
 export interface EngravedNote {
-  readonly note: StaveNote;
+  readonly note: BarNote;
   readonly layer: Layer;
   readonly beat: number;
   readonly event: NotationEvent;
@@ -92,6 +116,29 @@ export function engraveBar(bar: NotationBar, model: NotationModel): EngravedBar 
   const subdivisions = bar.beats.map((beat) => beat.subdivision);
   return { voices, notes, beams, tuplets, subdivisions };
 }
+
+/**
+ * Each note's left edge and glyph width, in `notes` order, once the bar is formatted to its stave
+ * (the counting, the beat areas, the tension marks and the polyrhythm brackets all read them, and
+ * VexFlow works each out afresh on every call).
+ */
+export function noteExtents(
+  engraved: EngravedBar,
+): readonly { readonly left: number; readonly width: number }[] {
+  let extents = measuredExtents.get(engraved);
+  if (!extents) {
+    extents = engraved.notes.map(({ note }) => ({
+      left: note.getAbsoluteX(),
+      width: note.getGlyphWidth(),
+    }));
+    measuredExtents.set(engraved, extents);
+  }
+  return extents;
+}
+const measuredExtents = new WeakMap<
+  EngravedBar,
+  readonly { readonly left: number; readonly width: number }[]
+>();
 
 /** Every voice the formatter sets together: the layers and the grid. */
 export function formattedVoices(engraved: EngravedBar, grids: GridVoices): Voice[] {
@@ -162,7 +209,7 @@ function gridVoice(
 
 function addBeamsAndTuplets(
   layerBar: LayerBar,
-  staveNotes: StaveNote[],
+  staveNotes: BarNote[],
   beams: { beam: Beam; layer: Layer }[],
   tuplets: EngravedTuplet[],
 ): void {
@@ -195,9 +242,9 @@ function addBeamsAndTuplets(
   }
 }
 
-function staveNoteOf(event: NotationEvent, layer: Layer): StaveNote {
+function staveNoteOf(event: NotationEvent, layer: Layer): BarNote {
   const rest = event.kind === 'rest';
-  const note = new StaveNote({
+  const note = new BarNote({
     keys: rest
       ? [event.barRest ? BAR_REST_KEY[layer] : REST_KEY[layer]]
       : event.heads.map((head) => head.key),
