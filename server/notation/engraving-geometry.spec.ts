@@ -160,6 +160,54 @@ describe('triplets in a shuffle', () => {
   });
 });
 
+describe('a note the loop carries into bar 1', () => {
+  // late-backbeat-over-the-bar-line moves the snare of beat 4 six sixteenths late: past the bar
+  // line, onto the "&" of 1 of the next bar, so bar 1 opens with the last bar's late 4 (worked
+  // by hand from the card). A small word over it says so, clear of the letters and the notes.
+  it('names the late 4 over bar 1 alone, clear of the sticking and the music', () => {
+    for (const seed of SEEDS) {
+      const drill = drillOf('late-backbeat-over-the-bar-line', seed);
+      const doc = drawnDoc('late-backbeat-over-the-bar-line', seed);
+      const hints = [...doc.querySelectorAll('.tensile-carried')];
+      expect(hints).toHaveLength(1);
+      const hint = hints[0]!;
+      const bar = hint.closest('.tensile-bar')!;
+      expect(bar.getAttribute('data-bar')).toBe('1');
+      expect([hint.getAttribute('data-beat'), hint.getAttribute('data-slot')]).toEqual(['1', '2']);
+      expect(hint.textContent).toBe(`late 4, from bar ${drill.bars.length}`);
+      expect(
+        bar.querySelector('.tensile-note[data-beat="1"][data-slot="2"][data-instruments~="snare"]'),
+      ).not.toBeNull();
+      measure.font = `italic ${hint.getAttribute('font-size')}px Academico`;
+      const m = measure.measureText(hint.textContent ?? '');
+      const x = Number(hint.getAttribute('x'));
+      const y = Number(hint.getAttribute('y'));
+      const box = {
+        left: x - m.actualBoundingBoxLeft,
+        right: x + m.actualBoundingBoxRight,
+        top: y - m.actualBoundingBoxAscent,
+        bottom: y + m.actualBoundingBoxDescent,
+      };
+      expect(box.top).toBeGreaterThan(0);
+      const letters = rowBoxes(bar, '.tensile-sticking-row').flat();
+      expect(letters.length).toBeGreaterThan(0);
+      for (const other of [
+        ...letters,
+        ...[...bar.querySelectorAll('.vf-stavenote text')].map(glyphBox),
+      ])
+        expect(overlaps(box, other), JSON.stringify(other)).toBe(false);
+    }
+  });
+
+  it('writes nothing where a backbeat is moved early across the bar line', () => {
+    // shuffle-kick-upbeats plays the kick one triplet before 1: the last bar leads into the loop.
+    for (const seed of SEEDS)
+      expect(
+        drawnDoc('shuffle-kick-upbeats', seed).querySelectorAll('.tensile-carried'),
+      ).toHaveLength(0);
+  });
+});
+
 /** Ink boxes of the words in each row of `selector` (sticking or counting), by line. */
 function rowBoxes(bar: Element, selector: string): (Box & { what: string })[][] {
   const lines: (Box & { what: string })[][] = [];

@@ -620,10 +620,17 @@ function* engrave(
       const stave = staves[i]!;
       const engravedBar = engraved(barIndex);
       if (showTension) colourSyncopations(bar, engravedBar, TENSION_INK);
-      drawBar(ctx, bar, engravedBar, stave, options, topLineY, stickingY, {
-        size: syllableSize,
-        layout: showCounts ? countLayout(barIndex, stave) : null,
-      });
+      drawBar(
+        ctx,
+        bar,
+        engravedBar,
+        stave,
+        options,
+        topLineY,
+        stickingY,
+        { size: syllableSize, layout: showCounts ? countLayout(barIndex, stave) : null },
+        stacked,
+      );
       if (showTension)
         drawTensionMarks(
           ctx,
@@ -980,6 +987,7 @@ function drawBar(
   topLineY: number,
   stickingY: number,
   counts: { readonly size: number; readonly layout: CountLayout | null },
+  stacked: boolean,
 ): void {
   const group = ctx.openGroup();
   group.setAttribute('class', 'tensile-bar');
@@ -1005,6 +1013,11 @@ function drawBar(
     }
     ctx.closeGroup();
   }
+  if (bar.carried) {
+    // Over the system's top row of letters (a stack elsewhere in the bar would meet the word).
+    const top = options.showSticking ? stickingY - (stacked ? STICKING_LINE : 0) : null;
+    drawCarried(ctx, bar, engraved, top, topLineY);
+  }
   drawBeatTexts(ctx, bar, engraved, stave, {
     stickingY: options.showSticking ? stickingY : null,
     countsY: options.showCounts ? topLineY + 4 * STAVE_SPACE + FOOTROOM + 16 : null,
@@ -1014,6 +1027,50 @@ function drawBar(
   });
   ctx.closeGroup();
 }
+
+/**
+ * Over each note bar 1 carries from the loop's last bar, a small italic word saying whose beat it
+ * is ("late 4, from bar 8"), above its sticking letters (see `carriedIntoFirstBar`).
+ */
+function drawCarried(
+  ctx: SVGContext,
+  bar: NotationBar,
+  engraved: EngravedBar,
+  /** The top row of sticking letters' baseline, or null without sticking. */
+  stickingY: number | null,
+  topLineY: number,
+): void {
+  const extents = noteExtents(engraved);
+  for (const carried of bar.carried ?? []) {
+    const i = engraved.notes.findIndex(
+      ({ beat, event }) =>
+        beat === carried.beat &&
+        event.slot === carried.slot &&
+        event.heads.some((head) => head.voice === carried.voice),
+    );
+    if (i < 0) continue;
+    // Clear of the letters' caps over the note, or, without sticking, where the letters would be.
+    const y =
+      stickingY === null
+        ? Math.min(topLineY - STAVE_SPACE, highestMark([engraved], topLineY) - STICKING_CLEARANCE)
+        : stickingY - CARRIED_ABOVE_LETTERS;
+    const hint = svgText(
+      ctx,
+      `late ${carried.fromBeat}, from bar ${carried.fromBar}`,
+      extents[i]!.left - 2,
+      y,
+      'tensile-carried',
+      { size: CARRIED_SIZE, anchor: 'start' },
+    );
+    hint.setAttribute('font-style', 'italic');
+    hint.setAttribute('data-beat', String(carried.beat));
+    hint.setAttribute('data-slot', String(carried.slot));
+  }
+}
+/** The carried note's word: smaller than the sticking (15 px), as a cue's text is. */
+const CARRIED_SIZE = 11;
+/** Baseline of the word over the top letter's baseline: the letter's cap height and a gap. */
+const CARRIED_ABOVE_LETTERS = 15;
 
 /** "sim." after a tuplet bracket, on the bracket's line, italic as performance words are. */
 function drawSimile(ctx: SVGContext, tuplet: Tuplet, layer: string): void {
