@@ -543,6 +543,7 @@ function* engrave(
       stave.setStyle({ strokeStyle: ink, fillStyle: ink });
       stave.setDefaultLedgerLineStyle({ strokeStyle: ink, lineWidth: 2 });
       formatBar(engraved(barIndex), stave, grids);
+      reachTuplets(engraved(barIndex), stave);
       return stave;
     });
     levelTuplets(plan.bars.map((barIndex) => engraved(barIndex)));
@@ -1071,6 +1072,28 @@ function drawCarried(
 const CARRIED_SIZE = 11;
 /** Baseline of the word over the top letter's baseline: the letter's cap height and a gap. */
 const CARRIED_ABOVE_LETTERS = 15;
+
+/**
+ * A bracket whose group ends on a longer value runs on over that value's time, to just before the
+ * next beat's first column, so its number has room and both its ends stand clear of the notes and
+ * rests (E. Gould, "Behind Bars", Faber Music 2011, ch. "Tuplets": the bracket spans the whole
+ * group; from memory. Running it over the last value's time is common practice in proportionally
+ * spaced parts).
+ */
+function reachTuplets(engraved: EngravedBar, stave: Stave): void {
+  const extents = noteExtents(engraved);
+  for (const t of engraved.tuplets) {
+    if (!t.shown || !t.endsLong) continue;
+    let next = stave.getNoteEndX();
+    engraved.notes.forEach(({ beat }, i) => {
+      if (beat > t.beat) next = Math.min(next, extents[i]!.left);
+    });
+    t.tuplet.reachTo(next - BRACKET_CLEARANCE);
+  }
+}
+/** Room left between a bracket run on and the next beat's first note or rest: the next bracket
+ * starts 5 px before that note, so about as far apart as two brackets of a shuffle's hands. */
+const BRACKET_CLEARANCE = 18;
 
 /** "sim." after a tuplet bracket, on the bracket's line, italic as performance words are. */
 function drawSimile(ctx: SVGContext, tuplet: Tuplet, layer: string): void {
