@@ -14,7 +14,7 @@ import {
 } from './count-positions';
 import type { NotationBar } from './notation-model';
 import { SvgTextRow } from './svg-text';
-import type { EngravedBar } from './vexflow-bar';
+import { noteExtents, type EngravedBar } from './vexflow-bar';
 
 /** Clear space kept between a syllable and a bar line (half the gap between two bars' syllables). */
 const BAR_LINE_CLEARANCE = SYLLABLE_GAP;
@@ -25,9 +25,10 @@ const SILENT_COUNT_OPACITY = 0.55;
 /** Centre x of the note or rest that starts at each struck instant, keyed `beat:slot`. */
 function instantX(engraved: EngravedBar): Map<string, number> {
   const xs = new Map<string, number>();
-  for (const { note, beat, event } of engraved.notes) {
+  const extents = noteExtents(engraved);
+  for (const [i, { beat, event }] of engraved.notes.entries()) {
     const key = `${beat}:${event.slot}`;
-    const centre = note.getAbsoluteX() + note.getGlyphWidth() / 2;
+    const centre = extents[i]!.left + extents[i]!.width / 2;
     if (event.kind === 'note' || !xs.has(key)) xs.set(key, centre);
   }
   return xs;

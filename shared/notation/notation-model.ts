@@ -23,6 +23,7 @@ import {
 import { STAFF_PLACEMENTS, vexKeyOf, type Layer } from './staff-placement';
 import { syncopatedInstants, type Instant } from './syncopation';
 import { polyrhythmGroups, type PolyrhythmGroup, type PolyrhythmSource } from './polyrhythm';
+import { carriedIntoFirstBar, type CarriedNote, type SeamRuleSource } from './seam';
 
 /** The meter as notation reads it. */
 export interface NotationMeter {
@@ -37,7 +38,7 @@ export interface NotationSource {
   readonly card: MarkedCard & {
     readonly meter: NotationMeter;
     readonly voices?: readonly VoiceId[];
-    readonly rules?: readonly PolyrhythmSource[];
+    readonly rules?: readonly (PolyrhythmSource & SeamRuleSource)[];
   };
   readonly bars: readonly DrillBar[];
 }
@@ -141,6 +142,8 @@ export interface NotationBar {
   readonly layers: readonly LayerBar[];
   /** The instants whose notes make the bar tense (see `syncopatedInstants`), in time order. */
   readonly syncopated: readonly Instant[];
+  /** Bar 1 only: notes the loop carries over from its last bar (see `carriedIntoFirstBar`). */
+  readonly carried?: readonly CarriedNote[];
 }
 
 export interface NotationModel {
@@ -172,11 +175,14 @@ export function buildNotation(drill: NotationSource): NotationModel {
   const grouping = given && given.length > 0 ? given.slice() : defaultGrouping({ beats, unit });
   const meter = { beats, unit, grouping };
   const bars = drill.bars.map((bar) => notateBar(bar, layers, meter));
+  const carried = carriedIntoFirstBar(drill.card.rules ?? [], drill.bars);
   return {
     meter,
     layers,
     voices,
-    bars: simileTuplets(bars),
+    bars: simileTuplets(bars).map((bar, i) =>
+      i === 0 && carried.length > 0 ? { ...bar, carried } : bar,
+    ),
     marks: headerMarks(drill.card),
     polyrhythms: polyrhythmGroups(drill.card.rules ?? [], drill.bars, beats),
   };

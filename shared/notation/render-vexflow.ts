@@ -46,6 +46,7 @@ import {
   formattedVoices,
   GridVoices,
   minimumBarWidth,
+  noteExtents,
   type EngravedBar,
   type EngravedNote,
 } from './vexflow-bar';
@@ -542,6 +543,7 @@ function* engrave(
       stave.setStyle({ strokeStyle: ink, fillStyle: ink });
       stave.setDefaultLedgerLineStyle({ strokeStyle: ink, lineWidth: 2 });
       formatBar(engraved(barIndex), stave, grids);
+      reachTuplets(engraved(barIndex), stave);
       return stave;
     });
     levelTuplets(plan.bars.map((barIndex) => engraved(barIndex)));
@@ -619,10 +621,17 @@ function* engrave(
       const stave = staves[i]!;
       const engravedBar = engraved(barIndex);
       if (showTension) colourSyncopations(bar, engravedBar, TENSION_INK);
-      drawBar(ctx, bar, engravedBar, stave, options, topLineY, stickingY, {
-        size: syllableSize,
-        layout: showCounts ? countLayout(barIndex, stave) : null,
-      });
+      drawBar(
+        ctx,
+        bar,
+        engravedBar,
+        stave,
+        options,
+        topLineY,
+        stickingY,
+        { size: syllableSize, layout: showCounts ? countLayout(barIndex, stave) : null },
+        stacked,
+      );
       if (showTension)
         drawTensionMarks(
           ctx,
@@ -750,11 +759,12 @@ function recordInstants(
   engraved: EngravedBar,
   system: number,
 ): void {
-  for (const { note, beat, event } of engraved.notes) {
+  const extents = noteExtents(engraved);
+  for (const [i, { beat, event }] of engraved.notes.entries()) {
     if (event.kind !== 'note') continue;
     const key = `${bar}:${beat}:${event.slot}`;
-    const left = note.getAbsoluteX();
-    const right = left + note.getGlyphWidth();
+    const left = extents[i]!.left;
+    const right = left + extents[i]!.width;
     const known = into.get(key);
     into.set(key, {
       left: Math.min(left, known?.left ?? left),
@@ -899,13 +909,12 @@ const KEY_GAP_X = 24;
 
 /** Room for what opens a system: the clef on every system, the time signature on the first. */
 function systemStartWidths(model: NotationModel): (systemIndex: number) => number {
-  const plain = new Stave(0, 0, 400).getNoteStartX();
-  const clef = new Stave(0, 0, 400).addClef('percussion').getNoteStartX() - plain;
-  const clefAndTime =
-    new Stave(0, 0, 400)
-      .addClef('percussion')
-      .addTimeSignature(timeSignatureOf(model))
-      .getNoteStartX() - plain;
+  // One stave measured as its modifiers go on (each one re-formats it): a stave costs more to
+  // build than to measure.
+  const stave = new Stave(0, 0, 400);
+  const plain = stave.getNoteStartX();
+  const clef = stave.addClef('percussion').getNoteStartX() - plain;
+  const clefAndTime = stave.addTimeSignature(timeSignatureOf(model)).getNoteStartX() - plain;
   return (systemIndex) => (systemIndex === 0 ? clefAndTime : clef);
 }
 
@@ -979,6 +988,7 @@ function drawBar(
   topLineY: number,
   stickingY: number,
   counts: { readonly size: number; readonly layout: CountLayout | null },
+  stacked: boolean,
 ): void {
   const group = ctx.openGroup();
   group.setAttribute('class', 'tensile-bar');
@@ -1004,6 +1014,11 @@ function drawBar(
     }
     ctx.closeGroup();
   }
+  if (bar.carried) {
+    // Over the system's top row of letters (a stack elsewhere in the bar would meet the word).
+    const top = options.showSticking ? stickingY - (stacked ? STICKING_LINE : 0) : null;
+    drawCarried(ctx, bar, engraved, top, topLineY);
+  }
   drawBeatTexts(ctx, bar, engraved, stave, {
     stickingY: options.showSticking ? stickingY : null,
     countsY: options.showCounts ? topLineY + 4 * STAVE_SPACE + FOOTROOM + 16 : null,
@@ -1013,6 +1028,72 @@ function drawBar(
   });
   ctx.closeGroup();
 }
+
+/**
+ * Over each note bar 1 carries from the loop's last bar, a small italic word saying whose beat it
+ * is ("late 4, from bar 8"), above its sticking letters (see `carriedIntoFirstBar`).
+ */
+function drawCarried(
+  ctx: SVGContext,
+  bar: NotationBar,
+  engraved: EngravedBar,
+  /** The top row of sticking letters' baseline, or null without sticking. */
+  stickingY: number | null,
+  topLineY: number,
+): void {
+  const extents = noteExtents(engraved);
+  for (const carried of bar.carried ?? []) {
+    const i = engraved.notes.findIndex(
+      ({ beat, event }) =>
+        beat === carried.beat &&
+        event.slot === carried.slot &&
+        event.heads.some((head) => head.voice === carried.voice),
+    );
+    if (i < 0) continue;
+    // Clear of the letters' caps over the note, or, without sticking, where the letters would be.
+    const y =
+      stickingY === null
+        ? Math.min(topLineY - STAVE_SPACE, highestMark([engraved], topLineY) - STICKING_CLEARANCE)
+        : stickingY - CARRIED_ABOVE_LETTERS;
+    const hint = svgText(
+      ctx,
+      `late ${carried.fromBeat}, from bar ${carried.fromBar}`,
+      extents[i]!.left - 2,
+      y,
+      'tensile-carried',
+      { size: CARRIED_SIZE, anchor: 'start' },
+    );
+    hint.setAttribute('font-style', 'italic');
+    hint.setAttribute('data-beat', String(carried.beat));
+    hint.setAttribute('data-slot', String(carried.slot));
+  }
+}
+/** The carried note's word: smaller than the sticking (15 px), as a cue's text is. */
+const CARRIED_SIZE = 11;
+/** Baseline of the word over the top letter's baseline: the letter's cap height and a gap. */
+const CARRIED_ABOVE_LETTERS = 15;
+
+/**
+ * A bracket whose group ends on a longer value runs on over that value's time, to just before the
+ * next beat's first column, so its number has room and both its ends stand clear of the notes and
+ * rests (E. Gould, "Behind Bars", Faber Music 2011, ch. "Tuplets": the bracket spans the whole
+ * group; from memory. Running it over the last value's time is common practice in proportionally
+ * spaced parts).
+ */
+function reachTuplets(engraved: EngravedBar, stave: Stave): void {
+  const extents = noteExtents(engraved);
+  for (const t of engraved.tuplets) {
+    if (!t.shown || !t.endsLong) continue;
+    let next = stave.getNoteEndX();
+    engraved.notes.forEach(({ beat }, i) => {
+      if (beat > t.beat) next = Math.min(next, extents[i]!.left);
+    });
+    t.tuplet.reachTo(next - BRACKET_CLEARANCE);
+  }
+}
+/** Room left between a bracket run on and the next beat's first note or rest: the next bracket
+ * starts 5 px before that note, so about as far apart as two brackets of a shuffle's hands. */
+const BRACKET_CLEARANCE = 18;
 
 /** "sim." after a tuplet bracket, on the bracket's line, italic as performance words are. */
 function drawSimile(ctx: SVGContext, tuplet: Tuplet, layer: string): void {
@@ -1040,8 +1121,8 @@ function drawNote(ctx: SVGContext, engraved: EngravedNote): void {
     group.setAttribute('data-instruments', event.heads.map((h) => h.voice).join(' '));
     group.setAttribute('data-positions', event.heads.map((h) => h.position).join(' '));
   }
-  // (The note has its stave since the bar was formatted.)
-  note.setContext(ctx).drawWithStyle();
+  // (The note has its stave since the bar was formatted.) This drawing has no hit areas.
+  note.setContext(ctx).drawWithoutHitArea();
   ctx.closeGroup();
 }
 
@@ -1052,10 +1133,11 @@ function drawNote(ctx: SVGContext, engraved: EngravedNote): void {
  */
 function beatBoxes(bar: NotationBar, engraved: EngravedBar, stave: Stave): BeatBox[] {
   const written = bar.beats.map(() => new Map<number, number>());
-  for (const { note, beat, event } of engraved.notes) {
+  const extents = noteExtents(engraved);
+  for (const [i, { beat, event }] of engraved.notes.entries()) {
     const slots = written[beat - 1];
     if (!slots) continue;
-    const x = note.getAbsoluteX();
+    const x = extents[i]!.left;
     slots.set(event.slot, Math.min(slots.get(event.slot) ?? Infinity, x));
   }
   const anchors = bar.beats.map((beat, i) => ({

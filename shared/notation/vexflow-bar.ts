@@ -7,6 +7,7 @@
 import {
   Articulation,
   Beam,
+  BoundingBox,
   Dot,
   Formatter,
   GhostNote,
@@ -35,18 +36,89 @@ const ACCENT_ROOM = 8;
 /** A whole rest hangs from the line above its key: the hands' from the top line, the feet's low. */
 const BAR_REST_KEY: Readonly<Record<Layer, string>> = { hands: 'd/5', feet: 'f/4' };
 
+/**
+ * A note that can be drawn without measuring its bounding box: VexFlow measures it on every draw
+ * only to lay the note's invisible hit area over it, which a drawing without hit areas skips
+ * (see `EngravingContext.hitAreas`).
+ */
+export class BarNote extends StaveNote {
+  private boxless = false;
+
+  override getBoundingBox(): BoundingBox {
+    return this.boxless ? new BoundingBox(0, 0, 0, 0) : super.getBoundingBox();
+  }
+
+  /** Draw (with the note's style) into a context that draws no hit areas. */
+  drawWithoutHitArea(): void {
+    this.boxless = true;
+    try {
+      this.drawWithStyle();
+    } finally {
+      this.boxless = false;
+    }
+  }
+}
+
 export interface EngravedNote {
-  readonly note: StaveNote;
+  readonly note: BarNote;
   readonly layer: Layer;
   readonly beat: number;
   readonly event: NotationEvent;
 }
 
-/** A tuplet whose bracket can be moved to a line shared with the other brackets of its system. */
+/**
+ * A tuplet whose bracket can be moved to a line shared with the other brackets of its system, and
+ * run on past its last note when that note lasts on (see `reachTo`).
+ */
 export class LevelTuplet extends Tuplet {
+  private reach: number | null = null;
+
   /** Set the bracket at `y` (its line, as `getYPosition` gives it). */
   moveTo(y: number): void {
     this.options.yOffset += y - this.getYPosition();
+  }
+
+  /**
+   * Let the bracket's right end run on to `x` (never shorter than VexFlow sets it): a group that
+   * ends on a longer value ("r8 c4" under a "3") otherwise gets a bracket no wider than its first
+   * two columns, its number squeezed between two stubs.
+   */
+  reachTo(x: number): void {
+    this.reach = x;
+  }
+
+  override draw(): void {
+    if (this.reach === null || !this.options.bracketed) {
+      super.draw();
+      return;
+    }
+    // VexFlow 5's bracketed drawing (Tuplet.draw), with the right end at the reach.
+    const { location, textYOffset } = this.options;
+    const ctx = this.checkContext();
+    const first = this.notes[0]!;
+    const last = this.notes[this.notes.length - 1]!;
+    const x = first.getTieLeftX() - 5;
+    this.width = Math.max(last.getTieRightX() - x + 5, this.reach - x);
+    const y = this.getYPosition();
+    const number = this.textElement.getWidth();
+    ctx.openGroup('tuplet', this.getAttribute('id'));
+    const arm = this.width / 2 - number / 2 - 5;
+    if (arm > 0) {
+      const down = location === Tuplet.LOCATION_BOTTOM ? 1 : 0;
+      ctx.fillRect(x, y, arm, 1);
+      ctx.fillRect(x + this.width / 2 + number / 2 + 5, y, arm, 1);
+      ctx.fillRect(x, y + down, 1, location * 10);
+      ctx.fillRect(x + this.width, y + down, 1, location * 10);
+    }
+    const textY =
+      y +
+      this.textElement.getHeight() / 2 +
+      (location === Tuplet.LOCATION_TOP ? -1 : 1) * textYOffset;
+    this.textElement.renderText(ctx, x + this.width / 2 - number / 2, textY);
+    const box = this.getBoundingBox();
+    ctx.pointerRect(box.getX(), box.getY(), box.getW(), box.getH());
+    ctx.closeGroup();
+    this.setRendered();
   }
 }
 
@@ -59,6 +131,8 @@ export interface EngravedTuplet {
   /** Printed (see `NotationTuplet.shown`); a hidden tuplet still times its notes. */
   readonly shown: boolean;
   readonly simile: boolean;
+  /** The group's last event is longer than its shortest (a quarter after an eighth rest). */
+  readonly endsLong: boolean;
 }
 
 export interface EngravedBar {
@@ -92,6 +166,29 @@ export function engraveBar(bar: NotationBar, model: NotationModel): EngravedBar 
   const subdivisions = bar.beats.map((beat) => beat.subdivision);
   return { voices, notes, beams, tuplets, subdivisions };
 }
+
+/**
+ * Each note's left edge and glyph width, in `notes` order, once the bar is formatted to its stave
+ * (the counting, the beat areas, the tension marks and the polyrhythm brackets all read them, and
+ * VexFlow works each out afresh on every call).
+ */
+export function noteExtents(
+  engraved: EngravedBar,
+): readonly { readonly left: number; readonly width: number }[] {
+  let extents = measuredExtents.get(engraved);
+  if (!extents) {
+    extents = engraved.notes.map(({ note }) => ({
+      left: note.getAbsoluteX(),
+      width: note.getGlyphWidth(),
+    }));
+    measuredExtents.set(engraved, extents);
+  }
+  return extents;
+}
+const measuredExtents = new WeakMap<
+  EngravedBar,
+  readonly { readonly left: number; readonly width: number }[]
+>();
 
 /** Every voice the formatter sets together: the layers and the grid. */
 export function formattedVoices(engraved: EngravedBar, grids: GridVoices): Voice[] {
@@ -162,7 +259,7 @@ function gridVoice(
 
 function addBeamsAndTuplets(
   layerBar: LayerBar,
-  staveNotes: StaveNote[],
+  staveNotes: BarNote[],
   beams: { beam: Beam; layer: Layer }[],
   tuplets: EngravedTuplet[],
 ): void {
@@ -191,13 +288,29 @@ function addBeamsAndTuplets(
       },
     );
     const beat = layerBar.events[events[0]!]?.beat ?? 1;
-    tuplets.push({ tuplet, layer: layerBar.layer, numNotes: ratio.numNotes, beat, shown, simile });
+    // Longer than the group's shortest value (a quarter after an eighth rest in triplets).
+    const lengths = events.map((i) => length(layerBar.events[i]!.duration));
+    const endsLong = lengths[lengths.length - 1]! > Math.min(...lengths);
+    tuplets.push({
+      tuplet,
+      layer: layerBar.layer,
+      numNotes: ratio.numNotes,
+      beat,
+      shown,
+      simile,
+      endsLong,
+    });
   }
 }
 
-function staveNoteOf(event: NotationEvent, layer: Layer): StaveNote {
+/** A written value's length, in whole notes. */
+function length(duration: NotationEvent['duration']): number {
+  return (duration.dots ? 1.5 : 1) / duration.value;
+}
+
+function staveNoteOf(event: NotationEvent, layer: Layer): BarNote {
   const rest = event.kind === 'rest';
-  const note = new StaveNote({
+  const note = new BarNote({
     keys: rest
       ? [event.barRest ? BAR_REST_KEY[layer] : REST_KEY[layer]]
       : event.heads.map((head) => head.key),
