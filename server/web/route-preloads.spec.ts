@@ -114,16 +114,25 @@ describe('injectPreloads', () => {
     '<html><head><link rel="stylesheet" href="styles-DDDDDDDD.css"></head><body><tensile-root></tensile-root>' +
     '<link rel="modulepreload" href="chunk-SHARED01.js"><script src="main-AAAAAAAA.js" type="module"></script></body></html>';
 
-  it('adds the fonts before </head> and the chunks after the main script, skipping files the page already names', () => {
+  it('adds the main script first in the head, the fonts before </head> and the chunks after the main script, skipping files the page already names', () => {
     const html = injectPreloads(HTML, {
       scripts: ['chunk-PAGE0001.js', 'chunk-SHARED01.js'],
       fonts: ['media/face-BBBBBBBB.woff2'],
     });
     expect(html).toBe(
-      HTML.replace(
-        '</head>',
-        '<link rel="preload" as="font" type="font/woff2" crossorigin href="media/face-BBBBBBBB.woff2"></head>',
-      ).replace('</script>', '</script><link rel="modulepreload" href="chunk-PAGE0001.js">'),
+      HTML.replace('<head>', '<head><link rel="modulepreload" href="main-AAAAAAAA.js">')
+        .replace(
+          '</head>',
+          '<link rel="preload" as="font" type="font/woff2" crossorigin href="media/face-BBBBBBBB.woff2"></head>',
+        )
+        .replace('</script>', '</script><link rel="modulepreload" href="chunk-PAGE0001.js">'),
+    );
+  });
+
+  it('names the main script after <base>, which its URL is resolved against', () => {
+    const based = HTML.replace('<head>', '<head><meta charset="utf-8"><base href="/app/">');
+    expect(injectPreloads(based, { scripts: ['chunk-PAGE0001.js'], fonts: [] })).toContain(
+      '<base href="/app/"><link rel="modulepreload" href="main-AAAAAAAA.js"><link rel="stylesheet"',
     );
   });
 

@@ -137,9 +137,30 @@ export function injectPreloads(html: string, preloads: RoutePreloads): string {
         `<link rel="preload" as="font" type="font/woff2" crossorigin href="${escapeAttribute(file)}">`,
     )
     .join('');
+  if (scripts === '' && fonts === '') return html;
   const headEnd = html.indexOf('</head>');
   const withFonts = headEnd < 0 ? html : insertAt(html, headEnd, fonts);
-  return insertAt(withFonts, afterMainScript(withFonts), headEnd < 0 ? scripts + fonts : scripts);
+  const withScripts = insertAt(
+    withFonts,
+    afterMainScript(withFonts),
+    headEnd < 0 ? scripts + fonts : scripts,
+  );
+  return preloadMainFirst(withScripts);
+}
+
+/**
+ * The main script, named again early in the head: Angular writes it at the end of the body,
+ * behind the stylesheet and the fonts, so with six connections to one host it waited for one
+ * of those to finish, and the whole boot waited with it. It goes after `<base>`, which its
+ * relative URL is resolved against (before it, `/drills/main-….js` would be asked for).
+ */
+function preloadMainFirst(html: string): string {
+  const main = /<script\b[^>]*\stype="module"[^>]*><\/script>/.exec(html)?.[0];
+  const src = main && /\ssrc="([^"]+)"/.exec(main)?.[1];
+  const base = /<base\b[^>]*>/i.exec(html);
+  const at = base ? base.index + base[0].length : headStart(html);
+  if (!src || at < 0) return html;
+  return insertAt(html, at, `<link rel="modulepreload" href="${src}">`);
 }
 
 const insertAt = (html: string, at: number, text: string): string =>

@@ -78,7 +78,7 @@ describe('serving the built app', () => {
 
 describe('a drill page with the build metafile beside the app', () => {
   const PAGE =
-    '<!doctype html><html><head><meta charset="utf-8"><link rel="stylesheet" href="styles-CCCCCCCC.css"></head>' +
+    '<!doctype html><html><head><meta charset="utf-8"><base href="/"><link rel="stylesheet" href="styles-CCCCCCCC.css"></head>' +
     '<body><tensile-root></tensile-root>' +
     '<script src="main-AAAAAAAA.js" type="module"></script></body></html>';
   const STATS = {
@@ -109,7 +109,7 @@ describe('a drill page with the build metafile beside the app', () => {
     await rm(root, { recursive: true, force: true });
   });
 
-  it('names the API requests and the score font in the head, the page chunks after the main script', async () => {
+  it('names the API requests, the main script and the score font in the head, the page chunks after the main script', async () => {
     const res = await request(app.app).get('/drills/early-backbeat?seed=harbor-spark-21');
     expect(res.status).toBe(200);
     expect(res.type).toBe('text/html');
@@ -120,6 +120,10 @@ describe('a drill page with the build metafile beside the app', () => {
         '<link rel="preload" as="fetch" crossorigin href="/api/auth/me">' +
         '<link rel="preload" as="fetch" crossorigin href="/api/presets/early-backbeat/drill?seed=harbor-spark-21">' +
         '<link rel="preload" as="fetch" crossorigin href="/api/presets/early-backbeat">' +
+        // Then the main script (Angular writes it at the end of the body), after the base URL
+        // it is resolved against.
+        '<base href="/">' +
+        '<link rel="modulepreload" href="main-AAAAAAAA.js">' +
         '<link rel="stylesheet" href="styles-CCCCCCCC.css">' +
         // The fonts before every script, not queued behind them.
         '<link rel="preload" as="font" type="font/woff2" crossorigin href="media/bravura-BBBBBBBB.woff2">' +

@@ -131,7 +131,9 @@ describe('drill page preloads', () => {
         ]);
       }
       const fonts = seen.named.filter((link) => link.as === 'font').map((link) => link.path);
-      expect(fonts.some((font) => /\/media\/bravura-[A-Z0-9]+\.woff2$/.test(font))).toBe(true);
+      expect(fonts.some((font) => /\/media\/tensile-music-[A-Z0-9]+\.woff2$/.test(font))).toBe(
+        true,
+      );
       // No script the score waited for was found only by importing: the HTML named them all.
       const scripts = seen.named.filter((link) => link.rel === 'modulepreload').map((l) => l.path);
       const imported = seen.loaded.filter(

@@ -12,7 +12,7 @@ import {
 } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
-import { MatSlideToggleModule } from '@angular/material/slide-toggle';
+import { MatSlideToggle } from '@angular/material/slide-toggle';
 import { Router } from '@angular/router';
 import { catchError, map, of, switchMap } from 'rxjs';
 import { AuthSession } from '../core/auth-session';
@@ -45,7 +45,7 @@ const SHORTCUTS_DIALOG = 'tensile-drill-shortcuts';
   selector: 'tensile-drill-page',
   imports: [
     MatButtonModule,
-    MatSlideToggleModule,
+    MatSlideToggle,
     DrillScore,
     PlaybackPanel,
     SaveDrillButton,

@@ -20,7 +20,7 @@ import {
   viewChildren,
 } from '@angular/core';
 import { NgTemplateOutlet } from '@angular/common';
-import { MatSlideToggleModule } from '@angular/material/slide-toggle';
+import { MatSlideToggle } from '@angular/material/slide-toggle';
 import type { Drill } from '../../../../shared/generator/index';
 import {
   buildNotation,
@@ -69,7 +69,7 @@ const OWN_ATTRIBUTES = new Set(['id', 'class', 'role', 'width', 'height', 'viewB
  */
 @Component({
   selector: 'tensile-drill-score',
-  imports: [MatSlideToggleModule, NgTemplateOutlet, TensionPlot],
+  imports: [MatSlideToggle, NgTemplateOutlet, TensionPlot],
   templateUrl: './drill-score.html',
   styleUrl: './drill-score.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
