@@ -46,17 +46,19 @@ export function provenFor(
 
 /**
  * The card and kept bars as JSON, or null when JSON would not tell them apart from others (a
- * number that is not finite, a function, a hole in an array): those are worked out afresh.
+ * number that is not finite, or a hole in an array: JSON writes null for both).
  */
 function keyOf(card: RuleCard, keep: readonly DrillBar[] | undefined): string | null {
+  const key = `${JSON.stringify(card)}\n${keep ? JSON.stringify(keep) : ''}`;
+  // Without a null there was nothing JSON had to write as null (feet's hands are null).
+  if (!key.includes('null')) return key;
   let faithful = true;
   const note = (_: string, value: unknown): unknown => {
-    if (typeof value === 'number' ? !Number.isFinite(value) : typeof value === 'function')
-      faithful = false;
+    if (typeof value === 'number' && !Number.isFinite(value)) faithful = false;
     else if (Array.isArray(value) && value.includes(undefined)) faithful = false;
     return value;
   };
-  const key = `${JSON.stringify(card, note)}\n${keep ? JSON.stringify(keep, note) : ''}`;
+  JSON.stringify([card, keep], note);
   return faithful ? key : null;
 }
 
