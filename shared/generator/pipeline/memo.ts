@@ -25,9 +25,10 @@ export function provenFor(
   seed: string,
   keep: readonly DrillBar[] | undefined,
 ): Proven {
+  if (!enabled) return prove(place(frame(input, seed), keep), keep ?? []);
   // The drill hands its card to the caller: a copy of its own, never the one kept here.
   const card = canonicalCard(input);
-  const key = enabled ? keyOf(card, keep) : null;
+  const key = keyOf(card, keep);
   if (key === null) return prove(place(frame(input, seed), keep), keep ?? []);
   const known = proofs.get(key);
   if (known) {
