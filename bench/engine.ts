@@ -1,9 +1,10 @@
 /**
  * Engine benchmark: `npm run bench:engine`. Times `generateDrill` on a 16-bar, 4-voice card that
  * uses every rule kind (median, p99, drills per second, and the median against
- * `JSON.stringify` of the same drill), and the time to refuse unsatisfiable cards: one caught by
- * the obligation checks, one by the tension reach proof (formerly found by the search), and the
- * worst cases where the search runs to its work budget (median and max over seeds).
+ * `JSON.stringify` of the same drill), the first drill of a card (its proof not yet remembered:
+ * the same seeds with the proof memo off), and the time to refuse unsatisfiable cards: one
+ * caught by the obligation checks, one by the tension reach proof (formerly found by the
+ * search), and the worst cases where the search runs to its work budget (median and max over seeds).
  * Prints figures; it asserts nothing (targets: median ≤ 1 ms, ratio ≤ 20, refusals ≤ 100 ms).
  */
 import { cpus } from 'node:os';
@@ -13,6 +14,7 @@ import {
   RuleConflictError,
   SearchExhaustedError,
 } from '../shared/generator/index';
+import { useProofMemo } from '../shared/generator/pipeline/memo';
 import {
   FULL_CARD,
   SEARCH_CONFLICT_CARD,
@@ -44,6 +46,11 @@ const drillTimes = timeEach(RUNS, (i) => generateDrill(card, `bench-${i}`));
 const median = quantile(drillTimes, 0.5);
 const p99 = quantile(drillTimes, 0.99);
 const mean = drillTimes.reduce((a, b) => a + b, 0) / drillTimes.length;
+
+// Many seeds of one card reuse its proof; a card seen for the first time works it out.
+useProofMemo(false);
+const firstTimes = timeEach(RUNS, (i) => generateDrill(card, `bench-${i}`));
+useProofMemo(true);
 
 // JSON.stringify of one drill is a few microseconds: time batches of 100 for a stable figure.
 const sample = generateDrill(card, 'bench-json');
@@ -82,6 +89,9 @@ console.log(
 console.log(`card: 16 bars, 4 voices, 16ths, every rule kind; drill JSON ${jsonBytes} bytes`);
 console.log(
   `generateDrill   median ${ms(median)} ms   p99 ${ms(p99)} ms   ${Math.round(1000 / mean)} drills/s`,
+);
+console.log(
+  `first of a card median ${ms(quantile(firstTimes, 0.5))} ms   p99 ${ms(quantile(firstTimes, 0.99))} ms   (proof not remembered)`,
 );
 console.log(
   `JSON.stringify  median ${ms(jsonMedian)} ms   ratio generate/stringify ${(median / jsonMedian).toFixed(1)}`,

@@ -6,9 +6,7 @@ import { SEARCH_WORK_BUDGET } from './select';
 import { giveUp } from './tension-reach';
 import { barsOf, checked, keepsOrder } from './pipeline/check';
 import { draw } from './pipeline/draw';
-import { frame } from './pipeline/frame';
-import { place } from './pipeline/place';
-import { prove } from './pipeline/prove';
+import { provenFor } from './pipeline/memo';
 import { shape } from './pipeline/shape';
 import { stick } from './pipeline/stick';
 import type { Attempt } from './pipeline/stages';
@@ -24,7 +22,8 @@ import type { Attempt } from './pipeline/stages';
  * around them. A kept bar that does not fit the card is refused with a RuleCardError naming it.
  */
 export function generateDrill(input: RuleCard, seed: string, options: GenerateOptions = {}): Drill {
-  const proven = prove(place(frame(input, seed), options.keep), options.keep ?? []);
+  // The proof depends on the card and the kept bars alone: the last few are remembered.
+  const proven = provenFor(input, seed, options.keep);
   const attempt: Attempt = { rng: createRng(seed), budget: { left: SEARCH_WORK_BUDGET } };
   // Fresh fills are tried, while the work budget lasts, when the strokes the limbs cannot play
   // were removed and that broke the tension order.

@@ -65,4 +65,15 @@ describe('stroke limits', () => {
     const grid = createGrid(2, [3, 2]);
     expect([...instantTicks(grid)]).toEqual([0, 2, 4, 6, 9, 12, 14, 16, 18, 21, 24]);
   });
+
+  it('gives each grid its own ticks, whichever grid was asked for last', () => {
+    const triplets = createGrid(1, [3]);
+    const eighths = createGrid(1, [2]);
+    const thirds = (t: number): number[] => [0, t / 3, (2 * t) / 3, t];
+    const halves = (t: number): number[] => [0, t / 2, t];
+    expect([...instantTicks(triplets)]).toEqual(thirds(triplets.ticksPerBeat));
+    expect([...instantTicks(eighths)]).toEqual(halves(eighths.ticksPerBeat));
+    expect(instantTicks(eighths)).toBe(instantTicks(eighths));
+    expect([...instantTicks(triplets)]).toEqual(thirds(triplets.ticksPerBeat));
+  });
 });

@@ -115,8 +115,12 @@ export function runTicks(pace: Pace): number {
   return Math.floor(pace.beatTicks / (60 * RUN_NOTES_PER_SECOND));
 }
 
-/** Ticks from the drill's start to each instant, and the loop's length at index `instants`. */
+/**
+ * Ticks from the drill's start to each instant, and the loop's length at index `instants`.
+ * Shared by every stage of a drill (the grid's last table is kept): never write to it.
+ */
 export function instantTicks(grid: Grid): Float64Array {
+  if (grid === lastGrid) return lastTicks;
   const ticks = new Float64Array(grid.instants + 1);
   const barTicks = grid.beatsPerBar * grid.ticksPerBeat;
   let i = 0;
@@ -128,5 +132,10 @@ export function instantTicks(grid: Grid): Float64Array {
     }
   }
   ticks[grid.instants] = grid.bars * barTicks;
+  lastGrid = grid;
+  lastTicks = ticks;
   return ticks;
 }
+
+let lastGrid: Grid | null = null;
+let lastTicks = new Float64Array(0);

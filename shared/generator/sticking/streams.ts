@@ -38,9 +38,11 @@ export interface Frame {
   readonly run: number;
 }
 
+/** The grid's frame at a tempo; the last one is kept (a drill asks for it seven times). */
 export function frameOf(grid: Grid, tempo: number): Frame {
+  if (lastFrame?.grid === grid && lastTempo === tempo) return lastFrame;
   const pace = paceOf(grid, tempo);
-  return {
+  lastFrame = {
     grid,
     pace,
     ticks: instantTicks(grid),
@@ -48,7 +50,12 @@ export function frameOf(grid: Grid, tempo: number): Frame {
     foot: thresholdsOf(pace, FOOT_LIMITS),
     run: runTicks(pace),
   };
+  lastTempo = tempo;
+  return lastFrame;
 }
+
+let lastFrame: Frame | null = null;
+let lastTempo = 0;
 
 /** Each voice's index in VOICE_IDS, and whether a hand plays it. */
 export const VOICE_INDEX: Readonly<Record<VoiceId, number>> = Object.fromEntries(
