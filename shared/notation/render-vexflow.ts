@@ -271,15 +271,20 @@ export class EngravingCache {
     atOnce = Infinity,
   ): SVGSVGElement {
     const page = this.page;
+    const early = this.early;
     this.page = next;
     this.waiting = [];
     this.waitingBrackets = null;
+    this.early = new Map();
+    this.shownEarly = 0;
     const copy = (system: DrawnSystem): Element => {
       system.shown = system.group.cloneNode(true) as Element;
       return system.shown;
     };
     if (!page || page.parentNode !== container || container.childNodes.length !== 1) {
       for (const [stand, system] of reused) stand.replaceWith(copy(system));
+      // (The page was redrawn meanwhile, as for print: the early systems go back in.)
+      for (const [stand, part] of early) stand.replaceWith(part);
       return next;
     }
     const oldSystems = [...page.children].filter((part) => part.classList.contains(SYSTEM_CLASS));
@@ -287,6 +292,13 @@ export class EngravingCache {
     let system = -1;
     let placed = 0;
     const wanted = [...next.children].map((part, i) => {
+      // A system put up before the rest was drawn (see showEarly) stays where it is.
+      const shownBefore = early.get(part);
+      if (shownBefore) {
+        system++;
+        placed++;
+        return shownBefore;
+      }
       const kept = reused.get(part);
       if (kept) {
         system++;
@@ -298,7 +310,7 @@ export class EngravingCache {
         // stays on the page meanwhile (so nothing below it moves), unless that one is kept.
         const old = oldSystems[system];
         if (old && placed >= atOnce && !keptShown.has(old)) {
-          this.waiting.push([old, part]);
+          this.waiting.push([old, part, system]);
           return old;
         }
         placed++;
@@ -340,7 +352,40 @@ export class EngravingCache {
   }
 
   /** Systems of the last update still to go onto the page, each with the one it replaces. */
-  private waiting: [old: Element, next: Element][] = [];
+  private waiting: [old: Element, next: Element, system: number][] = [];
+  /** Systems put up early this pass, by the stand-in left in their place in the new drawing. */
+  private early = new Map<Element, Element>();
+  /**
+   * How many of this pass's first systems are on the page already, before the rest is drawn
+   * (see showEarly); 0 once the pass is done.
+   */
+  shownEarly = 0;
+
+  /** The systems (by index) still showing the drawing before the last update's. */
+  waitingSystems(): number[] {
+    return this.waiting.map(([, , system]) => system);
+  }
+
+  /**
+   * @internal A pass's first systems, drawn afresh, go onto the page (the last pass's drawing,
+   * still in `container`) before the rest is drawn, each in the place and under the host's name
+   * of the system it replaces; a stand-in takes its place in the new drawing until `update`.
+   * Nothing happens when there is no such drawing or it has fewer systems.
+   */
+  showEarly(container: HTMLElement, parts: readonly Element[]): void {
+    const page = this.page;
+    if (!page || page.parentNode !== container || container.childNodes.length !== 1) return;
+    const old = [...page.children].filter((part) => part.classList.contains(SYSTEM_CLASS));
+    if (old.length < parts.length) return;
+    parts.forEach((part, i) => {
+      const stand = part.ownerDocument.createElementNS(part.namespaceURI, 'g');
+      part.replaceWith(stand);
+      this.early.set(stand, part);
+      if (old[i]!.id && !part.id) part.id = old[i]!.id;
+      old[i]!.replaceWith(part);
+    });
+    this.shownEarly = parts.length;
+  }
   /** The last update's brackets, waiting for its systems (see update). */
   private waitingBrackets: [old: Element, next: Element] | null = null;
 
@@ -350,7 +395,7 @@ export class EngravingCache {
    * brackets over them, alone. False once nothing waits.
    */
   showMore(count = 1): boolean {
-    const swap = ([old, next]: [Element, Element]) => {
+    const swap = ([old, next]: [Element, Element, number?]) => {
       if (old.id && !next.id) next.id = old.id;
       old.replaceWith(next);
     };
@@ -580,6 +625,10 @@ function* engrave(
   // Every system starts from the same drawing state, so what one system leaves behind (a font,
   // a pen) never makes the next one's cached drawing unusable.
   const systemStart = ctx.drawingState();
+  // A host that puts a new score up a few systems at a time sees its first ones before the rest
+  // is drawn, when they are all drawn afresh (see EngravingCache.showEarly).
+  const early = options.systemsAtOnce ?? 0;
+  const fresh: Element[] = [];
   for (const [systemIndex, plan] of plans.entries()) {
     ctx.setDrawingState(systemStart);
     const drawKey = cache ? `${syllableSize}${systemStart}${systemKeys[systemIndex]}` : '';
@@ -666,6 +715,8 @@ function* engrave(
       instants: [...systemInstants],
       band,
     });
+    if (reused.size === 0 && fresh.push(group) === early && systemIndex < plans.length - 1)
+      cache?.showEarly(container, fresh);
     yield;
   }
   ctx.openGroup().setAttribute('class', BRACKETS_CLASS);
