@@ -438,6 +438,7 @@ export class DrillScore {
           const early = !earlyShown && own.shownEarly > 0;
           if (early) {
             earlyShown = true;
+            this.settling.set(true);
             this.staleSystems.set(this.systemsFrom(own.shownEarly));
           }
           // The first systems are up before the rest is drawn: they are shown at once.
@@ -603,10 +604,12 @@ function nextPaint(): Promise<void> {
   );
 }
 
-/** Resolves in a later task, after the browser has had its turn (input, rendering). */
+/**
+ * Resolves in a later task, after the browser has had its turn (input, rendering) and after the
+ * tasks already queued (not `scheduler.yield()`, whose continuation goes ahead of them: in a
+ * trace Chromium then held frames back 80–120 ms while a new score was engraved).
+ */
 function nextTask(): Promise<void> {
-  const scheduler = (globalThis as { scheduler?: { yield?: () => Promise<void> } }).scheduler;
-  if (typeof scheduler?.yield === 'function') return scheduler.yield();
   return new Promise((resolve) => {
     const channel = new MessageChannel();
     channel.port1.onmessage = () => resolve();
