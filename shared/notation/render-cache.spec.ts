@@ -340,11 +340,12 @@ describe('a new score put on the page a few systems at a time', () => {
     const page = container();
     const shown = renderNotation(page, buildNotation(drillOf('amber-fox')), { ...options, cache });
     const model = buildNotation(drillOf('copper-wren'));
-    // Redrawn meanwhile without the cache (as print does): the pass still ends whole.
+    // Redrawn meanwhile without the cache (as print does): the pass updates that drawing.
     const layout = stepEarly(page, shown.svg, model, cache, () => {
       renderNotation(page, buildNotation(drillOf('quiet-river')), SCREENS[0]!);
     });
     expect(page.childNodes.length === 1 && page.firstChild === layout.svg).toBe(true);
+    while (cache.showMore());
     systems(layout.svg).forEach((group) => group.removeAttribute('id'));
     expect(text(layout.svg)).toBe(text(renderNotation(container(), model, SCREENS[0]!).svg));
     // A newer pass once the early systems are up, before the rest: it draws as a full redraw.
@@ -359,6 +360,22 @@ describe('a new score put on the page a few systems at a time', () => {
     expect(page.childNodes.length === 1 && page.firstChild === last.svg).toBe(true);
     systems(last.svg).forEach((group) => group.removeAttribute('id'));
     expect(text(last.svg)).toBe(text(renderNotation(container(), newer, SCREENS[0]!).svg));
+  });
+
+  it('updates the drawing on the page whichever cache drew it (a wider line has its own)', () => {
+    const [one, other] = [new EngravingCache(), new EngravingCache()];
+    const page = container();
+    const shown = renderNotation(page, buildNotation(drillOf('amber-fox')), {
+      ...options,
+      cache: one,
+    }).svg;
+    const model = buildNotation(drillOf('copper-wren'));
+    const next = renderNotation(page, model, { ...options, cache: other });
+    // The other cache's pass updated the same drawing in place, a few systems at a time.
+    expect(next.svg).toBe(shown);
+    expect(other.showMore()).toBe(true);
+    while (other.showMore());
+    expect(text(next.svg)).toBe(text(renderNotation(container(), model, SCREENS[0]!).svg));
   });
 
   it('draws the same when a newer pass comes before every system was shown', () => {

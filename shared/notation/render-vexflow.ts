@@ -149,6 +149,8 @@ export interface NotationLayout {
  * BRACKETS_CLASS after them. Title, marks and keys above the first system stay outside both.
  */
 export const SYSTEM_CLASS = 'tensile-system';
+/** The class of every drawing's root. */
+const NOTATION_CLASS = 'tensile-notation';
 export const BRACKETS_CLASS = 'tensile-polyrhythms';
 
 /** Pixels between stave lines (VexFlow's default). */
@@ -254,12 +256,10 @@ export class EngravingCache {
     (this.used[kind] as Map<string, EngravingCacheEntry[K]>).set(key, value);
   }
 
-  /** The drawing this cache's last pass left on the page. */
-  private page: SVGSVGElement | null = null;
-
   /**
-   * @internal Bring the drawing on the page (when it is the last pass's, still in `container`)
-   * up to `next`, whose kept systems are stand-ins (the keys of `reused`), by changing only what
+   * @internal Bring the drawing on the page (the one engraving `container` holds, whichever
+   * pass or cache drew it: after a pass on a wider line a score's two caches take turns) up to
+   * `next`, whose kept systems are stand-ins (the keys of `reused`), by changing only what
    * differs: systems kept from that pass and parts drawn the
    * same stay as they are, so the browser restyles and lays out only what changed. Returns the
    * drawing now on the page, or `next` when there is none to update (the caller puts it there).
@@ -270,9 +270,8 @@ export class EngravingCache {
     reused: ReadonlyMap<Element, DrawnSystem>,
     atOnce = Infinity,
   ): SVGSVGElement {
-    const page = this.page;
+    const page = drawingIn(container);
     const early = this.early;
-    this.page = next;
     this.waiting = [];
     this.waitingBrackets = null;
     this.early = new Map();
@@ -281,7 +280,7 @@ export class EngravingCache {
       system.shown = system.group.cloneNode(true) as Element;
       return system.shown;
     };
-    if (!page || page.parentNode !== container || container.childNodes.length !== 1) {
+    if (!page) {
       for (const [stand, system] of reused) stand.replaceWith(copy(system));
       // (The page was redrawn meanwhile, as for print: the early systems go back in.)
       for (const [stand, part] of early) stand.replaceWith(part);
@@ -347,7 +346,6 @@ export class EngravingCache {
       const at = page.children[i];
       if (at !== part) page.insertBefore(part, at ?? null);
     });
-    this.page = page;
     return page;
   }
 
@@ -367,14 +365,14 @@ export class EngravingCache {
   }
 
   /**
-   * @internal A pass's first systems, drawn afresh, go onto the page (the last pass's drawing,
-   * still in `container`) before the rest is drawn, each in the place and under the host's name
+   * @internal A pass's first systems, drawn afresh, go onto the page (the drawing in
+   * `container`) before the rest is drawn, each in the place and under the host's name
    * of the system it replaces; a stand-in takes its place in the new drawing until `update`.
    * Nothing happens when there is no such drawing or it has fewer systems.
    */
   showEarly(container: HTMLElement, parts: readonly Element[]): void {
-    const page = this.page;
-    if (!page || page.parentNode !== container || container.childNodes.length !== 1) return;
+    const page = drawingIn(container);
+    if (!page) return;
     const old = [...page.children].filter((part) => part.classList.contains(SYSTEM_CLASS));
     if (old.length < parts.length) return;
     parts.forEach((part, i) => {
@@ -416,6 +414,12 @@ export class EngravingCache {
   }
 }
 
+/** The engraving `container` holds alone, if any. */
+function drawingIn(container: HTMLElement): SVGSVGElement | null {
+  const only = container.childNodes.length === 1 ? container.firstElementChild : null;
+  return only?.classList.contains(NOTATION_CLASS) ? (only as SVGSVGElement) : null;
+}
+
 interface EngravingCacheEntry {
   tightest: number;
   countSizes: readonly number[];
@@ -438,7 +442,7 @@ function* engrave(
   svg.setAttribute('fill', ink);
   svg.setAttribute('stroke', ink);
   svg.setAttribute('role', 'img');
-  svg.classList.add('tensile-notation');
+  svg.classList.add(NOTATION_CLASS);
   const showLegend = options.showLegend ?? true;
   const showCounts = options.showCounts ?? false;
   const cache = options.cache;
