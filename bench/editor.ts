@@ -5,7 +5,8 @@
  * Chromium against the real server; and how long the page's main thread was blocked meanwhile
  * (typing waits for it): the longest main-thread task from a Chromium performance trace, and the
  * longest gap between animation frames.
- * Run: npm run bench:editor (builds the app first)
+ * Run: npm run bench:editor (builds the app first); EDITOR_ROOT=<another checkout, built> npx tsx
+ * bench/editor.ts runs the same script against that checkout's server and build.
  */
 import { writeFile } from 'node:fs/promises';
 import { cpus, loadavg } from 'node:os';
@@ -24,7 +25,10 @@ function quantile(sorted: readonly number[], q: number): number {
   return sorted[index] ?? NaN;
 }
 
-const server = await startServer();
+// EDITOR_ROOT=<checkout>: that checkout's server and build (each built), for A/B runs alternated
+// with this one's in the same minutes.
+const root = process.env['EDITOR_ROOT'];
+const server = await startServer(root ? { root } : {});
 const browser = await launchChromium();
 try {
   const page = await browser.newPage({ viewport: { width: 1400, height: 1000 } });
@@ -96,6 +100,7 @@ try {
               const channel = new MessageChannel();
               channel.port1.onmessage = () => {
                 latency = performance.now() - start;
+                performance.mark(`${mark}-shown`);
                 whole();
               };
               channel.port2.postMessage(null);

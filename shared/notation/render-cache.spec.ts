@@ -268,6 +268,116 @@ describe('a new score put on the page a few systems at a time', () => {
     expect(cache.showMore()).toBe(false);
   });
 
+  /** A system's drawing without any element's id (VexFlow's running numbers, the host's names). */
+  const part = (group: Element) => group.outerHTML.replace(/ id="[^"]*"/g, '');
+
+  /**
+   * Steps `model` onto `page` (holding `shown`, its systems named by the host) up to the moment
+   * its first systems are on the page, checks them there, then runs `meanwhile` and the rest.
+   */
+  const stepEarly = (
+    page: HTMLElement,
+    shown: SVGSVGElement,
+    model: NotationModel,
+    cache: EngravingCache,
+    meanwhile = () => {},
+  ) => {
+    const before = systems(shown);
+    before.forEach((group, i) => (group.id = `score-system-${i}`));
+    const full = systems(renderNotation(container(), model, SCREENS[0]!).svg);
+    const steps = notationSteps(page, model, { ...options, cache });
+    let layout = steps.step();
+    let early = false;
+    while (layout === null) {
+      if (!early && cache.shownEarly > 0) {
+        early = true;
+        expect(cache.shownEarly).toBe(2);
+        const now = systems(shown);
+        expect(page.firstChild).toBe(shown);
+        // The new drill's first two systems, as a full redraw draws them, under the names of
+        // the ones they replace; the rest still the old drawing's, in place.
+        expect(now.slice(0, 2).map(part)).toEqual(full.slice(0, 2).map(part));
+        expect(now.slice(0, 2).map((group) => group.id)).toEqual([
+          'score-system-0',
+          'score-system-1',
+        ]);
+        expect(now.slice(2)).toEqual(before.slice(2));
+        meanwhile();
+      }
+      layout = steps.step();
+    }
+    expect(early).toBe(true);
+    return layout;
+  };
+
+  it('puts its first new systems up before the rest is drawn, then ends as a full redraw', () => {
+    const cache = new EngravingCache();
+    const page = container();
+    const shown = renderNotation(page, buildNotation(drillOf('amber-fox')), { ...options, cache });
+    const model = buildNotation(drillOf('copper-wren'));
+    const early = new Set(systems(shown.svg).slice(0, 2));
+    const layout = stepEarly(page, shown.svg, model, cache);
+    expect(layout.svg).toBe(shown.svg);
+    // The systems put up early stay the same elements; the others wait for showMore.
+    expect(
+      systems(layout.svg)
+        .slice(0, 2)
+        .some((group) => early.has(group)),
+    ).toBe(false);
+    const first = systems(layout.svg).slice(0, 2);
+    // (Some later systems may be the same in both drills: those are kept, not waiting.)
+    expect(cache.waitingSystems().length).toBeGreaterThan(0);
+    expect(cache.waitingSystems().every((system) => system >= 2)).toBe(true);
+    while (cache.showMore());
+    expect(cache.waitingSystems()).toEqual([]);
+    expect(systems(layout.svg).slice(0, 2)).toEqual(first);
+    systems(layout.svg).forEach((group) => group.removeAttribute('id'));
+    expect(text(layout.svg)).toBe(text(renderNotation(container(), model, SCREENS[0]!).svg));
+  });
+
+  it('draws the same when the page is redrawn or a newer pass comes after the early systems', () => {
+    const cache = new EngravingCache();
+    const page = container();
+    const shown = renderNotation(page, buildNotation(drillOf('amber-fox')), { ...options, cache });
+    const model = buildNotation(drillOf('copper-wren'));
+    // Redrawn meanwhile without the cache (as print does): the pass updates that drawing.
+    const layout = stepEarly(page, shown.svg, model, cache, () => {
+      renderNotation(page, buildNotation(drillOf('quiet-river')), SCREENS[0]!);
+    });
+    expect(page.childNodes.length === 1 && page.firstChild === layout.svg).toBe(true);
+    while (cache.showMore());
+    systems(layout.svg).forEach((group) => group.removeAttribute('id'));
+    expect(text(layout.svg)).toBe(text(renderNotation(container(), model, SCREENS[0]!).svg));
+    // A newer pass once the early systems are up, before the rest: it draws as a full redraw.
+    const again = renderNotation(page, buildNotation(drillOf('amber-fox')), { ...options, cache });
+    let last = again;
+    stepEarly(page, again.svg, buildNotation(drillOf('copper-wren', 80)), cache, () => {
+      last = renderNotation(page, buildNotation(drillOf('quiet-river')), { ...options, cache });
+    });
+    const newer = buildNotation(drillOf('quiet-river'));
+    last = renderNotation(page, newer, { ...options, cache });
+    while (cache.showMore());
+    expect(page.childNodes.length === 1 && page.firstChild === last.svg).toBe(true);
+    systems(last.svg).forEach((group) => group.removeAttribute('id'));
+    expect(text(last.svg)).toBe(text(renderNotation(container(), newer, SCREENS[0]!).svg));
+  });
+
+  it('updates the drawing on the page whichever cache drew it (a wider line has its own)', () => {
+    const [one, other] = [new EngravingCache(), new EngravingCache()];
+    const page = container();
+    const shown = renderNotation(page, buildNotation(drillOf('amber-fox')), {
+      ...options,
+      cache: one,
+    }).svg;
+    const model = buildNotation(drillOf('copper-wren'));
+    const next = renderNotation(page, model, { ...options, cache: other });
+    // The other cache's pass updated the same drawing in place, a few systems at a time.
+    expect(next.svg).toBe(shown);
+    expect(other.showMore()).toBe(true);
+    while (other.showMore());
+    expect(text(next.svg)).toBe(text(renderNotation(container(), model, SCREENS[0]!).svg));
+  });
+
   it('draws the same when a newer pass comes before every system was shown', () => {
     const cache = new EngravingCache();
     const page = container();

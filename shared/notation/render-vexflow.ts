@@ -150,6 +150,8 @@ export interface NotationLayout {
  * BRACKETS_CLASS after them. Title, marks and keys above the first system stay outside both.
  */
 export const SYSTEM_CLASS = 'tensile-system';
+/** The class of every drawing's root. */
+const NOTATION_CLASS = 'tensile-notation';
 export const BRACKETS_CLASS = 'tensile-polyrhythms';
 
 /** Pixels between stave lines (VexFlow's default). */
@@ -255,12 +257,10 @@ export class EngravingCache {
     (this.used[kind] as Map<string, EngravingCacheEntry[K]>).set(key, value);
   }
 
-  /** The drawing this cache's last pass left on the page. */
-  private page: SVGSVGElement | null = null;
-
   /**
-   * @internal Bring the drawing on the page (when it is the last pass's, still in `container`)
-   * up to `next`, whose kept systems are stand-ins (the keys of `reused`), by changing only what
+   * @internal Bring the drawing on the page (the one engraving `container` holds, whichever
+   * pass or cache drew it: after a pass on a wider line a score's two caches take turns) up to
+   * `next`, whose kept systems are stand-ins (the keys of `reused`), by changing only what
    * differs: systems kept from that pass and parts drawn the
    * same stay as they are, so the browser restyles and lays out only what changed. Returns the
    * drawing now on the page, or `next` when there is none to update (the caller puts it there).
@@ -271,16 +271,20 @@ export class EngravingCache {
     reused: ReadonlyMap<Element, DrawnSystem>,
     atOnce = Infinity,
   ): SVGSVGElement {
-    const page = this.page;
-    this.page = next;
+    const page = drawingIn(container);
+    const early = this.early;
     this.waiting = [];
     this.waitingBrackets = null;
+    this.early = new Map();
+    this.shownEarly = 0;
     const copy = (system: DrawnSystem): Element => {
       system.shown = system.group.cloneNode(true) as Element;
       return system.shown;
     };
-    if (!page || page.parentNode !== container || container.childNodes.length !== 1) {
+    if (!page) {
       for (const [stand, system] of reused) stand.replaceWith(copy(system));
+      // (The page was redrawn meanwhile, as for print: the early systems go back in.)
+      for (const [stand, part] of early) stand.replaceWith(part);
       return next;
     }
     const oldSystems = [...page.children].filter((part) => part.classList.contains(SYSTEM_CLASS));
@@ -288,6 +292,13 @@ export class EngravingCache {
     let system = -1;
     let placed = 0;
     const wanted = [...next.children].map((part, i) => {
+      // A system put up before the rest was drawn (see showEarly) stays where it is.
+      const shownBefore = early.get(part);
+      if (shownBefore) {
+        system++;
+        placed++;
+        return shownBefore;
+      }
       const kept = reused.get(part);
       if (kept) {
         system++;
@@ -299,7 +310,7 @@ export class EngravingCache {
         // stays on the page meanwhile (so nothing below it moves), unless that one is kept.
         const old = oldSystems[system];
         if (old && placed >= atOnce && !keptShown.has(old)) {
-          this.waiting.push([old, part]);
+          this.waiting.push([old, part, system]);
           return old;
         }
         placed++;
@@ -336,12 +347,44 @@ export class EngravingCache {
       const at = page.children[i];
       if (at !== part) page.insertBefore(part, at ?? null);
     });
-    this.page = page;
     return page;
   }
 
   /** Systems of the last update still to go onto the page, each with the one it replaces. */
-  private waiting: [old: Element, next: Element][] = [];
+  private waiting: [old: Element, next: Element, system: number][] = [];
+  /** Systems put up early this pass, by the stand-in left in their place in the new drawing. */
+  private early = new Map<Element, Element>();
+  /**
+   * How many of this pass's first systems are on the page already, before the rest is drawn
+   * (see showEarly); 0 once the pass is done.
+   */
+  shownEarly = 0;
+
+  /** The systems (by index) still showing the drawing before the last update's. */
+  waitingSystems(): number[] {
+    return this.waiting.map(([, , system]) => system);
+  }
+
+  /**
+   * @internal A pass's first systems, drawn afresh, go onto the page (the drawing in
+   * `container`) before the rest is drawn, each in the place and under the host's name
+   * of the system it replaces; a stand-in takes its place in the new drawing until `update`.
+   * Nothing happens when there is no such drawing or it has fewer systems.
+   */
+  showEarly(container: HTMLElement, parts: readonly Element[]): void {
+    const page = drawingIn(container);
+    if (!page) return;
+    const old = [...page.children].filter((part) => part.classList.contains(SYSTEM_CLASS));
+    if (old.length < parts.length) return;
+    parts.forEach((part, i) => {
+      const stand = part.ownerDocument.createElementNS(part.namespaceURI, 'g');
+      part.replaceWith(stand);
+      this.early.set(stand, part);
+      if (old[i]!.id && !part.id) part.id = old[i]!.id;
+      old[i]!.replaceWith(part);
+    });
+    this.shownEarly = parts.length;
+  }
   /** The last update's brackets, waiting for its systems (see update). */
   private waitingBrackets: [old: Element, next: Element] | null = null;
 
@@ -351,7 +394,7 @@ export class EngravingCache {
    * brackets over them, alone. False once nothing waits.
    */
   showMore(count = 1): boolean {
-    const swap = ([old, next]: [Element, Element]) => {
+    const swap = ([old, next]: [Element, Element, number?]) => {
       if (old.id && !next.id) next.id = old.id;
       old.replaceWith(next);
     };
@@ -370,6 +413,12 @@ export class EngravingCache {
     this.systems = this.used.systems;
     this.used = { tightest: new Map(), countSizes: new Map(), systems: new Map() };
   }
+}
+
+/** The engraving `container` holds alone, if any. */
+function drawingIn(container: HTMLElement): SVGSVGElement | null {
+  const only = container.childNodes.length === 1 ? container.firstElementChild : null;
+  return only?.classList.contains(NOTATION_CLASS) ? (only as SVGSVGElement) : null;
 }
 
 interface EngravingCacheEntry {
@@ -394,7 +443,7 @@ function* engrave(
   svg.setAttribute('fill', ink);
   svg.setAttribute('stroke', ink);
   svg.setAttribute('role', 'img');
-  svg.classList.add('tensile-notation');
+  svg.classList.add(NOTATION_CLASS);
   const showLegend = options.showLegend ?? true;
   const showCounts = options.showCounts ?? false;
   const cache = options.cache;
@@ -582,6 +631,10 @@ function* engrave(
   // Every system starts from the same drawing state, so what one system leaves behind (a font,
   // a pen) never makes the next one's cached drawing unusable.
   const systemStart = ctx.drawingState();
+  // A host that puts a new score up a few systems at a time sees its first ones before the rest
+  // is drawn, when they are all drawn afresh (see EngravingCache.showEarly).
+  const early = options.systemsAtOnce ?? 0;
+  const fresh: Element[] = [];
   for (const [systemIndex, plan] of plans.entries()) {
     ctx.setDrawingState(systemStart);
     const drawKey = cache ? `${syllableSize}${systemStart}${systemKeys[systemIndex]}` : '';
@@ -675,6 +728,8 @@ function* engrave(
       instants: [...systemInstants],
       band,
     });
+    if (reused.size === 0 && fresh.push(group) === early && systemIndex < plans.length - 1)
+      cache?.showEarly(container, fresh);
     yield;
   }
   ctx.openGroup().setAttribute('class', BRACKETS_CLASS);

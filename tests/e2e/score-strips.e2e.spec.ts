@@ -106,20 +106,25 @@ describe("the editor's preview after a new seed", () => {
     await score.locator('svg .tensile-bar').first().waitFor();
     // Counted in the page: changes to the score while it said it was busy.
     await score.evaluate((host) => {
-      const seen = { busy: 0 };
+      const seen = { busy: 0, dimmed: 0 };
       (window as unknown as { seen: typeof seen }).seen = seen;
       new MutationObserver(() => {
-        if (host.getAttribute('aria-busy') === 'true') seen.busy++;
+        if (host.getAttribute('aria-busy') !== 'true') return;
+        seen.busy++;
+        // Old systems on the page beside new ones are dimmed meanwhile.
+        if (host.querySelector('.band.stale')) seen.dimmed++;
       }).observe(host, { subtree: true, childList: true, attributes: true });
     });
     const seed = await page.getByTestId('preview-seed').textContent();
     await page.getByRole('button', { name: 'New seed' }).click();
     await expect.poll(() => page.getByTestId('preview-seed').textContent(), POLL).not.toBe(seed);
     await expect.poll(() => score.getAttribute('aria-busy'), POLL).toBeNull();
-    const staged = await page.evaluate(
-      () => (window as unknown as { seen: { busy: number } }).seen.busy,
+    const seen = await page.evaluate(
+      () => (window as unknown as { seen: { busy: number; dimmed: number } }).seen,
     );
-    expect(staged, 'changes while the later systems went up').toBeGreaterThan(0);
+    expect(seen.busy, 'changes while the later systems went up').toBeGreaterThan(0);
+    expect(seen.dimmed, 'changes while old systems showed dimmed').toBeGreaterThan(0);
+    expect(await score.locator('.band.stale').count()).toBe(0);
     const updated = await drawing(score);
     expect(updated).toMatch(/-system-7"/);
     // Another width and back: this width's drawing is then put up whole, not updated in place.

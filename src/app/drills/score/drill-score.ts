@@ -125,6 +125,11 @@ export class DrillScore {
   protected readonly fit = signal({ contentWidth: 0, scale: 1 });
   protected readonly failure = signal<string | null>(null);
   protected readonly settling = signal(false);
+  /**
+   * Systems whose strip still shows the drawing before the current drill's (a new score goes up
+   * a few systems at a time): dimmed, so the page never passes a mix of two drills for one.
+   */
+  protected readonly staleSystems = signal<ReadonlySet<number>>(new Set());
   protected readonly model = computed(() => buildNotation(this.drill()));
   protected readonly highlight = computed(() => {
     const layout = this.layout();
@@ -369,6 +374,7 @@ export class DrillScore {
     const start = (): void => {
       if (this.printing()) return;
       this.printing.set(true);
+      this.staleSystems.set(new Set());
       const engraver = this.engraver;
       if (engraver === null || this.width() === 0) return;
       this.draw(engraver, this.model(), PRINT_ENGRAVING_WIDTH, this.shown());
@@ -415,18 +421,32 @@ export class DrillScore {
       // the drawing shows once it is whole. A newer drill ends this pass at its next step.
       const current = () => token === this.renderToken && !this.printing();
       let cache: EngravingCache | undefined;
+      // When the browser last drew a frame: yields between steps let a frame in once one is due
+      // (a task alone lets input in, but Chromium can hold frames back behind such tasks).
+      let painted = performance.now();
       const engrave = async (lineWidth: number) => {
-        cache = this.cacheFor(engraver, lineWidth);
+        const own = (cache = this.cacheFor(engraver, lineWidth));
         const steps = engraver.notationSteps(this.canvas().nativeElement, model, {
-          ...this.engravingOptions(lineWidth, shown, cache),
+          ...this.engravingOptions(lineWidth, shown, own),
           systemsAtOnce: SYSTEMS_A_FRAME,
         });
         let slice = performance.now();
+        let earlyShown = false;
         for (;;) {
           const layout = steps.step();
           if (layout) return layout;
-          if (performance.now() - slice < SLICE_MS) continue;
-          await nextTask();
+          const early = !earlyShown && own.shownEarly > 0;
+          if (early) {
+            earlyShown = true;
+            this.settling.set(true);
+            this.staleSystems.set(this.systemsFrom(own.shownEarly));
+          }
+          // The first systems are up before the rest is drawn: they are shown at once.
+          if (!early && performance.now() - slice < SLICE_MS) continue;
+          if (early || performance.now() - painted >= FRAME_MS) {
+            await nextPaint();
+            painted = performance.now();
+          } else await nextTask();
           if (!current()) return null;
           slice = performance.now();
         }
@@ -442,16 +462,29 @@ export class DrillScore {
       // styles and lays out every system and its strip's copy; a newer drill ends this.
       let waiting = cache?.showMore(0) ?? false;
       this.settling.set(waiting);
+      this.markStale(cache);
       while (waiting) {
         await nextFrame();
         if (!current()) return;
         waiting = cache!.showMore(SYSTEMS_A_FRAME);
+        this.markStale(cache);
       }
       this.settling.set(false);
     } catch (error) {
       if (token !== this.renderToken) return;
       this.failure.set(error instanceof Error ? error.message : String(error));
     }
+  }
+
+  /** Every system of the score on the page from `first` on. */
+  private systemsFrom(first: number): ReadonlySet<number> {
+    return new Set(this.bands().flatMap((band) => (band.system >= first ? [band.system] : [])));
+  }
+
+  /** Dim the systems still waiting to go up (none once they all are). */
+  private markStale(cache: EngravingCache | undefined): void {
+    const waiting = cache?.waitingSystems() ?? [];
+    if (waiting.length || this.staleSystems().size) this.staleSystems.set(new Set(waiting));
   }
 
   /**
@@ -557,10 +590,26 @@ function nextFrame(): Promise<void> {
   return new Promise((resolve) => requestAnimationFrame(() => resolve()));
 }
 
-/** Resolves in a later task, after the browser has had its turn (input, rendering). */
+/** About one 60 Hz frame, in ms: engraving steps run at most this long between frames. */
+const FRAME_MS = 16;
+
+/** Resolves once the next frame is drawn (its style, layout and paint done). */
+function nextPaint(): Promise<void> {
+  return new Promise((resolve) =>
+    requestAnimationFrame(() => {
+      const channel = new MessageChannel();
+      channel.port1.onmessage = () => resolve();
+      channel.port2.postMessage(null);
+    }),
+  );
+}
+
+/**
+ * Resolves in a later task, after the browser has had its turn (input, rendering) and after the
+ * tasks already queued (not `scheduler.yield()`, whose continuation goes ahead of them: in a
+ * trace Chromium then held frames back 80–120 ms while a new score was engraved).
+ */
 function nextTask(): Promise<void> {
-  const scheduler = (globalThis as { scheduler?: { yield?: () => Promise<void> } }).scheduler;
-  if (typeof scheduler?.yield === 'function') return scheduler.yield();
   return new Promise((resolve) => {
     const channel = new MessageChannel();
     channel.port1.onmessage = () => resolve();
