@@ -78,9 +78,9 @@ describe('renderDrillSvg (Node, jsdom + @napi-rs/canvas)', () => {
 
   // E. Gould, "Behind Bars", Faber Music 2011, ch. "Tuplets" (from memory): once a tuplet
   // pattern is established the numbers may be dropped, "sim." after the first, but only where
-  // unambiguous: a group of five beats written in fewer than five values (a combined rest)
-  // reads as plain sixteenths without its "5".
-  it('writes "5" then "sim." in the hands, and a "5" on every group of fewer than five values', () => {
+  // unambiguous: a group of five written in fewer than five values (a combined rest), or with a
+  // rest among its five, reads as plain sixteenths without its "5" (common practice).
+  it('writes "5" then at most one "sim." a part, and a "5" on every group with a rest or fewer values', () => {
     for (const id of ['quintuplets-hihat-1-3-4', 'quintuplets-hihat-1-3-5']) {
       for (const seed of ['lesson-12', 'cedar-5', 'moss-21']) {
         const preset = BUILT_IN_PRESETS.find((p) => p.id === id)!;
@@ -91,9 +91,10 @@ describe('renderDrillSvg (Node, jsdom + @napi-rs/canvas)', () => {
         });
         const page = parse(drawn.svg);
         const where = `${id} ${seed}`;
-        expect(page.querySelectorAll('[data-voice="hands"] .tensile-simile'), where).toHaveLength(
-          1,
-        );
+        expect(
+          page.querySelectorAll('[data-voice="hands"] .tensile-simile').length,
+          where,
+        ).toBeLessThanOrEqual(1);
         let shortGroups = 0;
         for (const bar of page.querySelectorAll('[data-bar]')) {
           for (const voice of bar.querySelectorAll('[data-voice]')) {
@@ -104,7 +105,8 @@ describe('renderDrillSvg (Node, jsdom + @napi-rs/canvas)', () => {
                 (sum, v) => sum + 16 / Number.parseInt(v.getAttribute('data-duration')!, 10),
                 0,
               );
-              if (sixteenths !== 5 || values.length === 5) continue;
+              const played = values.every((v) => v.classList.contains('tensile-note'));
+              if (sixteenths !== 5 || (values.length === 5 && played)) continue;
               shortGroups++;
               const number = voice.querySelector(`[data-tuplet="5"][data-beat="${beat}"]`);
               expect(number, `${where} bar ${bar.getAttribute('data-bar')} beat ${beat}`).not.toBe(

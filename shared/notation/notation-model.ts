@@ -193,9 +193,8 @@ export function buildNotation(drill: NotationSource): NotationModel {
  * on each voice's groups until "sim." is marked, then only where a group does not count itself
  * (E. Gould, "Behind Bars", Faber Music 2011, ch. "Tuplets": once a tuplet pattern is
  * established the numbers may be dropped, but only where that is unambiguous; from memory).
- * A group counts itself when it writes all its values one by one (five sixteenths, notes or
- * rests): a group with a combined rest or a longer value shows four or fewer and reads as plain
- * sixteenths without its "5". "Sim." follows the first group that is followed at once by a
+ * A group counts itself when it plays all its values one by one (five sixteenth notes): a group
+ * with a rest, a combined rest or a longer value reads as plain sixteenths without its "5". "Sim." follows the first group that is followed at once by a
  * group of the voice that counts itself, so it never stands over a plain rest it could be read with. "Sim." rather
  * than a number at the start of each system: the model knows no systems, and the screen, the
  * phone and the page break the same drill differently. Each voice is a part of its own here: a
@@ -215,12 +214,12 @@ function simileTuplets(bars: NotationBar[]): NotationBar[] {
       tuplets: layer.tuplets.map((tuplet, i) => {
         if (keepsNumber(tuplet)) return tuplet;
         if (marked.has(layer.layer))
-          return { ...tuplet, shown: !countsItself(tuplet), simile: false };
+          return { ...tuplet, shown: !countsItself(tuplet, layer.events), simile: false };
         const next = layer.tuplets[i + 1];
         const followed =
           next !== undefined &&
           next.events[0] === tuplet.events[tuplet.events.length - 1]! + 1 &&
-          countsItself(next);
+          countsItself(next, layer.events);
         if (followed) marked.add(layer.layer);
         return { ...tuplet, shown: true, simile: followed };
       }),
@@ -228,9 +227,15 @@ function simileTuplets(bars: NotationBar[]): NotationBar[] {
   }));
 }
 
-/** Whether a group writes every value of its tuplet one by one (five sixteenths under a "5"). */
-function countsItself(tuplet: NotationTuplet): boolean {
-  return tuplet.events.length === tuplet.ratio.numNotes;
+/**
+ * Whether a group plays every value of its tuplet (five sixteenth notes under a "5"). A group
+ * with a rest keeps its number: four sixteenths and a rest read as a plain beat (common practice).
+ */
+function countsItself(tuplet: NotationTuplet, events: readonly NotationEvent[]): boolean {
+  return (
+    tuplet.events.length === tuplet.ratio.numNotes &&
+    tuplet.events.every((i) => events[i]!.kind === 'note')
+  );
 }
 
 /**

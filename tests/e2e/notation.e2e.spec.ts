@@ -159,7 +159,7 @@ describe('drill page notation (Chromium)', () => {
           .filter((h) => isHandVoice(h.voice) === (layer === 'hands'));
         expect(engraving.heads[layer], `${layer} noteheads`).toBe(hits.length);
         for (const n of [3, 5, 7]) {
-          // A drill in one tuplet throughout writes one number, then "sim." (checked below).
+          // A drill in one tuplet throughout may write "sim." after a number (checked below).
           if (inOneTupletThroughout(drill, n)) continue;
           const due = bracketsDue(drill, n, layer === 'hands');
           expect(
@@ -176,8 +176,9 @@ describe('drill page notation (Chromium)', () => {
       } else if (inOneTupletThroughout(drill, tuplet)) {
         // E. Gould, "Behind Bars", ch. "Tuplets" (from memory): once the pattern is set in a
         // part, its numbers give way to "sim." where that is unambiguous; each voice with
-        // tuplets is such a part, and a group written in fewer values than its tuplet keeps
-        // its number (checked on the model in engraving-rules.spec.ts).
+        // tuplets is such a part, and a group with a rest or written in fewer values than its
+        // tuplet keeps its number (checked on the model in engraving-rules.spec.ts), so a part
+        // may have no group after which "sim." is unambiguous.
         const parts = [engraving.tuplets.hands, engraving.tuplets.feet].filter(
           (_, i) => bracketsDue(drill, tuplet, i === 0) > 0,
         ).length;
@@ -185,7 +186,6 @@ describe('drill page notation (Chromium)', () => {
         expect(bracketed.length).toBeGreaterThanOrEqual(parts);
         expect(bracketed.every((t) => t === String(tuplet))).toBe(true);
         const similes = await page.locator('tensile-drill-score svg .tensile-simile').count();
-        expect(similes).toBeGreaterThan(0);
         expect(similes).toBeLessThanOrEqual(parts);
       } else {
         // One bracket per beat with a voice layer on the tuplet grid, counted from the drill.
