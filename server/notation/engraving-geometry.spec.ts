@@ -204,9 +204,9 @@ describe("room for a shuffle's triplet brackets", () => {
 });
 
 describe('a note the loop carries into bar 1', () => {
-  // late-backbeat-over-the-bar-line moves the snare of beat 4 six sixteenths late: past the bar
-  // line, onto the "&" of 1 of the next bar, so bar 1 opens with the last bar's late 4 (worked
-  // by hand from the card). A small word over it says so, clear of the letters and the notes.
+  // late-backbeat-over-the-bar-line, in eighths, moves the snare of beat 4 three eighths late:
+  // past the bar line, onto the "&" of 1 of the next bar, so bar 1 opens with the last bar's
+  // late 4 (worked by hand from the card). A small word over it says so, clear of the letters and the notes.
   it('names the late 4 over bar 1 alone, clear of the sticking and the music', () => {
     for (const seed of SEEDS) {
       const drill = drillOf('late-backbeat-over-the-bar-line', seed);
@@ -216,10 +216,10 @@ describe('a note the loop carries into bar 1', () => {
       const hint = hints[0]!;
       const bar = hint.closest('.tensile-bar')!;
       expect(bar.getAttribute('data-bar')).toBe('1');
-      expect([hint.getAttribute('data-beat'), hint.getAttribute('data-slot')]).toEqual(['1', '2']);
+      expect([hint.getAttribute('data-beat'), hint.getAttribute('data-slot')]).toEqual(['1', '1']);
       expect(hint.textContent).toBe(`late 4, from bar ${drill.bars.length}`);
       expect(
-        bar.querySelector('.tensile-note[data-beat="1"][data-slot="2"][data-instruments~="snare"]'),
+        bar.querySelector('.tensile-note[data-beat="1"][data-slot="1"][data-instruments~="snare"]'),
       ).not.toBeNull();
       measure.font = `italic ${hint.getAttribute('font-size')}px Academico`;
       const m = measure.measureText(hint.textContent ?? '');

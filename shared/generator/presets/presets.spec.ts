@@ -65,7 +65,8 @@ describe('the facts each preset names', () => {
   it('late-backbeat-over-the-bar-line: beat 4 moves to the "and" of the next 1', () => {
     // The drill is a loop, so bar 1 receives the last bar's shifted snare.
     everyBar('late-backbeat-over-the-bar-line', (bar) => {
-      expect(spots(bar, 'snare', 'backbeat')).toEqual(['1:2', '2:0']);
+      // Written in eighths: three eighths after beat 4 is the "&" (slot 1) of the next 1.
+      expect(spots(bar, 'snare', 'backbeat')).toEqual(['1:1', '2:0']);
     });
   });
 
