@@ -104,16 +104,37 @@ describe("the editor's preview after a new seed", () => {
     await page.goto(`${suite.server.url}/rule-cards/${id}`);
     const score = page.locator('tensile-card-preview tensile-drill-score');
     await score.locator('svg .tensile-bar').first().waitFor();
-    // Counted in the page: changes to the score while it said it was busy.
+    // Counted in the page: changes to the score while it said it was busy. The records are
+    // read in order, each with the value it replaced, since a callback may come only after the
+    // score is no longer busy.
     await score.evaluate((host) => {
       const seen = { busy: 0, dimmed: 0 };
       (window as unknown as { seen: typeof seen }).seen = seen;
-      new MutationObserver(() => {
-        if (host.getAttribute('aria-busy') !== 'true') return;
-        seen.busy++;
-        // Old systems on the page beside new ones are dimmed meanwhile.
-        if (host.querySelector('.band.stale')) seen.dimmed++;
-      }).observe(host, { subtree: true, childList: true, attributes: true });
+      let busy = host.getAttribute('aria-busy') === 'true';
+      new MutationObserver((records) => {
+        records.forEach((record, i) => {
+          if (record.target === host && record.attributeName === 'aria-busy') {
+            const next = records
+              .slice(i + 1)
+              .find((r) => r.target === host && r.attributeName === 'aria-busy');
+            busy = (next ? next.oldValue : host.getAttribute('aria-busy')) === 'true';
+            return;
+          }
+          if (!busy) return;
+          seen.busy++;
+          // Old systems on the page beside new ones are dimmed meanwhile.
+          const target = record.target as Element;
+          const stale =
+            record.attributeName === 'class' &&
+            (record.oldValue?.split(' ').includes('stale') || target.classList.contains('stale'));
+          if (stale || host.querySelector('.band.stale')) seen.dimmed++;
+        });
+      }).observe(host, {
+        subtree: true,
+        childList: true,
+        attributes: true,
+        attributeOldValue: true,
+      });
     });
     const seed = await page.getByTestId('preview-seed').textContent();
     await page.getByRole('button', { name: 'New seed' }).click();
