@@ -104,11 +104,14 @@ describe("the editor's preview after a new seed", () => {
     await page.goto(`${suite.server.url}/rule-cards/${id}`);
     const score = page.locator('tensile-card-preview tensile-drill-score');
     await score.locator('svg .tensile-bar').first().waitFor();
+    // The first drill all up and settled before the watch starts.
+    await expect.poll(() => drawing(score), POLL).toMatch(/-system-7"/);
+    await expect.poll(() => score.getAttribute('aria-busy'), POLL).toBeNull();
     // Counted in the page: changes to the score while it said it was busy. The records are
     // read in order, each with the value it replaced, since a callback may come only after the
     // score is no longer busy.
     await score.evaluate((host) => {
-      const seen = { busy: 0, dimmed: 0 };
+      const seen = { busy: 0, dimmed: 0, settled: false };
       (window as unknown as { seen: typeof seen }).seen = seen;
       let busy = host.getAttribute('aria-busy') === 'true';
       new MutationObserver((records) => {
@@ -117,7 +120,9 @@ describe("the editor's preview after a new seed", () => {
             const next = records
               .slice(i + 1)
               .find((r) => r.target === host && r.attributeName === 'aria-busy');
-            busy = (next ? next.oldValue : host.getAttribute('aria-busy')) === 'true';
+            const now = (next ? next.oldValue : host.getAttribute('aria-busy')) === 'true';
+            if (busy && !now) seen.settled = true;
+            busy = now;
             return;
           }
           if (!busy) return;
@@ -139,7 +144,15 @@ describe("the editor's preview after a new seed", () => {
     const seed = await page.getByTestId('preview-seed').textContent();
     await page.getByRole('button', { name: 'New seed' }).click();
     await expect.poll(() => page.getByTestId('preview-seed').textContent(), POLL).not.toBe(seed);
-    await expect.poll(() => score.getAttribute('aria-busy'), POLL).toBeNull();
+    // Busy, then settled again: the new drill is all up.
+    await expect
+      .poll(
+        () =>
+          page.evaluate(() => (window as unknown as { seen: { settled: boolean } }).seen.settled),
+        POLL,
+      )
+      .toBe(true);
+    expect(await score.getAttribute('aria-busy')).toBeNull();
     const seen = await page.evaluate(
       () => (window as unknown as { seen: { busy: number; dimmed: number } }).seen,
     );
