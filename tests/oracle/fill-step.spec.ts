@@ -14,22 +14,24 @@ import { cardReach } from './tension';
  */
 const SEEDS = Array.from({ length: 20 }, (_, i) => `step-${i}`);
 
+/** A sixteenth groove whose kick fills keep to the eighths, shaped by a tension curve. */
+function eighthKicks(curve: number[]) {
+  return {
+    bars: 4,
+    tempo: 90,
+    voices: ['kick', 'snare', 'hihat'],
+    ostinato: { voice: 'hihat', slots: [0, 2] },
+    fillStep: { kick: 2 },
+    density: 0.4,
+    rules: [
+      { kind: 'backbeat', voice: 'snare', beats: [2, 4] },
+      { kind: 'tension', curve },
+    ],
+  };
+}
+
 const CARDS: [string, Record<string, unknown>][] = [
-  [
-    'eighth kicks under a sixteenth groove with a curve',
-    {
-      bars: 4,
-      tempo: 90,
-      voices: ['kick', 'snare', 'hihat'],
-      ostinato: { voice: 'hihat', slots: [0, 2] },
-      fillStep: { kick: 2 },
-      density: 0.4,
-      rules: [
-        { kind: 'backbeat', voice: 'snare', beats: [2, 4] },
-        { kind: 'tension', curve: [0.1, 0.5, 0.9, 0.1] },
-      ],
-    },
-  ],
+  ['eighth kicks under a sixteenth groove with a curve', eighthKicks([0.1, 0.5, 0.9, 0.1])],
   [
     'kicks on the first and last triplet',
     {
@@ -71,18 +73,7 @@ describe.each(CARDS)('oracle: %s', (_, card) => {
 describe('oracle: a curve the fill step puts out of reach', () => {
   // Kick fills on the eighths alone leave three tensions a bar (the oracle's own count); a curve
   // of four levels is refused, and the same card without the step is not.
-  const card = {
-    bars: 4,
-    tempo: 90,
-    voices: ['kick', 'snare', 'hihat'],
-    ostinato: { voice: 'hihat', slots: [0, 2] },
-    fillStep: { kick: 2 },
-    density: 0.4,
-    rules: [
-      { kind: 'backbeat', voice: 'snare', beats: [2, 4] },
-      { kind: 'tension', curve: [0.2, 0.5, 0.9, 0.1] },
-    ],
-  };
+  const card = eighthKicks([0.2, 0.5, 0.9, 0.1]);
   it('is refused with the step and generated without it', () => {
     const parsed = parseRuleCard(card);
     expect(parsed.fillStep).toEqual({ kick: 2 });
