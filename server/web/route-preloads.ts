@@ -20,6 +20,7 @@ export interface BuildMetafile {
         readonly entryPoint?: string;
         readonly inputs?: Readonly<Record<string, unknown>>;
         readonly imports?: readonly { readonly path: string; readonly kind: string }[];
+        readonly exports?: readonly string[];
       }
     >
   >;

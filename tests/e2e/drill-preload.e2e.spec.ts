@@ -26,7 +26,22 @@ const DEFERRED_ENTRIES = [
   'src/app/drills/playback/playback-panel.ts',
   'src/app/drills/seed-form.ts',
   'src/app/shell/toolbar-actions.ts',
+  // The notation toggles.
+  'node_modules/@angular/material/fesm2022/slide-toggle.mjs',
 ];
+
+/**
+ * What the deferred blocks import: a block's loader fetches a small chunk of no source of its
+ * own that re-exports these, and may run before the score is drawn on a busy machine.
+ */
+const DEFERRED_EXPORTS = new Set([
+  'ExportMenu',
+  'SaveDrillButton',
+  'PlaybackPanel',
+  'SeedForm',
+  'ToolbarActions',
+  'MatSlideToggle',
+]);
 
 /** The served paths of the deferred blocks' chunks, from the build's metafile. */
 function deferredChunks(): string[] {
@@ -44,8 +59,17 @@ function deferredChunks(): string[] {
       entry,
     ).toBe(true);
   }
-  const queue = Object.keys(outputs).filter((file) =>
-    DEFERRED_ENTRIES.some((entry) => holds(file, entry)),
+  const loader = (file: string): boolean => {
+    const output = outputs[file]!;
+    const exports = output.exports ?? [];
+    return (
+      Object.keys(output.inputs ?? {}).length === 0 &&
+      exports.length > 0 &&
+      exports.every((name) => DEFERRED_EXPORTS.has(name))
+    );
+  };
+  const queue = Object.keys(outputs).filter(
+    (file) => DEFERRED_ENTRIES.some((entry) => holds(file, entry)) || loader(file),
   );
   // With what they import: a chunk the score also needs is named by the HTML anyway.
   const files = new Set<string>();
