@@ -112,26 +112,30 @@ describe('authoring journey: card, conflict, pinned bar, saved drill, seed link'
     await page.getByRole('menuitem', { name: 'Tension curve' }).click();
     const curve = rule(page, /Tension curve/);
     const field = curve.getByLabel('Bar 2', { exact: true });
+    await previewSettled(page);
     const before = Number(await field.inputValue());
     const point = curve.locator('circle[data-bar="2"]');
     await point.scrollIntoViewIfNeeded();
-    // The preview may still be settling (its strips fill as they come into view): take the
-    // point's box once it stays put, so the drag starts on the point.
-    let box = (await point.boundingBox())!;
-    await expect
-      .poll(async () => {
-        const now = (await point.boundingBox())!;
-        const still = now.x === box.x && now.y === box.y;
-        box = now;
-        return still;
-      })
-      .toBe(true);
-    await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
-    await page.mouse.down();
-    await page.mouse.move(box.x + box.width / 2, box.y + 40, { steps: 5 });
-    await page.mouse.up();
-    const after = Number(await field.inputValue());
-    expect(after).toBeLessThan(before);
+    // The preview may still be growing as its strips come into view, which moves the rules
+    // below it: start each drag only where a hit test finds the point, and drag again if the
+    // page moved under the pointer before the button went down.
+    const dragDown = async (): Promise<number> => {
+      const box = (await point.boundingBox())!;
+      const x = box.x + box.width / 2;
+      const y = box.y + box.height / 2;
+      const onPoint = await page.evaluate(
+        ([px, py]) => document.elementFromPoint(px!, py!)?.getAttribute('data-bar') === '2',
+        [x, y],
+      );
+      if (onPoint) {
+        await page.mouse.move(x, y);
+        await page.mouse.down();
+        await page.mouse.move(x, y + 40, { steps: 5 });
+        await page.mouse.up();
+      }
+      return Number(await field.inputValue());
+    };
+    await expect.poll(dragDown, { timeout: 10_000 }).toBeLessThan(before);
     await previewSettled(page);
 
     // A linear rule cannot hold with a backbeat on the ostinato's slots (drill contract): the
