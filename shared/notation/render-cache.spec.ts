@@ -391,6 +391,35 @@ describe('a new score put on the page a few systems at a time', () => {
     expect(page.childNodes.length === 1 && page.firstChild === last.svg).toBe(true);
     expect(text(last.svg)).toBe(text(renderNotation(container(), model, SCREENS[0]!).svg));
   });
+  it('starts again in a later system\'s smaller counting, and ends as a full redraw', () => {
+    // Sixteenths, then two bars of thirty-seconds, whose counting must be set smaller on a
+    // narrow line: the first system goes up before the later ones are sized.
+    const card = (subdivision: number) =>
+      parseRuleCard({ ...CARD, bars: 8, subdivision, rules: [], ostinato: undefined });
+    const sixteenths = buildNotation(generateDrill(card(4), 'amber-fox'));
+    const thirtySeconds = buildNotation(generateDrill(card(8), 'copper-wren'));
+    const model: NotationModel = {
+      ...sixteenths,
+      bars: sixteenths.bars.map((bar, i) =>
+        i >= 6 ? { ...thirtySeconds.bars[i]!, bar: bar.bar } : bar,
+      ),
+    };
+    const cache = new EngravingCache();
+    const page = container();
+    renderNotation(page, buildNotation(generateDrill(card(4), 'quiet-river')), {
+      ...SCREENS[0]!,
+      cache,
+    });
+    const early = vi.spyOn(cache, 'showEarly');
+    const steps = notationSteps(page, model, { ...options, systemsFirst: 1, cache });
+    let layout = steps.step();
+    while (layout === null) layout = steps.step();
+    // Shown early in the first size, then again in the smaller one.
+    expect(early).toHaveBeenCalledTimes(2);
+    while (cache.showMore());
+    systems(layout.svg).forEach((group) => group.removeAttribute('id'));
+    expect(text(layout.svg)).toBe(text(renderNotation(container(), model, SCREENS[0]!).svg));
+  });
 });
 
 describe('the engraving in steps', () => {

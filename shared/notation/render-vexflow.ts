@@ -106,7 +106,20 @@ export interface RenderOptions {
    * and lays out every system). All at once by default.
    */
   readonly systemsAtOnce?: number;
+  /**
+   * With `systemsAtOnce`: how many of a score drawn all afresh go onto the page before the rest
+   * is drawn (see `EngravingCache.showEarly`); `systemsAtOnce` by default.
+   */
+  readonly systemsFirst?: number;
 }
+
+/** @internal A pass's counting size, fixed by an earlier pass of the same score (see engrave). */
+interface CountSizeFixed {
+  readonly countSize?: number;
+}
+
+/** What `engrave` ends with: the drawing, or the counting size to draw it again with. */
+type Engraved = NotationLayout | { readonly againWithCountSize: number };
 
 export interface BeatBox {
   readonly beat: number;
@@ -175,10 +188,12 @@ export function renderNotation(
   options: RenderOptions,
 ): NotationLayout {
   return withFastEngraving(() => {
-    const steps = engrave(container, model, options);
+    let steps = engrave(container, model, options);
     for (;;) {
       const step = steps.next();
-      if (step.done) return step.value;
+      if (!step.done) continue;
+      if ('svg' in step.value) return step.value;
+      steps = engrave(container, model, { ...options, countSize: step.value.againWithCountSize });
     }
   });
 }
@@ -195,12 +210,17 @@ export function notationSteps(
   options: RenderOptions,
 ): { step(): NotationLayout | null } {
   const pass = fastEngravingPass();
-  const steps = engrave(container, model, options);
+  let steps = engrave(container, model, options);
   return {
     step: () =>
       pass(() => {
         const next = steps.next();
-        return next.done ? next.value : null;
+        if (!next.done) return null;
+        if ('svg' in next.value) return next.value;
+        // A later system needed smaller counting than the ones shown early: again, in its size.
+        const countSize = next.value.againWithCountSize;
+        steps = engrave(container, model, { ...options, countSize });
+        return null;
       }),
   };
 }
@@ -430,8 +450,8 @@ interface EngravingCacheEntry {
 function* engrave(
   container: HTMLElement,
   model: NotationModel,
-  options: RenderOptions,
-): Generator<void, NotationLayout> {
+  options: RenderOptions & CountSizeFixed,
+): Generator<void, Engraved> {
   // Drawn off the page and attached once, so the page's style and layout are touched once.
   const ctx = new EngravingContext(container.ownerDocument.createElement('div'));
   // No invisible hit areas: nothing here is clicked, and a ghost note's parenthesis gives its
@@ -615,27 +635,43 @@ function* engrave(
     return layout;
   };
   let syllableSize = Math.max(SYLLABLE_SIZE, options.leastTextSize ?? 0);
-  for (const [systemIndex, plan] of plans.entries()) {
-    let sizes = showCounts ? cache?.get('countSizes', systemKeys[systemIndex]!) : [];
+  // A host that puts a new score up a system or two at a time sees its first ones before the
+  // rest is drawn, when they are all drawn afresh (see EngravingCache.showEarly).
+  const early = options.systemsAtOnce ? (options.systemsFirst ?? options.systemsAtOnce) : 0;
+  /** The counting size each system's bars need (formatting them when the cache does not know). */
+  function* countSizes(systemIndex: number): Generator<void, readonly number[]> {
+    const plan = plans[systemIndex]!;
+    const known = showCounts ? cache?.get('countSizes', systemKeys[systemIndex]!) : [];
     // Without a cache every system is formatted here, before any is drawn, as it always was.
-    if (sizes === undefined || !cache) {
-      const staves = formatted(systemIndex);
-      sizes = showCounts
-        ? plan.bars.map((barIndex, i) => countLayout(barIndex, staves[i]!).size)
-        : [];
-      if (showCounts) cache?.set('countSizes', systemKeys[systemIndex]!, sizes);
-      yield;
-    }
-    syllableSize = Math.min(syllableSize, ...sizes);
+    if (known !== undefined && cache) return known;
+    const staves = formatted(systemIndex);
+    const sizes = showCounts
+      ? plan.bars.map((barIndex, i) => countLayout(barIndex, staves[i]!).size)
+      : [];
+    if (showCounts) cache?.set('countSizes', systemKeys[systemIndex]!, sizes);
+    yield;
+    return sizes;
   }
+  // The whole score's counting is set in one size, the smallest its bars need. Where the first
+  // systems go up early, the later ones are sized once those are up; should one need smaller
+  // counting, the pass starts again in that size (the formatting stays cached).
+  const sizedLater = options.countSize === undefined && cache && early > 0 ? early : plans.length;
+  if (options.countSize !== undefined) syllableSize = options.countSize;
+  else
+    for (const systemIndex of plans.keys())
+      if (systemIndex < sizedLater || cache?.get('countSizes', systemKeys[systemIndex]!))
+        syllableSize = Math.min(syllableSize, ...(yield* countSizes(systemIndex)));
   // Every system starts from the same drawing state, so what one system leaves behind (a font,
   // a pen) never makes the next one's cached drawing unusable.
   const systemStart = ctx.drawingState();
-  // A host that puts a new score up a few systems at a time sees its first ones before the rest
-  // is drawn, when they are all drawn afresh (see EngravingCache.showEarly).
-  const early = options.systemsAtOnce ?? 0;
   const fresh: Element[] = [];
   for (const [systemIndex, plan] of plans.entries()) {
+    if (systemIndex === sizedLater) {
+      let least = syllableSize;
+      for (let later = sizedLater; later < plans.length; later++)
+        least = Math.min(least, ...(yield* countSizes(later)));
+      if (least < syllableSize) return { againWithCountSize: least };
+    }
     ctx.setDrawingState(systemStart);
     const drawKey = cache ? `${syllableSize}${systemStart}${systemKeys[systemIndex]}` : '';
     const known = cache?.get('systems', drawKey);

@@ -429,6 +429,7 @@ export class DrillScore {
         const steps = engraver.notationSteps(this.canvas().nativeElement, model, {
           ...this.engravingOptions(lineWidth, shown, own),
           systemsAtOnce: SYSTEMS_A_FRAME,
+          systemsFirst: SYSTEMS_FIRST,
         });
         let slice = performance.now();
         let earlyShown = false;
@@ -446,6 +447,8 @@ export class DrillScore {
           if (early || performance.now() - painted >= FRAME_MS) {
             await nextPaint();
             painted = performance.now();
+            // What the frame queued (input, the page's own messages) goes before the next step.
+            await nextTask();
           } else await nextTask();
           if (!current()) return null;
           slice = performance.now();
@@ -582,8 +585,11 @@ export class DrillScore {
 /** Longest run of engraving steps before the browser gets the main thread back, in ms. */
 const SLICE_MS = 8;
 
-/** Systems of a new score put on the page in one frame (the first frame shows the top ones). */
+/** Systems of a new score put on the page in one frame, once the first is up. */
 const SYSTEMS_A_FRAME = 2;
+
+/** Systems of a new score shown before the rest is drawn: the top one, up soonest. */
+const SYSTEMS_FIRST = 1;
 
 /** Resolves at the next animation frame, before that frame's style and layout. */
 function nextFrame(): Promise<void> {
