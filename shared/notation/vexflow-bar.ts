@@ -43,6 +43,30 @@ const BAR_REST_KEY: Readonly<Record<Layer, string>> = { hands: 'd/5', feet: 'f/4
  */
 export class BarNote extends StaveNote {
   private boxless = false;
+  /** Set during construction, before any field initialiser runs (hence `declare`). */
+  declare private headsBuiltOnce?: boolean;
+
+  constructor(struct: ConstructorParameters<typeof StaveNote>[0]) {
+    notesUnderConstruction++;
+    try {
+      super(struct);
+    } finally {
+      notesUnderConstruction--;
+    }
+  }
+
+  /**
+   * VexFlow's constructor builds the note heads twice: once when it sets the stem direction and
+   * again at its end, from the same keys and direction. The first build is skipped (nothing in
+   * between reads the heads), which was a sixth of engraving a bar.
+   */
+  override reset(): this {
+    if (notesUnderConstruction > 0 && !this.headsBuiltOnce) {
+      this.headsBuiltOnce = true;
+      return this;
+    }
+    return super.reset();
+  }
 
   override getBoundingBox(): BoundingBox {
     return this.boxless ? new BoundingBox(0, 0, 0, 0) : super.getBoundingBox();
@@ -58,6 +82,9 @@ export class BarNote extends StaveNote {
     }
   }
 }
+
+/** How many `BarNote` constructors are running (one; a counter, should one ever nest). */
+let notesUnderConstruction = 0;
 
 export interface EngravedNote {
   readonly note: BarNote;
