@@ -386,24 +386,36 @@ export class EngravingCache {
   }
 
   /**
-   * @internal A pass's first systems, drawn afresh, go onto the page (the drawing in
-   * `container`) before the rest is drawn, each in the place and under the host's name
-   * of the system it replaces; a stand-in takes its place in the new drawing until `update`.
-   * Nothing happens when there is no such drawing or it has fewer systems.
+   * @internal A pass's first systems drawn afresh (from system `first` on, every one above them
+   * kept as it is on the page) go onto the page (the drawing in `container`) before the rest is
+   * drawn, each in the place and under the host's name of the system it replaces; a stand-in
+   * takes its place in the new drawing until `update`. Nothing happens when there is no such
+   * drawing or it has fewer systems.
    */
-  showEarly(container: HTMLElement, parts: readonly Element[]): void {
+  showEarly(container: HTMLElement, parts: readonly Element[], first = 0): void {
     const page = drawingIn(container);
     if (!page) return;
     const old = [...page.children].filter((part) => part.classList.contains(SYSTEM_CLASS));
-    if (old.length < parts.length) return;
+    if (old.length < first + parts.length) return;
     parts.forEach((part, i) => {
+      const replaced = old[first + i]!;
       const stand = part.ownerDocument.createElementNS(part.namespaceURI, 'g');
       part.replaceWith(stand);
       this.early.set(stand, part);
-      if (old[i]!.id && !part.id) part.id = old[i]!.id;
-      old[i]!.replaceWith(part);
+      if (replaced.id && !part.id) part.id = replaced.id;
+      replaced.replaceWith(part);
     });
-    this.shownEarly = parts.length;
+    this.shownEarly = first + parts.length;
+  }
+
+  /** @internal Whether `system`, as kept, is the `index`th system of the drawing on the page. */
+  showsAt(container: HTMLElement, system: DrawnSystem, index: number): boolean {
+    const page = drawingIn(container);
+    if (!page || system.shown?.parentNode !== page) return false;
+    let at = -1;
+    for (const part of page.children)
+      if (part.classList.contains(SYSTEM_CLASS) && ++at === index) return part === system.shown;
+    return false;
   }
   /** The last update's brackets, waiting for its systems (see update). */
   private waitingBrackets: [old: Element, next: Element] | null = null;
@@ -635,8 +647,9 @@ function* engrave(
     return layout;
   };
   let syllableSize = Math.max(SYLLABLE_SIZE, options.leastTextSize ?? 0);
-  // A host that puts a new score up a system or two at a time sees its first ones before the
-  // rest is drawn, when they are all drawn afresh (see EngravingCache.showEarly).
+  // A host that puts a new score up a system or two at a time sees its first new ones before the
+  // rest is drawn, when every system above them is kept as it is on the page (see
+  // EngravingCache.showEarly).
   const early = options.systemsAtOnce ? (options.systemsFirst ?? options.systemsAtOnce) : 0;
   /** The counting size each system's bars need (formatting them when the cache does not know). */
   function* countSizes(systemIndex: number): Generator<void, readonly number[]> {
@@ -655,21 +668,30 @@ function* engrave(
   // The whole score's counting is set in one size, the smallest its bars need. Where the first
   // systems go up early, the later ones are sized once those are up; should one need smaller
   // counting, the pass starts again in that size (the formatting stays cached).
-  const sizedLater = options.countSize === undefined && cache && early > 0 ? early : plans.length;
+  let sizedLater = options.countSize === undefined && cache && early > 0;
   if (options.countSize !== undefined) syllableSize = options.countSize;
   else
     for (const systemIndex of plans.keys())
-      if (systemIndex < sizedLater || cache?.get('countSizes', systemKeys[systemIndex]!))
+      if (!sizedLater || systemIndex < early || cache?.get('countSizes', systemKeys[systemIndex]!))
         syllableSize = Math.min(syllableSize, ...(yield* countSizes(systemIndex)));
   // Every system starts from the same drawing state, so what one system leaves behind (a font,
   // a pen) never makes the next one's cached drawing unusable.
   const systemStart = ctx.drawingState();
   const fresh: Element[] = [];
+  /** The first system of those to show early: every one above it is kept, on the page. */
+  let freshFrom = 0;
+  let showingEarly = cache !== undefined && early > 0;
+  /** The counting size the systems not yet sized need, once the early ones are up. */
+  function* leastLater(): Generator<void, number> {
+    sizedLater = false;
+    let least = syllableSize;
+    for (let later = 0; later < plans.length; later++)
+      least = Math.min(least, ...(yield* countSizes(later)));
+    return least;
+  }
   for (const [systemIndex, plan] of plans.entries()) {
-    if (systemIndex === sizedLater) {
-      let least = syllableSize;
-      for (let later = sizedLater; later < plans.length; later++)
-        least = Math.min(least, ...(yield* countSizes(later)));
+    if (sizedLater && !showingEarly) {
+      const least = yield* leastLater();
       if (least < syllableSize) return { againWithCountSize: least };
     }
     ctx.setDrawingState(systemStart);
@@ -681,6 +703,9 @@ function* engrave(
       // drawing the parts an edit changed.
       const stand = svg.ownerDocument.createElementNS(svg.namespaceURI, 'g');
       reused.set(stand, known);
+      if (showingEarly && fresh.length === 0 && cache!.showsAt(container, known, systemIndex))
+        freshFrom = systemIndex + 1;
+      else showingEarly = false;
       svg.append(stand);
       ctx.setDrawingState(known.after);
       boxes.push(...known.boxes);
@@ -764,9 +789,16 @@ function* engrave(
       instants: [...systemInstants],
       band,
     });
-    if (reused.size === 0 && fresh.push(group) === early && systemIndex < plans.length - 1)
-      cache?.showEarly(container, fresh);
+    if (showingEarly && fresh.push(group) === early) {
+      showingEarly = false;
+      if (systemIndex < plans.length - 1) cache!.showEarly(container, fresh, freshFrom);
+    }
     yield;
+  }
+  if (sizedLater) {
+    // (Every system was kept: none went up early.)
+    const least = yield* leastLater();
+    if (least < syllableSize) return { againWithCountSize: least };
   }
   ctx.openGroup().setAttribute('class', BRACKETS_CLASS);
   drawPolyrhythmBrackets(ctx, model.polyrhythms, instants, beatEnds(boxes), bands);
