@@ -242,6 +242,40 @@ describe('a note the loop carries into bar 1', () => {
     }
   });
 
+  it('writes "sim." on its bracket number\'s line, below the sticking and clear of the notes', () => {
+    // "sim." after the first marked group stands with the group's number, the words that go
+    // with it, not with the sticking above (common practice).
+    let seen = 0;
+    for (const id of ['quintuplets-hihat-1-3-4', 'quintuplets-hihat-1-3-5'])
+      for (const seed of SEEDS) {
+        const doc = drawnDoc(id, seed);
+        for (const simile of doc.querySelectorAll('[data-voice="hands"] .tensile-simile')) {
+          seen++;
+          const where = `${id} ${seed}`;
+          const number = simile.closest('.tensile-tuplet')?.querySelector('.vf-tuplet text');
+          expect(number, where).toBeTruthy();
+          const y = Number(simile.getAttribute('y'));
+          expect(Math.abs(y - Number(number!.getAttribute('y'))), where).toBeLessThanOrEqual(3);
+          measure.font = `italic ${simile.getAttribute('font-size')}px Academico`;
+          const m = measure.measureText(simile.textContent ?? '');
+          const x = Number(simile.getAttribute('x'));
+          const box = {
+            left: x - m.actualBoundingBoxLeft,
+            right: x + m.actualBoundingBoxRight,
+            top: y - m.actualBoundingBoxAscent,
+            bottom: y + m.actualBoundingBoxDescent,
+          };
+          const bar = simile.closest('.tensile-bar')!;
+          const letters = rowBoxes(bar, '.tensile-sticking-row').flat();
+          expect(letters.length, where).toBeGreaterThan(0);
+          for (const letter of letters) expect(box.top, where).toBeGreaterThan(letter.bottom);
+          for (const glyph of [...bar.querySelectorAll('.vf-stavenote text')].map(glyphBox))
+            expect(overlaps(box, glyph), `${where} ${JSON.stringify(glyph)}`).toBe(false);
+        }
+      }
+    expect(seen).toBeGreaterThan(0);
+  });
+
   it('writes nothing where a backbeat is moved early across the bar line', () => {
     // shuffle-kick-upbeats plays the kick one triplet before 1: the last bar leads into the loop.
     for (const seed of SEEDS)

@@ -829,8 +829,8 @@ const STICKING_CLEARANCE = 8;
 /** Height of a tuplet number over its bracket line, and of an accent over a stem's tip. */
 const TUPLET_NUMBER = 12;
 const ACCENT_HEIGHT = 14;
-/** "sim." stands this much higher than its bracket's number (see `drawSimile`). */
-const SIMILE = 14;
+/** The baseline of a hands' bracket's number below its line, where "sim." stands too. */
+const SIMILE_BASELINE = 4;
 
 /**
  * Every shown tuplet bracket of a system on one line: the hands' at the highest, the feet's at
@@ -858,7 +858,7 @@ function highestMark(bars: readonly EngravedBar[], topLineY: number): number {
     }
     for (const t of bar.tuplets)
       if (t.shown && t.layer === 'hands')
-        top = Math.min(top, t.tuplet.getYPosition() - TUPLET_NUMBER - (t.simile ? SIMILE : 0));
+        top = Math.min(top, t.tuplet.getYPosition() - TUPLET_NUMBER);
   }
   return top;
 }
@@ -1223,8 +1223,9 @@ function drawSimile(ctx: SVGContext, tuplet: Tuplet, layer: string): void {
   const notes = tuplet.getNotes();
   const last = notes[notes.length - 1];
   if (!last) return;
-  // Above the hands' bracket (below the feet's), clear of the next beat's accent.
-  const y = tuplet.getYPosition() + (layer === 'hands' ? -12 : 16);
+  // On the line of the bracket's number, as the number's words (common practice), so it reads
+  // with the brackets and not with the sticking above them.
+  const y = tuplet.getYPosition() + (layer === 'hands' ? SIMILE_BASELINE : 16);
   const label = svgText(ctx, 'sim.', last.getTieRightX() + 6, y, 'tensile-simile', {
     size: 13,
     anchor: 'start',
