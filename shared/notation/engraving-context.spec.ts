@@ -81,6 +81,39 @@ describe('withFastEngraving', () => {
     }
   });
 
+  it('keeps its measurements from pass to pass once the page fonts are in, until one loads', () => {
+    const previous = Element.getTextMeasurementCanvas();
+    const { calls, canvas } = countingCanvas();
+    Element.setTextMeasurementCanvas(canvas);
+    // The page's font set, as a browser has it: a status and a "loadingdone" event.
+    const fonts = Object.assign(new EventTarget(), { status: 'loaded' });
+    Object.defineProperty(dom.window.document, 'fonts', { value: fonts, configurable: true });
+    const measuredBy = (pass: () => void) => {
+      calls.length = 0;
+      pass();
+      return calls.length;
+    };
+    const widthOf = () => new Element().setText('\uE0A4').getWidth();
+    const pass = () => withFastEngraving(() => widthOf());
+    try {
+      const width = widthOf();
+      expect(measuredBy(pass)).toBeGreaterThan(0);
+      expect(measuredBy(pass)).toBe(0);
+      expect(withFastEngraving(widthOf)).toBe(width);
+      // A font came in: what was measured before may have changed.
+      fonts.dispatchEvent(new Event('loadingdone'));
+      expect(measuredBy(pass)).toBeGreaterThan(0);
+      expect(measuredBy(pass)).toBe(0);
+      // While fonts are loading, every pass measures for itself.
+      fonts.status = 'loading';
+      expect(measuredBy(pass)).toBeGreaterThan(0);
+      expect(measuredBy(pass)).toBeGreaterThan(0);
+    } finally {
+      delete (dom.window.document as { fonts?: unknown }).fonts;
+      if (previous) Element.setTextMeasurementCanvas(previous);
+    }
+  });
+
   it('hands out equal but separate font and style records, and restores the lookups', () => {
     const { getFontInfo, getStyle } = Metrics;
     const deep = { font: Metrics.getFontInfo('StaveNote'), style: Metrics.getStyle('StaveNote') };

@@ -79,9 +79,9 @@ type MeasuringCanvas = HTMLCanvasElement | OffscreenCanvas;
 
 /**
  * Run `engrave` (synchronous) with VexFlow's default fonts and styles copied shallowly and its
- * text measured through a (font, text) → metrics cache. Everything is put back afterwards and the
- * caches live for this call only, so fonts that finish loading later are measured afresh on the
- * next pass and other VexFlow users see the library unchanged.
+ * text measured through a (font, text) → metrics cache. Everything is put back afterwards, so
+ * other VexFlow users see the library unchanged; the caches live for this call only, except the
+ * text measurements of a page whose fonts have all loaded (see `metricsFor`).
  */
 export function withFastEngraving<T>(engrave: () => T): T {
   return fastEngravingPass()(engrave);
@@ -102,7 +102,8 @@ export function fastEngravingPass(): <T>(step: () => T) => T {
     if (measuring === undefined) {
       const canvas = Element.getTextMeasurementCanvas();
       const context = canvas?.getContext('2d') as CanvasRenderingContext2D | null | undefined;
-      measuring = canvas && context ? { canvas, caching: cachingCanvas(context) } : null;
+      measuring =
+        canvas && context ? { canvas, caching: cachingCanvas(context, metricsFor(canvas)) } : null;
     }
     Metrics.getFontInfo = fastFontInfo;
     Metrics.getStyle = fastStyle;
@@ -141,9 +142,33 @@ function isFlat(value: unknown): boolean {
   return value === undefined || value === null || typeof value !== 'object';
 }
 
+/**
+ * Measurements kept from pass to pass in a page whose fonts have all loaded: a glyph measures the
+ * same until a font loads (which empties them). Elsewhere (a server, fonts still loading) each
+ * pass measures afresh.
+ */
+let settled: { canvas: MeasuringCanvas; metrics: Map<string, TextMetrics> } | null = null;
+let watchingFonts = false;
+
+function metricsFor(canvas: MeasuringCanvas): Map<string, TextMetrics> {
+  const fonts = typeof document === 'undefined' ? undefined : document.fonts;
+  if (!fonts?.addEventListener || fonts.status !== 'loaded') {
+    settled = null;
+    return new Map();
+  }
+  if (!watchingFonts) {
+    watchingFonts = true;
+    fonts.addEventListener('loadingdone', () => (settled = null));
+  }
+  if (settled?.canvas !== canvas) settled = { canvas, metrics: new Map() };
+  return settled.metrics;
+}
+
 /** The slice of a canvas VexFlow uses to measure text: `getContext('2d')`, `font`, `measureText`. */
-function cachingCanvas(real: CanvasRenderingContext2D): MeasuringCanvas {
-  const metrics = new Map<string, TextMetrics>();
+function cachingCanvas(
+  real: CanvasRenderingContext2D,
+  metrics: Map<string, TextMetrics>,
+): MeasuringCanvas {
   let font = real.font;
   const context = {
     get font(): string {
