@@ -120,6 +120,54 @@ describe('rests in two voices on one staff', () => {
     expect(faults).toEqual([]);
     expect(rests).toBeGreaterThan(300);
   });
+
+  // A whole rest hangs from a line, a half rest sits on one (common practice); in two voices the
+  // upper part's whole-bar rest hangs from the fourth line, the lower part's lower, from the
+  // second, so neither reads as the other's half rest.
+  it("hangs a whole-bar rest from a line: the hands' from the fourth, the feet's from the second", () => {
+    const hanging: Record<string, number> = { hands: 0, feet: 0 };
+    // The presets keep the hands busy: a kick groove with a silent snare (invented) has them rest.
+    const quietHands = generateDrill(
+      parseRuleCard({
+        meter: { beats: 4, unit: 4 },
+        bars: 2,
+        subdivision: 4,
+        tempo: 90,
+        voices: ['kick', 'snare'],
+        density: 0,
+        rules: [{ kind: 'backbeat', voice: 'kick', beats: [1, 3] }],
+      }),
+      'still-1',
+    );
+    const docs = [
+      { doc: parse(renderDrillSvg(quietHands).svg), where: 'quiet hands' },
+      ...BUILT_IN_PRESETS.flatMap((preset) =>
+        [...SEEDS, 'cedar-5'].map((seed) => ({
+          doc: drawnDoc(preset.id, seed),
+          where: `${preset.id} ${seed}`,
+        })),
+      ),
+    ];
+    for (const { doc, where: drawn } of docs) {
+      for (const bar of doc.querySelectorAll('.tensile-bar')) {
+        const lines = [...bar.querySelectorAll(':scope > .vf-stave path')]
+          .map((p) => Number(/M[\d.]+ ([\d.]+)/.exec(p.getAttribute('d') ?? '')?.[1]))
+          .sort((a, b) => b - a);
+        for (const voice of ['hands', 'feet'] as const)
+          for (const rest of bar.querySelectorAll(
+            `[data-voice="${voice}"] .tensile-rest[data-duration="1"]`,
+          )) {
+            const box = glyphBox(rest.querySelector('.vf-notehead text')!);
+            const line = lines[voice === 'hands' ? 3 : 1]!;
+            const where = `${drawn} bar ${bar.getAttribute('data-bar')} ${voice}`;
+            expect(Math.abs(box.top - line), where).toBeLessThanOrEqual(1);
+            hanging[voice]!++;
+          }
+      }
+    }
+    expect(hanging['feet']).toBeGreaterThan(0);
+    expect(hanging['hands']).toBeGreaterThan(0);
+  });
 });
 
 describe('triplets in a shuffle', () => {

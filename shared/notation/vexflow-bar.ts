@@ -33,8 +33,8 @@ import type { Layer } from './staff-placement';
 const REST_KEY: Readonly<Record<Layer, string>> = { hands: 'f/5', feet: 'e/4' };
 /** Room an accent takes beyond a stem's tip, in pixels. */
 const ACCENT_ROOM = 8;
-/** A whole rest hangs from the line above its key: the hands' from the top line, the feet's low. */
-const BAR_REST_KEY: Readonly<Record<Layer, string>> = { hands: 'd/5', feet: 'f/4' };
+/** A whole rest hangs from its key's line: the hands' from the fourth line, the feet's from the second. */
+const BAR_REST_KEY: Readonly<Record<Layer, string>> = { hands: 'd/5', feet: 'g/4' };
 
 /**
  * A note that can be drawn without measuring its bounding box: VexFlow measures it on every draw
