@@ -294,34 +294,61 @@ describe('a note the loop carries into bar 1', () => {
     // "sim." after the first marked group stands with the group's number, the words that go
     // with it, not with the sticking above (common practice).
     let seen = 0;
-    for (const id of ['quintuplets-hihat-1-3-4', 'quintuplets-hihat-1-3-5'])
-      for (const seed of SEEDS) {
-        const doc = drawnDoc(id, seed);
-        for (const simile of doc.querySelectorAll('[data-voice="hands"] .tensile-simile')) {
-          seen++;
-          const where = `${id} ${seed}`;
-          const number = simile.closest('.tensile-tuplet')?.querySelector('.vf-tuplet text');
-          expect(number, where).toBeTruthy();
-          const y = Number(simile.getAttribute('y'));
-          expect(Math.abs(y - Number(number!.getAttribute('y'))), where).toBeLessThanOrEqual(3);
-          measure.font = `italic ${simile.getAttribute('font-size')}px Academico`;
-          const m = measure.measureText(simile.textContent ?? '');
-          const x = Number(simile.getAttribute('x'));
-          const box = {
-            left: x - m.actualBoundingBoxLeft,
-            right: x + m.actualBoundingBoxRight,
-            top: y - m.actualBoundingBoxAscent,
-            bottom: y + m.actualBoundingBoxDescent,
-          };
-          const bar = simile.closest('.tensile-bar')!;
-          const letters = rowBoxes(bar, '.tensile-sticking-row').flat();
-          expect(letters.length, where).toBeGreaterThan(0);
-          for (const letter of letters) expect(box.top, where).toBeGreaterThan(letter.bottom);
-          for (const glyph of [...bar.querySelectorAll('.vf-stavenote text')].map(glyphBox))
-            expect(overlaps(box, glyph), `${where} ${JSON.stringify(glyph)}`).toBe(false);
-        }
+    // Quintuplets with the hi-hat on every value (invented), so the hands' groups all count
+    // themselves and "sim." follows the first.
+    const card = parseRuleCard({
+      meter: { beats: 4, unit: 4 },
+      bars: 4,
+      subdivision: 5,
+      tempo: 60,
+      voices: ['kick', 'snare', 'hihat'],
+      ostinato: { voice: 'hihat', slots: [0, 1, 2, 3, 4] },
+      density: 0.2,
+      rules: [{ kind: 'backbeat', voice: 'snare', beats: [2, 4] }],
+    });
+    // And the quintuplet presets at seeds whose later groups all count themselves (after one
+    // with a rest, whose bracket "sim." must clear).
+    const drawings = [
+      ...SEEDS.map((seed) => ({ drill: generateDrill(card, seed), where: `all-five ${seed}` })),
+      ...['quintuplets-hihat-1-3-4', 'quintuplets-hihat-1-3-5'].flatMap((id) =>
+        ['s17', 's25'].map((seed) => ({ drill: drillOf(id, seed), where: `${id} ${seed}` })),
+      ),
+    ];
+    let bracketed = 0;
+    for (const { drill, where: drawn } of drawings) {
+      const doc = parse(renderDrillSvg(drill).svg);
+      for (const simile of doc.querySelectorAll('[data-voice="hands"] .tensile-simile')) {
+        seen++;
+        const where = drawn;
+        const number = simile.closest('.tensile-tuplet')?.querySelector('.vf-tuplet text');
+        expect(number, where).toBeTruthy();
+        const y = Number(simile.getAttribute('y'));
+        expect(Math.abs(y - Number(number!.getAttribute('y'))), where).toBeLessThanOrEqual(3);
+        measure.font = `italic ${simile.getAttribute('font-size')}px Academico`;
+        const m = measure.measureText(simile.textContent ?? '');
+        const x = Number(simile.getAttribute('x'));
+        const box = {
+          left: x - m.actualBoundingBoxLeft,
+          right: x + m.actualBoundingBoxRight,
+          top: y - m.actualBoundingBoxAscent,
+          bottom: y + m.actualBoundingBoxDescent,
+        };
+        const bar = simile.closest('.tensile-bar')!;
+        const letters = rowBoxes(bar, '.tensile-sticking-row').flat();
+        expect(letters.length, where).toBeGreaterThan(0);
+        for (const letter of letters) expect(box.top, where).toBeGreaterThan(letter.bottom);
+        for (const glyph of [...bar.querySelectorAll('.vf-stavenote text')].map(glyphBox))
+          expect(overlaps(box, glyph), `${where} ${JSON.stringify(glyph)}`).toBe(false);
+        const hooks = [...simile.closest('.tensile-tuplet')!.querySelectorAll('.vf-tuplet rect')];
+        if (hooks.length > 0) bracketed++;
+        for (const hook of hooks)
+          expect(box.left, where).toBeGreaterThan(
+            Number(hook.getAttribute('x')) + Number(hook.getAttribute('width')),
+          );
       }
+    }
     expect(seen).toBeGreaterThan(0);
+    expect(bracketed).toBeGreaterThan(0);
   });
 
   it('writes nothing where a backbeat is moved early across the bar line', () => {

@@ -173,9 +173,10 @@ describe('tuplets', () => {
     }
   });
 
-  it('drops a quintuplet drill\'s "5" after "sim." only on groups that count themselves', () => {
+  it('drops a quintuplet drill\'s "5" after "sim." only where no "5" comes back after it', () => {
+    let marked = 0;
     for (const id of ['quintuplets-hihat-1-3-4', 'quintuplets-hihat-1-3-5']) {
-      for (const seed of ['lesson-12', 'cedar-5', 'moss-21']) {
+      for (const seed of ['lesson-12', 'cedar-5', 'moss-21', 's17', 's25']) {
         const bars = buildNotation(generateDrill(parseRuleCard(preset(id).card), seed)).bars;
         for (const name of ['hands', 'feet'] as const) {
           const layers = bars.flatMap((bar) => bar.layers.filter((l) => l.layer === name));
@@ -206,16 +207,24 @@ describe('tuplets', () => {
             ).toBe(true);
             expect(layer.events[next!.events[0]!]!.duration.value, where).toBe(16);
           }
-          // Before "sim." every number is shown.
+          // Before "sim." every number is shown, after it none: a number coming back after
+          // "sim." would contradict it (common practice), so a voice whose later groups do not
+          // all count themselves has no "sim." and every number.
           const at = groups.findIndex(({ t }) => t.simile);
           const before = at < 0 ? groups : groups.slice(0, at);
           expect(
             before.every(({ t }) => t.shown),
             where,
           ).toBe(true);
+          expect(
+            groups.slice(at < 0 ? groups.length : at + 1).every(({ t }) => !t.shown),
+            where,
+          ).toBe(true);
+          if (at >= 0) marked++;
         }
       }
     }
+    expect(marked).toBeGreaterThan(0);
   });
 
   it('keeps the "5" on a kick group with a combined rest, after the hands\' "sim."', () => {

@@ -194,8 +194,10 @@ export function buildNotation(drill: NotationSource): NotationModel {
  * (E. Gould, "Behind Bars", Faber Music 2011, ch. "Tuplets": once a tuplet pattern is
  * established the numbers may be dropped, but only where that is unambiguous; from memory).
  * A group counts itself when it plays all its values one by one (five sixteenth notes): a group
- * with a rest, a combined rest or a longer value reads as plain sixteenths without its "5". "Sim." follows the first group that is followed at once by a
- * group of the voice that counts itself, so it never stands over a plain rest it could be read with. "Sim." rather
+ * with a rest, a combined rest or a longer value reads as plain sixteenths without its "5". So
+ * "sim." follows the first group after which every group of the voice counts itself (and whose
+ * next group follows it in its bar): no number comes back after it, and where the voice's last
+ * group does not count itself there is no "sim." and every group keeps its number. "Sim." rather
  * than a number at the start of each system: the model knows no systems, and the screen, the
  * phone and the page break the same drill differently. Each voice is a part of its own here: a
  * marking over the hands alone would say nothing of the kick. Other drills keep every number,
@@ -206,24 +208,44 @@ function simileTuplets(bars: NotationBar[]): NotationBar[] {
   const tuplet = (first & (first - 1)) !== 0;
   const uniform = bars.every((bar) => bar.beats.every((beat) => beat.subdivision === first));
   if (!tuplet || !uniform) return bars;
-  const marked = new Set<string>();
-  return bars.map((bar) => ({
+  // Per voice, the group "sim." follows (as bar and group): the first after which every group
+  // counts itself, and whose next group is the very next in its bar. None where no group is.
+  const simileAt = new Map<string, string>();
+  for (const layerName of new Set(bars.flatMap((bar) => bar.layers.map((l) => l.layer)))) {
+    const groups = bars.flatMap((bar, b) =>
+      bar.layers
+        .filter((layer) => layer.layer === layerName)
+        .flatMap((layer) =>
+          layer.tuplets.map((tuplet, i) => ({
+            at: `${b}:${i}`,
+            counts: keepsNumber(tuplet) || countsItself(tuplet, layer.events),
+            adjacent:
+              layer.tuplets[i + 1]?.events[0] === tuplet.events[tuplet.events.length - 1]! + 1,
+          })),
+        ),
+    );
+    let from = 0;
+    groups.forEach((group, g) => {
+      if (!group.counts) from = g;
+    });
+    const after = groups.findIndex((group, g) => g >= from && group.adjacent);
+    if (after >= 0) simileAt.set(layerName, groups[after]!.at);
+  }
+  return bars.map((bar, b) => ({
     ...bar,
-    layers: bar.layers.map((layer) => ({
-      ...layer,
-      tuplets: layer.tuplets.map((tuplet, i) => {
-        if (keepsNumber(tuplet)) return tuplet;
-        if (marked.has(layer.layer))
-          return { ...tuplet, shown: !countsItself(tuplet, layer.events), simile: false };
-        const next = layer.tuplets[i + 1];
-        const followed =
-          next !== undefined &&
-          next.events[0] === tuplet.events[tuplet.events.length - 1]! + 1 &&
-          countsItself(next, layer.events);
-        if (followed) marked.add(layer.layer);
-        return { ...tuplet, shown: true, simile: followed };
-      }),
-    })),
+    layers: bar.layers.map((layer) => {
+      const at = simileAt.get(layer.layer);
+      const [simileBar, simileGroup] = at ? at.split(':').map(Number) : [Infinity, Infinity];
+      return {
+        ...layer,
+        tuplets: layer.tuplets.map((tuplet, i) => {
+          if (keepsNumber(tuplet)) return tuplet;
+          const past = b > simileBar! || (b === simileBar && i > simileGroup!);
+          const isSimile = b === simileBar && i === simileGroup;
+          return { ...tuplet, shown: !past, simile: isSimile };
+        }),
+      };
+    }),
   }));
 }
 

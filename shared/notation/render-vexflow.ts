@@ -831,6 +831,8 @@ const TUPLET_NUMBER = 12;
 const ACCENT_HEIGHT = 14;
 /** The baseline of a hands' bracket's number below its line, where "sim." stands too. */
 const SIMILE_BASELINE = 4;
+/** Room before "sim.", after its group's last note or its bracket's end. */
+const SIMILE_GAP = 6;
 
 /**
  * Every shown tuplet bracket of a system on one line: the hands' at the highest, the feet's at
@@ -1221,12 +1223,17 @@ const BRACKET_CLEARANCE = 18;
 /** "sim." after a tuplet bracket, on the bracket's line, italic as performance words are. */
 function drawSimile(ctx: SVGContext, tuplet: Tuplet, layer: string): void {
   const notes = tuplet.getNotes();
+  const first = notes[0];
   const last = notes[notes.length - 1];
-  if (!last) return;
+  if (!first || !last) return;
   // On the line of the bracket's number, as the number's words (common practice), so it reads
-  // with the brackets and not with the sticking above them.
+  // with the brackets and not with the sticking above them; past a bracket's end hook.
   const y = tuplet.getYPosition() + (layer === 'hands' ? SIMILE_BASELINE : 16);
-  const label = svgText(ctx, 'sim.', last.getTieRightX() + 6, y, 'tensile-simile', {
+  const { bracketed } = (tuplet as unknown as { options: { bracketed?: boolean } }).options;
+  const x = bracketed
+    ? first.getTieLeftX() - 5 + tuplet.getWidth() + SIMILE_GAP
+    : last.getTieRightX() + SIMILE_GAP;
+  const label = svgText(ctx, 'sim.', x, y, 'tensile-simile', {
     size: 13,
     anchor: 'start',
   });
