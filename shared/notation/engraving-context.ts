@@ -147,10 +147,13 @@ function isFlat(value: unknown): boolean {
  * same until a font loads (which empties them). Elsewhere (a server, fonts still loading) each
  * pass measures afresh.
  */
-let settled: { canvas: MeasuringCanvas; metrics: Map<string, TextMetrics> } | null = null;
+let settled: { canvas: MeasuringCanvas; metrics: TextMeasures } | null = null;
 let watchingFonts = false;
 
-function metricsFor(canvas: MeasuringCanvas): Map<string, TextMetrics> {
+/** Text measurements by font (as CSS) and text. */
+type TextMeasures = Map<string, Map<string, TextMetrics>>;
+
+function metricsFor(canvas: MeasuringCanvas): TextMeasures {
   const fonts = typeof document === 'undefined' ? undefined : document.fonts;
   if (!fonts?.addEventListener || fonts.status !== 'loaded') {
     settled = null;
@@ -165,25 +168,28 @@ function metricsFor(canvas: MeasuringCanvas): Map<string, TextMetrics> {
 }
 
 /** The slice of a canvas VexFlow uses to measure text: `getContext('2d')`, `font`, `measureText`. */
-function cachingCanvas(
-  real: CanvasRenderingContext2D,
-  metrics: Map<string, TextMetrics>,
-): MeasuringCanvas {
+function cachingCanvas(real: CanvasRenderingContext2D, metrics: TextMeasures): MeasuringCanvas {
   let font = real.font;
+  // The current font's measurements, looked up once per change of font (VexFlow sets the font
+  // before every measurement, mostly to the one it had).
+  let byText: Map<string, TextMetrics> | undefined;
   const context = {
     get font(): string {
       return font;
     },
     set font(value: string) {
+      if (value === font && byText) return;
       font = value;
+      byText = metrics.get(font);
+      if (!byText) metrics.set(font, (byText = new Map()));
     },
     measureText(text: string): TextMetrics {
-      const key = `${font}\u0000${text}`;
-      let measured = metrics.get(key);
+      if (!byText) context.font = font;
+      let measured = byText!.get(text);
       if (measured === undefined) {
         real.font = font;
         measured = real.measureText(text);
-        metrics.set(key, measured);
+        byText!.set(text, measured);
       }
       return measured;
     },
