@@ -422,6 +422,34 @@ describe('a new score put on the page a few systems at a time', () => {
     expect(text(layout.svg)).toBe(text(renderNotation(container(), model, SCREENS[0]!).svg));
   });
 
+  it("puts a bar-a-line score's first system up before its other bars are measured", () => {
+    const cache = new EngravingCache();
+    const page = container();
+    const model = buildNotation(drillOf('copper-wren'));
+    // The drill before has another first bar, so the first system is new.
+    const before = ['amber-fox', 'quiet-river', 'lesson-12', 'moss-21']
+      .map((seed) => buildNotation(drillOf(seed)))
+      .find((other) => JSON.stringify(other.bars[0]) !== JSON.stringify(model.bars[0]));
+    renderNotation(page, before!, { ...options, cache });
+    // (A bar a system on this narrow line.)
+    const full = renderNotation(container(), model, SCREENS[0]!);
+    expect(new Set(full.bars.map((box) => box.system)).size).toBe(model.bars.length);
+    const steps = notationSteps(page, model, { ...options, systemsFirst: 1, cache });
+    // Each bar measured is a step: the first system is up after fewer steps than there are bars.
+    let taken = 1;
+    let layout = steps.step();
+    while (layout === null && cache.shownEarly === 0) {
+      layout = steps.step();
+      taken++;
+    }
+    expect(cache.shownEarly).toBe(1);
+    expect(taken).toBeLessThan(model.bars.length);
+    while (layout === null) layout = steps.step();
+    while (cache.showMore());
+    systems(layout.svg).forEach((group) => group.removeAttribute('id'));
+    expect(text(layout.svg)).toBe(text(full.svg));
+  });
+
   it("starts again in a later system's smaller counting, and ends as a full redraw", () => {
     // Sixteenths, then two bars of thirty-seconds, whose counting must be set smaller on a
     // narrow line: the first system goes up before the later ones are sized.

@@ -39,7 +39,7 @@ import {
   TENSION_LEGEND_HEIGHT,
 } from './tension-marks';
 import { groupingLabel, type NotationBar, type NotationModel } from './notation-model';
-import { planSystems } from './system-layout';
+import { planSystems, type SystemPlan } from './system-layout';
 import {
   barFormatter,
   engraveBar,
@@ -113,13 +113,16 @@ export interface RenderOptions {
   readonly systemsFirst?: number;
 }
 
-/** @internal A pass's counting size, fixed by an earlier pass of the same score (see engrave). */
-interface CountSizeFixed {
+/** @internal What an earlier pass of the same score settled for the next (see engrave). */
+interface PassSettled {
+  /** The counting's size. */
   readonly countSize?: number;
+  /** Every bar measured before any system is drawn. */
+  readonly measureFirst?: boolean;
 }
 
-/** What `engrave` ends with: the drawing, or the counting size to draw it again with. */
-type Engraved = NotationLayout | { readonly againWithCountSize: number };
+/** What `engrave` ends with: the drawing, or what to draw it again with. */
+type Engraved = NotationLayout | { readonly again: PassSettled };
 
 export interface BeatBox {
   readonly beat: number;
@@ -193,7 +196,7 @@ export function renderNotation(
       const step = steps.next();
       if (!step.done) continue;
       if ('svg' in step.value) return step.value;
-      steps = engrave(container, model, { ...options, countSize: step.value.againWithCountSize });
+      steps = engrave(container, model, { ...options, ...step.value.again });
     }
   });
 }
@@ -217,9 +220,9 @@ export function notationSteps(
         const next = steps.next();
         if (!next.done) return null;
         if ('svg' in next.value) return next.value;
-        // A later system needed smaller counting than the ones shown early: again, in its size.
-        const countSize = next.value.againWithCountSize;
-        steps = engrave(container, model, { ...options, countSize });
+        // A later system needed smaller counting than the ones shown early (or the line breaks
+        // differed from the first system's): again, with what this pass found.
+        steps = engrave(container, model, { ...options, ...next.value.again });
         return null;
       }),
   };
@@ -462,7 +465,7 @@ interface EngravingCacheEntry {
 function* engrave(
   container: HTMLElement,
   model: NotationModel,
-  options: RenderOptions & CountSizeFixed,
+  options: RenderOptions & PassSettled,
 ): Generator<void, Engraved> {
   // Drawn off the page and attached once, so the page's style and layout are touched once.
   const ctx = new EngravingContext(container.ownerDocument.createElement('div'));
@@ -509,17 +512,29 @@ function* engrave(
     return bar;
   };
   const tightest: number[] = [];
-  for (let i = 0; i < model.bars.length; i++) {
-    const known = cache?.get('tightest', barKeys[i]!);
-    if (known !== undefined) {
-      tightest.push(known);
-      continue;
+  /** Measures the bars up to `end` (not yet measured). */
+  function* measureUpTo(end: number): Generator<void, void> {
+    for (let i = tightest.length; i < end; i++) {
+      const known = cache?.get('tightest', barKeys[i]!);
+      if (known !== undefined) {
+        tightest.push(known);
+        continue;
+      }
+      engraved(i);
+      tightest.push(measured[i]!);
+      cache?.set('tightest', barKeys[i]!, measured[i]!);
+      yield;
     }
-    engraved(i);
-    tightest.push(measured[i]!);
-    cache?.set('tightest', barKeys[i]!, measured[i]!);
-    yield;
   }
+  // A host that puts a new score up a system or two at a time sees its first new ones before the
+  // rest is drawn, when every system above them is kept as it is on the page (see
+  // EngravingCache.showEarly).
+  const early = options.systemsAtOnce ? (options.systemsFirst ?? options.systemsAtOnce) : 0;
+  // Where the first two bars cannot share a line (a narrow preview, a bar a system) the first
+  // system is the first bar whatever the others measure: it is drawn, and may go up, before
+  // they are measured. The full line breaks must then agree, else the pass starts again.
+  const firstAlone = cache !== undefined && early > 0 && !options.measureFirst;
+  yield* measureUpTo(firstAlone ? Math.min(2, model.bars.length) : model.bars.length);
   const room = {
     note: options.noteRoom ?? NOTE_ROOM,
     count: showCounts ? (options.countRoom ?? COUNT_SLOT_ROOM) : 0,
@@ -528,17 +543,25 @@ function* engrave(
     sticking: options.showSticking ?? false,
     counts: showCounts,
   };
-  const barWidths = model.bars.map((bar, i) => naturalBarWidth(bar, tightest[i]!, model, room));
   const systemStartWidth = systemStartWidths(model);
   // The key has a band of its own above the first system (see legend.ts), so every system,
   // the first too, gives its whole width to the bars.
-  const plans = planSystems({
-    barWidths,
-    minBarWidths: model.bars.map((bar, i) => leastBarWidth(bar, tightest[i]!, model, showCounts)),
-    systemStartWidth,
-    lineWidth: () => options.width - 2 * MARGIN_X,
-    maxBarsPerSystem: options.maxBarsPerSystem ?? 4,
-  });
+  const planMeasured = () =>
+    planSystems({
+      barWidths: tightest.map((w, i) => naturalBarWidth(model.bars[i]!, w, model, room)),
+      minBarWidths: tightest.map((w, i) => leastBarWidth(model.bars[i]!, w, model, showCounts)),
+      systemStartWidth,
+      lineWidth: () => options.width - 2 * MARGIN_X,
+      maxBarsPerSystem: options.maxBarsPerSystem ?? 4,
+    });
+  let plans = planMeasured();
+  // Only the first system is known yet (see firstAlone).
+  let provisional = tightest.length < model.bars.length;
+  if (provisional && plans[0]!.bars.length > 1) {
+    yield* measureUpTo(model.bars.length);
+    plans = planMeasured();
+    provisional = false;
+  } else if (provisional) plans = plans.slice(0, 1);
   // Two hands at once stack their letters: a second line of sticking where the drill has them.
   const stacked = model.bars.some((bar) =>
     bar.beats.some((beat) => beat.sticking.some((s) => s.hands.length > 1)),
@@ -582,17 +605,19 @@ function* engrave(
   const systemTopOf = (systemIndex: number) =>
     head + systemIndex * (systemHeight + gap + separation);
   // Everything a system's drawing is made from besides the counting's size (see EngravingCache).
-  const systemKeys = cache
-    ? plans.map((plan, systemIndex) =>
-        JSON.stringify([
-          systemIndex,
-          systemTopOf(systemIndex),
-          systemHeight,
-          plan.widths,
-          plan.bars.map((barIndex) => barKeys[barIndex]),
-        ]),
-      )
-    : [];
+  const keysOf = (of: readonly SystemPlan[]) =>
+    cache
+      ? of.map((plan, systemIndex) =>
+          JSON.stringify([
+            systemIndex,
+            systemTopOf(systemIndex),
+            systemHeight,
+            plan.widths,
+            plan.bars.map((barIndex) => barKeys[barIndex]),
+          ]),
+        )
+      : [];
+  let systemKeys = keysOf(plans);
   // Every system is formatted before anything is drawn, so the whole score's counting can be set
   // in one size (the smallest its bars need); a system is formatted when first needed.
   const grids = new GridVoices(model.meter);
@@ -647,10 +672,6 @@ function* engrave(
     return layout;
   };
   let syllableSize = Math.max(SYLLABLE_SIZE, options.leastTextSize ?? 0);
-  // A host that puts a new score up a system or two at a time sees its first new ones before the
-  // rest is drawn, when every system above them is kept as it is on the page (see
-  // EngravingCache.showEarly).
-  const early = options.systemsAtOnce ? (options.systemsFirst ?? options.systemsAtOnce) : 0;
   /** The counting size each system's bars need (formatting them when the cache does not know). */
   function* countSizes(systemIndex: number): Generator<void, readonly number[]> {
     const plan = plans[systemIndex]!;
@@ -689,10 +710,24 @@ function* engrave(
       least = Math.min(least, ...(yield* countSizes(later)));
     return least;
   }
-  for (const [systemIndex, plan] of plans.entries()) {
+  for (let systemIndex = 0; systemIndex < plans.length || provisional; systemIndex++) {
+    if (provisional && systemIndex > 0) {
+      // The first system is drawn (and up, where it could go early): now the line breaks.
+      yield* measureUpTo(model.bars.length);
+      const full = planMeasured();
+      const [first, was] = [full[0]!, plans[0]!];
+      if (JSON.stringify([first.bars, first.widths]) !== JSON.stringify([was.bars, was.widths]))
+        return { again: { measureFirst: true, countSize: options.countSize } };
+      plans = full;
+      systemKeys = keysOf(plans);
+      provisional = false;
+      if (systemIndex >= plans.length) break;
+    }
+    const plan = plans[systemIndex]!;
     if (sizedLater && !showingEarly) {
       const least = yield* leastLater();
-      if (least < syllableSize) return { againWithCountSize: least };
+      if (least < syllableSize)
+        return { again: { countSize: least, measureFirst: options.measureFirst } };
     }
     ctx.setDrawingState(systemStart);
     const drawKey = cache ? `${syllableSize}${systemStart}${systemKeys[systemIndex]}` : '';
@@ -791,14 +826,16 @@ function* engrave(
     });
     if (showingEarly && fresh.push(group) === early) {
       showingEarly = false;
-      if (systemIndex < plans.length - 1) cache!.showEarly(container, fresh, freshFrom);
+      if (provisional || systemIndex < plans.length - 1)
+        cache!.showEarly(container, fresh, freshFrom);
     }
     yield;
   }
   if (sizedLater) {
     // (Every system was kept: none went up early.)
     const least = yield* leastLater();
-    if (least < syllableSize) return { againWithCountSize: least };
+    if (least < syllableSize)
+      return { again: { countSize: least, measureFirst: options.measureFirst } };
   }
   ctx.openGroup().setAttribute('class', BRACKETS_CLASS);
   drawPolyrhythmBrackets(ctx, model.polyrhythms, instants, beatEnds(boxes), bands);
