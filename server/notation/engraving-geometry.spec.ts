@@ -64,6 +64,20 @@ function glyphBox(text: Element): Box {
   };
 }
 
+/** The ink box of the renderer's italic words ("sim.", the late-backbeat hint). */
+function italicBox(text: Element): Box {
+  measure.font = `italic ${text.getAttribute('font-size')}px Academico`;
+  const m = measure.measureText(text.textContent ?? '');
+  const x = Number(text.getAttribute('x'));
+  const y = Number(text.getAttribute('y'));
+  return {
+    left: x - m.actualBoundingBoxLeft,
+    right: x + m.actualBoundingBoxRight,
+    top: y - m.actualBoundingBoxAscent,
+    bottom: y + m.actualBoundingBoxDescent,
+  };
+}
+
 const overlaps = (a: Box, b: Box) =>
   a.left < b.right && b.left < a.right && a.top < b.bottom && b.top < a.bottom;
 
@@ -269,16 +283,7 @@ describe('a note the loop carries into bar 1', () => {
       expect(
         bar.querySelector('.tensile-note[data-beat="1"][data-slot="1"][data-instruments~="snare"]'),
       ).not.toBeNull();
-      measure.font = `italic ${hint.getAttribute('font-size')}px Academico`;
-      const m = measure.measureText(hint.textContent ?? '');
-      const x = Number(hint.getAttribute('x'));
-      const y = Number(hint.getAttribute('y'));
-      const box = {
-        left: x - m.actualBoundingBoxLeft,
-        right: x + m.actualBoundingBoxRight,
-        top: y - m.actualBoundingBoxAscent,
-        bottom: y + m.actualBoundingBoxDescent,
-      };
+      const box = italicBox(hint);
       expect(box.top).toBeGreaterThan(0);
       const letters = rowBoxes(bar, '.tensile-sticking-row').flat();
       expect(letters.length).toBeGreaterThan(0);
@@ -324,15 +329,7 @@ describe('a note the loop carries into bar 1', () => {
         expect(number, where).toBeTruthy();
         const y = Number(simile.getAttribute('y'));
         expect(Math.abs(y - Number(number!.getAttribute('y'))), where).toBeLessThanOrEqual(3);
-        measure.font = `italic ${simile.getAttribute('font-size')}px Academico`;
-        const m = measure.measureText(simile.textContent ?? '');
-        const x = Number(simile.getAttribute('x'));
-        const box = {
-          left: x - m.actualBoundingBoxLeft,
-          right: x + m.actualBoundingBoxRight,
-          top: y - m.actualBoundingBoxAscent,
-          bottom: y + m.actualBoundingBoxDescent,
-        };
+        const box = italicBox(simile);
         const bar = simile.closest('.tensile-bar')!;
         const letters = rowBoxes(bar, '.tensile-sticking-row').flat();
         expect(letters.length, where).toBeGreaterThan(0);
