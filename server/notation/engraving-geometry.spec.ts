@@ -48,11 +48,9 @@ interface Box {
   readonly bottom: number;
 }
 
-/** The ink box of a music glyph drawn as `<text>` (VexFlow sets its size in pt). */
-function glyphBox(text: Element): Box {
-  const size = text.getAttribute('font-size') ?? '30pt';
-  const px = size.endsWith('pt') ? (parseFloat(size) * 4) / 3 : parseFloat(size);
-  measure.font = `${px}px Bravura`;
+/** The ink box of a `<text>` measured in `font`. */
+function textBox(text: Element, font: string): Box {
+  measure.font = font;
   const m = measure.measureText(text.textContent ?? '');
   const x = Number(text.getAttribute('x'));
   const y = Number(text.getAttribute('y'));
@@ -64,18 +62,16 @@ function glyphBox(text: Element): Box {
   };
 }
 
+/** The ink box of a music glyph drawn as `<text>` (VexFlow sets its size in pt). */
+function glyphBox(text: Element): Box {
+  const size = text.getAttribute('font-size') ?? '30pt';
+  const px = size.endsWith('pt') ? (parseFloat(size) * 4) / 3 : parseFloat(size);
+  return textBox(text, `${px}px Bravura`);
+}
+
 /** The ink box of the renderer's italic words ("sim.", the late-backbeat hint). */
 function italicBox(text: Element): Box {
-  measure.font = `italic ${text.getAttribute('font-size')}px Academico`;
-  const m = measure.measureText(text.textContent ?? '');
-  const x = Number(text.getAttribute('x'));
-  const y = Number(text.getAttribute('y'));
-  return {
-    left: x - m.actualBoundingBoxLeft,
-    right: x + m.actualBoundingBoxRight,
-    top: y - m.actualBoundingBoxAscent,
-    bottom: y + m.actualBoundingBoxDescent,
-  };
+  return textBox(text, `italic ${text.getAttribute('font-size')}px Academico`);
 }
 
 const overlaps = (a: Box, b: Box) =>
