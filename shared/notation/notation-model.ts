@@ -210,14 +210,14 @@ function simileTuplets(bars: NotationBar[]): NotationBar[] {
   if (!tuplet || !uniform) return bars;
   // Per voice, the group "sim." follows (as bar and group): the first after which every group
   // counts itself, and whose next group is the very next in its bar. None where no group is.
-  const simileAt = new Map<string, string>();
+  const simileAt = new Map<string, { readonly bar: number; readonly group: number }>();
   for (const layerName of new Set(bars.flatMap((bar) => bar.layers.map((l) => l.layer)))) {
     const groups = bars.flatMap((bar, b) =>
       bar.layers
         .filter((layer) => layer.layer === layerName)
         .flatMap((layer) =>
           layer.tuplets.map((tuplet, i) => ({
-            at: `${b}:${i}`,
+            at: { bar: b, group: i },
             counts: keepsNumber(tuplet) || countsItself(tuplet, layer.events),
             adjacent:
               layer.tuplets[i + 1]?.events[0] === tuplet.events[tuplet.events.length - 1]! + 1,
@@ -235,12 +235,12 @@ function simileTuplets(bars: NotationBar[]): NotationBar[] {
     ...bar,
     layers: bar.layers.map((layer) => {
       const at = simileAt.get(layer.layer);
-      const [simileBar, simileGroup] = at ? at.split(':').map(Number) : [Infinity, Infinity];
+      const { bar: simileBar, group: simileGroup } = at ?? { bar: Infinity, group: Infinity };
       return {
         ...layer,
         tuplets: layer.tuplets.map((tuplet, i) => {
           if (keepsNumber(tuplet)) return tuplet;
-          const past = b > simileBar! || (b === simileBar && i > simileGroup!);
+          const past = b > simileBar || (b === simileBar && i > simileGroup);
           const isSimile = b === simileBar && i === simileGroup;
           return { ...tuplet, shown: !past, simile: isSimile };
         }),
